@@ -1,0 +1,74 @@
+// `npm start`: installs what is missing, starts PostgreSQL on loopback, migrates, seeds the demo, builds when the
+// sources changed, starts every process of the product and prints where to go.
+import { randomBytes } from "node:crypto";
+import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync, readdirSync } from "node:fs";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { ensureDependencies, run, stopAll } from "./stack/processes.mjs";
+import { startPostgres, stopPostgres } from "./stack/postgres.mjs";
+import { serviceEnv, startServices } from "./stack/services.mjs";
+import { demoPorts } from "./stack/demo-ports.mjs";
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+process.chdir(root);
+const dataDir = path.join(root, ".data");
+const pgDir = path.join(dataDir, "pg");
+
+function secret() {
+  const file = path.join(dataDir, "auth-secret");
+  if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString("hex"), { mode: 0o600 });
+  return readFileSync(file, "utf8").trim();
+}
+
+function newestSource(dir) {
+  let newest = 0;
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    if (entry.name.startsWith(".") || entry.name === "node_modules") continue;
+    const full = path.join(dir, entry.name);
+    newest = Math.max(newest, entry.isDirectory() ? newestSource(full) : statSync(full).mtimeMs);
+  }
+  return newest;
+}
+
+function needsBuild() {
+  const buildId = path.join(root, ".next", "BUILD_ID");
+  if (!existsSync(buildId)) return true;
+  const built = statSync(buildId).mtimeMs;
+  const sources = ["app", "components", "lib", "db", "public"].filter((d) => existsSync(d)).map((d) => newestSource(path.join(root, d)));
+  const configs = ["package-lock.json", "next.config.mjs", "tailwind.config.ts"].map((f) => statSync(f).mtimeMs);
+  return Math.max(...sources, ...configs) > built;
+}
+
+async function shutdown(code) {
+  console.log("\n[stop] stopping Strutroom…");
+  await stopAll();
+  try { stopPostgres(pgDir); } catch (error) { console.error(String(error)); }
+  process.exit(code);
+}
+
+async function main() {
+  ensureDependencies(root);
+  mkdirSync(dataDir, { recursive: true });
+  const ports = demoPorts();
+  const databaseUrl = await startPostgres({ dataDir: pgDir, port: ports.postgres });
+  const env = serviceEnv({ databaseUrl, ports, secret: secret(), dataDir });
+  for (const step of ["db-migrate.ts", "db-seed.ts"]) {
+    if ((await run("node_modules/.bin/tsx", [`scripts/${step}`], { env })) !== 0) throw new Error(`scripts/${step} failed (see above).`);
+  }
+  if (needsBuild()) {
+    console.log("[setup] building the web app (next build)…");
+    if ((await run("node_modules/.bin/next", ["build"], { env: { ...env, NODE_ENV: "production" } })) !== 0) throw new Error("next build failed (see above).");
+  }
+  await startServices({ env, ports });
+  const accounts = JSON.parse(readFileSync(path.join(root, "db/seed/demo-accounts.json"), "utf8"));
+  console.log(`\nStrutroom is running: open ${env.APP_URL}\n\nDemo sign-ins (password for all: ${accounts.password}):`);
+  for (const account of accounts.users) console.log(`  ${account.role.padEnd(22)} ${account.email}`);
+  console.log("\nPress Ctrl+C to stop everything (PostgreSQL is stopped cleanly; your data stays in .data/).");
+}
+
+process.on("SIGINT", () => shutdown(0));
+process.on("SIGTERM", () => shutdown(0));
+main().catch(async (error) => {
+  console.error(`\n[start] ${error instanceof Error ? error.message : error}`);
+  await shutdown(1);
+});

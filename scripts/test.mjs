@@ -1,0 +1,78 @@
+// `npm test`: the whole suite. Type check, lint, unit tests, integration tests against a throwaway PostgreSQL on a
+// free port (with the local fakes), then a production build served with every process for browser tests in
+// Debian's chromium. Ends with one "N passed, N failed" line summing the vitest suites.
+import { randomBytes } from "node:crypto";
+import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { ensureDependencies, run, stopAll } from "./stack/processes.mjs";
+import { startPostgres, stopPostgres } from "./stack/postgres.mjs";
+import { serviceEnv, startServices } from "./stack/services.mjs";
+import { freePort } from "./stack/ports.mjs";
+import { ensureChromium, ensurePoppler, ensurePostgres } from "./stack/system.mjs";
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+process.chdir(root);
+const artifacts = path.join(root, ".artifacts");
+const runDir = path.join(root, ".data", `test-${process.pid}`);
+const pgDir = path.join(runDir, "pg");
+const tally = { passed: 0, failed: 0, skipped: 0 };
+
+async function step(name, command, args, env = process.env) {
+  console.log(`\n=== ${name} ===`);
+  const code = await run(command, args, { env });
+  if (code !== 0) throw new Error(`${name} failed (exit ${code}).`);
+}
+
+async function vitestProject(project, env) {
+  const report = path.join(artifacts, `vitest-${project}.json`);
+  rmSync(report, { force: true });
+  console.log(`\n=== ${project} tests ===`);
+  const code = await run("node_modules/.bin/vitest", ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${report}`], { env });
+  if (existsSync(report)) {
+    const result = JSON.parse(readFileSync(report, "utf8"));
+    tally.passed += result.numPassedTests;
+    tally.failed += result.numFailedTests;
+    tally.skipped += result.numPendingTests + (result.numTodoTests ?? 0);
+  }
+  if (code !== 0) throw new Error(`${project} tests failed (exit ${code}).`);
+}
+
+async function main() {
+  ensureDependencies(root);
+  ensurePostgres();
+  const chromium = ensureChromium();
+  ensurePoppler();
+  mkdirSync(artifacts, { recursive: true });
+
+  await step("type check", "node_modules/.bin/next", ["typegen"]);
+  await step("type check", "node_modules/.bin/tsc", ["--noEmit"]);
+  await step("lint", "node_modules/.bin/eslint", [".", "--max-warnings=0"]);
+  await vitestProject("unit", process.env);
+
+  const ports = { web: await freePort(), postgres: await freePort(), realtime: await freePort(), s3: await freePort(), smtp: await freePort() };
+  const databaseUrl = await startPostgres({ dataDir: pgDir, port: ports.postgres, throwaway: true });
+  const env = { ...serviceEnv({ databaseUrl, ports, secret: randomBytes(32).toString("hex"), dataDir: runDir }), CHROMIUM_PATH: chromium, ARTIFACTS_DIR: artifacts };
+  await step("migrate", "node_modules/.bin/tsx", ["scripts/db-migrate.ts"], env);
+  await startServices({ env, ports, kinds: ["backing"], quiet: true });
+  await vitestProject("integration", { ...env, NODE_ENV: "test" });
+
+  await step("build", "node_modules/.bin/next", ["build"], env);
+  await step("seed demo", "node_modules/.bin/tsx", ["scripts/db-seed.ts"], env);
+  await startServices({ env, ports, kinds: ["app"], quiet: true });
+  await vitestProject("e2e", { ...env, NODE_ENV: "test", BASE_URL: env.APP_URL });
+}
+
+let exitCode = 0;
+try {
+  await main();
+} catch (error) {
+  console.error(`\n[test] ${error instanceof Error ? error.message : error}`);
+  exitCode = 1;
+} finally {
+  await stopAll();
+  try { stopPostgres(pgDir); } catch (error) { console.error(String(error)); }
+  rmSync(runDir, { recursive: true, force: true });
+}
+console.log(`\n${tally.passed} passed, ${tally.failed} failed${tally.skipped ? `, ${tally.skipped} skipped` : ""}`);
+process.exit(exitCode || (tally.failed > 0 ? 1 : 0));
