@@ -11,6 +11,8 @@ import { demoPorts } from "./stack/demo-ports.mjs";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 process.chdir(root);
+// Next.js would otherwise try to send anonymous telemetry; this machine has no network but the registries.
+process.env.NEXT_TELEMETRY_DISABLED = "1";
 const dataDir = path.join(root, ".data");
 const pgDir = path.join(dataDir, "pg");
 

@@ -13,6 +13,8 @@ import { ensureChromium, ensurePoppler, ensurePostgres } from "./stack/system.mj
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 process.chdir(root);
+// Next.js would otherwise try to send anonymous telemetry; this machine has no network but the registries.
+process.env.NEXT_TELEMETRY_DISABLED = "1";
 const artifacts = path.join(root, ".artifacts");
 const runDir = path.join(root, ".data", `test-${process.pid}`);
 const pgDir = path.join(runDir, "pg");
