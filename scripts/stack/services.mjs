@@ -7,6 +7,18 @@ const bin = (name) => `node_modules/.bin/${name}`;
 
 const SERVICES = [
   {
+    name: "s3",
+    kind: "backing",
+    port: (ports) => ports.s3,
+    command: () => [process.execPath, ["scripts/fakes/s3.mjs"]],
+  },
+  {
+    name: "smtp",
+    kind: "backing",
+    port: (ports) => ports.smtp,
+    command: () => [process.execPath, ["scripts/fakes/smtp.mjs"]],
+  },
+  {
     name: "web",
     kind: "app",
     port: (ports) => ports.web,
@@ -39,6 +51,16 @@ export function serviceEnv({ databaseUrl, ports, secret, dataDir }) {
     REALTIME_URL: `http://127.0.0.1:${ports.realtime}`,
     S3_PORT: String(ports.s3),
     SMTP_PORT: String(ports.smtp),
+    // Object storage and mail: the local fakes above; a hosted deployment sets these to the real services.
+    S3_ENDPOINT: `http://127.0.0.1:${ports.s3}`,
+    S3_REGION: "us-east-1",
+    S3_BUCKET: "strutroom",
+    S3_ACCESS_KEY_ID: "S3RVER",
+    S3_SECRET_ACCESS_KEY: "S3RVER",
+    SMTP_HOST: "127.0.0.1",
+    MAIL_FROM: "Strutroom <no-reply@strutroom.test>",
+    // Says the SMTP server is the local capturing fake, which enables the owners' captured-mail page.
+    MAIL_CAPTURE_LOCAL: "1",
     STRUTROOM_DATA_DIR: dataDir,
   };
 }
