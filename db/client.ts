@@ -1,0 +1,38 @@
+// No "server-only" marker here: scripts (migrate, seed) and the realtime server run this outside Next.js.
+import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
+import { Pool } from "pg";
+import * as schema from "./schema";
+
+export type Database = NodePgDatabase<typeof schema>;
+/** A transaction handle; accepted wherever a query function takes `db`. */
+export type Transaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
+/** Either the database or an open transaction. */
+export type Executor = Database | Transaction;
+
+let pool: Pool | undefined;
+let db: Database | undefined;
+
+/** The one drizzle instance of this process, created on first use from DATABASE_URL. */
+export function getDb(): Database {
+  if (!db) {
+    const connectionString = process.env.DATABASE_URL;
+    if (!connectionString) throw new Error("DATABASE_URL is not set.");
+    pool = new Pool({ connectionString, max: Number(process.env.DATABASE_POOL_MAX ?? 10) });
+    pool.on("error", (error) => console.error("[db] idle client error", error));
+    db = drizzle(pool, { schema, casing: "snake_case" });
+  }
+  return db;
+}
+
+/** Runs fn in one transaction: everything it writes commits together or not at all. */
+export function withTransaction<T>(fn: (tx: Transaction) => Promise<T>): Promise<T> {
+  return getDb().transaction(fn);
+}
+
+/** Closes the pool (scripts and tests call this before exiting). */
+export async function closeDb(): Promise<void> {
+  const current = pool;
+  pool = undefined;
+  db = undefined;
+  await current?.end();
+}

@@ -1,0 +1,110 @@
+import { index, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { ROLES } from "../../lib/permissions";
+
+/** createdAt/updatedAt columns shared by every table. */
+export const timestamps = {
+  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp({ withTimezone: true })
+    .notNull()
+    .defaultNow()
+    .$onUpdate(() => new Date()),
+};
+
+export const projectRole = pgEnum("project_role", ROLES);
+export const DESIGN_STANDARDS = ["AISC360-22", "EN1993-1-1"] as const;
+export const designStandard = pgEnum("design_standard", DESIGN_STANDARDS);
+export const COMBINATION_STANDARDS = ["ASCE7-22", "EN1990"] as const;
+export const combinationStandard = pgEnum("combination_standard", COMBINATION_STANDARDS);
+
+export const users = pgTable("users", {
+  id: uuid().primaryKey().defaultRandom(),
+  // Stored lower-cased (see db/queries/users.ts) so the unique index is case-insensitive in effect.
+  email: text().notNull().unique(),
+  name: text().notNull(),
+  passwordHash: text().notNull(),
+  ...timestamps,
+});
+
+export const organizations = pgTable("organizations", {
+  id: uuid().primaryKey().defaultRandom(),
+  name: text().notNull().unique(),
+  ...timestamps,
+});
+
+export const projects = pgTable(
+  "projects",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    organizationId: uuid()
+      .notNull()
+      .references(() => organizations.id, { onDelete: "cascade" }),
+    name: text().notNull(),
+    description: text().notNull().default(""),
+    designStandard: designStandard().notNull().default("EN1993-1-1"),
+    combinationStandard: combinationStandard().notNull().default("EN1990"),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("projects_organization_name_idx").on(t.organizationId, t.name)],
+);
+
+export const memberships = pgTable(
+  "memberships",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    projectId: uuid()
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    userId: uuid()
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: projectRole().notNull(),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("memberships_project_user_idx").on(t.projectId, t.userId), index("memberships_user_idx").on(t.userId)],
+);
+
+export const invitations = pgTable(
+  "invitations",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    projectId: uuid()
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    email: text().notNull(),
+    role: projectRole().notNull(),
+    // SHA-256 of the token in the join link; the token itself is never stored.
+    tokenHash: text().notNull().unique(),
+    invitedBy: uuid()
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    expiresAt: timestamp({ withTimezone: true }).notNull(),
+    acceptedAt: timestamp({ withTimezone: true }),
+    acceptedBy: uuid().references(() => users.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [index("invitations_project_idx").on(t.projectId)],
+);
+
+export const auditEvents = pgTable(
+  "audit_events",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    projectId: uuid().references(() => projects.id, { onDelete: "cascade" }),
+    actorId: uuid().references(() => users.id, { onDelete: "set null" }),
+    action: text().notNull(),
+    subjectType: text().notNull(),
+    subjectId: text().notNull(),
+    details: jsonb().$type<Record<string, unknown>>().notNull().default({}),
+    ...timestamps,
+  },
+  (t) => [index("audit_events_project_idx").on(t.projectId, t.createdAt)],
+);
+
+export type User = typeof users.$inferSelect;
+export type NewUser = typeof users.$inferInsert;
+export type Organization = typeof organizations.$inferSelect;
+export type Project = typeof projects.$inferSelect;
+export type NewProject = typeof projects.$inferInsert;
+export type Membership = typeof memberships.$inferSelect;
+export type Invitation = typeof invitations.$inferSelect;
+export type AuditEvent = typeof auditEvents.$inferSelect;

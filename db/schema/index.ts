@@ -1,0 +1,2 @@
+// Every table of Strutroom, one file per area; drizzle-kit and db/client.ts read this file.
+export * from "./core";

@@ -1,0 +1,19 @@
+// Applies the committed drizzle-kit migrations in ./drizzle to DATABASE_URL (run by `npm start` and `npm test`).
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { migrate } from "drizzle-orm/node-postgres/migrator";
+import { closeDb, getDb } from "../db/client";
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+
+async function main() {
+  await migrate(getDb(), { migrationsFolder: path.join(root, "drizzle") });
+  console.log("[migrate] database schema is up to date");
+}
+
+main()
+  .catch((error) => {
+    console.error(`[migrate] failed: ${error instanceof Error ? error.message : error}`);
+    process.exitCode = 1;
+  })
+  .finally(closeDb);
