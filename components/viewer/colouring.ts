@@ -1,0 +1,264 @@
+// Pure colour and thickness mapping for members. The mesh layer copies the arrays returned here straight into the
+// instance buffers, so switching result or colouring never rebuilds geometry.
+import { memberLook, palette, utilisationScale, verdictColours } from "./config";
+import type { MemberVerdict, ViewerCaseResult, ViewerMemberReview } from "./types";
+
+export type ColourMode = "forceState" | "magnitude" | "utilisation" | "zeroInAll" | "verdict" | "compare";
+export type ForceState = "tension" | "compression" | "zero";
+export type Rgb = readonly [number, number, number];
+
+export const colourModeLabels: Record<ColourMode, string> = {
+  forceState: "Force state",
+  magnitude: "Axial force (kN)",
+  utilisation: "Utilisation",
+  zeroInAll: "Zero in every case and combination",
+  verdict: "Member verdict",
+  compare: "Change of state between two results",
+};
+
+/** State codes stored per member in a Uint8Array. */
+export const STATE_CODE = { tension: 0, compression: 1, zero: 2 } as const;
+const STATE_BY_CODE: ForceState[] = ["tension", "compression", "zero"];
+
+/** Parses "#rrggbb" into linear-free 0..1 sRGB components. */
+export function hexToRgb(hex: string): Rgb {
+  const value = Number.parseInt(hex.slice(1), 16);
+  return [((value >> 16) & 255) / 255, ((value >> 8) & 255) / 255, (value & 255) / 255];
+}
+
+/** Linear blend of two colours, t = 0 gives a, t = 1 gives b. */
+export function mixRgb(a: Rgb, b: Rgb, t: number): Rgb {
+  const k = Math.min(1, Math.max(0, t));
+  return [a[0] + (b[0] - a[0]) * k, a[1] + (b[1] - a[1]) * k, a[2] + (b[2] - a[2]) * k];
+}
+
+/** Force state of one member: the stored zero-force list decides zero; otherwise the sign (tension positive). */
+export function forceStateOf(force: number, isZero: boolean): ForceState {
+  if (isZero) return "zero";
+  return force > 0 ? "tension" : "compression";
+}
+
+/** Force state code of every member, in member order. */
+export function forceStates(memberIds: readonly string[], result: ViewerCaseResult): Uint8Array {
+  const zero = new Set(result.zeroForceMembers);
+  const states = new Uint8Array(memberIds.length);
+  memberIds.forEach((id, k) => {
+    states[k] = STATE_CODE[forceStateOf(result.memberForces[id] ?? 0, zero.has(id))];
+  });
+  return states;
+}
+
+export interface StateCounts { tension: number; compression: number; zero: number }
+
+/** How many members are in tension, compression and zero-force. */
+export function countStates(states: Uint8Array): StateCounts {
+  const counts: StateCounts = { tension: 0, compression: 0, zero: 0 };
+  for (const code of states) counts[STATE_BY_CODE[code]] += 1;
+  return counts;
+}
+
+/** Largest |N| of a result over the given members (0 when every member is zero). */
+export function maxAbsForce(memberIds: readonly string[], result: ViewerCaseResult): number {
+  let max = 0;
+  for (const id of memberIds) max = Math.max(max, Math.abs(result.memberForces[id] ?? 0));
+  return max;
+}
+
+/** Member radius in model units: thin when zero-force, growing with sqrt(|N|/max) so area tracks force. */
+export function memberRadius(force: number, maxAbs: number, isZero: boolean, unitLength: number): number {
+  if (isZero || maxAbs <= 0) return memberLook.zeroRadius * unitLength;
+  const share = Math.sqrt(Math.min(1, Math.abs(force) / maxAbs));
+  return (memberLook.minRadius + (memberLook.maxRadius - memberLook.minRadius) * share) * unitLength;
+}
+
+/** Diverging scale: compression colour at -max, pale neutral at 0, tension colour at +max. */
+export function divergingColour(force: number, maxAbs: number): Rgb {
+  const neutral = hexToRgb(palette.neutral);
+  if (maxAbs <= 0) return neutral;
+  const t = Math.min(1, Math.abs(force) / maxAbs);
+  return mixRgb(neutral, hexToRgb(force >= 0 ? palette.tension : palette.compression), t);
+}
+
+/** Sequential utilisation scale 0..1, with a separate warning colour above 1. */
+export function utilisationColour(utilisation: number): Rgb {
+  if (utilisation > 1) return hexToRgb(utilisationScale.over);
+  return mixRgb(hexToRgb(utilisationScale.low), hexToRgb(utilisationScale.high), Math.max(0, utilisation));
+}
+
+/** Force-state colour, paled towards white for a low-force member (below the user's threshold). */
+export function stateColour(state: ForceState, lowForce: boolean): Rgb {
+  if (state === "zero") return hexToRgb(palette.zeroForce);
+  const base = hexToRgb(state === "tension" ? palette.tension : palette.compression);
+  return lowForce ? mixRgb([1, 1, 1], base, memberLook.lowForceTint) : base;
+}
+
+export interface LegendEntry { key: string; label: string; colour: string; count: number }
+export interface LegendScale { min: number; max: number; unit: string; fromColour: string; midColour?: string; toColour: string }
+export interface Legend {
+  title: string;
+  resultLabel: string;
+  counts: StateCounts;
+  entries: LegendEntry[];
+  scale?: LegendScale;
+}
+
+export interface AppearanceInput {
+  memberIds: readonly string[];
+  result: ViewerCaseResult;
+  resultLabel: string;
+  mode: ColourMode;
+  unitLength: number;
+  /** |N| below this (kN) and not zero-force: drawn as low-force. 0 turns the tint off. */
+  lowForceThreshold: number;
+  review?: Record<string, ViewerMemberReview>;
+  zeroInAll?: readonly string[];
+  /** The other result for the "compare" colouring. */
+  compareResult?: ViewerCaseResult;
+  compareLabel?: string;
+}
+
+export interface MemberAppearance {
+  colours: Float32Array;
+  radii: Float32Array;
+  /** 1 = drawn in the thin translucent layer. */
+  translucent: Uint8Array;
+  states: Uint8Array;
+  legend: Legend;
+}
+
+const rgbToHex = (rgb: Rgb) =>
+  `#${rgb.map((c) => Math.round(c * 255).toString(16).padStart(2, "0")).join("")}`;
+
+/** Colours, radii and legend for every member under one colouring of one result. */
+export function computeAppearance(input: AppearanceInput): MemberAppearance {
+  const { memberIds, result, mode, unitLength } = input;
+  const count = memberIds.length;
+  const states = forceStates(memberIds, result);
+  const counts = countStates(states);
+  const maxAbs = maxAbsForce(memberIds, result);
+  const colours = new Float32Array(count * 3);
+  const radii = new Float32Array(count);
+  const translucent = new Uint8Array(count);
+  const zeroInAll = new Set(input.zeroInAll ?? []);
+  const compareStates = mode === "compare" && input.compareResult ? forceStates(memberIds, input.compareResult) : null;
+  const tally = new Map<string, number>();
+  const bump = (key: string) => tally.set(key, (tally.get(key) ?? 0) + 1);
+
+  for (let k = 0; k < count; k += 1) {
+    const id = memberIds[k];
+    const force = result.memberForces[id] ?? 0;
+    const state = STATE_BY_CODE[states[k]];
+    const isZero = state === "zero";
+    radii[k] = memberRadius(force, maxAbs, isZero, unitLength);
+    translucent[k] = isZero ? 1 : 0;
+    let colour: Rgb;
+    switch (mode) {
+      case "forceState": {
+        const low = !isZero && Math.abs(force) < input.lowForceThreshold;
+        colour = stateColour(state, low);
+        bump(low ? `low-${state}` : state);
+        break;
+      }
+      case "magnitude":
+        colour = isZero ? hexToRgb(palette.zeroForce) : divergingColour(force, maxAbs);
+        break;
+      case "utilisation": {
+        const u = input.review?.[id]?.utilisation;
+        colour = u == null ? hexToRgb(palette.zeroForce) : utilisationColour(u);
+        bump(u == null ? "none" : u > 1 ? "over" : u >= 0.9 ? "high" : "ok");
+        break;
+      }
+      case "zeroInAll": {
+        const always = zeroInAll.has(id);
+        colour = hexToRgb(always ? palette.zeroForce : palette.member);
+        translucent[k] = always ? 1 : 0;
+        if (always) radii[k] = memberLook.zeroRadius * unitLength;
+        bump(always ? "always" : "some");
+        break;
+      }
+      case "verdict": {
+        const verdict: MemberVerdict | undefined = input.review?.[id]?.verdict;
+        colour = hexToRgb(verdict ? verdictColours[verdict] : palette.zeroForce);
+        translucent[k] = 0;
+        bump(verdict ?? "none");
+        break;
+      }
+      case "compare": {
+        const changed = compareStates !== null && compareStates[k] !== states[k];
+        colour = changed ? stateColour(state, false) : hexToRgb(palette.filteredOut);
+        translucent[k] = changed ? 0 : 1;
+        if (changed) bump(`to-${state}`);
+        else bump("same");
+        break;
+      }
+    }
+    colours.set(colour, k * 3);
+  }
+
+  return { colours, radii, translucent, states, legend: buildLegend(input, counts, tally, maxAbs) };
+}
+
+function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<string, number>, maxAbs: number): Legend {
+  const n = (key: string) => tally.get(key) ?? 0;
+  const base = { title: colourModeLabels[input.mode], resultLabel: input.resultLabel, counts };
+  const hex = (rgb: Rgb) => rgbToHex(rgb);
+  switch (input.mode) {
+    case "forceState": {
+      const entries: LegendEntry[] = [
+        { key: "tension", label: "Tension", colour: palette.tension, count: n("tension") },
+        { key: "compression", label: "Compression", colour: palette.compression, count: n("compression") },
+        { key: "zero", label: "Zero-force", colour: palette.zeroForce, count: n("zero") },
+      ];
+      if (input.lowForceThreshold > 0) {
+        entries.push(
+          { key: "low-tension", label: `Low-force tension (< ${input.lowForceThreshold} kN)`, colour: hex(stateColour("tension", true)), count: n("low-tension") },
+          { key: "low-compression", label: `Low-force compression (< ${input.lowForceThreshold} kN)`, colour: hex(stateColour("compression", true)), count: n("low-compression") },
+        );
+      }
+      return { ...base, entries };
+    }
+    case "magnitude":
+      return {
+        ...base,
+        entries: [{ key: "zero", label: "Zero-force", colour: palette.zeroForce, count: counts.zero }],
+        scale: { min: -maxAbs, max: maxAbs, unit: "kN", fromColour: palette.compression, midColour: palette.neutral, toColour: palette.tension },
+      };
+    case "utilisation":
+      return {
+        ...base,
+        entries: [
+          { key: "ok", label: "Below 0.9", colour: hex(utilisationColour(0.45)), count: n("ok") },
+          { key: "high", label: "0.9 to 1.0", colour: hex(utilisationColour(0.95)), count: n("high") },
+          { key: "over", label: "Over 1.0", colour: utilisationScale.over, count: n("over") },
+          { key: "none", label: "No check", colour: palette.zeroForce, count: n("none") },
+        ],
+        scale: { min: 0, max: 1, unit: "", fromColour: utilisationScale.low, toColour: utilisationScale.high },
+      };
+    case "zeroInAll":
+      return {
+        ...base,
+        entries: [
+          { key: "always", label: "Zero in every case and combination", colour: palette.zeroForce, count: n("always") },
+          { key: "some", label: "Carries force somewhere", colour: palette.member, count: n("some") },
+        ],
+      };
+    case "verdict":
+      return {
+        ...base,
+        entries: (Object.keys(verdictColours) as MemberVerdict[])
+          .map((v): LegendEntry => ({ key: v, label: v.charAt(0).toUpperCase() + v.slice(1), colour: verdictColours[v], count: n(v) }))
+          .concat(n("none") > 0 ? [{ key: "none", label: "No verdict", colour: palette.zeroForce, count: n("none") }] : []),
+      };
+    case "compare":
+      return {
+        ...base,
+        title: `${colourModeLabels.compare}: ${input.compareLabel ?? "?"} → ${input.resultLabel}`,
+        entries: [
+          { key: "to-tension", label: "Now tension", colour: palette.tension, count: n("to-tension") },
+          { key: "to-compression", label: "Now compression", colour: palette.compression, count: n("to-compression") },
+          { key: "to-zero", label: "Now zero-force", colour: palette.zeroForce, count: n("to-zero") },
+          { key: "same", label: "Unchanged", colour: palette.filteredOut, count: n("same") },
+        ],
+      };
+  }
+}

@@ -1,0 +1,54 @@
+// Tunables of the 3D viewer. Colours are the product's own (see the glossary kept with the design notes).
+
+export const palette = {
+  tension: "#0f766e",
+  compression: "#c2410c",
+  zeroForce: "#94a3b8",
+  selection: "#7c3aed",
+  hover: "#a78bfa",
+  neutral: "#f1f5f9",
+  member: "#475569",
+  filteredOut: "#e2e8f0",
+  node: "#1e293b",
+  support: "#334155",
+  load: "#be185d",
+  gridMajor: "#cbd5e1",
+  gridMinor: "#e2e8f0",
+  background: "#f8fafc",
+} as const;
+
+/** Colours for the member verdicts of the review engine. Picked to stay apart for common colour-vision types. */
+export const verdictColours = {
+  "load-bearing": "#334155",
+  stabilising: "#d97706",
+  bracing: "#2563eb",
+  idle: "#db2777",
+} as const;
+
+/** Utilisation ramp: light at 0, deep navy at 1; anything over 1 is drawn in a warning red. */
+export const utilisationScale = { low: "#e2e8f0", high: "#1e3a8a", over: "#b91c1c" } as const;
+
+export const memberLook = {
+  /** Member radius as a fraction of the model's typical member length. */
+  minRadius: 0.012,
+  maxRadius: 0.045,
+  zeroRadius: 0.006,
+  translucentOpacity: 0.35,
+  /** How much of the sign colour a low-force member keeps (the rest is white). */
+  lowForceTint: 0.35,
+  radialSegments: 8,
+} as const;
+
+export const glyphLook = {
+  /** Node sphere radius as a fraction of the typical member length. */
+  nodeRadius: 0.03,
+  supportSize: 0.12,
+  /** Longest load arrow as a fraction of the model's span. */
+  maxLoadArrow: 0.08,
+} as const;
+
+export const cameraLook = {
+  fov: 40,
+  transitionSeconds: 0.6,
+  fitPadding: 1.15,
+} as const;

@@ -1,0 +1,64 @@
+import { describe, expect, it } from "vitest";
+import { forceStates } from "./colouring";
+import { autoDeflectionScale, buildMemberEnds, buildNodeTable, defaultFilters, deflectedPositions, visibleMask } from "./filters";
+import type { MemberGroup } from "./types";
+
+// A one-bay pyramid: four bottom nodes on a 2 m square, one top node 1 m above the centre (hand-made geometry).
+const model = {
+  nodes: [
+    { id: "N1", x: 0, y: 0, z: 0 },
+    { id: "N2", x: 2, y: 0, z: 0 },
+    { id: "N3", x: 2, y: 2, z: 0 },
+    { id: "N4", x: 0, y: 2, z: 0 },
+    { id: "T", x: 1, y: 1, z: 1 },
+  ],
+  members: [
+    { id: "B1", i: "N1", j: "N2", section: "s" },
+    { id: "B2", i: "N2", j: "N3", section: "s" },
+    { id: "D1", i: "N1", j: "T", section: "s" },
+    { id: "D2", i: "N3", j: "T", section: "s" },
+  ],
+};
+const groups: Record<string, MemberGroup> = { B1: "bottom_chord", B2: "bottom_chord", D1: "diagonal", D2: "diagonal" };
+const memberIds = model.members.map((m) => m.id);
+const nodes = buildNodeTable(model);
+const ends = buildMemberEnds(model, nodes);
+const states = forceStates(memberIds, { memberForces: { B1: 5, B2: 0, D1: -3, D2: -3 }, displacements: {}, zeroForceMembers: ["B2"] });
+
+describe("member filters", () => {
+  it("shows everything by default", () => {
+    expect(Array.from(visibleMask({ memberIds, ends, positions: nodes.positions, groups, states, filters: defaultFilters }))).toEqual([1, 1, 1, 1]);
+  });
+
+  it("filters by member group", () => {
+    const filters = { ...defaultFilters, groups: { top_chord: true, bottom_chord: false, diagonal: true } };
+    expect(Array.from(visibleMask({ memberIds, ends, positions: nodes.positions, groups, states, filters }))).toEqual([0, 0, 1, 1]);
+  });
+
+  it("hides zero-force members", () => {
+    const filters = { ...defaultFilters, hideZeroForce: true };
+    expect(Array.from(visibleMask({ memberIds, ends, positions: nodes.positions, groups, states, filters }))).toEqual([1, 0, 1, 1]);
+  });
+
+  it("cuts with a section box by member midpoint", () => {
+    // Midpoints: B1 (1,0,0), B2 (2,1,0), D1 (0.5,0.5,0.5), D2 (1.5,1.5,0.5).
+    const filters = { ...defaultFilters, sectionBox: { min: [0, 0, 0] as [number, number, number], max: [1, 1, 1] as [number, number, number] } };
+    expect(Array.from(visibleMask({ memberIds, ends, positions: nodes.positions, groups, states, filters }))).toEqual([1, 0, 1, 0]);
+  });
+});
+
+describe("deflected shape", () => {
+  const displacements = { T: { ux: 0, uy: 0, uz: -0.01 }, N1: { ux: 0, uy: 0, uz: 0 } };
+
+  it("moves nodes by displacement times scale", () => {
+    const moved = deflectedPositions(nodes, displacements, 50);
+    expect(moved[4 * 3 + 2]).toBeCloseTo(1 - 0.5, 6);
+    expect(moved[0]).toBe(0);
+    expect(deflectedPositions(nodes, displacements, 0)).toEqual(nodes.positions);
+  });
+
+  it("chooses a scale that makes the largest displacement a tenth of the span", () => {
+    // span 2 m, largest displacement 0.01 m → 0.2 / 0.01 = 20.
+    expect(autoDeflectionScale(nodes, displacements)).toBe(20);
+  });
+});

@@ -1,0 +1,118 @@
+// Pure member filters and node-position transforms. The mesh layer hides a member by giving its instance zero
+// scale, so filtering never rebuilds geometry either.
+import { STATE_CODE } from "./colouring";
+import type { MemberGroup, ViewerCaseResult, ViewerModel } from "./types";
+
+export interface SectionBox { min: [number, number, number]; max: [number, number, number] }
+
+export interface MemberFilters {
+  groups: Record<MemberGroup, boolean>;
+  hideZeroForce: boolean;
+  sectionBox: SectionBox | null;
+}
+
+export const defaultFilters: MemberFilters = {
+  groups: { top_chord: true, bottom_chord: true, diagonal: true },
+  hideZeroForce: false,
+  sectionBox: null,
+};
+
+/** Node coordinates packed as [x0, y0, z0, x1, …] in model node order, plus an id → index map. */
+export interface NodeTable { ids: string[]; index: Map<string, number>; positions: Float32Array }
+
+/** Packs node coordinates for fast per-member lookups. */
+export function buildNodeTable(model: Pick<ViewerModel, "nodes">): NodeTable {
+  const positions = new Float32Array(model.nodes.length * 3);
+  const index = new Map<string, number>();
+  model.nodes.forEach((node, k) => {
+    index.set(node.id, k);
+    positions[k * 3] = node.x;
+    positions[k * 3 + 1] = node.y;
+    positions[k * 3 + 2] = node.z;
+  });
+  return { ids: model.nodes.map((n) => n.id), index, positions };
+}
+
+/** Member end node indices packed as [i0, j0, i1, j1, …]. */
+export function buildMemberEnds(model: Pick<ViewerModel, "members">, nodes: NodeTable): Int32Array {
+  const ends = new Int32Array(model.members.length * 2);
+  model.members.forEach((member, k) => {
+    ends[k * 2] = nodes.index.get(member.i) ?? -1;
+    ends[k * 2 + 1] = nodes.index.get(member.j) ?? -1;
+  });
+  return ends;
+}
+
+/** Node positions moved by the displacements times `scale` (scale 0 gives the undeformed shape). */
+export function deflectedPositions(nodes: NodeTable, displacements: ViewerCaseResult["displacements"], scale: number): Float32Array {
+  const out = Float32Array.from(nodes.positions);
+  if (scale === 0) return out;
+  nodes.ids.forEach((id, k) => {
+    const d = displacements[id];
+    if (!d) return;
+    out[k * 3] += d.ux * scale;
+    out[k * 3 + 1] += d.uy * scale;
+    out[k * 3 + 2] += d.uz * scale;
+  });
+  return out;
+}
+
+/** A deflection scale that makes the largest displacement a tenth of the model's span (1 when nothing moves). */
+export function autoDeflectionScale(nodes: NodeTable, displacements: ViewerCaseResult["displacements"]): number {
+  let maxDisp = 0;
+  for (const id of nodes.ids) {
+    const d = displacements[id];
+    if (d) maxDisp = Math.max(maxDisp, Math.hypot(d.ux, d.uy, d.uz));
+  }
+  if (maxDisp === 0) return 1;
+  const span = modelSpan(nodes.positions);
+  return Math.round((span * 0.1) / maxDisp);
+}
+
+/** Largest extent of the node cloud along x, y or z. */
+export function modelSpan(positions: Float32Array): number {
+  const min = [Infinity, Infinity, Infinity];
+  const max = [-Infinity, -Infinity, -Infinity];
+  for (let k = 0; k < positions.length; k += 3) {
+    for (let a = 0; a < 3; a += 1) {
+      min[a] = Math.min(min[a], positions[k + a]);
+      max[a] = Math.max(max[a], positions[k + a]);
+    }
+  }
+  return positions.length ? Math.max(max[0] - min[0], max[1] - min[1], max[2] - min[2]) : 0;
+}
+
+function insideBox(box: SectionBox, x: number, y: number, z: number): boolean {
+  return x >= box.min[0] && x <= box.max[0] && y >= box.min[1] && y <= box.max[1] && z >= box.min[2] && z <= box.max[2];
+}
+
+export interface VisibilityInput {
+  memberIds: readonly string[];
+  ends: Int32Array;
+  positions: Float32Array;
+  /** Group per member id (top/bottom chord, diagonal); a member with no group is always shown by group. */
+  groups: Record<string, MemberGroup>;
+  states: Uint8Array;
+  filters: MemberFilters;
+}
+
+/** 1 for each member that passes every filter (group, zero-force, section box by the member's midpoint). */
+export function visibleMask(input: VisibilityInput): Uint8Array {
+  const { memberIds, ends, positions, groups, states, filters } = input;
+  const mask = new Uint8Array(memberIds.length);
+  for (let k = 0; k < memberIds.length; k += 1) {
+    const group = groups[memberIds[k]];
+    if (group && !filters.groups[group]) continue;
+    if (filters.hideZeroForce && states[k] === STATE_CODE.zero) continue;
+    if (filters.sectionBox) {
+      const a = ends[k * 2] * 3;
+      const b = ends[k * 2 + 1] * 3;
+      const mx = (positions[a] + positions[b]) / 2;
+      const my = (positions[a + 1] + positions[b + 1]) / 2;
+      const mz = (positions[a + 2] + positions[b + 2]) / 2;
+      if (!insideBox(filters.sectionBox, mx, my, mz)) continue;
+    }
+    mask[k] = 1;
+  }
+  return mask;
+}

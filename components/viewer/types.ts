@@ -1,0 +1,37 @@
+// What the viewer reads from a model, its analysis and its review. Kept narrow on purpose: the full types live in
+// lib/analysis and lib/review; these aliases are the subset the drawing code depends on.
+
+export interface ViewerNode { id: string; x: number; y: number; z: number }
+export interface ViewerMember { id: string; i: string; j: string; section: string }
+export interface ViewerSupport { node: string; ux: boolean; uy: boolean; uz: boolean }
+export interface ViewerNodalLoad { node: string; fx: number; fy: number; fz: number }
+export interface ViewerLoadCase { id: string; name: string; category?: string; selfWeight?: boolean; nodalLoads: ViewerNodalLoad[] }
+export interface ViewerCombination { id: string; name: string; factors: Record<string, number> }
+
+export interface ViewerModel {
+  name: string;
+  nodes: ViewerNode[];
+  members: ViewerMember[];
+  supports: ViewerSupport[];
+  loadCases: ViewerLoadCase[];
+  combinations: ViewerCombination[];
+}
+
+export interface ViewerCaseResult {
+  memberForces: Record<string, number>;
+  displacements: Record<string, { ux: number; uy: number; uz: number }>;
+  zeroForceMembers: string[];
+}
+
+export interface ViewerAnalysis {
+  status: "ok" | "unstable";
+  results: Record<string, ViewerCaseResult>;
+  envelope?: Record<string, { maxTension: number; maxCompression: number; zeroInAll: boolean }>;
+  zeroInAll?: string[];
+}
+
+export type MemberGroup = "top_chord" | "bottom_chord" | "diagonal";
+export type MemberVerdict = "load-bearing" | "stabilising" | "bracing" | "idle";
+
+/** Per-member review numbers the colourings need (utilisation and verdict), keyed by member id. */
+export interface ViewerMemberReview { verdict: MemberVerdict; utilisation: number | null }

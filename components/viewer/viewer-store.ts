@@ -1,0 +1,106 @@
+// The viewer's fast-changing state, outside React. Other layers and the live-session follower use it:
+//   useViewerStore.getState().selectMember("M12")            select (null clears)
+//   useViewerStore.getState().setCameraPose(pose, { animate }) move the camera (presenter following)
+//   useViewerStore.getState().flyTo([x, y, z])                 aim the camera at a point, keeping the distance
+//   useViewerStore.subscribe((s) => s.cameraPose, (pose) => …) hear camera moves (updated while the camera moves)
+//   useViewerStore.subscribe((s) => s.selectedMemberId, …)     hear selection changes
+// Components read it with selectors (`useViewerStore((s) => s.colourMode)`); per-frame code uses getState().
+import { create } from "zustand";
+import { subscribeWithSelector } from "zustand/middleware";
+import type { ColourMode, Legend } from "./colouring";
+import { defaultFilters, type MemberFilters } from "./filters";
+
+export type Vec3 = [number, number, number];
+export interface CameraPose { position: Vec3; target: Vec3 }
+export type CameraPreset = "plan" | "elevationSouth" | "elevationEast" | "isometric";
+
+/** What the camera rig registers so that actions here can drive the real camera. */
+export interface CameraController {
+  getPose(): CameraPose;
+  setPose(pose: CameraPose, animate: boolean): void;
+  flyTo(point: Vec3): void;
+  preset(name: CameraPreset): void;
+  fit(): void;
+  /** Renders the current view once and returns it as a PNG data URL. */
+  exportPng(): string;
+}
+
+export interface DeflectionSettings { enabled: boolean; scale: number }
+
+export interface ViewerState {
+  selectedMemberId: string | null;
+  hoveredMemberId: string | null;
+  resultId: string | null;
+  compareResultId: string | null;
+  colourMode: ColourMode;
+  lowForceThreshold: number;
+  filters: MemberFilters;
+  deflection: DeflectionSettings;
+  cameraPose: CameraPose | null;
+  legend: Legend | null;
+  controller: CameraController | null;
+
+  selectMember(id: string | null): void;
+  hoverMember(id: string | null): void;
+  setResult(id: string): void;
+  setCompareResult(id: string | null): void;
+  setColourMode(mode: ColourMode): void;
+  setLowForceThreshold(kN: number): void;
+  setFilters(patch: Partial<MemberFilters>): void;
+  setDeflection(patch: Partial<DeflectionSettings>): void;
+  setCameraPose(pose: CameraPose, options?: { animate?: boolean }): void;
+  flyTo(point: Vec3): void;
+  applyPreset(name: CameraPreset): void;
+  fitToView(): void;
+  exportPng(): string | null;
+  /** Called by the camera rig; also records where the camera is now. */
+  registerController(controller: CameraController | null): void;
+  /** Called by the camera rig whenever the camera moves. */
+  reportCameraPose(pose: CameraPose): void;
+  setLegend(legend: Legend): void;
+  /** Back to defaults when another revision is opened. */
+  reset(resultId: string | null): void;
+}
+
+const initial = {
+  selectedMemberId: null,
+  hoveredMemberId: null,
+  compareResultId: null,
+  colourMode: "forceState" as ColourMode,
+  lowForceThreshold: 0,
+  filters: defaultFilters,
+  deflection: { enabled: false, scale: 0 },
+  legend: null,
+};
+
+export const useViewerStore = create<ViewerState>()(
+  subscribeWithSelector((set, get) => ({
+    ...initial,
+    resultId: null,
+    cameraPose: null,
+    controller: null,
+    selectMember: (id) => set({ selectedMemberId: id }),
+    hoverMember: (id) => {
+      if (get().hoveredMemberId !== id) set({ hoveredMemberId: id });
+    },
+    setResult: (id) => set({ resultId: id }),
+    setCompareResult: (id) => set({ compareResultId: id }),
+    setColourMode: (mode) => set({ colourMode: mode }),
+    setLowForceThreshold: (kN) => set({ lowForceThreshold: Math.max(0, kN) }),
+    setFilters: (patch) => set({ filters: { ...get().filters, ...patch } }),
+    setDeflection: (patch) => set({ deflection: { ...get().deflection, ...patch } }),
+    setCameraPose: (pose, options) => {
+      const controller = get().controller;
+      if (controller) controller.setPose(pose, options?.animate ?? true);
+      else set({ cameraPose: pose });
+    },
+    flyTo: (point) => get().controller?.flyTo(point),
+    applyPreset: (name) => get().controller?.preset(name),
+    fitToView: () => get().controller?.fit(),
+    exportPng: () => get().controller?.exportPng() ?? null,
+    registerController: (controller) => set({ controller, ...(controller ? { cameraPose: controller.getPose() } : {}) }),
+    reportCameraPose: (pose) => set({ cameraPose: pose }),
+    setLegend: (legend) => set({ legend }),
+    reset: (resultId) => set({ ...initial, resultId }),
+  })),
+);
