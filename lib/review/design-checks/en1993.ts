@@ -1,0 +1,96 @@
+// EN 1993-1-1 axial checks for tube truss members: 6.2.3 tension and 6.3.1 flexural buckling.
+import { finish } from "./aisc360";
+import type { AxialCheck, CalcStep, ChsFabrication, MemberDesignInput } from "./types";
+import { sig, toMm, toMm2, toMPa } from "./units";
+
+/** Recommended partial factors (EN 1993-1-1 6.1 NOTE 2B). */
+export const EN_GAMMA_M0 = 1.0;
+export const EN_GAMMA_M1 = 1.0;
+/**
+ * EN 1993-1-1 sets no slenderness limit. Common practice (not a Eurocode rule; the BS 5950-1 4.7.3.2 limits,
+ * quoted from memory): λ ≤ 180 for members carrying compression from loads other than wind, 350 for ties.
+ */
+export const EN_COMPRESSION_SLENDERNESS_LIMIT = 180;
+export const EN_TENSION_SLENDERNESS_LIMIT = 350;
+
+export type BucklingCurve = "a0" | "a" | "b" | "c" | "d";
+
+/** Imperfection factor α per buckling curve (Table 6.1). */
+export const IMPERFECTION_FACTOR: Record<BucklingCurve, number> = { a0: 0.13, a: 0.21, b: 0.34, c: 0.49, d: 0.76 };
+
+/** Table 6.2 for hollow sections: hot finished curve a (a0 for S460), cold formed curve c. fy in kPa. */
+export function chsBucklingCurve(fabrication: ChsFabrication, fy: number): BucklingCurve {
+  if (fabrication === "cold-formed") return "c";
+  return fy >= 460_000 ? "a0" : "a";
+}
+
+/** Reduction factor χ for non-dimensional slenderness λ̄ (6.49): Φ = 0.5[1 + α(λ̄ − 0.2) + λ̄²]. */
+export function reductionFactor(lambdaBar: number, curve: BucklingCurve) {
+  const alpha = IMPERFECTION_FACTOR[curve];
+  const phi = 0.5 * (1 + alpha * (lambdaBar - 0.2) + lambdaBar ** 2);
+  const chi = Math.min(1, 1 / (phi + Math.sqrt(phi ** 2 - lambdaBar ** 2)));
+  return { alpha, phi, chi };
+}
+
+/** 6.2.3 tension: Npl,Rd = A·fy/γM0, in kN. */
+export function enTension(input: MemberDesignInput, force: number): AxialCheck {
+  const resistance = (input.area * input.fy) / EN_GAMMA_M0;
+  const slenderness = input.length / input.radiusOfGyration;
+  const steps: CalcStep[] = [
+    { label: "Area A", value: sig(toMm2(input.area)), unit: "mm²" },
+    { label: "Yield strength fy", value: sig(toMPa(input.fy)), unit: "MPa" },
+    { label: "γM0 (recommended)", value: EN_GAMMA_M0, unit: "–" },
+    { label: "Plastic resistance Npl,Rd", expression: "A·fy/γM0 (6.6)", value: sig(resistance), unit: "kN" },
+    { label: "Slenderness L/i", value: sig(slenderness, 4), unit: "–" },
+  ];
+  const warnings: string[] = [];
+  if (slenderness > EN_TENSION_SLENDERNESS_LIMIT) {
+    warnings.push(`L/i = ${sig(slenderness, 4)} exceeds 350 (common-practice limit for ties; EN 1993-1-1 sets none).`);
+  }
+  return finish("tension", force, resistance, "EN 1993-1-1 6.2.3 tension", steps, warnings);
+}
+
+/** 6.3.1 flexural buckling: Nb,Rd = χ·A·fy/γM1 with the CHS curve of Table 6.2, in kN. */
+export function enCompression(input: MemberDesignInput, force: number, curve = chsBucklingCurve(input.fabrication, input.fy)): AxialCheck {
+  const Lcr = input.effectiveLengthFactor * input.length;
+  const slenderness = Lcr / input.radiusOfGyration;
+  const Ncr = (Math.PI ** 2 * input.E * input.area * input.radiusOfGyration ** 2) / Lcr ** 2;
+  const lambdaBar = Math.sqrt((input.area * input.fy) / Ncr);
+  const { alpha, phi, chi } = reductionFactor(lambdaBar, curve);
+  // 6.3.1.2(4): buckling may be ignored for λ̄ ≤ 0.2 or NEd/Ncr ≤ 0.04; only the cross-section check remains.
+  const ignoreBuckling = lambdaBar <= 0.2 || Math.abs(force) / Ncr <= 0.04;
+  const chiUsed = ignoreBuckling ? 1 : chi;
+  const resistance = (chiUsed * input.area * input.fy) / (ignoreBuckling ? EN_GAMMA_M0 : EN_GAMMA_M1);
+  const steps: CalcStep[] = [
+    { label: "Area A", value: sig(toMm2(input.area)), unit: "mm²" },
+    { label: "Yield strength fy", value: sig(toMPa(input.fy)), unit: "MPa" },
+    { label: "Modulus E", value: sig(toMPa(input.E)), unit: "MPa" },
+    { label: "Member length L", value: sig(input.length), unit: "m" },
+    { label: "Effective length factor", value: input.effectiveLengthFactor, unit: "–" },
+    { label: "Buckling length Lcr", value: sig(Lcr), unit: "m" },
+    { label: "Radius of gyration i", value: sig(toMm(input.radiusOfGyration)), unit: "mm" },
+    { label: "Slenderness Lcr/i", value: sig(slenderness, 4), unit: "–" },
+    { label: "Elastic critical force Ncr", expression: "π²·E·A·i²/Lcr²", value: sig(Ncr), unit: "kN" },
+    { label: "Non-dimensional slenderness λ̄", expression: "√(A·fy/Ncr) (6.50)", value: sig(lambdaBar, 4), unit: "–" },
+    { label: "Buckling curve", expression: `Table 6.2, ${input.fabrication} hollow section`, value: curve, unit: "–" },
+    { label: "Imperfection factor α", expression: "Table 6.1", value: alpha, unit: "–" },
+    { label: "Φ", expression: "0.5·[1 + α(λ̄ − 0.2) + λ̄²]", value: sig(phi, 4), unit: "–" },
+    ignoreBuckling
+      ? { label: "Reduction factor χ", expression: "buckling ignored: λ̄ ≤ 0.2 or NEd/Ncr ≤ 0.04 (6.3.1.2(4))", value: 1, unit: "–" }
+      : { label: "Reduction factor χ", expression: "1/(Φ + √(Φ² − λ̄²)) ≤ 1 (6.49)", value: sig(chi, 4), unit: "–" },
+    ignoreBuckling
+      ? { label: "Resistance Nc,Rd", expression: "A·fy/γM0 (6.10)", value: sig(resistance), unit: "kN" }
+      : { label: "Buckling resistance Nb,Rd", expression: "χ·A·fy/γM1 (6.47), γM1 = 1.0", value: sig(resistance), unit: "kN" },
+  ];
+  const warnings: string[] = [];
+  if (slenderness > EN_COMPRESSION_SLENDERNESS_LIMIT) {
+    warnings.push(`Lcr/i = ${sig(slenderness, 4)} exceeds 180 (common-practice limit for compression members; EN 1993-1-1 sets none).`);
+  }
+  if (input.outerDiameter && input.wallThickness) {
+    // Table 5.2 (limit from memory): CHS class 3 when d/t ≤ 90·ε², ε² = 235/fy.
+    const ratio = input.outerDiameter / input.wallThickness;
+    const limit = 90 * (235 / toMPa(input.fy));
+    if (ratio > limit) warnings.push(`d/t = ${sig(ratio, 4)} exceeds 90·ε² = ${sig(limit, 4)}: class 4 section, effective area not checked here.`);
+  }
+  return finish("compression", force, resistance, "EN 1993-1-1 6.3.1 flexural buckling", steps, warnings);
+}
