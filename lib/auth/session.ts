@@ -1,0 +1,21 @@
+import "server-only";
+import { getServerSession } from "next-auth";
+import { redirect } from "next/navigation";
+import { authOptions } from "./options";
+import type { SessionUser } from "./session-cookie";
+
+export { getRequestUser, verifySessionCookie, type SessionUser } from "./session-cookie";
+
+/** The signed-in user in a server component or server action, or null. */
+export async function getSessionUser(): Promise<SessionUser | null> {
+  const session = await getServerSession(authOptions);
+  const user = session?.user;
+  return user?.id ? { id: user.id, email: user.email, name: user.name } : null;
+}
+
+/** The signed-in user for a page; signed-out visitors are sent to the sign-in page. */
+export async function requirePageUser(callbackUrl: string): Promise<SessionUser> {
+  const user = await getSessionUser();
+  if (!user) redirect(`/sign-in?callbackUrl=${encodeURIComponent(callbackUrl)}`);
+  return user;
+}

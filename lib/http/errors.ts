@@ -1,0 +1,85 @@
+// The one error module: error kinds → HTTP status and the message users see. Nothing else is echoed.
+import type { ZodError } from "zod";
+
+export type Issue = { path: string; message: string };
+
+/** An error the user may see, with its HTTP status and optional per-field issues. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly issues?: Issue[],
+  ) {
+    super(message);
+    this.name = "HttpError";
+  }
+}
+
+export class UnauthorizedError extends HttpError {
+  constructor(message = "Sign in to continue.") {
+    super(401, message);
+  }
+}
+
+export class ForbiddenError extends HttpError {
+  constructor(message = "Your role on this project does not allow this.") {
+    super(403, message);
+  }
+}
+
+export class NotFoundError extends HttpError {
+  constructor(message = "Not found.") {
+    super(404, message);
+  }
+}
+
+export class ValidationError extends HttpError {
+  constructor(issues: Issue[], message = "Some fields need attention.") {
+    super(400, message, issues);
+  }
+}
+
+/** A request that conflicts with what is stored (duplicate e-mail, last owner, …). */
+export class ConflictError extends HttpError {
+  constructor(message: string, issues?: Issue[]) {
+    super(409, message, issues);
+  }
+}
+
+/** Something that existed but can no longer be used (an accepted or expired invitation). */
+export class GoneError extends HttpError {
+  constructor(message: string) {
+    super(410, message);
+  }
+}
+
+/** zod issues as `{ path: "a.b", message }`, the shape forms put beside their fields. */
+export function issuesFrom(error: ZodError): Issue[] {
+  return error.issues.map((issue) => ({ path: issue.path.map(String).join("."), message: issue.message }));
+}
+
+/** The JSON body and status for any thrown value; unknown errors are logged and answered with a plain 500. */
+export function errorBody(error: unknown): { status: number; body: { error: string; issues?: Issue[] } } {
+  if (error instanceof HttpError) {
+    return { status: error.status, body: error.issues ? { error: error.message, issues: error.issues } : { error: error.message } };
+  }
+  console.error("[strutroom] unexpected error", error);
+  return { status: 500, body: { error: "Something went wrong on our side. Please try again." } };
+}
+
+/** A JSON error response `{ error, issues? }` for any thrown value. */
+export function jsonError(error: unknown): Response {
+  const { status, body } = errorBody(error);
+  return Response.json(body, { status });
+}
+
+/** Wraps a route handler so every thrown error becomes a JSON error response (never a stack trace). */
+export function handleRoute<Context>(handler: (request: Request, context: Context) => Promise<Response>) {
+  return async (request: Request, context: Context): Promise<Response> => {
+    try {
+      return await handler(request, context);
+    } catch (error) {
+      return jsonError(error);
+    }
+  };
+}

@@ -1,0 +1,5 @@
+// Route params schemas shared by route handlers and pages.
+import { z } from "zod";
+
+export const projectParamsSchema = z.object({ projectId: z.uuid() });
+export const tokenParamsSchema = z.object({ token: z.string().min(20).max(200) });
