@@ -1,0 +1,80 @@
+"use client";
+// Orbit / pan / zoom with drei's CameraControls, z up. Registers a controller in the viewer store so toolbar
+// buttons, PNG export and the live-session follower can drive the camera without React state.
+import { CameraControls } from "@react-three/drei";
+import { useThree } from "@react-three/fiber";
+import { useEffect, useRef } from "react";
+import { Vector3 } from "three";
+import { cameraLook } from "./config";
+import type { PreparedModel } from "./prepare";
+import { useViewerStore, type CameraPose, type CameraPreset, type Vec3 } from "./viewer-store";
+
+/** Unit view directions (from the target towards the camera) of the presets. */
+const presetDirections: Record<CameraPreset, Vec3> = {
+  plan: [0, -1e-3, 1],
+  elevationSouth: [0, -1, 0],
+  elevationEast: [1, 0, 0],
+  isometric: [1, -1, 0.8],
+};
+
+const scratchPosition = new Vector3();
+const scratchTarget = new Vector3();
+
+export function CameraRig({ prepared }: { prepared: PreparedModel }) {
+  const controls = useRef<CameraControls>(null);
+  const gl = useThree((s) => s.gl);
+  const scene = useThree((s) => s.scene);
+  const camera = useThree((s) => s.camera);
+
+  useEffect(() => {
+    const cc = controls.current;
+    if (!cc) return;
+    const fitDistance = () => {
+      const fov = ((cameraLook.fov / 2) * Math.PI) / 180;
+      return (prepared.radius * cameraLook.fitPadding) / Math.sin(fov);
+    };
+    const lookFrom = (dir: Vec3, animate: boolean) => {
+      const d = new Vector3(...dir).normalize().multiplyScalar(fitDistance());
+      const [cx, cy, cz] = prepared.centre;
+      void cc.setLookAt(cx + d.x, cy + d.y, cz + d.z, cx, cy, cz, animate);
+    };
+    const getPose = (): CameraPose => {
+      cc.getPosition(scratchPosition, false);
+      cc.getTarget(scratchTarget, false);
+      return { position: scratchPosition.toArray() as Vec3, target: scratchTarget.toArray() as Vec3 };
+    };
+    const store = useViewerStore.getState();
+    const pending = store.cameraPose;
+    if (pending) void cc.setLookAt(...pending.position, ...pending.target, false);
+    else lookFrom(presetDirections.isometric, false);
+    store.registerController({
+      getPose,
+      setPose: (pose, animate) => void cc.setLookAt(...pose.position, ...pose.target, animate),
+      flyTo: (point) => {
+        cc.getPosition(scratchPosition, true);
+        cc.getTarget(scratchTarget, true);
+        const offset = scratchPosition.sub(scratchTarget);
+        void cc.setLookAt(point[0] + offset.x, point[1] + offset.y, point[2] + offset.z, ...point, true);
+      },
+      preset: (name) => lookFrom(presetDirections[name], true),
+      fit: () => {
+        cc.getPosition(scratchPosition, true);
+        cc.getTarget(scratchTarget, true);
+        lookFrom(scratchPosition.sub(scratchTarget).toArray() as Vec3, true);
+      },
+      exportPng: () => {
+        // Render once into the current buffer and read it back before the browser clears it.
+        gl.render(scene, camera);
+        return gl.domElement.toDataURL("image/png");
+      },
+    });
+    const report = () => useViewerStore.getState().reportCameraPose(getPose());
+    cc.addEventListener("update", report);
+    return () => {
+      cc.removeEventListener("update", report);
+      useViewerStore.getState().registerController(null);
+    };
+  }, [prepared, gl, scene, camera]);
+
+  return <CameraControls ref={controls} makeDefault />;
+}

@@ -1,0 +1,127 @@
+"use client";
+// Nodes, supports and loads drawn with our own simple glyphs: one instanced mesh each (loads use two, shaft and
+// head), so glyph draw calls stay constant however big the roof is.
+import { useThree } from "@react-three/fiber";
+import { useEffect, useLayoutEffect, useMemo } from "react";
+import { BufferGeometry, Color, ConeGeometry, CylinderGeometry, IcosahedronGeometry, InstancedMesh, Matrix4, MeshLambertMaterial, Quaternion, Vector3 } from "three";
+import { glyphLook, palette } from "./config";
+import { nodalLoadsFor, type PreparedModel } from "./prepare";
+import { useViewerStore } from "./viewer-store";
+
+function useInstanced(geometry: BufferGeometry, colour: string, capacity: number): InstancedMesh {
+  const mesh = useMemo(() => {
+    const m = new InstancedMesh(geometry, new MeshLambertMaterial({ color: new Color(colour) }), Math.max(1, capacity));
+    m.frustumCulled = false;
+    m.count = 0;
+    return m;
+  }, [geometry, colour, capacity]);
+  useEffect(
+    () => () => {
+      mesh.geometry.dispose();
+      (mesh.material as MeshLambertMaterial).dispose();
+      mesh.dispose();
+    },
+    [mesh],
+  );
+  return mesh;
+}
+
+const yAxis = new Vector3(0, 1, 0);
+const position = new Vector3();
+const direction = new Vector3();
+const scale = new Vector3();
+const rotation = new Quaternion();
+const matrix = new Matrix4();
+
+/** Small spheres at the nodes, following the deflected shape when it is on. */
+export function NodesLayer({ prepared, positions }: { prepared: PreparedModel; positions: Float32Array }) {
+  const invalidate = useThree((s) => s.invalidate);
+  const geometry = useMemo(() => new IcosahedronGeometry(1, 0), []);
+  const mesh = useInstanced(geometry, palette.node, prepared.nodes.ids.length);
+  useLayoutEffect(() => {
+    const r = glyphLook.nodeRadius * prepared.unitLength;
+    for (let k = 0; k < prepared.nodes.ids.length; k += 1) {
+      matrix.makeScale(r, r, r).setPosition(positions[k * 3], positions[k * 3 + 1], positions[k * 3 + 2]);
+      mesh.setMatrixAt(k, matrix);
+    }
+    mesh.count = prepared.nodes.ids.length;
+    mesh.instanceMatrix.needsUpdate = true;
+    invalidate();
+  }, [mesh, positions, prepared, invalidate]);
+  return <primitive object={mesh} />;
+}
+
+/** A pyramid under each supported node: dark when all three translations are held, light when some are free. */
+export function SupportsLayer({ prepared }: { prepared: PreparedModel }) {
+  const invalidate = useThree((s) => s.invalidate);
+  const geometry = useMemo(() => new ConeGeometry(0.5, 1, 4).translate(0, -0.5, 0).rotateX(Math.PI / 2), []);
+  const supports = prepared.model.supports;
+  const mesh = useInstanced(geometry, "#ffffff", supports.length);
+  useLayoutEffect(() => {
+    const size = glyphLook.supportSize * prepared.unitLength;
+    const held = new Color(palette.support);
+    const partial = new Color(palette.zeroForce);
+    let n = 0;
+    for (const support of supports) {
+      const k = prepared.nodes.index.get(support.node);
+      if (k === undefined) continue;
+      // The cone's apex is at its origin with the base below it, so the apex touches the node from below.
+      matrix.makeScale(size, size, size).setPosition(prepared.nodes.positions[k * 3], prepared.nodes.positions[k * 3 + 1], prepared.nodes.positions[k * 3 + 2]);
+      mesh.setMatrixAt(n, matrix);
+      mesh.setColorAt(n, support.ux && support.uy && support.uz ? held : partial);
+      n += 1;
+    }
+    mesh.count = n;
+    mesh.instanceMatrix.needsUpdate = true;
+    if (mesh.instanceColor) mesh.instanceColor.needsUpdate = true;
+    invalidate();
+  }, [mesh, supports, prepared, invalidate]);
+  return <primitive object={mesh} />;
+}
+
+/** Arrows for the nodal loads of the chosen load case (factored and summed for a combination), ending at the node. */
+export function LoadsLayer({ prepared }: { prepared: PreparedModel }) {
+  const invalidate = useThree((s) => s.invalidate);
+  const resultId = useViewerStore((s) => s.resultId);
+  const loads = useMemo(() => (resultId ? nodalLoadsFor(prepared.model, resultId) : []), [prepared, resultId]);
+  const capacity = prepared.model.nodes.length;
+  const shaftGeometry = useMemo(() => new CylinderGeometry(1, 1, 1, 6, 1).translate(0, -0.5, 0), []);
+  const headGeometry = useMemo(() => new ConeGeometry(1, 1, 8).translate(0, -0.5, 0), []);
+  const shafts = useInstanced(shaftGeometry, palette.load, capacity);
+  const heads = useInstanced(headGeometry, palette.load, capacity);
+  useLayoutEffect(() => {
+    let largest = 0;
+    for (const load of loads) largest = Math.max(largest, Math.hypot(load.fx, load.fy, load.fz));
+    const longest = glyphLook.maxLoadArrow * prepared.span;
+    let n = 0;
+    for (const load of loads) {
+      const k = prepared.nodes.index.get(load.node);
+      const magnitude = Math.hypot(load.fx, load.fy, load.fz);
+      if (k === undefined || magnitude === 0 || largest === 0) continue;
+      const length = Math.max(0.25, magnitude / largest) * longest;
+      const head = Math.min(length * 0.35, prepared.unitLength * 0.25);
+      // Unit geometry has its tip at the origin and its body along -y: turn +y to the force direction so the
+      // arrow points along the force with its tip on the node.
+      direction.set(load.fx, load.fy, load.fz).divideScalar(magnitude);
+      rotation.setFromUnitVectors(yAxis, direction);
+      position.fromArray(prepared.nodes.positions, k * 3);
+      matrix.compose(position, rotation, scale.set(head * 0.45, head, head * 0.45));
+      heads.setMatrixAt(n, matrix);
+      position.addScaledVector(direction, -head);
+      matrix.compose(position, rotation, scale.set(head * 0.12, length - head, head * 0.12));
+      shafts.setMatrixAt(n, matrix);
+      n += 1;
+    }
+    for (const mesh of [shafts, heads]) {
+      mesh.count = n;
+      mesh.instanceMatrix.needsUpdate = true;
+    }
+    invalidate();
+  }, [loads, prepared, shafts, heads, invalidate]);
+  return (
+    <group>
+      <primitive object={shafts} />
+      <primitive object={heads} />
+    </group>
+  );
+}

@@ -1,0 +1,165 @@
+"use client";
+// All members as two instanced meshes (opaque, and thin translucent for zero-force): two draw calls whatever the
+// member count. Switching result, colouring or filter rewrites the instance buffers in place.
+import { useThree, type ThreeEvent } from "@react-three/fiber";
+import { useEffect, useLayoutEffect, useMemo } from "react";
+import { CylinderGeometry, DynamicDrawUsage, InstancedBufferAttribute, InstancedMesh, MeshBasicMaterial, MeshLambertMaterial } from "three";
+import { computeAppearance, hexToRgb, type MemberAppearance } from "./colouring";
+import { memberLook, palette } from "./config";
+import { visibleMask } from "./filters";
+import { writeMemberMatrix } from "./geometry";
+import type { PreparedModel } from "./prepare";
+import { resultLabel } from "./prepare";
+import type { ViewerAnalysis, ViewerMemberReview } from "./types";
+import { useViewerStore } from "./viewer-store";
+
+interface Layer { mesh: InstancedMesh; order: Int32Array }
+
+function makeLayer(count: number, translucent: boolean): Layer {
+  const geometry = new CylinderGeometry(1, 1, 1, memberLook.radialSegments, 1, true);
+  const material = translucent
+    ? new MeshBasicMaterial({ transparent: true, opacity: memberLook.translucentOpacity, depthWrite: false })
+    : new MeshLambertMaterial();
+  const mesh = new InstancedMesh(geometry, material, Math.max(1, count));
+  mesh.instanceMatrix.setUsage(DynamicDrawUsage);
+  mesh.instanceColor = new InstancedBufferAttribute(new Float32Array(Math.max(1, count) * 3), 3).setUsage(DynamicDrawUsage);
+  mesh.frustumCulled = false;
+  mesh.renderOrder = translucent ? 1 : 0;
+  mesh.count = 0;
+  return { mesh, order: new Int32Array(Math.max(1, count)) };
+}
+
+const selectionRgb = hexToRgb(palette.selection);
+const hoverRgb = hexToRgb(palette.hover);
+
+function writeColours(layer: Layer, look: MemberAppearance, selected: number, hovered: number) {
+  const colours = layer.mesh.instanceColor!.array as Float32Array;
+  for (let slot = 0; slot < layer.mesh.count; slot += 1) {
+    const k = layer.order[slot];
+    const rgb = k === selected ? selectionRgb : k === hovered ? hoverRgb : look.colours.subarray(k * 3, k * 3 + 3);
+    colours[slot * 3] = rgb[0];
+    colours[slot * 3 + 1] = rgb[1];
+    colours[slot * 3 + 2] = rgb[2];
+  }
+  layer.mesh.instanceColor!.needsUpdate = true;
+}
+
+interface MembersLayerProps {
+  prepared: PreparedModel;
+  analysis: ViewerAnalysis;
+  review: Record<string, ViewerMemberReview> | undefined;
+  positions: Float32Array;
+}
+
+/** Draws, colours and picks members; publishes the legend to the viewer store. */
+export function MembersLayer({ prepared, analysis, review, positions }: MembersLayerProps) {
+  const invalidate = useThree((s) => s.invalidate);
+  const resultId = useViewerStore((s) => s.resultId);
+  const compareResultId = useViewerStore((s) => s.compareResultId);
+  const mode = useViewerStore((s) => s.colourMode);
+  const threshold = useViewerStore((s) => s.lowForceThreshold);
+  const filters = useViewerStore((s) => s.filters);
+  const selectedId = useViewerStore((s) => s.selectedMemberId);
+  const hoveredId = useViewerStore((s) => s.hoveredMemberId);
+
+  const count = prepared.memberIds.length;
+  const layers = useMemo(() => ({ solid: makeLayer(count, false), faint: makeLayer(count, true) }), [count]);
+  useEffect(
+    () => () => {
+      for (const layer of [layers.solid, layers.faint]) {
+        layer.mesh.geometry.dispose();
+        (layer.mesh.material as MeshBasicMaterial).dispose();
+        layer.mesh.dispose();
+      }
+    },
+    [layers],
+  );
+
+  const result = resultId ? analysis.results[resultId] : undefined;
+  const look = useMemo(() => {
+    if (!result || !resultId) return null;
+    const compareResult = compareResultId ? analysis.results[compareResultId] : undefined;
+    return computeAppearance({
+      memberIds: prepared.memberIds,
+      result,
+      resultLabel: resultLabel(prepared.model, resultId),
+      mode: mode === "compare" && !compareResult ? "forceState" : mode,
+      unitLength: prepared.unitLength,
+      lowForceThreshold: threshold,
+      review,
+      zeroInAll: analysis.zeroInAll,
+      compareResult,
+      compareLabel: compareResultId ? resultLabel(prepared.model, compareResultId) : undefined,
+    });
+  }, [analysis, prepared, result, resultId, compareResultId, mode, threshold, review]);
+
+  useEffect(() => {
+    if (look) useViewerStore.getState().setLegend(look.legend);
+  }, [look]);
+
+  // Matrices: which layer each member goes to, and where it is.
+  useLayoutEffect(() => {
+    if (!look) return;
+    const mask = visibleMask({ memberIds: prepared.memberIds, ends: prepared.ends, positions, groups: prepared.groups, states: look.states, filters });
+    const solid = layers.solid;
+    const faint = layers.faint;
+    let s = 0;
+    let f = 0;
+    const solidMatrices = solid.mesh.instanceMatrix.array as Float32Array;
+    const faintMatrices = faint.mesh.instanceMatrix.array as Float32Array;
+    for (let k = 0; k < count; k += 1) {
+      if (!mask[k]) continue;
+      if (look.translucent[k]) {
+        faint.order[f] = k;
+        writeMemberMatrix(faintMatrices, f, positions, prepared.ends, k, look.radii[k], true);
+        f += 1;
+      } else {
+        solid.order[s] = k;
+        writeMemberMatrix(solidMatrices, s, positions, prepared.ends, k, look.radii[k], true);
+        s += 1;
+      }
+    }
+    solid.mesh.count = s;
+    faint.mesh.count = f;
+    for (const layer of [solid, faint]) {
+      layer.mesh.instanceMatrix.needsUpdate = true;
+      layer.mesh.computeBoundingSphere();
+    }
+    invalidate();
+  }, [look, filters, positions, prepared, layers, count, invalidate]);
+
+  // Colours, including the selection and hover highlight.
+  useLayoutEffect(() => {
+    if (!look) return;
+    const selected = selectedId ? (prepared.memberIndex.get(selectedId) ?? -1) : -1;
+    const hovered = hoveredId ? (prepared.memberIndex.get(hoveredId) ?? -1) : -1;
+    writeColours(layers.solid, look, selected, hovered);
+    writeColours(layers.faint, look, selected, hovered);
+    invalidate();
+  }, [look, filters, positions, selectedId, hoveredId, prepared, layers, invalidate]);
+
+  const pick = (layer: Layer) => (e: ThreeEvent<PointerEvent | MouseEvent>) => {
+    if (e.instanceId === undefined) return null;
+    e.stopPropagation();
+    return prepared.memberIds[layer.order[e.instanceId]] ?? null;
+  };
+
+  return (
+    <>
+      {[layers.solid, layers.faint].map((layer, n) => (
+        <primitive
+          key={n}
+          object={layer.mesh}
+          onPointerMove={(e: ThreeEvent<PointerEvent>) => useViewerStore.getState().hoverMember(pick(layer)(e))}
+          onPointerOut={() => useViewerStore.getState().hoverMember(null)}
+          onClick={(e: ThreeEvent<MouseEvent>) => {
+            // A drag that ends on a member orbits the camera; only a still click selects.
+            if (e.delta > 4) return;
+            const id = pick(layer)(e);
+            if (id) useViewerStore.getState().selectMember(id);
+          }}
+        />
+      ))}
+    </>
+  );
+}

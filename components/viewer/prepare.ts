@@ -1,0 +1,79 @@
+// Packs a model once per revision into the typed arrays the layers draw from.
+import { buildMemberEnds, buildNodeTable, modelSpan, type NodeTable } from "./filters";
+import { typicalMemberLength } from "./geometry";
+import type { MemberGroup, ViewerCaseResult, ViewerModel, ViewerNodalLoad } from "./types";
+
+export interface PreparedModel {
+  model: ViewerModel;
+  memberIds: string[];
+  memberIndex: Map<string, number>;
+  nodes: NodeTable;
+  ends: Int32Array;
+  groups: Record<string, MemberGroup>;
+  unitLength: number;
+  span: number;
+  centre: [number, number, number];
+  /** Radius of the sphere around the centre that holds every node. */
+  radius: number;
+  minZ: number;
+}
+
+/** Packs node positions and member ends, and measures the model for glyph sizes and the camera. */
+export function prepareModel(model: ViewerModel, groups: Record<string, MemberGroup>): PreparedModel {
+  const nodes = buildNodeTable(model);
+  const ends = buildMemberEnds(model, nodes);
+  const p = nodes.positions;
+  const min = [Infinity, Infinity, Infinity];
+  const max = [-Infinity, -Infinity, -Infinity];
+  for (let k = 0; k < p.length; k += 3) {
+    for (let a = 0; a < 3; a += 1) {
+      min[a] = Math.min(min[a], p[k + a]);
+      max[a] = Math.max(max[a], p[k + a]);
+    }
+  }
+  const centre: [number, number, number] = p.length ? [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2] : [0, 0, 0];
+  const radius = p.length ? Math.max(1e-3, Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) / 2) : 1;
+  return {
+    model,
+    memberIds: model.members.map((m) => m.id),
+    memberIndex: new Map(model.members.map((m, k) => [m.id, k])),
+    nodes,
+    ends,
+    groups,
+    unitLength: typicalMemberLength(p, ends),
+    span: modelSpan(p) || 1,
+    centre,
+    radius,
+    minZ: p.length ? min[2] : 0,
+  };
+}
+
+/** Nodal loads of a load case, or the factored sum over a combination's cases. Self-weight is not a nodal load. */
+export function nodalLoadsFor(model: ViewerModel, resultId: string): ViewerNodalLoad[] {
+  const direct = model.loadCases.find((c) => c.id === resultId);
+  if (direct) return direct.nodalLoads;
+  const combination = model.combinations.find((c) => c.id === resultId);
+  if (!combination) return [];
+  const sum = new Map<string, ViewerNodalLoad>();
+  for (const [caseId, factor] of Object.entries(combination.factors)) {
+    for (const load of model.loadCases.find((c) => c.id === caseId)?.nodalLoads ?? []) {
+      const acc = sum.get(load.node) ?? { node: load.node, fx: 0, fy: 0, fz: 0 };
+      acc.fx += factor * load.fx;
+      acc.fy += factor * load.fy;
+      acc.fz += factor * load.fz;
+      sum.set(load.node, acc);
+    }
+  }
+  return [...sum.values()];
+}
+
+/** Label of a result id: the load case's or combination's name, with its id. */
+export function resultLabel(model: ViewerModel, resultId: string): string {
+  const named = model.loadCases.find((c) => c.id === resultId) ?? model.combinations.find((c) => c.id === resultId);
+  return named ? `${named.id} ${named.name}` : resultId;
+}
+
+/** Result ids in display order: load cases first, then combinations, keeping only those with stored results. */
+export function resultIds(model: ViewerModel, results: Record<string, ViewerCaseResult>): string[] {
+  return [...model.loadCases.map((c) => c.id), ...model.combinations.map((c) => c.id)].filter((id) => id in results);
+}

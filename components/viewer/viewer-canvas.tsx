@@ -1,0 +1,79 @@
+"use client";
+// The one <Canvas> of the viewer. Extra layers from other features (MEP runs and clashes, pins) are passed as
+// `children` and rendered inside the scene, in model coordinates (metres, z up). A layer reads selection and
+// camera from useViewerStore (see viewer-store.ts) and calls `invalidate()` from useThree after changing
+// anything, because the canvas only draws on demand.
+import { Canvas } from "@react-three/fiber";
+import { useMemo, type ReactNode } from "react";
+import { CameraRig } from "./camera-rig";
+import { cameraLook, palette } from "./config";
+import { deflectedPositions } from "./filters";
+import { LoadsLayer, NodesLayer, SupportsLayer } from "./glyphs-layer";
+import { MembersLayer } from "./members-layer";
+import type { PreparedModel } from "./prepare";
+import type { ViewerAnalysis, ViewerMemberReview } from "./types";
+import { useViewerStore } from "./viewer-store";
+
+export interface ViewerCanvasProps {
+  prepared: PreparedModel;
+  analysis: ViewerAnalysis;
+  review?: Record<string, ViewerMemberReview>;
+  /** Extra scene layers (see the note at the top of this file). */
+  children?: ReactNode;
+}
+
+function GroundGrid({ prepared }: { prepared: PreparedModel }) {
+  const size = Math.ceil((prepared.span * 1.6) / 10) * 10 || 10;
+  const divisions = Math.min(200, Math.max(10, Math.round(size / Math.max(1, Math.round(prepared.unitLength)))));
+  return (
+    <gridHelper
+      args={[size, divisions, palette.gridMajor, palette.gridMinor]}
+      rotation={[Math.PI / 2, 0, 0]}
+      position={[prepared.centre[0], prepared.centre[1], prepared.minZ - prepared.unitLength * 0.5]}
+    />
+  );
+}
+
+function Scene({ prepared, analysis, review, children }: ViewerCanvasProps) {
+  const resultId = useViewerStore((s) => s.resultId);
+  const deflection = useViewerStore((s) => s.deflection);
+  const displacements = resultId ? analysis.results[resultId]?.displacements : undefined;
+  const positions = useMemo(
+    () => (deflection.enabled && displacements ? deflectedPositions(prepared.nodes, displacements, deflection.scale) : prepared.nodes.positions),
+    [prepared, displacements, deflection],
+  );
+  return (
+    <>
+      <ambientLight intensity={1.6} />
+      <directionalLight position={[1, -2, 3]} intensity={1.4} />
+      <GroundGrid prepared={prepared} />
+      <MembersLayer prepared={prepared} analysis={analysis} review={review} positions={positions} />
+      <NodesLayer prepared={prepared} positions={positions} />
+      <SupportsLayer prepared={prepared} />
+      <LoadsLayer prepared={prepared} />
+      <CameraRig prepared={prepared} />
+      {children}
+    </>
+  );
+}
+
+/** The 3D scene: members, glyphs, grid and camera controls, plus any extra layers passed as children. */
+export default function ViewerCanvas(props: ViewerCanvasProps) {
+  const far = props.prepared.radius * 40;
+  return (
+    <Canvas
+      frameloop="demand"
+      dpr={[1, 2]}
+      gl={{ antialias: true }}
+      camera={{ fov: cameraLook.fov, up: [0, 0, 1], near: far / 10_000, far, position: [0, -1, 1] }}
+      onPointerMissed={(e) => {
+        if (e.type === "click") useViewerStore.getState().selectMember(null);
+      }}
+      style={{ background: palette.background }}
+      data-testid="viewer-canvas"
+    >
+      <Scene {...props} />
+    </Canvas>
+  );
+}
+
