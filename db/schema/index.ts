@@ -1,2 +1,3 @@
 // Every table of Strutroom, one file per area; drizzle-kit and db/client.ts read this file.
 export * from "./core";
+export * from "./review";

@@ -1,0 +1,118 @@
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { and, asc, eq, gt, sql, type SQL } from "drizzle-orm";
+import { getDb, type Executor } from "../client";
+import { comments, pins, users } from "../schema";
+import { writeComment, type WrittenComment } from "./comments";
+import type { Anchor, PinCreateInput, PinFilter, PinState, PresentedPin } from "../../lib/realtime/events";
+
+const pinColumns = {
+  pin: pins,
+  authorName: users.name,
+  commentCount: sql<number>`(select count(*)::int from ${comments} where ${comments.pinId} = ${pins.id})`,
+};
+
+type PinRow = { pin: typeof pins.$inferSelect; authorName: string; commentCount: number };
+
+function anchorOf(pin: typeof pins.$inferSelect): Anchor {
+  if (pin.anchorKind === "point") return { kind: "point", point: [pin.anchorX ?? 0, pin.anchorY ?? 0, pin.anchorZ ?? 0] };
+  return { kind: pin.anchorKind, id: pin.anchorId ?? "" };
+}
+
+/** The pin as sent to browsers: anchor as one object, author by name, times as ISO strings. */
+function presentPin({ pin, authorName, commentCount }: PinRow): PresentedPin {
+  return {
+    id: pin.id,
+    projectId: pin.projectId,
+    anchor: anchorOf(pin),
+    revisionId: pin.revisionId,
+    title: pin.title,
+    state: pin.state,
+    discipline: pin.discipline,
+    author: { id: pin.authorId, name: authorName },
+    commentCount,
+    createdAt: pin.createdAt.toISOString(),
+    updatedAt: pin.updatedAt.toISOString(),
+  };
+}
+
+function selectPins(db: Executor, where: SQL | undefined) {
+  return db.select(pinColumns).from(pins).innerJoin(users, eq(users.id, pins.authorId)).where(where).orderBy(asc(pins.createdAt));
+}
+
+/** One pin of the project, or null when it does not exist there. */
+export async function getPinById({ projectId, pinId, db = getDb() }: { projectId: string; pinId: string; db?: Executor }) {
+  const [row] = await selectPins(db, and(eq(pins.projectId, projectId), eq(pins.id, pinId)));
+  return row ? presentPin(row) : null;
+}
+
+/** The project's pins, oldest first, narrowed by state, discipline and author. */
+export async function listPinsByProject({ projectId, filter = {} }: { projectId: string; filter?: PinFilter }) {
+  const conditions = [eq(pins.projectId, projectId)];
+  if (filter.state) conditions.push(eq(pins.state, filter.state));
+  if (filter.discipline) conditions.push(eq(pins.discipline, filter.discipline));
+  if (filter.authorId) conditions.push(eq(pins.authorId, filter.authorId));
+  const rows = await selectPins(getDb(), and(...conditions));
+  return rows.map(presentPin);
+}
+
+/** Pins created or changed after `since` (reconnect catch-up). */
+export async function listPinsChangedSince({ projectId, since }: { projectId: string; since: Date }) {
+  const rows = await selectPins(getDb(), and(eq(pins.projectId, projectId), gt(pins.updatedAt, since)));
+  return rows.map(presentPin);
+}
+
+/**
+ * Stores a pin (and its first comment when given) in one transaction. The id comes from the client, so a retry
+ * returns the stored pin instead of a second one; `created` says whether this call wrote it.
+ */
+export async function createPin({
+  projectId,
+  authorId,
+  authorName,
+  input,
+}: {
+  projectId: string;
+  authorId: string;
+  authorName: string;
+  input: PinCreateInput;
+}): Promise<{ pin: PresentedPin; created: boolean; firstComment: WrittenComment | null } | null> {
+  return getDb().transaction(async (tx) => {
+    const { anchor } = input;
+    const inserted = await tx
+      .insert(pins)
+      .values({
+        id: input.id,
+        projectId,
+        anchorKind: anchor.kind,
+        anchorId: anchor.kind === "point" ? null : anchor.id,
+        anchorX: anchor.kind === "point" ? anchor.point[0] : null,
+        anchorY: anchor.kind === "point" ? anchor.point[1] : null,
+        anchorZ: anchor.kind === "point" ? anchor.point[2] : null,
+        revisionId: input.revisionId,
+        title: input.title,
+        discipline: input.discipline,
+        authorId,
+      })
+      .onConflictDoNothing({ target: pins.id })
+      .returning({ id: pins.id });
+    const created = inserted.length > 0;
+    // The first comment of a new pin gets a server-made id; a retried pin writes nothing (created is false).
+    const firstComment =
+      created && input.body
+        ? await writeComment(tx, { id: randomUUID(), projectId, pinId: input.id, authorId, authorName, body: input.body, kind: "comment" })
+        : null;
+    // A retried id that belongs to another project is not this caller's pin.
+    const pin = await getPinById({ projectId, pinId: input.id, db: tx });
+    return pin ? { pin, created, firstComment } : null;
+  });
+}
+
+/** Moves a thread to open, answered or closed; returns the updated pin. */
+export async function setPinState({ projectId, pinId, state }: { projectId: string; pinId: string; state: PinState }) {
+  await getDb()
+    .update(pins)
+    .set({ state })
+    .where(and(eq(pins.projectId, projectId), eq(pins.id, pinId)));
+  return getPinById({ projectId, pinId });
+}

@@ -1,0 +1,77 @@
+// The realtime process: one HTTP server on loopback carrying socket.io (presence, session, pins and threads) and
+// the Yjs websocket endpoint, told apart by path on the `upgrade` event.
+import { createServer } from "node:http";
+import { Server } from "socket.io";
+import { abilitiesOf } from "@/lib/permissions";
+import { SOCKET_PATH, YJS_PATH_PREFIX } from "@/lib/realtime/events";
+import { getLiveSession } from "@/db/queries/review-sessions";
+import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
+import { projectRoom, userRoom, type RealtimeServer } from "./context";
+import { flushViews } from "./live-session-state";
+import { registerPinEvents } from "./pin-events";
+import { broadcastPresence, registerSessionEvents } from "./session-events";
+import { createYjsUpgradeHandler } from "./yjs";
+
+/** Builds the realtime server (not yet listening); close() stores everything pending and stops it. */
+export function createRealtimeServer({ appUrl }: { appUrl: string }) {
+  const httpServer = createServer((_request, response) => {
+    response.writeHead(404, { "content-type": "application/json" }).end(JSON.stringify({ error: "Not found." }));
+  });
+  const io: RealtimeServer = new Server(httpServer, {
+    path: SOCKET_PATH,
+    cors: { origin: new URL(appUrl).origin, credentials: true },
+    // CORS does not cover websockets: browsers from other sites are turned away here.
+    allowRequest: (request, callback) => callback(null, isAllowedOrigin(request.headers.origin, appUrl)),
+    // socket.io attaches its own upgrade listener; the Yjs paths are routed below instead.
+    destroyUpgrade: false,
+  });
+  const yjs = createYjsUpgradeHandler({ appUrl });
+  httpServer.on("upgrade", (request, socket, head) => {
+    if ((request.url ?? "").startsWith(YJS_PATH_PREFIX)) yjs.handleUpgrade(request, socket, head);
+  });
+
+  io.use((socket, next) => {
+    authenticate(socket.request.headers.cookie, socket.handshake.auth?.projectId).then(
+      (who) => {
+        if (isRefusal(who)) return next(Object.assign(new Error(who.message), { data: { status: who.status } }));
+        socket.data = { user: who.user, role: who.role, projectId: who.projectId, following: true };
+        next();
+      },
+      (error: unknown) => {
+        console.error("[realtime] handshake failed", error);
+        next(Object.assign(new Error("Something went wrong on our side. Please try again."), { data: { status: 500 } }));
+      },
+    );
+  });
+
+  io.on("connection", (socket) => {
+    const { user, role, projectId } = socket.data;
+    void socket.join([projectRoom(projectId), userRoom(user.id)]);
+    registerSessionEvents(io, socket);
+    registerPinEvents(io, socket);
+    socket.on("disconnect", () => {
+      void broadcastPresence(io, projectId).catch((error) => console.error("[realtime] presence failed", error));
+    });
+    void (async () => {
+      const session = await getLiveSession({ projectId });
+      socket.emit("welcome", {
+        user: { id: user.id, name: user.name, role },
+        abilities: abilitiesOf(role),
+        session,
+        serverTime: new Date().toISOString(),
+      });
+      await broadcastPresence(io, projectId);
+    })().catch((error) => console.error("[realtime] welcome failed", error));
+  });
+
+  return {
+    httpServer,
+    io,
+    /** Stops accepting, closes every connection and writes what is pending (views, Yjs documents). */
+    async close() {
+      await yjs.close();
+      await new Promise<void>((resolve) => io.close(() => resolve()));
+      await flushViews();
+    },
+  };
+}

@@ -1,0 +1,70 @@
+// Pins and threads: every write is committed to PostgreSQL before it is acknowledged or broadcast.
+import { createComment, listCommentsSince, type WrittenComment } from "@/db/queries/comments";
+import { createPin, getPinById, listPinsChangedSince, setPinState } from "@/db/queries/pins";
+import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
+import { commentCreateSchema, pinCreateSchema, pinSetStateSchema, syncSinceSchema } from "@/lib/realtime/events";
+import { can, canCloseThread } from "@/lib/permissions";
+import { currentRole } from "./auth";
+import { projectRoom, userRoom, type RealtimeServer } from "./context";
+import { onEvent, type RealtimeSocket } from "./handle-event";
+
+// Catch-up looks a little further back than the client's last server time: a transaction that began before that
+// moment may have committed after it. Clients drop duplicates by id.
+const CATCH_UP_MARGIN_MS = 5000;
+
+/** Tells the room about a new comment and each mentioned member about their notification. */
+function announceComment(io: RealtimeServer, socketId: string, projectId: string, written: WrittenComment) {
+  io.to(projectRoom(projectId)).except(socketId).emit("comment:created", written.comment);
+  for (const { userId, notification } of written.notifications) io.to(userRoom(userId)).emit("notification:created", notification);
+}
+
+/** Registers the pin and thread events of one socket. */
+export function registerPinEvents(io: RealtimeServer, socket: RealtimeSocket): void {
+  const { user, projectId } = socket.data;
+  const room = projectRoom(projectId);
+
+  onEvent(socket, "pin:create", pinCreateSchema, async (input) => {
+    if (!can(await currentRole({ projectId, userId: user.id }), "pin.create")) throw new ForbiddenError();
+    const result = await createPin({ projectId, authorId: user.id, authorName: user.name, input });
+    if (!result) throw new NotFoundError("That pin id is already used elsewhere.");
+    if (result.created) {
+      io.to(room).except(socket.id).emit("pin:created", result.pin);
+      if (result.firstComment) announceComment(io, socket.id, projectId, result.firstComment);
+    }
+    return result.pin;
+  });
+
+  onEvent(socket, "comment:create", commentCreateSchema, async (input) => {
+    const role = await currentRole({ projectId, userId: user.id });
+    if (!can(role, "comment.create")) throw new ForbiddenError();
+    if (input.kind === "decision" && !can(role, "review.decide")) throw new ForbiddenError("Only the structural engineer records decisions.");
+    const written = await createComment({ ...input, projectId, authorId: user.id, authorName: user.name });
+    if (!written) throw new NotFoundError("No such pin in this project.");
+    if (written.created) {
+      announceComment(io, socket.id, projectId, written);
+      const pin = await getPinById({ projectId, pinId: input.pinId });
+      if (pin) io.to(room).emit("pin:updated", pin);
+    }
+    return written.comment;
+  });
+
+  onEvent(socket, "pin:set-state", pinSetStateSchema, async ({ pinId, state }) => {
+    const role = await currentRole({ projectId, userId: user.id });
+    const pin = await getPinById({ projectId, pinId });
+    if (!pin) throw new NotFoundError("No such pin in this project.");
+    // Closing a thread, or reopening a closed one, is the closer's call; marking it answered is anyone's who may comment.
+    const allowed = state === "closed" || pin.state === "closed" ? canCloseThread(role, user.id, pin.author.id) : can(role, "comment.create");
+    if (!allowed) throw new ForbiddenError();
+    const updated = await setPinState({ projectId, pinId, state });
+    if (!updated) throw new NotFoundError("No such pin in this project.");
+    io.to(room).except(socket.id).emit("pin:updated", updated);
+    return updated;
+  });
+
+  onEvent(socket, "sync:since", syncSinceSchema, async ({ since }) => {
+    const serverTime = new Date().toISOString();
+    const from = new Date(new Date(since).getTime() - CATCH_UP_MARGIN_MS);
+    const [pins, comments] = await Promise.all([listPinsChangedSince({ projectId, since: from }), listCommentsSince({ projectId, since: from })]);
+    return { pins, comments, serverTime };
+  });
+}

@@ -1,0 +1,88 @@
+// Review session events: start, hand over, end, the presenter's view, following and cursors.
+import { getMembership } from "@/db/queries/memberships";
+import { endSession, getLiveSession, handOverSession, startSession } from "@/db/queries/review-sessions";
+import { ConflictError, ForbiddenError, NotFoundError } from "@/lib/http/errors";
+import {
+  cursorMoveSchema,
+  presenceFollowSchema,
+  sessionEndSchema,
+  sessionHandoverSchema,
+  sessionStartSchema,
+  sessionViewSchema,
+} from "@/lib/realtime/events";
+import { can } from "@/lib/permissions";
+import { currentRole } from "./auth";
+import { projectRoom, type RealtimeServer } from "./context";
+import { onEvent, type RealtimeSocket } from "./handle-event";
+import { forgetPresenter, presenterOf, rememberView } from "./live-session-state";
+import { presenceOf } from "./presence";
+
+/** Sends the project's presence list to everyone in its room. */
+export async function broadcastPresence(io: RealtimeServer, projectId: string): Promise<void> {
+  const presenterId = await presenterOf(projectId);
+  io.to(projectRoom(projectId)).emit("presence", await presenceOf(io, projectId, presenterId));
+}
+
+async function broadcastSession(io: RealtimeServer, projectId: string) {
+  forgetPresenter(projectId);
+  const session = await getLiveSession({ projectId });
+  io.to(projectRoom(projectId)).emit("session:state", session);
+  await broadcastPresence(io, projectId);
+  return session;
+}
+
+/** Registers the review-session events of one socket. */
+export function registerSessionEvents(io: RealtimeServer, socket: RealtimeSocket): void {
+  const { user, projectId } = socket.data;
+  const room = projectRoom(projectId);
+
+  onEvent(socket, "session:start", sessionStartSchema, async () => {
+    if (!can(await currentRole({ projectId, userId: user.id }), "session.present")) throw new ForbiddenError();
+    const session = await startSession({ projectId, presenterId: user.id });
+    if (!session) throw new ConflictError("The session could not be started; try again.");
+    if (session.presenterId !== user.id) throw new ConflictError(`${session.presenterName} is presenting; ask them to hand over.`);
+    socket.data.following = true;
+    return (await broadcastSession(io, projectId)) ?? session;
+  });
+
+  onEvent(socket, "session:handover", sessionHandoverSchema, async ({ toUserId }) => {
+    const role = await currentRole({ projectId, userId: user.id });
+    const presenterId = await presenterOf(projectId);
+    if (!presenterId) throw new NotFoundError("No review session is live.");
+    if (presenterId !== user.id && role !== "owner") throw new ForbiddenError("Only the presenter or an owner can hand over.");
+    const target = await getMembership({ projectId, userId: toUserId });
+    if (!target) throw new NotFoundError("That person is not on this project's team.");
+    if (!can(target.role, "session.present")) throw new ForbiddenError("That person's role cannot present.");
+    const session = await handOverSession({ projectId, toUserId });
+    if (!session) throw new NotFoundError("No review session is live.");
+    return (await broadcastSession(io, projectId)) ?? session;
+  });
+
+  onEvent(socket, "session:end", sessionEndSchema, async () => {
+    const role = await currentRole({ projectId, userId: user.id });
+    const presenterId = await presenterOf(projectId);
+    if (!presenterId) return null;
+    if (presenterId !== user.id && role !== "owner") throw new ForbiddenError("Only the presenter or an owner can end the session.");
+    await endSession({ projectId });
+    await broadcastSession(io, projectId);
+    return null;
+  });
+
+  onEvent(socket, "session:view", sessionViewSchema, async (view) => {
+    if ((await presenterOf(projectId)) !== user.id) throw new ForbiddenError("Only the presenter drives the view.");
+    socket.to(room).emit("session:view", { ...view, presenterId: user.id });
+    rememberView(projectId, user.id, view);
+    return null;
+  });
+
+  onEvent(socket, "presence:follow", presenceFollowSchema, async ({ following }) => {
+    socket.data.following = following;
+    await broadcastPresence(io, projectId);
+    return null;
+  });
+
+  onEvent(socket, "cursor:move", cursorMoveSchema, async ({ point, seq }) => {
+    socket.to(room).emit("cursor", { userId: user.id, socketId: socket.id, point, seq });
+    return null;
+  });
+}
