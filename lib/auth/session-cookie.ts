@@ -19,8 +19,9 @@ function secret(): string {
 
 /** The user of a route handler's request (a plain Request works too, for tests), or null when signed out. */
 export async function getRequestUser(request: Request): Promise<SessionUser | null> {
-  // getToken reads cookies through NextRequest's cookie API; a plain Request is wrapped to get it.
-  const req = request instanceof NextRequest ? request : new NextRequest(request);
+  // getToken reads cookies through NextRequest's cookie API. A plain Request gets a header-only copy, so its
+  // body stays unread for the handler.
+  const req = request instanceof NextRequest ? request : new NextRequest(request.url, { headers: request.headers });
   return userFrom(await getToken({ req, secret: secret() }));
 }
 
