@@ -24,6 +24,13 @@ const SERVICES = [
     port: (ports) => ports.web,
     command: (ports) => [bin("next"), ["start", "-H", "127.0.0.1", "-p", String(ports.web)]],
   },
+  {
+    // socket.io + Yjs (server/index.ts). The react-server condition lets it import the "server-only" data layer.
+    name: "realtime",
+    kind: "app",
+    port: (ports) => ports.realtime,
+    command: () => [bin("tsx"), ["--conditions=react-server", "server/index.ts"]],
+  },
 ];
 
 /** Starts the services of the given kinds on loopback; resolves when each one accepts connections. */
