@@ -1,0 +1,126 @@
+import "server-only";
+// The mails other areas ask for. Each one renders its template and queues it in the outbox, inside the caller's
+// transaction when one is passed, so the mail commits with (and only with) what it announces; the jobs process
+// sends it with retries (lib/mail/outbox.ts).
+import { and, eq, ne } from "drizzle-orm";
+import { getDb, type Executor } from "../../db/client";
+import { invitations, memberships, pins, projects, users } from "../../db/schema";
+import { enqueueMail } from "../../db/queries/mail-outbox";
+import { decisionMail, invitationMail, mentionMail } from "./templates";
+
+/** The web app's public base URL, for links in mails. */
+export function appUrl(path: string): string {
+  const base = process.env.APP_URL ?? process.env.NEXTAUTH_URL ?? "http://127.0.0.1:3000";
+  return new URL(path, base).toString();
+}
+
+/** Where a pin's thread opens in the project. */
+export function pinUrl(projectId: string, pinId: string): string {
+  return appUrl(`/projects/${projectId}?pin=${encodeURIComponent(pinId)}`);
+}
+
+async function projectName(db: Executor, projectId: string): Promise<string> {
+  const [row] = await db.select({ name: projects.name }).from(projects).where(eq(projects.id, projectId));
+  if (!row) throw new Error(`Project ${projectId} does not exist.`);
+  return row.name;
+}
+
+/**
+ * Queues the invitation mail with its join link. Call it inside the transaction that creates the invitation
+ * (db/queries/invitations.ts createInvitation), so there is never an invitation without its mail or the reverse.
+ */
+export async function sendInvitationMail({ db = getDb(), invitationId, joinUrl }: { db?: Executor; invitationId: string; joinUrl: string }): Promise<void> {
+  const [row] = await db
+    .select({ invitation: invitations, projectName: projects.name, inviterName: users.name })
+    .from(invitations)
+    .innerJoin(projects, eq(projects.id, invitations.projectId))
+    .innerJoin(users, eq(users.id, invitations.invitedBy))
+    .where(eq(invitations.id, invitationId));
+  if (!row) throw new Error(`Invitation ${invitationId} does not exist.`);
+  const { invitation } = row;
+  const mail = invitationMail({ projectName: row.projectName, inviterName: row.inviterName, role: invitation.role, joinUrl, expiresAt: invitation.expiresAt });
+  await enqueueMail({
+    db,
+    mail: { projectId: invitation.projectId, kind: "invitation", toAddress: invitation.email, ...bodies(mail), dedupeKey: `invitation:${invitation.id}` },
+  });
+}
+
+/**
+ * Queues one mail per mentioned member of a new comment. Call it inside the transaction that writes the comment
+ * (db/queries/comments.ts writeComment), with the mentioned members it resolved (the author is never among them).
+ */
+export async function notifyMention({
+  db = getDb(),
+  projectId,
+  pinId,
+  commentId,
+  byName,
+  excerpt,
+  recipients,
+}: {
+  db?: Executor;
+  projectId: string;
+  pinId: string;
+  commentId: string;
+  byName: string;
+  excerpt: string;
+  recipients: { userId: string; email: string; name: string }[];
+}): Promise<void> {
+  if (recipients.length === 0) return;
+  const [pin] = await db
+    .select({ title: pins.title, projectName: projects.name })
+    .from(pins)
+    .innerJoin(projects, eq(projects.id, pins.projectId))
+    .where(and(eq(pins.id, pinId), eq(pins.projectId, projectId)));
+  if (!pin) throw new Error(`Pin ${pinId} is not in project ${projectId}.`);
+  const mail = mentionMail({ projectName: pin.projectName, byName, pinTitle: pin.title, excerpt, pinUrl: pinUrl(projectId, pinId) });
+  for (const recipient of recipients) {
+    await enqueueMail({
+      db,
+      mail: { projectId, kind: "mention", toAddress: recipient.email, ...bodies(mail), dedupeKey: `mention:${commentId}:${recipient.userId}` },
+    });
+  }
+}
+
+/**
+ * Queues a decision mail to every member of the project but the one who decided: the outcome of a clash or a
+ * decision on an opening. Call it inside the transaction that records the decision.
+ * `decisionId` identifies the decision (e.g. the audit event or `clashId:decidedAt`) so a retried call queues once.
+ */
+export async function notifyDecision({
+  db = getDb(),
+  projectId,
+  decisionId,
+  deciderId,
+  subject,
+  outcome,
+  note = null,
+  path,
+}: {
+  db?: Executor;
+  projectId: string;
+  decisionId: string;
+  deciderId: string;
+  /** What was decided on, as readers say it: "clash C-12", "the opening in member B-41". */
+  subject: string;
+  /** The outcome in our words (glossary.md), e.g. "opening accepted with conditions". */
+  outcome: string;
+  note?: string | null;
+  /** Where to look at it in the app, e.g. `/projects/<id>?clash=C-12`. */
+  path: string;
+}): Promise<void> {
+  const [decider] = await db.select({ name: users.name }).from(users).where(eq(users.id, deciderId));
+  const team = await db
+    .select({ userId: users.id, email: users.email })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.projectId, projectId), ne(memberships.userId, deciderId)));
+  const mail = decisionMail({ projectName: await projectName(db, projectId), deciderName: decider?.name ?? "Someone", subject, outcome, note, url: appUrl(path) });
+  for (const member of team) {
+    await enqueueMail({ db, mail: { projectId, kind: "decision", toAddress: member.email, ...bodies(mail), dedupeKey: `decision:${decisionId}:${member.userId}` } });
+  }
+}
+
+function bodies(mail: { subject: string; text: string; html: string }) {
+  return { subject: mail.subject, textBody: mail.text, htmlBody: mail.html };
+}

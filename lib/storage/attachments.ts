@@ -1,0 +1,144 @@
+import "server-only";
+// The life of a stored file. Browser uploads go straight to object storage through a presigned URL and are
+// recorded as pending; confirming reads the stored bytes back, checks them, and only then marks the record ready
+// (or deletes both object and record). Server-side uploads check the bytes first, store them, and write the record
+// last. Pending records nobody confirmed are swept by the jobs process. So no ready record ever points at missing
+// or unchecked bytes, and a failed upload leaves nothing behind.
+import { randomUUID } from "node:crypto";
+import {
+  deleteAttachmentRecord,
+  getAttachment,
+  insertAttachment,
+  listStalePendingAttachments,
+  markAttachmentReady,
+} from "../../db/queries/attachments";
+import type { Attachment } from "../../db/schema";
+import { HttpError, NotFoundError, ValidationError } from "../http/errors";
+import { checkContent, checkSize, HEAD_BYTES, needsWholeFile, type ContentVerdict, type FilePurpose } from "./content-check";
+import { deleteObject, getObject, getObjectHead, objectSize, PRESIGN_SECONDS, presignDownload, presignUpload, putObject } from "./s3";
+
+/** An upload that is refused; 413 when too large, 400 otherwise, with the reason beside the "file" field. */
+export class FileRefusedError extends HttpError {
+  constructor(verdict: Extract<ContentVerdict, { ok: false }>) {
+    super(verdict.reason === "too_large" ? 413 : 400, verdict.message, [{ path: "file", message: verdict.message }]);
+    this.name = "FileRefusedError";
+  }
+}
+
+/** How long an unconfirmed upload may stay pending before the sweep removes it. */
+export const PENDING_UPLOAD_MAX_AGE_MS = 60 * 60_000;
+
+type Links = { commentId?: string | null; revisionId?: string | null; runId?: string | null };
+
+function objectKey(projectId: string, purpose: FilePurpose, id: string): string {
+  return `projects/${projectId}/${purpose}/${id}`;
+}
+
+/** Records a pending upload and hands out a presigned PUT URL; a declared size over the limit is refused at once. */
+export async function requestUpload(input: {
+  projectId: string;
+  userId: string;
+  purpose: FilePurpose;
+  filename: string;
+  contentType: string;
+  sizeBytes: number;
+  links: Links;
+}): Promise<{ attachmentId: string; uploadUrl: string; method: "PUT"; headers: Record<string, string>; expiresInSeconds: number }> {
+  const refusal = checkSize(input.purpose, input.sizeBytes);
+  if (refusal && !refusal.ok) throw new FileRefusedError(refusal);
+  const id = randomUUID();
+  const key = objectKey(input.projectId, input.purpose, id);
+  await insertAttachment({
+    values: {
+      id,
+      projectId: input.projectId,
+      purpose: input.purpose,
+      objectKey: key,
+      filename: input.filename,
+      contentType: input.contentType,
+      sizeBytes: input.sizeBytes,
+      uploadedBy: input.userId,
+      ...input.links,
+      state: "pending",
+    },
+  });
+  const uploadUrl = await presignUpload(key, input.contentType);
+  return { attachmentId: id, uploadUrl, method: "PUT", headers: { "content-type": input.contentType }, expiresInSeconds: PRESIGN_SECONDS };
+}
+
+async function removeEverywhere(attachment: Attachment): Promise<void> {
+  await deleteObject(attachment.objectKey);
+  await deleteAttachmentRecord({ id: attachment.id });
+}
+
+/**
+ * Checks what was uploaded for a pending attachment (stored size, then the bytes), and marks it ready. A refused
+ * file is deleted from storage and its record removed. Only the uploader may confirm; confirming twice is harmless.
+ */
+export async function confirmUpload({ projectId, attachmentId, userId }: { projectId: string; attachmentId: string; userId: string }): Promise<Attachment> {
+  const attachment = await getAttachment({ projectId, attachmentId });
+  if (!attachment || attachment.uploadedBy !== userId) throw new NotFoundError("No such upload.");
+  if (attachment.state === "ready") return attachment;
+  const size = await objectSize(attachment.objectKey);
+  if (size === null) {
+    throw new ValidationError([{ path: "file", message: "Nothing has been uploaded for this file yet." }], "Nothing has been uploaded for this file yet.");
+  }
+  const sizeRefusal = checkSize(attachment.purpose, size);
+  if (sizeRefusal && !sizeRefusal.ok) {
+    await removeEverywhere(attachment);
+    throw new FileRefusedError(sizeRefusal);
+  }
+  const bytes = needsWholeFile(attachment.purpose) ? await getObject(attachment.objectKey) : await getObjectHead(attachment.objectKey, HEAD_BYTES);
+  const verdict = await checkContent(attachment.purpose, bytes ?? new Uint8Array(), size);
+  if (!verdict.ok) {
+    await removeEverywhere(attachment);
+    throw new FileRefusedError(verdict);
+  }
+  return markAttachmentReady({ id: attachment.id, contentType: verdict.contentType, sizeBytes: size });
+}
+
+/**
+ * Stores a file the server received itself (a model or run file posted to a route handler): bytes checked first,
+ * then stored, then recorded; when recording fails the stored object is removed again.
+ */
+export async function storeFile(input: { projectId: string; userId: string; purpose: FilePurpose; filename: string; bytes: Uint8Array; links: Links }): Promise<Attachment> {
+  const verdict = await checkContent(input.purpose, input.bytes, input.bytes.byteLength);
+  if (!verdict.ok) throw new FileRefusedError(verdict);
+  const id = randomUUID();
+  const key = objectKey(input.projectId, input.purpose, id);
+  await putObject(key, input.bytes, verdict.contentType);
+  try {
+    return await insertAttachment({
+      values: {
+        id,
+        projectId: input.projectId,
+        purpose: input.purpose,
+        objectKey: key,
+        filename: input.filename,
+        contentType: verdict.contentType,
+        sizeBytes: input.bytes.byteLength,
+        uploadedBy: input.userId,
+        ...input.links,
+        state: "ready",
+      },
+    });
+  } catch (error) {
+    await deleteObject(key);
+    throw error;
+  }
+}
+
+/** A short-lived download URL for a ready attachment of the project; images and PDF open in the browser. */
+export async function downloadUrl({ projectId, attachmentId }: { projectId: string; attachmentId: string }): Promise<string> {
+  const attachment = await getAttachment({ projectId, attachmentId });
+  if (!attachment || attachment.state !== "ready") throw new NotFoundError("No such file.");
+  const inline = attachment.purpose === "comment";
+  return presignDownload(attachment.objectKey, attachment.filename, attachment.contentType, inline);
+}
+
+/** Removes uploads that were never confirmed (abandoned, or failed halfway) along with any bytes they left. */
+export async function sweepStaleUploads({ now }: { now: Date }): Promise<number> {
+  const stale = await listStalePendingAttachments({ before: new Date(now.getTime() - PENDING_UPLOAD_MAX_AGE_MS) });
+  for (const attachment of stale) await removeEverywhere(attachment);
+  return stale.length;
+}
