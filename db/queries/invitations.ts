@@ -5,6 +5,7 @@ import { getDb, withTransaction, type Executor } from "@/db/client";
 import { invitations, memberships, projects, users, type Invitation } from "@/db/schema";
 import type { Role } from "@/lib/permissions";
 import { ConflictError, ForbiddenError, GoneError, NotFoundError, UnauthorizedError } from "@/lib/http/errors";
+import { sendInvitationMail } from "@/lib/mail/notify";
 import { recordAuditEvent } from "./audit";
 import { createUser, presentUser, type PresentedUser } from "./users";
 
@@ -78,6 +79,7 @@ export async function createInvitation({ projectId, email, role, invitedBy }: { 
       .values({ projectId, email: normalised, role, invitedBy, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + INVITATION_TTL_MS) })
       .returning();
     await recordAuditEvent({ db: tx, projectId, actorId: invitedBy, action: "invitation.created", subjectType: "invitation", subjectId: row.id, details: { email: normalised, role } });
+    await sendInvitationMail({ db: tx, invitationId: row.id, joinUrl: joinLink(token) });
     return { invitation: presentInvitation(row), token };
   });
 }

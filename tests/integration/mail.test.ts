@@ -1,0 +1,146 @@
+// Mail end to end: queued in the transaction of what it announces, sent by the outbox worker through nodemailer to
+// the capturing SMTP fake, read back from the capture folder with mailparser. The invitation's link is followed to
+// join the project through the API. Needs DATABASE_URL and the backing fakes (scripts/test.mjs starts both).
+import { randomUUID } from "node:crypto";
+import { eq } from "drizzle-orm";
+import nodemailer from "nodemailer";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { POST as invite } from "@/app/api/projects/[projectId]/invitations/route";
+import { POST as accept } from "@/app/api/invitations/[token]/route";
+import { comments, mailOutbox, memberships, pins, projects, users } from "@/db/schema";
+import { listOutboxMailTo } from "@/db/queries/mail-outbox";
+import { withTransaction } from "@/db/client";
+import { listCapturedMail } from "@/lib/mail/captured";
+import { queueDailyDigests } from "@/lib/mail/digest";
+import { notifyDecision, notifyMention } from "@/lib/mail/notify";
+import { processOutbox } from "@/lib/mail/outbox";
+import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
+import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
+import { buildRequest, routeContext } from "../support/session";
+
+let fx: ProjectFixture;
+
+/** Sends everything due, then finds the captured mail to `to` whose subject matches. */
+async function deliveredTo(to: string, subject: RegExp) {
+  await processOutbox({ limit: 100 });
+  const mails = await listCapturedMail({ to, limit: 500 });
+  const mail = mails.find((m) => subject.test(m.subject));
+  if (!mail) throw new Error(`No captured mail to ${to} matching ${subject}; got: ${mails.map((m) => m.subject).join(" | ")}`);
+  return mail;
+}
+
+beforeAll(async () => {
+  requireIntegrationEnv();
+  fx = await createProjectFixture("mail");
+});
+afterAll(closeDb);
+
+describe("invitation mail", () => {
+  it("is captured with a join link that lets a new person join the project", async () => {
+    const email = `newcomer-${randomUUID().slice(0, 8)}@fixture.test`;
+    const created = await invite(
+      await buildRequest(`/api/projects/${fx.projectId}/invitations`, { method: "POST", user: fx.users.owner, body: { email, role: "architect" } }),
+      routeContext({ projectId: fx.projectId }),
+    );
+    expect(created.status).toBe(201);
+
+    const mail = await deliveredTo(email, /invited you to/);
+    expect(mail.subject).toBe(`${fx.users.owner.name} invited you to ${await projectName()} on Strutroom`);
+    expect(mail.from).toContain("no-reply@strutroom.test");
+    const link = mail.text.match(/https?:\/\/\S+\/join\/\S+/)?.[0];
+    expect(link, "join link in the text part").toBeDefined();
+    expect(mail.html).toContain(`href="${link}"`);
+
+    const token = decodeURIComponent(new URL(link!).pathname.split("/").pop()!);
+    const joined = await accept(
+      await buildRequest(`/api/invitations/${token}`, { method: "POST", body: { name: "Nadia Brandt", password: "a-long-enough-password" } }),
+      routeContext({ token }),
+    );
+    expect(joined.status).toBe(201);
+    const [user] = await getDb().select().from(users).where(eq(users.email, email));
+    const [membership] = await getDb().select().from(memberships).where(eq(memberships.userId, user.id));
+    expect(membership).toMatchObject({ projectId: fx.projectId, role: "architect" });
+  });
+});
+
+async function projectName() {
+  const [row] = await getDb().select({ name: projects.name }).from(projects).where(eq(projects.id, fx.projectId));
+  return row.name;
+}
+
+describe("mention, decision and digest mails", () => {
+  let pinId: string;
+
+  beforeAll(async () => {
+    pinId = randomUUID();
+    await getDb().insert(pins).values({ id: pinId, projectId: fx.projectId, anchorKind: "clash", anchorId: "C-7", title: "Supply duct at grid D", discipline: "mep", authorId: fx.users.mep_engineer.id });
+  });
+
+  it("mention: one mail per mentioned member, linking to the thread", async () => {
+    const commentId = randomUUID();
+    await withTransaction(async (tx) => {
+      await tx.insert(comments).values({ id: commentId, pinId, authorId: fx.users.architect.id, body: "@Tomasz can the duct pass here?" });
+      await notifyMention({
+        db: tx,
+        projectId: fx.projectId,
+        pinId,
+        commentId,
+        byName: fx.users.architect.name,
+        excerpt: "can the duct pass here?",
+        recipients: [{ userId: fx.users.structural_engineer.id, email: fx.users.structural_engineer.email, name: fx.users.structural_engineer.name }],
+      });
+    });
+    const mail = await deliveredTo(fx.users.structural_engineer.email, /mentioned you/);
+    expect(mail.subject).toContain('"Supply duct at grid D"');
+    expect(mail.text).toContain(`/projects/${fx.projectId}?pin=${pinId}`);
+  });
+
+  it("decision: every member but the decider is told, with the standing caution", async () => {
+    await notifyDecision({
+      projectId: fx.projectId,
+      decisionId: `C-7:${randomUUID()}`,
+      deciderId: fx.users.structural_engineer.id,
+      subject: "clash C-7",
+      outcome: "opening accepted with conditions",
+      note: "Sleeve of 150 mm at mid-length only.",
+      path: `/projects/${fx.projectId}?clash=C-7`,
+    });
+    const mail = await deliveredTo(fx.users.mep_engineer.email, /Decision on clash C-7/);
+    expect(mail.text).toContain("Advisory results for coordination.");
+    expect(mail.text).toContain("Sleeve of 150 mm");
+    expect(await listOutboxMailTo({ toAddress: fx.users.structural_engineer.email })).not.toContainEqual(expect.objectContaining({ kind: "decision" }));
+  });
+
+  it("digest: queued once per member and day, listing the open thread", async () => {
+    const now = new Date();
+    expect(await queueDailyDigests({ now })).toBeGreaterThanOrEqual(5);
+    expect(await queueDailyDigests({ now })).toBe(0);
+    const mail = await deliveredTo(fx.users.viewer.email, /open thread/);
+    expect(mail.text).toContain("Supply duct at grid D — open");
+  });
+
+  it("a mail the SMTP server refuses is kept and retried with back-off; the comment it announces stays", async () => {
+    const commentId = randomUUID();
+    await withTransaction(async (tx) => {
+      await tx.insert(comments).values({ id: commentId, pinId, authorId: fx.users.owner.id, body: "@Lucas please check" });
+      await notifyMention({ db: tx, projectId: fx.projectId, pinId, commentId, byName: fx.users.owner.name, excerpt: "please check", recipients: [{ userId: fx.users.mep_engineer.id, email: fx.users.mep_engineer.email, name: fx.users.mep_engineer.name }] });
+    });
+    // A transport pointed at a closed port: the SMTP server is down.
+    const down = nodemailer.createTransport({ host: "127.0.0.1", port: 9, connectionTimeout: 2000, ignoreTLS: true });
+    const run = await processOutbox({ limit: 100, transport: down });
+    expect(run.sent).toBe(0);
+    expect(run.retrying).toBeGreaterThanOrEqual(1);
+    const [queued] = await getDb().select().from(mailOutbox).where(eq(mailOutbox.dedupeKey, `mention:${commentId}:${fx.users.mep_engineer.id}`));
+    expect(queued).toMatchObject({ state: "pending", attempts: 1 });
+    expect(queued.lastError).toBeTruthy();
+    expect(queued.nextAttemptAt.getTime()).toBeGreaterThan(queued.updatedAt.getTime());
+    expect(await getDb().select().from(comments).where(eq(comments.id, commentId))).toHaveLength(1);
+
+    // Once due again and the server is back, it goes out.
+    await getDb().update(mailOutbox).set({ nextAttemptAt: new Date(0) }).where(eq(mailOutbox.id, queued.id));
+    const mail = await deliveredTo(fx.users.mep_engineer.email, /mentioned you/);
+    expect(mail.text).toContain("please check");
+    const [sent] = await getDb().select().from(mailOutbox).where(eq(mailOutbox.id, queued.id));
+    expect(sent).toMatchObject({ state: "sent", attempts: 2 });
+  });
+});
