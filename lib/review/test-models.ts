@@ -1,0 +1,41 @@
+// Small models for the review engine's unit tests (not used by product code).
+import type { TrussModel } from "@/lib/analysis/model";
+
+/**
+ * check-values §5.3 Example 4: 4-panel Pratt truss in x–z, panel 3 m, height 4 m. Supports L0 (ux, uy, uz),
+ * L4 (uy, uz), every other node uy. Case 4a: 20 kN down at L2; case 4b: 10 kN down at L1, L2, L3.
+ */
+export function prattTruss(): TrussModel {
+  const nodes = [
+    ...[0, 1, 2, 3, 4].map((i) => ({ id: `L${i}`, x: 3 * i, y: 0, z: 0 })),
+    ...[1, 2, 3].map((i) => ({ id: `U${i}`, x: 3 * i, y: 0, z: 4 })),
+  ];
+  const pairs = [
+    ["L0", "L1"], ["L1", "L2"], ["L2", "L3"], ["L3", "L4"],
+    ["U1", "U2"], ["U2", "U3"],
+    ["L0", "U1"], ["L4", "U3"],
+    ["U1", "L1"], ["U2", "L2"], ["U3", "L3"],
+    ["U1", "L2"], ["U3", "L2"],
+  ];
+  return {
+    format: "truss-model/1",
+    name: "Pratt truss, check-values Example 4",
+    materials: [{ id: "S355", E: 210e6, fy: 355e3, unitWeight: 78.5 }],
+    // CHS 88.9 x 4.0 in model units (check-values §4.2).
+    sections: [{ id: "T1", material: "S355", area: 0.00106688, radiusOfGyration: 0.03005, outerDiameter: 0.0889, wallThickness: 0.004 }],
+    nodes,
+    members: pairs.map(([i, j]) => ({ id: `${i}${j}`, i, j, section: "T1" })),
+    supports: nodes.map((n) => ({ node: n.id, ux: n.id === "L0", uy: true, uz: n.id === "L0" || n.id === "L4" })),
+    loadCases: [
+      { id: "4a", name: "20 kN at L2", category: "other", selfWeight: false, nodalLoads: [{ node: "L2", fx: 0, fy: 0, fz: -20 }] },
+      {
+        id: "4b",
+        name: "10 kN at L1, L2, L3",
+        category: "other",
+        selfWeight: false,
+        nodalLoads: ["L1", "L2", "L3"].map((node) => ({ node, fx: 0, fy: 0, fz: -10 })),
+      },
+    ],
+    combinations: [{ id: "C1", name: "1.5 x 4b", factors: { "4b": 1.5 } }],
+  };
+}
