@@ -31,6 +31,14 @@ const SERVICES = [
     port: (ports) => ports.realtime,
     command: () => [bin("tsx"), ["--conditions=react-server", "server/index.ts"]],
   },
+  {
+    // Mail outbox, upload sweep and daily digest on croner schedules (server/jobs/main.ts). It serves nothing, so
+    // it has no port to wait for; a crash is reported by processes.mjs.
+    name: "jobs",
+    kind: "app",
+    port: null,
+    command: () => [bin("tsx"), ["--conditions=react-server", "server/jobs/main.ts"]],
+  },
 ];
 
 /** Starts the services of the given kinds on loopback; resolves when each one accepts connections. */
@@ -41,7 +49,8 @@ export async function startServices({ env, ports, kinds = ["backing", "app"], qu
       const [command, args] = service.command(ports);
       startProcess(service.name, command, args, { env, quiet });
     }
-    await Promise.all(group.map((service) => waitForPort(service.port(ports), `The ${service.name} service`, 120_000)));
+    const listening = group.filter((service) => service.port);
+    await Promise.all(listening.map((service) => waitForPort(service.port(ports), `The ${service.name} service`, 120_000)));
   }
 }
 
