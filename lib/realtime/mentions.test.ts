@@ -24,3 +24,14 @@ describe("findMentions", () => {
     expect(findMentions("@Amara @Amara Okafor @architect", members)).toEqual(["a"]);
   });
 });
+
+describe("findMentions with shared first names", () => {
+  it("lets the longest handle win at each @", () => {
+    const twins = [
+      { id: "1", name: "Amara Okafor", email: "a1@x.test" },
+      { id: "2", name: "Amara Lind", email: "a2@x.test" },
+    ];
+    expect(findMentions("@Amara Lind please check", twins)).toEqual(["2"]);
+    expect(findMentions("@Amara please check", twins)).toEqual(["1", "2"]);
+  });
+});

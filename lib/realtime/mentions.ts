@@ -3,10 +3,6 @@
 
 export type MentionCandidate = { id: string; name: string; email: string };
 
-function escapeRegExp(text: string): string {
-  return text.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
-}
-
 function handlesOf(member: MentionCandidate): string[] {
   const name = member.name.trim();
   const first = name.split(/\s+/)[0] ?? "";
@@ -14,15 +10,30 @@ function handlesOf(member: MentionCandidate): string[] {
   return [name, first, local].filter((handle) => handle.length > 0);
 }
 
-/** Ids of the members named with @ in the body, in member order, each once. */
+/**
+ * Ids of the members named with @ in the body, in member order, each once. At each "@" the longest matching
+ * handle wins, so "@Amara Okafor" names Amara Okafor and not every other Amara.
+ */
 export function findMentions(body: string, members: readonly MentionCandidate[]): string[] {
-  const found: string[] = [];
-  for (const member of members) {
-    const named = handlesOf(member).some((handle) =>
-      // The handle must stand alone: not preceded by a word character (e-mail addresses) nor followed by one.
-      new RegExp(`(^|[^\\w@])@${escapeRegExp(handle)}(?![\\w])`, "iu").test(body),
-    );
-    if (named) found.push(member.id);
+  const found = new Set<string>();
+  const lower = body.toLowerCase();
+  for (let at = lower.indexOf("@"); at >= 0; at = lower.indexOf("@", at + 1)) {
+    // An "@" inside a word is an e-mail address, not a mention.
+    if (at > 0 && /[\w@]/u.test(lower[at - 1])) continue;
+    const rest = lower.slice(at + 1);
+    let best = 0;
+    let named: string[] = [];
+    for (const member of members) {
+      for (const handle of handlesOf(member)) {
+        const h = handle.toLowerCase();
+        const standsAlone = rest.startsWith(h) && !/[\w]/u.test(rest[h.length] ?? "");
+        if (!standsAlone || h.length < best) continue;
+        if (h.length > best) named = [];
+        best = h.length;
+        named.push(member.id);
+      }
+    }
+    for (const id of named) found.add(id);
   }
-  return found;
+  return members.filter((member) => found.has(member.id)).map((member) => member.id);
 }

@@ -1,0 +1,130 @@
+// The realtime server refuses signed-out, outsider and foreign-origin connections, refuses writes by roles the
+// permission table does not allow, and answers malformed payloads with errors without falling over.
+import { randomUUID } from "node:crypto";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { closeDb, requireIntegrationEnv } from "../support/db";
+import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
+import { connectClient, nextEvent, realtimeClient, request, startRealtimeServer, type ClientSocket, type RealtimeProcess } from "../support/realtime";
+import type { PresentedPin } from "@/lib/realtime/events";
+
+let server: RealtimeProcess;
+let project: ProjectFixture;
+const open: ClientSocket[] = [];
+
+async function signedIn(role: keyof ProjectFixture["users"]) {
+  const socket = await realtimeClient(server.url, project.projectId, project.users[role]);
+  open.push(socket);
+  await connectClient(socket);
+  return socket;
+}
+
+const pinInput = () => ({ id: randomUUID(), anchor: { kind: "member", id: "TC-12" }, revisionId: null, title: "Duct crossing", discipline: "mep" });
+
+beforeAll(async () => {
+  requireIntegrationEnv();
+  project = await createProjectFixture("rt-access");
+  server = await startRealtimeServer();
+});
+
+afterAll(async () => {
+  for (const socket of open) socket.disconnect();
+  await server?.stop();
+  await closeDb();
+});
+
+describe("realtime handshake", () => {
+  it("refuses a socket without a session", async () => {
+    const socket = await realtimeClient(server.url, project.projectId);
+    await expect(connectClient(socket)).rejects.toThrow("Sign in to continue.");
+  });
+
+  it("refuses a signed-in person who is not on the project", async () => {
+    const socket = await realtimeClient(server.url, project.projectId, project.users.outsider);
+    await expect(connectClient(socket)).rejects.toThrow("not on its team");
+  });
+
+  it("refuses a malformed project id", async () => {
+    const socket = await realtimeClient(server.url, "not-a-project", project.users.owner);
+    await expect(connectClient(socket)).rejects.toThrow("A project id is required.");
+  });
+
+  it("refuses a browser from another site", async () => {
+    const socket = await realtimeClient(server.url, project.projectId, project.users.owner, { origin: "http://evil.example" });
+    await expect(connectClient(socket)).rejects.toThrow();
+  });
+
+  it("welcomes a member with their role and the abilities the server computed", async () => {
+    const socket = await realtimeClient(server.url, project.projectId, project.users.viewer);
+    open.push(socket);
+    const welcome = await connectClient(socket);
+    expect(welcome.user).toMatchObject({ id: project.users.viewer.id, role: "viewer" });
+    expect(welcome.abilities["pin.create"]).toBe(false);
+    expect(welcome.abilities["project.read"]).toBe(true);
+  });
+});
+
+describe("writes by role", () => {
+  it("refuses a pin and a comment from a viewer, and stores nothing", async () => {
+    const viewer = await signedIn("viewer");
+    const pin = pinInput();
+    const refused = await request<PresentedPin>(viewer, "pin:create", pin);
+    expect(refused).toEqual({ ok: false, error: "Your role on this project does not allow this." });
+
+    const architect = await signedIn("architect");
+    const stored = await request<PresentedPin>(architect, "pin:create", pinInput());
+    expect(stored.ok).toBe(true);
+    const pinId = stored.ok ? stored.data.id : "";
+    const comment = await request(viewer, "comment:create", { id: randomUUID(), pinId, body: "Looks fine to me" });
+    expect(comment.ok).toBe(false);
+    const catchUp = await request<{ pins: PresentedPin[] }>(viewer, "sync:since", { since: new Date(0).toISOString() });
+    expect(catchUp.ok && catchUp.data.pins.map((p) => p.id)).toEqual([pinId]);
+  });
+
+  it("lets only the structural engineer record a decision", async () => {
+    const architect = await signedIn("architect");
+    const structural = await signedIn("structural_engineer");
+    const pin = await request<PresentedPin>(architect, "pin:create", pinInput());
+    const pinId = pin.ok ? pin.data.id : "";
+    const byArchitect = await request(architect, "comment:create", { id: randomUUID(), pinId, body: "Opening accepted", kind: "decision" });
+    expect(byArchitect).toEqual({ ok: false, error: "Only the structural engineer records decisions." });
+    const byEngineer = await request(structural, "comment:create", { id: randomUUID(), pinId, body: "Opening accepted with conditions", kind: "decision" });
+    expect(byEngineer).toMatchObject({ ok: true, data: { kind: "decision", author: { id: project.users.structural_engineer.id } } });
+  });
+
+  it("lets the pin's author and the engineer close a thread, but not another architect-level member", async () => {
+    const architect = await signedIn("architect");
+    const mep = await signedIn("mep_engineer");
+    const pin = await request<PresentedPin>(architect, "pin:create", pinInput());
+    const pinId = pin.ok ? pin.data.id : "";
+    expect(await request(mep, "pin:set-state", { pinId, state: "closed" })).toMatchObject({ ok: false });
+    expect(await request(mep, "pin:set-state", { pinId, state: "answered" })).toMatchObject({ ok: true, data: { state: "answered" } });
+    expect(await request(architect, "pin:set-state", { pinId, state: "closed" })).toMatchObject({ ok: true, data: { state: "closed" } });
+    expect(await request(mep, "pin:set-state", { pinId, state: "open" })).toMatchObject({ ok: false });
+  });
+
+  it("refuses session control to an architect", async () => {
+    const architect = await signedIn("architect");
+    expect(await request(architect, "session:start", {})).toMatchObject({ ok: false, error: "Your role on this project does not allow this." });
+  });
+});
+
+describe("malformed payloads", () => {
+  it("answers with the zod issues and keeps serving", async () => {
+    const architect = await signedIn("architect");
+    const bad = await request(architect, "pin:create", { id: "nope", anchor: { kind: "beam" }, title: "" });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.issues?.map((issue) => issue.path)).toEqual(expect.arrayContaining(["id", "anchor.kind", "title", "discipline"]));
+    for (const payload of [null, 42, "text", [], { pinId: randomUUID(), body: "x".repeat(20_000), id: randomUUID() }]) {
+      expect((await request(architect, "comment:create", payload)).ok).toBe(false);
+    }
+    const good = await request<PresentedPin>(architect, "pin:create", pinInput());
+    expect(good.ok).toBe(true);
+  });
+
+  it("sends a realtime:error event when the sender gave no acknowledgement", async () => {
+    const architect = await signedIn("architect");
+    const error = nextEvent(architect, "realtime:error");
+    architect.emit("cursor:move", { point: [0, "y", 0], seq: -1 });
+    expect(await error).toMatchObject({ event: "cursor:move", error: "The message was not understood." });
+  });
+});

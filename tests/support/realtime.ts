@@ -1,0 +1,153 @@
+// The realtime server as a real child process (the same command as scripts/stack/services.mjs), and signed-in
+// socket.io and Yjs clients for it.
+import { spawn, type ChildProcess } from "node:child_process";
+import net from "node:net";
+import { io as connect, type Socket } from "socket.io-client";
+import WebSocket from "ws";
+import { WebsocketProvider } from "y-websocket";
+import * as Y from "yjs";
+import type { Ack, ClientToServerEvents, ServerToClientEvents } from "@/lib/realtime/events";
+import { sessionCookie } from "./session";
+
+export type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
+type Person = { id: string; email: string; name: string };
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.once("error", reject);
+    server.listen(0, "127.0.0.1", () => {
+      const { port } = server.address() as net.AddressInfo;
+      server.close(() => resolve(port));
+    });
+  });
+}
+
+async function waitForPort(port: number, child: ChildProcess, output: () => string) {
+  for (let attempt = 0; attempt < 300; attempt += 1) {
+    if (child.exitCode !== null) throw new Error(`The realtime server exited early:\n${output()}`);
+    const open = await new Promise<boolean>((resolve) => {
+      const socket = net.connect({ host: "127.0.0.1", port });
+      socket.once("connect", () => {
+        socket.destroy();
+        resolve(true);
+      });
+      socket.once("error", () => resolve(false));
+    });
+    if (open) return;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`The realtime server did not listen on ${port}:\n${output()}`);
+}
+
+export type RealtimeProcess = { url: string; port: number; appUrl: string; stop: () => Promise<void>; start: () => Promise<void> };
+
+/** Starts server/index.ts on a free port; stop() sends SIGTERM and waits, start() starts it again on the same port. */
+export async function startRealtimeServer({ appUrl = "http://127.0.0.1:3999" }: { appUrl?: string } = {}): Promise<RealtimeProcess> {
+  const port = await freePort();
+  let child: ChildProcess | null = null;
+  let output = "";
+  const start = async () => {
+    output = "";
+    child = spawn("node_modules/.bin/tsx", ["--conditions=react-server", "server/index.ts"], {
+      env: { ...process.env, NODE_ENV: "production", REALTIME_PORT: String(port), APP_URL: appUrl },
+      stdio: ["ignore", "pipe", "pipe"],
+    });
+    child.stdout?.on("data", (chunk) => (output += chunk));
+    child.stderr?.on("data", (chunk) => (output += chunk));
+    await waitForPort(port, child, () => output);
+  };
+  const stop = async () => {
+    const running = child;
+    child = null;
+    if (!running || running.exitCode !== null) return;
+    await new Promise<void>((resolve) => {
+      running.once("exit", () => resolve());
+      running.kill("SIGTERM");
+    });
+  };
+  await start();
+  return { url: `http://127.0.0.1:${port}`, port, appUrl, start, stop };
+}
+
+/** A socket.io client signed in as `user` (or signed out), joining the project's room; not yet connected. */
+export async function realtimeClient(url: string, projectId: string, user?: Person, { origin }: { origin?: string } = {}): Promise<ClientSocket> {
+  const headers: Record<string, string> = {};
+  if (user) headers.cookie = await sessionCookie(user);
+  if (origin) headers.origin = origin;
+  return connect(url, {
+    auth: { projectId },
+    transports: ["websocket"],
+    extraHeaders: headers,
+    autoConnect: false,
+    reconnection: false,
+    forceNew: true,
+  });
+}
+
+/** Connects and resolves on the welcome (or rejects with the server's refusal message). */
+export function connectClient(socket: ClientSocket): Promise<Parameters<ServerToClientEvents["welcome"]>[0]> {
+  return new Promise((resolve, reject) => {
+    socket.once("welcome", resolve);
+    socket.once("connect_error", reject);
+    socket.connect();
+  });
+}
+
+/** Emits an event and resolves with the server's acknowledgement. */
+export function request<T>(socket: ClientSocket, event: keyof ClientToServerEvents, payload: unknown): Promise<Ack<T>> {
+  return socket.timeout(10_000).emitWithAck(event as "pin:create", payload) as Promise<Ack<T>>;
+}
+
+/** The next event of that name (with an optional condition), or a timeout error naming it. */
+export function nextEvent<E extends keyof ServerToClientEvents>(
+  socket: ClientSocket,
+  event: E,
+  where: (...args: Parameters<ServerToClientEvents[E]>) => boolean = () => true,
+  timeoutMs = 10_000,
+): Promise<Parameters<ServerToClientEvents[E]>[0]> {
+  return new Promise((resolve, reject) => {
+    const timer = setTimeout(() => {
+      socket.off(event, listener as never);
+      reject(new Error(`No "${event}" event within ${timeoutMs} ms.`));
+    }, timeoutMs);
+    const listener = (...args: Parameters<ServerToClientEvents[E]>) => {
+      if (!where(...args)) return;
+      clearTimeout(timer);
+      socket.off(event, listener as never);
+      resolve(args[0]);
+    };
+    socket.on(event, listener as never);
+  });
+}
+
+/** A Yjs document connected to the project's live document as `user` (ws carries the session cookie). */
+export async function yjsClient(url: string, projectId: string, user: Person, doc = new Y.Doc()) {
+  const cookie = await sessionCookie(user);
+  // y-websocket takes a WebSocket class; this one adds the Cookie header a browser would send.
+  class CookieWebSocket extends WebSocket {
+    constructor(address: string | URL, protocols?: string | string[]) {
+      super(address, protocols, { headers: { cookie } });
+    }
+  }
+  const provider = new WebsocketProvider(url.replace(/^http/, "ws") + "/yjs", projectId, doc, {
+    WebSocketPolyfill: CookieWebSocket as unknown as typeof globalThis.WebSocket,
+    connect: true,
+  });
+  return { doc, provider };
+}
+
+/** Resolves once the provider has completed its first sync with the server. */
+export function whenSynced(provider: WebsocketProvider, timeoutMs = 10_000): Promise<void> {
+  if (provider.synced) return Promise.resolve();
+  return new Promise((resolve, reject) => {
+    const timer = setTimeout(() => reject(new Error("The Yjs client did not sync.")), timeoutMs);
+    const handler = (synced: boolean) => {
+      if (!synced) return;
+      clearTimeout(timer);
+      provider.off("sync", handler);
+      resolve();
+    };
+    provider.on("sync", handler);
+  });
+}
