@@ -1,0 +1,189 @@
+import { loadVectorForCase } from "./loads";
+import type { TrussModel } from "./model";
+import { prepareStructure, type Instability, type PreparedStructure } from "./prepare";
+
+export type CaseResult = {
+  memberForces: Record<string, number>;
+  reactions: Record<string, { fx: number; fy: number; fz: number }>;
+  displacements: Record<string, { ux: number; uy: number; uz: number }>;
+  zeroForceMembers: string[];
+  equilibriumResidual: number;
+};
+
+export type EnvelopeEntry = { maxTension: number; maxCompression: number; zeroInAll: boolean };
+
+/** Extra information, kept under one key so the design.md result keys stay exact. */
+export type AnalysisInfo = {
+  /** Maxwell count m + r against 3j: information only, the factorisation decides stability. */
+  countCheck: { members: number; reactionComponents: number; joints: number; difference: number; reading: string };
+  /** What the envelope and zeroInAll range over: combinations, or load cases when the model has none. */
+  envelopeOver: "combinations" | "loadCases";
+  /** Result ids giving each member's largest tension and compression (null when it never has that sign). */
+  governing: Record<string, { maxTension: string | null; maxCompression: string | null }>;
+  /** Members below the threshold (kN) yet not zero-force, per result; only when a threshold was given. */
+  lowForce?: { threshold: number; members: Record<string, string[]>; lowInAll: string[] };
+  /** The mechanism in plain words, one line per free node. */
+  instabilityText?: string[];
+  solver: { dofs: number; equations: number; nonzerosK: number; nonzerosL: number };
+};
+
+/**
+ * The analysis result of design.md. `maxCompression` is signed (<= 0 kN, tension positive throughout);
+ * `maxTension` is >= 0; a result where the member is zero-force counts as 0 for both. When the structure is unstable, results, envelope and zeroInAll are empty.
+ */
+export type AnalysisResult = {
+  status: "ok" | "unstable";
+  instability?: Instability[];
+  results: Record<string, CaseResult>;
+  envelope: Record<string, EnvelopeEntry>;
+  zeroInAll: string[];
+  info: AnalysisInfo;
+};
+
+export type AnalyzeOptions = { lowForceThreshold?: number };
+
+/** A member is zero-force when |N| <= 1e-6 x the largest |N| of that result, or <= 1e-9 kN (design.md). */
+export function zeroForceMask(forces: Float64Array): Uint8Array {
+  let largest = 0;
+  for (let e = 0; e < forces.length; e++) largest = Math.max(largest, Math.abs(forces[e]));
+  const limit = Math.max(1e-6 * largest, 1e-9);
+  const mask = new Uint8Array(forces.length);
+  for (let e = 0; e < forces.length; e++) mask[e] = Math.abs(forces[e]) <= limit ? 1 : 0;
+  return mask;
+}
+
+const directionWords = { ux: "x", uy: "y", uz: "z" } as const;
+
+/** Plain-words description of each free node of a mechanism. */
+export function describeInstability(instability: Instability[]): string[] {
+  return instability.map(
+    ({ node, directions }) =>
+      `Node ${node} is free to move along ${directions.map((d) => directionWords[d]).join(" and ")}: no member or support holds it in ` +
+      `${directions.length > 1 ? "those directions" : "that direction"} (a mechanism). Add a member or a support there.`,
+  );
+}
+
+function countCheck(model: TrussModel): AnalysisInfo["countCheck"] {
+  const reactionComponents = model.supports.reduce((sum, s) => sum + Number(s.ux) + Number(s.uy) + Number(s.uz), 0);
+  const members = model.members.length;
+  const joints = model.nodes.length;
+  const difference = members + reactionComponents - 3 * joints;
+  const reading =
+    difference < 0
+      ? "m + r < 3j: too few members and reaction components, so the truss is a mechanism"
+      : difference === 0
+        ? "m + r = 3j: statically determinate if geometrically stable"
+        : `m + r > 3j: statically indeterminate to degree ${difference} if geometrically stable`;
+  return { members, reactionComponents, joints, difference, reading };
+}
+
+function caseResult(s: PreparedStructure, u: Float64Array, f: Float64Array): { result: CaseResult; forces: Float64Array } {
+  const { nodeIds, memberIds, topology } = s;
+  const forces = s.memberForces(u);
+  const internal = s.internalForces(u);
+  const memberForces: CaseResult["memberForces"] = {};
+  const zero = zeroForceMask(forces);
+  const zeroForceMembers: string[] = [];
+  memberIds.forEach((id, e) => {
+    memberForces[id] = forces[e];
+    if (zero[e]) zeroForceMembers.push(id);
+  });
+  const displacements: CaseResult["displacements"] = {};
+  const reactions: CaseResult["reactions"] = {};
+  let residual = 0;
+  nodeIds.forEach((id, k) => {
+    displacements[id] = { ux: u[3 * k], uy: u[3 * k + 1], uz: u[3 * k + 2] };
+    const r = topology.restrained;
+    const imbalance = [0, 1, 2].map((d) => internal[3 * k + d] - f[3 * k + d]);
+    if (r[3 * k] || r[3 * k + 1] || r[3 * k + 2]) {
+      reactions[id] = { fx: r[3 * k] ? imbalance[0] : 0, fy: r[3 * k + 1] ? imbalance[1] : 0, fz: r[3 * k + 2] ? imbalance[2] : 0 };
+    }
+    for (let d = 0; d < 3; d++) if (!r[3 * k + d]) residual = Math.max(residual, Math.abs(imbalance[d]));
+  });
+  return { result: { memberForces, reactions, displacements, zeroForceMembers, equilibriumResidual: residual }, forces };
+}
+
+/** Analyses every load case and combination of a validated model with one factorisation. */
+export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): AnalysisResult {
+  const structure = prepareStructure(model);
+  const info: AnalysisInfo = {
+    countCheck: countCheck(model),
+    envelopeOver: model.combinations.length > 0 ? "combinations" : "loadCases",
+    governing: {},
+    solver: structure.stats,
+  };
+  if (structure.status === "unstable") {
+    info.instabilityText = describeInstability(structure.instability);
+    return { status: "unstable", instability: structure.instability, results: {}, envelope: {}, zeroInAll: [], info };
+  }
+
+  const results: Record<string, CaseResult> = {};
+  const forcesById = new Map<string, Float64Array>();
+  const caseVectors = new Map<string, { u: Float64Array; f: Float64Array }>();
+  for (const loadCase of model.loadCases) {
+    const f = loadVectorForCase(model, loadCase.id, structure.topology);
+    const u = structure.solve(f);
+    caseVectors.set(loadCase.id, { u, f });
+    const { result, forces } = caseResult(structure, u, f);
+    results[loadCase.id] = result;
+    forcesById.set(loadCase.id, forces);
+  }
+  const dofs = 3 * structure.nodeIds.length;
+  for (const combo of model.combinations) {
+    const u = new Float64Array(dofs);
+    const f = new Float64Array(dofs);
+    for (const [caseId, factor] of Object.entries(combo.factors)) {
+      const v = caseVectors.get(caseId)!;
+      for (let q = 0; q < dofs; q++) {
+        u[q] += factor * v.u[q];
+        f[q] += factor * v.f[q];
+      }
+    }
+    const { result, forces } = caseResult(structure, u, f);
+    results[combo.id] = result;
+    forcesById.set(combo.id, forces);
+  }
+
+  const envelopeIds = info.envelopeOver === "combinations" ? model.combinations.map((c) => c.id) : model.loadCases.map((c) => c.id);
+  const envelope: Record<string, EnvelopeEntry> = {};
+  const zeroInAll: string[] = [];
+  const masks = envelopeIds.map((id) => zeroForceMask(forcesById.get(id)!));
+  structure.memberIds.forEach((memberId, e) => {
+    let maxTension = 0;
+    let maxCompression = 0;
+    let tensionId: string | null = null;
+    let compressionId: string | null = null;
+    let zeroEverywhere = true;
+    envelopeIds.forEach((id, k) => {
+      if (masks[k][e]) return; // rounding noise of a zero-force result must not count as tension or compression
+      zeroEverywhere = false;
+      const value = forcesById.get(id)![e];
+      if (value > maxTension) {
+        maxTension = value;
+        tensionId = id;
+      }
+      if (value < maxCompression) {
+        maxCompression = value;
+        compressionId = id;
+      }
+    });
+    envelope[memberId] = { maxTension, maxCompression, zeroInAll: zeroEverywhere };
+    info.governing[memberId] = { maxTension: tensionId, maxCompression: compressionId };
+    if (zeroEverywhere) zeroInAll.push(memberId);
+  });
+
+  if (options.lowForceThreshold !== undefined) {
+    const threshold = options.lowForceThreshold;
+    const members: Record<string, string[]> = {};
+    for (const [id, result] of Object.entries(results)) {
+      const zero = new Set(result.zeroForceMembers);
+      members[id] = structure.memberIds.filter((m) => !zero.has(m) && Math.abs(result.memberForces[m]) <= threshold);
+    }
+    const lowInAll = structure.memberIds.filter(
+      (m) => !envelope[m].zeroInAll && envelope[m].maxTension <= threshold && -envelope[m].maxCompression <= threshold,
+    );
+    info.lowForce = { threshold, members, lowInAll };
+  }
+
+  return { status: "ok", results, envelope, zeroInAll, info };
+}

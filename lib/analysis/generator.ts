@@ -1,0 +1,197 @@
+import { z } from "zod";
+import type { Combination, LoadCase, TrussMember, TrussModel, TrussNode, TrussSection, TrussSupport } from "./model";
+
+/** Inputs of the double-layer grid roof generator (m, kN/m2); shared by the web form and the server. */
+export const roofParamsSchema = z
+  .object({
+    name: z.string().min(1).default("Double-layer grid roof"),
+    pattern: z.enum(["square_on_square_offset"]).default("square_on_square_offset"),
+    spanX: z.number().positive().max(300),
+    spanY: z.number().positive().max(300),
+    module: z.number().positive(),
+    depth: z.number().positive(),
+    /** Superimposed dead load on the top layer: deck, insulation, membrane, purlins. */
+    roofing: z.number().nonnegative().default(0.6),
+    snow: z.number().nonnegative().default(0.8),
+    /** Net upward wind pressure on the roof, entered as a positive number. */
+    windUplift: z.number().nonnegative().default(0.7),
+    /** Services hung from the bottom layer: ducts, pipes, lights, sprinklers. */
+    services: z.number().nonnegative().default(0.25),
+  })
+  .superRefine((p, ctx) => {
+    for (const key of ["spanX", "spanY"] as const) {
+      const bays = p[key] / p.module;
+      if (Math.abs(bays - Math.round(bays)) > 1e-6 || Math.round(bays) < 2) {
+        ctx.addIssue({ code: "custom", path: [key], message: `span must be a whole number (at least 2) of ${p.module} m modules` });
+      }
+    }
+  });
+
+export type RoofParams = z.input<typeof roofParamsSchema>;
+
+// Steel S355: E 210 GPa (EN 1993-1-1 §3.2.6), fy 355 MPa for t <= 16 mm (EN 10210-1), unit weight 78.5 kN/m3
+// (density 7850 kg/m3). Values as listed in our reference notes; E and 78.5 are common practice.
+const steel = { id: "S355", E: 210e6, fy: 355e3, unitWeight: 78.5 };
+
+/**
+ * Hot-finished CHS sizes of EN 10210-2. 88.9x4.0, 114.3x5.0, 139.7x5.0 and 168.3x6.3 match the SCI P202
+ * handbook table; 76.1x3.2 and 193.7x8.0 are standard sizes listed from memory. Properties from the section
+ * formulas A = pi t (D - t), i = sqrt(D^2 + d^2) / 4 (standard geometry).
+ */
+function chs(outerMm: number, wallMm: number): TrussSection {
+  const D = outerMm / 1000;
+  const t = wallMm / 1000;
+  const d = D - 2 * t;
+  return {
+    id: `CHS ${outerMm}x${wallMm.toFixed(1)}`,
+    material: steel.id,
+    area: Math.PI * t * (D - t),
+    radiusOfGyration: Math.sqrt(D * D + d * d) / 4,
+    outerDiameter: D,
+    wallThickness: t,
+  };
+}
+
+/**
+ * Tube sizes by zone: chords carry the bending of the grid, largest at midspan; web members carry its shear,
+ * largest next to the supports. Sized so that the demo roof's strength combinations use roughly half to
+ * nine tenths of each tube's capacity (checked by the design-check helper).
+ */
+const sizes = {
+  topChordMid: chs(193.7, 8),
+  topChordEdge: chs(139.7, 5),
+  bottomChordMid: chs(168.3, 6.3),
+  bottomChordEdge: chs(114.3, 5),
+  diagonalEdge: chs(88.9, 4),
+  diagonalMid: chs(76.1, 3.2),
+} as const;
+
+/**
+ * Generates a double-layer grid roof, square on square offset: a top layer of square bays, a bottom layer of
+ * square bays offset by half a module (bottom nodes at the top bay centres), four web members from each bottom
+ * node to the corners of its bay. Ids are stable and readable: nodes T-i-j / B-i-j,
+ * top chords TCX-i-j / TCY-i-j, bottom chords BCX-i-j / BCY-i-j, diagonals D-i-j-SW/SE/NW/NE.
+ *
+ * Supports: every perimeter top node is held vertically (the roof bears on the walls all round). In plan the
+ * roof is held by the minimum three restraints, ux + uy at corner T-0-0 and uy at corner T-Nx-0, so it is
+ * stable yet free to expand; more horizontal restraints would attract forces from temperature and wall drift.
+ *
+ * Load cases (characteristic): dead (self-weight plus roofing), services (bottom nodes), snow and wind uplift
+ * (top nodes), each by tributary area. Combinations: EN 1990:2002 Annex A1, expression (6.10), recommended
+ * partial factors of Table A1.2(B): gammaG,sup 1.35, gammaG,inf 1.00, gammaQ 1.50; a variable action that
+ * relieves the effect (wind uplift under gravity, snow under uplift) gets factor 0, so psi0 (snow 0.5, wind
+ * 0.6, Table A1.1) never enters. Services count as permanent but are left out of the uplift combination: they
+ * may be removed or not yet hung, so they are not relied upon to hold the roof down.
+ */
+export function generateRoof(input: RoofParams): TrussModel {
+  const p = roofParamsSchema.parse(input);
+  const nx = Math.round(p.spanX / p.module);
+  const ny = Math.round(p.spanY / p.module);
+  const a = p.module;
+  const nodes: TrussNode[] = [];
+  const members: TrussMember[] = [];
+  const top = (i: number, j: number) => `T-${i}-${j}`;
+  const bottom = (i: number, j: number) => `B-${i}-${j}`;
+  for (let j = 0; j <= ny; j++) for (let i = 0; i <= nx; i++) nodes.push({ id: top(i, j), x: i * a, y: j * a, z: p.depth });
+
+  // Distance (in modules) of a point from the nearest edge, and from midspan of the short direction.
+  const shortSpan = Math.min(p.spanX, p.spanY);
+  const edgeDistance = (x: number, y: number) => Math.min(x, p.spanX - x, y, p.spanY - y);
+  const chordMid = (x: number, y: number) => edgeDistance(x, y) >= shortSpan / 5;
+  const webEdge = (x: number, y: number) => edgeDistance(x, y) <= 2 * a;
+
+  const addMember = (id: string, i: string, j: string, section: TrussSection) => members.push({ id, i, j, section: section.id });
+  for (let j = 0; j <= ny; j++) {
+    for (let i = 0; i <= nx; i++) {
+      if (i < nx) addMember(`TCX-${i}-${j}`, top(i, j), top(i + 1, j), chordMid((i + 0.5) * a, j * a) ? sizes.topChordMid : sizes.topChordEdge);
+      if (j < ny) addMember(`TCY-${i}-${j}`, top(i, j), top(i, j + 1), chordMid(i * a, (j + 0.5) * a) ? sizes.topChordMid : sizes.topChordEdge);
+    }
+  }
+
+  const bottomLoads: { node: string; area: number }[] = [];
+  for (let j = 0; j < ny; j++) {
+    for (let i = 0; i < nx; i++) {
+      nodes.push({ id: bottom(i, j), x: (i + 0.5) * a, y: (j + 0.5) * a, z: 0 });
+      bottomLoads.push({ node: bottom(i, j), area: a * a });
+    }
+  }
+  for (let j = 0; j < ny; j++) {
+    for (let i = 0; i < nx; i++) {
+      const x = (i + 0.5) * a;
+      const y = (j + 0.5) * a;
+      if (i < nx - 1) addMember(`BCX-${i}-${j}`, bottom(i, j), bottom(i + 1, j), chordMid(x + a / 2, y) ? sizes.bottomChordMid : sizes.bottomChordEdge);
+      if (j < ny - 1) addMember(`BCY-${i}-${j}`, bottom(i, j), bottom(i, j + 1), chordMid(x, y + a / 2) ? sizes.bottomChordMid : sizes.bottomChordEdge);
+      const web = webEdge(x, y) ? sizes.diagonalEdge : sizes.diagonalMid;
+      addMember(`D-${i}-${j}-SW`, bottom(i, j), top(i, j), web);
+      addMember(`D-${i}-${j}-SE`, bottom(i, j), top(i + 1, j), web);
+      addMember(`D-${i}-${j}-NW`, bottom(i, j), top(i, j + 1), web);
+      addMember(`D-${i}-${j}-NE`, bottom(i, j), top(i + 1, j + 1), web);
+    }
+  }
+
+  const supports: TrussSupport[] = [];
+  for (let j = 0; j <= ny; j++) {
+    for (let i = 0; i <= nx; i++) {
+      if (i !== 0 && i !== nx && j !== 0 && j !== ny) continue;
+      supports.push({ node: top(i, j), ux: i === 0 && j === 0, uy: j === 0 && (i === 0 || i === nx), uz: true });
+    }
+  }
+
+  const topLoads = (pressure: number) => {
+    const loads = [];
+    for (let j = 0; j <= ny; j++) {
+      for (let i = 0; i <= nx; i++) {
+        const area = a * a * (i === 0 || i === nx ? 0.5 : 1) * (j === 0 || j === ny ? 0.5 : 1);
+        loads.push({ node: top(i, j), fx: 0, fy: 0, fz: pressure * area });
+      }
+    }
+    return loads;
+  };
+  const loadCases: LoadCase[] = [
+    { id: "dead", name: `Self-weight and roofing ${p.roofing} kN/m2`, category: "dead", selfWeight: true, nodalLoads: topLoads(-p.roofing) },
+    {
+      id: "services",
+      name: `Hanging services ${p.services} kN/m2`,
+      category: "services",
+      selfWeight: false,
+      nodalLoads: bottomLoads.map(({ node, area }) => ({ node, fx: 0, fy: 0, fz: -p.services * area })),
+    },
+    { id: "snow", name: `Snow ${p.snow} kN/m2`, category: "snow", selfWeight: false, nodalLoads: topLoads(-p.snow) },
+    { id: "wind-uplift", name: `Wind uplift ${p.windUplift} kN/m2`, category: "wind", selfWeight: false, nodalLoads: topLoads(p.windUplift) },
+  ];
+  const combinations: Combination[] = [
+    { id: "ULS-1", name: "EN 1990 (6.10) permanent only: 1.35G", factors: { dead: 1.35, services: 1.35 } },
+    { id: "ULS-2", name: "EN 1990 (6.10) snow leading: 1.35G + 1.5S", factors: { dead: 1.35, services: 1.35, snow: 1.5 } },
+    { id: "ULS-3", name: "EN 1990 (6.10) wind uplift leading, G favourable: 1.0G + 1.5W", factors: { dead: 1.0, "wind-uplift": 1.5 } },
+    { id: "SLS-1", name: "EN 1990 (6.14b) characteristic, snow leading: G + S", factors: { dead: 1.0, services: 1.0, snow: 1.0 } },
+  ];
+
+  const usedSections = new Set(members.map((m) => m.section));
+  return {
+    format: "truss-model/1",
+    name: p.name,
+    materials: [steel],
+    sections: Object.values(sizes).filter((s, k, all) => usedSections.has(s.id) && all.findIndex((o) => o.id === s.id) === k),
+    nodes,
+    members,
+    supports,
+    loadCases,
+    combinations,
+  };
+}
+
+/** The demo project's roof: our invented Northfield Community Sports Hall, 36 m x 48 m on 3 m modules. */
+export function demoRoof(): TrussModel {
+  // Depth 1.8 m = short span / 20, the deep end of the common span/20 to span/30 range for perimeter support.
+  return generateRoof({
+    name: "Northfield Community Sports Hall roof",
+    spanX: 48,
+    spanY: 36,
+    module: 3,
+    depth: 1.8,
+    roofing: 0.6,
+    snow: 0.8,
+    windUplift: 0.9,
+    services: 0.25,
+  });
+}

@@ -1,0 +1,36 @@
+/**
+ * Strutroom's truss analysis engine: pure TypeScript (no React, no I/O, no Node-only APIs), so it runs in
+ * route handlers, the realtime server, the command line and a browser Web Worker alike.
+ */
+export {
+  trussModelSchema,
+  validateModel,
+  loadCategories,
+  type TrussModel,
+  type TrussMaterial,
+  type TrussSection,
+  type TrussNode,
+  type TrussMember,
+  type TrussSupport,
+  type LoadCase,
+  type LoadCategory,
+  type NodalLoad,
+  type Combination,
+  type ModelProblem,
+  type ValidationResult,
+} from "./model";
+export { modelFromCsv, csvColumns } from "./csv";
+export {
+  analyzeModel,
+  zeroForceMask,
+  describeInstability,
+  type AnalysisResult,
+  type AnalysisInfo,
+  type AnalyzeOptions,
+  type CaseResult,
+  type EnvelopeEntry,
+} from "./analyze";
+export { prepareStructure, PIVOT_TOLERANCE, type PreparedStructure, type Instability, type Direction } from "./prepare";
+export { loadVectorForCase } from "./loads";
+export { generateRoof, roofParamsSchema, demoRoof, type RoofParams } from "./generator";
+export { classifyMembers, type MemberClass } from "./classify";

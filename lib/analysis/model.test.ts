@@ -1,0 +1,76 @@
+import { describe, expect, it } from "vitest";
+import { validateModel, type TrussModel } from "./model";
+import { pointLoads, trussModel } from "./test-fixtures";
+
+const valid = (): TrussModel =>
+  trussModel({
+    nodes: [
+      ["A", 0, 0, 0],
+      ["B", 4, 0, 0],
+      ["C", 2, 0, 1.5],
+    ],
+    members: ["A-B", "A-C", "B-C"],
+    supports: [
+      ["A", true, true, true],
+      ["B", false, true, true],
+    ],
+    loadCases: [pointLoads("G", [["C", 0, 0, -10]])],
+    combinations: [{ id: "U1", name: "1.35G", factors: { G: 1.35 } }],
+  });
+
+/** Problems of a model changed by `edit`, as "where: message" lines. */
+function problemsOf(edit: (m: TrussModel) => void): string[] {
+  const model = valid();
+  edit(model);
+  const result = validateModel(model);
+  expect(result.ok).toBe(false);
+  return result.ok ? [] : result.problems.map((p) => `${p.where}: ${p.message}`);
+}
+
+describe("validateModel", () => {
+  it("accepts a valid model and keeps the optional effective length factor", () => {
+    const model = valid();
+    model.members[0].effectiveLengthFactor = 0.9;
+    const result = validateModel(model);
+    expect(result.ok).toBe(true);
+    expect(result.ok && result.model.members[0].effectiveLengthFactor).toBe(0.9);
+  });
+
+  it.each<[string, (m: TrussModel) => void, RegExp]>([
+    ["zero-length member", (m) => (m.nodes[2] = { id: "C", x: 4, y: 0, z: 0 }), /members\[2\] "BC": member "BC" has zero length/],
+    ["member joining a node to itself", (m) => (m.members[0].j = "A"), /members\[0\] "AB": .*joins node "A" to itself/],
+    ["duplicate node id", (m) => m.nodes.push({ id: "B", x: 9, y: 9, z: 9 }), /nodes\[3\] "B": duplicate node id "B" \(first at nodes\[1\] "B"\)/],
+    ["duplicate member id", (m) => m.members.push({ id: "AB", i: "A", j: "C", section: "T" }), /members\[3\] "AB": duplicate member id/],
+    ["missing id", (m) => (m.nodes[0].id = ""), /nodes\[0\] id: id must not be empty/],
+    ["member to a missing node", (m) => (m.members[1].j = "Z"), /members\[1\] "AC": member "AC" ends at a missing node "Z"/],
+    ["duplicate member between the same nodes", (m) => m.members.push({ id: "BA", i: "B", j: "A", section: "T" }), /members\[3\] "BA": member "BA" duplicates member "AB"/],
+    ["load on a missing node", (m) => m.loadCases[0].nodalLoads.push({ node: "Q", fx: 0, fy: 0, fz: 1 }), /loadCases\[0\] "G" nodalLoads\[1\]: .*missing node "Q"/],
+    ["non-finite number", (m) => (m.nodes[1].x = Number.POSITIVE_INFINITY), /nodes\[1\] "B" x: .*finite/],
+    ["NaN", (m) => (m.loadCases[0].nodalLoads[0].fz = Number.NaN), /loadCases\[0\] "G" nodalLoads\[0\] fz: .*finite/],
+    ["combination naming a missing case", (m) => (m.combinations[0].factors.S = 1.5), /combinations\[0\] "U1": combination "U1" names a missing load case "S"/],
+    ["negative area", (m) => (m.sections[0].area = -0.001), /sections\[0\] "T": area must be positive/],
+    ["negative modulus", (m) => (m.materials[0].E = -2e8), /materials\[0\] "S": modulus E must be positive/],
+    ["section naming a missing material", (m) => (m.sections[0].material = "S275"), /sections\[0\] "T": section "T" names a missing material "S275"/],
+    ["member naming a missing section", (m) => (m.members[2].section = "CHS 60"), /members\[2\] "BC": member "BC" names a missing section "CHS 60"/],
+    ["support on a missing node", (m) => m.supports.push({ node: "Q", ux: true, uy: true, uz: true }), /supports\[2\] "Q": support on a missing node/],
+    ["unknown load category", (m) => ((m.loadCases[0] as { category: string }).category = "seismic"), /loadCases\[0\] "G" category/],
+  ])("reports %s with where it is", (_name, edit, expected) => {
+    expect(problemsOf(edit).join("\n")).toMatch(expected);
+  });
+
+  it("lists every problem at once, not just the first", () => {
+    const lines = problemsOf((m) => {
+      m.members[0].i = "X";
+      m.members[1].section = "none";
+      m.sections[0].area = 0;
+      m.combinations[0].factors.W = 1;
+    });
+    expect(lines, lines.join("\n")).toHaveLength(4);
+  });
+
+  it("rejects input that is not a model at all", () => {
+    const result = validateModel({ format: "something-else" });
+    expect(result.ok).toBe(false);
+    expect(!result.ok && result.problems.map((p) => p.where)).toContain("format");
+  });
+});

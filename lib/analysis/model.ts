@@ -1,0 +1,206 @@
+import { z } from "zod";
+
+/** Load case categories of the model format (ours, version 1). */
+export const loadCategories = ["dead", "live", "roof_live", "snow", "wind", "services", "other"] as const;
+export type LoadCategory = (typeof loadCategories)[number];
+
+// zod 4's z.number() already refuses NaN and +-Infinity, so "non-finite number" problems come from here.
+const id = z.string().min(1, "id must not be empty");
+const num = z.number();
+
+export const materialSchema = z.object({ id, E: num, fy: num, unitWeight: num });
+export const sectionSchema = z.object({
+  id,
+  material: id,
+  area: num,
+  radiusOfGyration: num,
+  outerDiameter: num,
+  wallThickness: num,
+});
+export const nodeSchema = z.object({ id, x: num, y: num, z: num });
+export const memberSchema = z.object({
+  id,
+  i: id,
+  j: id,
+  section: id,
+  /** Buckling length factor K for design checks (Lc = K L); 1.0 when absent. */
+  effectiveLengthFactor: num.optional(),
+});
+export const supportSchema = z.object({ node: id, ux: z.boolean(), uy: z.boolean(), uz: z.boolean() });
+export const nodalLoadSchema = z.object({ node: id, fx: num, fy: num, fz: num });
+export const loadCaseSchema = z.object({
+  id,
+  name: z.string(),
+  category: z.enum(loadCategories),
+  selfWeight: z.boolean(),
+  nodalLoads: z.array(nodalLoadSchema),
+});
+export const combinationSchema = z.object({ id, name: z.string(), factors: z.record(z.string(), num) });
+
+/** The truss model format, version 1 (units m, kN, kPa, kN/m3; z up). */
+export const trussModelSchema = z.object({
+  format: z.literal("truss-model/1"),
+  name: z.string(),
+  materials: z.array(materialSchema),
+  sections: z.array(sectionSchema),
+  nodes: z.array(nodeSchema),
+  members: z.array(memberSchema),
+  supports: z.array(supportSchema),
+  loadCases: z.array(loadCaseSchema),
+  combinations: z.array(combinationSchema),
+});
+
+export type TrussModel = z.infer<typeof trussModelSchema>;
+export type TrussMaterial = z.infer<typeof materialSchema>;
+export type TrussSection = z.infer<typeof sectionSchema>;
+export type TrussNode = z.infer<typeof nodeSchema>;
+export type TrussMember = z.infer<typeof memberSchema>;
+export type TrussSupport = z.infer<typeof supportSchema>;
+export type LoadCase = z.infer<typeof loadCaseSchema>;
+export type NodalLoad = z.infer<typeof nodalLoadSchema>;
+export type Combination = z.infer<typeof combinationSchema>;
+
+export type ModelProblem = { where: string; message: string };
+export type ValidationResult = { ok: true; model: TrussModel } | { ok: false; problems: ModelProblem[] };
+
+type Table = keyof Omit<TrussModel, "format" | "name">;
+
+/**
+ * Names a model record for problem messages: `members[3] "M7"` for JSON, `members.csv line 5 (M7)` for CSV.
+ * `load` is the index of a nodal load inside load case `index`.
+ */
+export type Locator = (table: Table, index: number, load?: number) => string;
+
+/** Locator for JSON input; reads the raw rows defensively because it also names rows that failed to parse. */
+export const jsonLocator =
+  (input: unknown): Locator =>
+  (table, index, load) => {
+    const rows = (input as Record<string, unknown> | null)?.[table];
+    const row = Array.isArray(rows) ? (rows[index] as { id?: unknown; node?: unknown } | undefined) : undefined;
+    const label = typeof row?.id === "string" && row.id !== "" ? row.id : typeof row?.node === "string" && row.node !== "" ? row.node : undefined;
+    const base = label === undefined ? `${table}[${index}]` : `${table}[${index}] "${label}"`;
+    return load === undefined ? base : `${base} nodalLoads[${load}]`;
+  };
+
+const tables = new Set<string>(["materials", "sections", "nodes", "members", "supports", "loadCases", "combinations"]);
+
+/** Validates raw input against the model format and its cross-references; lists every problem found. */
+export function validateModel(input: unknown, locate: Locator = jsonLocator(input)): ValidationResult {
+  const parsed = trussModelSchema.safeParse(input);
+  if (!parsed.success) {
+    return {
+      ok: false,
+      problems: parsed.error.issues.map((issue) => ({
+        where: describePath(issue.path, locate),
+        message: issue.code === "invalid_type" && issue.expected === "number" ? `${issue.message} (numbers must be finite)` : issue.message,
+      })),
+    };
+  }
+  const problems = checkReferences(parsed.data, locate);
+  return problems.length === 0 ? { ok: true, model: parsed.data } : { ok: false, problems };
+}
+
+function describePath(path: PropertyKey[], locate: Locator): string {
+  const [table, index, ...rest] = path;
+  if (typeof table !== "string" || !tables.has(table) || typeof index !== "number") {
+    return path.length === 0 ? "model" : path.map(String).join(".");
+  }
+  if (table === "loadCases" && rest[0] === "nodalLoads" && typeof rest[1] === "number") {
+    return [locate(table, index, rest[1]), ...rest.slice(2).map(String)].join(" ");
+  }
+  return [locate(table as Table, index), ...rest.map(String)].join(" ");
+}
+
+function duplicates(
+  rows: { id: string }[],
+  table: Table,
+  kind: string,
+  locate: Locator,
+  problems: ModelProblem[],
+): Map<string, number> {
+  const byId = new Map<string, number>();
+  rows.forEach((row, index) => {
+    const first = byId.get(row.id);
+    if (first !== undefined) {
+      problems.push({ where: locate(table, index), message: `duplicate ${kind} id "${row.id}" (first at ${locate(table, first)})` });
+    } else {
+      byId.set(row.id, index);
+    }
+  });
+  return byId;
+}
+
+function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
+  const problems: ModelProblem[] = [];
+  const add = (where: string, message: string) => problems.push({ where, message });
+
+  const materials = duplicates(model.materials, "materials", "material", locate, problems);
+  model.materials.forEach((m, k) => {
+    if (m.E <= 0) add(locate("materials", k), `modulus E must be positive (got ${m.E})`);
+    if (m.fy < 0) add(locate("materials", k), `yield strength fy must not be negative (got ${m.fy})`);
+    if (m.unitWeight < 0) add(locate("materials", k), `unit weight must not be negative (got ${m.unitWeight})`);
+  });
+
+  const sections = duplicates(model.sections, "sections", "section", locate, problems);
+  model.sections.forEach((s, k) => {
+    if (s.area <= 0) add(locate("sections", k), `area must be positive (got ${s.area})`);
+    if (s.radiusOfGyration < 0) add(locate("sections", k), `radius of gyration must not be negative (got ${s.radiusOfGyration})`);
+    if (s.outerDiameter < 0 || s.wallThickness < 0) add(locate("sections", k), "outer diameter and wall thickness must not be negative");
+    if (!materials.has(s.material)) add(locate("sections", k), `section "${s.id}" names a missing material "${s.material}"`);
+  });
+
+  const nodes = duplicates(model.nodes, "nodes", "node", locate, problems);
+  duplicates(model.members, "members", "member", locate, problems);
+  const pairs = new Map<string, number>();
+  model.members.forEach((m, k) => {
+    const where = locate("members", k);
+    const ni = nodes.get(m.i);
+    const nj = nodes.get(m.j);
+    if (ni === undefined) add(where, `member "${m.id}" starts at a missing node "${m.i}"`);
+    if (nj === undefined) add(where, `member "${m.id}" ends at a missing node "${m.j}"`);
+    if (!sections.has(m.section)) add(where, `member "${m.id}" names a missing section "${m.section}"`);
+    if (m.effectiveLengthFactor !== undefined && m.effectiveLengthFactor <= 0) {
+      add(where, `member "${m.id}" effective length factor must be positive (got ${m.effectiveLengthFactor})`);
+    }
+    if (ni === undefined || nj === undefined) return;
+    if (m.i === m.j) {
+      add(where, `member "${m.id}" joins node "${m.i}" to itself (zero length)`);
+      return;
+    }
+    const a = model.nodes[ni];
+    const b = model.nodes[nj];
+    const length = Math.hypot(b.x - a.x, b.y - a.y, b.z - a.z);
+    if (length <= 1e-9) add(where, `member "${m.id}" has zero length (nodes "${m.i}" and "${m.j}" coincide)`);
+    const key = m.i < m.j ? `${m.i}\u0000${m.j}` : `${m.j}\u0000${m.i}`;
+    const first = pairs.get(key);
+    if (first !== undefined) {
+      add(where, `member "${m.id}" duplicates member "${model.members[first].id}" between nodes "${m.i}" and "${m.j}"`);
+    } else {
+      pairs.set(key, k);
+    }
+  });
+
+  const supported = new Map<string, number>();
+  model.supports.forEach((s, k) => {
+    if (!nodes.has(s.node)) add(locate("supports", k), `support on a missing node "${s.node}"`);
+    const first = supported.get(s.node);
+    if (first !== undefined) add(locate("supports", k), `second support on node "${s.node}" (first at ${locate("supports", first)})`);
+    else supported.set(s.node, k);
+  });
+
+  const cases = duplicates(model.loadCases, "loadCases", "load case", locate, problems);
+  model.loadCases.forEach((c, k) => {
+    c.nodalLoads.forEach((load, l) => {
+      if (!nodes.has(load.node)) add(locate("loadCases", k, l), `load case "${c.id}" has a load on a missing node "${load.node}"`);
+    });
+  });
+
+  duplicates(model.combinations, "combinations", "combination", locate, problems);
+  model.combinations.forEach((c, k) => {
+    if (cases.has(c.id)) add(locate("combinations", k), `combination id "${c.id}" is also a load case id`);
+    for (const caseId of Object.keys(c.factors)) {
+      if (!cases.has(caseId)) add(locate("combinations", k), `combination "${c.id}" names a missing load case "${caseId}"`);
+    }
+  });
+  return problems;
+}

@@ -1,0 +1,132 @@
+import { assembleStiffness } from "./assemble";
+import type { TrussModel } from "./model";
+import { approximateMinimumDegree } from "./sparse/amd";
+import { numericLdl, solveLdl, symbolicLdl } from "./sparse/ldl";
+import { buildTopology, type Topology } from "./topology";
+
+export type Direction = "ux" | "uy" | "uz";
+export type Instability = { node: string; directions: Direction[] };
+
+/**
+ * A pivot below this fraction of its node's largest diagonal stiffness marks a mechanism. Exact mechanisms
+ * leave pivots near 1e-16 of the scale (rounding); a joint between members kinked by less than ~1e-5 rad
+ * (stiffness ~ angle squared) is reported as near-singular too.
+ */
+export const PIVOT_TOLERANCE = 1e-10;
+
+export const directions: readonly Direction[] = ["ux", "uy", "uz"];
+
+/** One assembled and factored structure: every load vector is solved against the same factor. */
+export type PreparedStructure = {
+  status: "ok" | "unstable";
+  instability: Instability[];
+  nodeIds: string[];
+  memberIds: string[];
+  topology: Topology;
+  /** Full 3n nodal load vector in (kN), full 3n displacement vector out (m), zeros at restraints. */
+  solve(f: Float64Array): Float64Array;
+  /** Axial forces N (kN, tension positive) from a full displacement vector. */
+  memberForces(u: Float64Array): Float64Array;
+  /** b_e (full 3n) with N_e = b_e . u; for adjoint solves K z = b_e (influence of loads on member e). */
+  memberForceVector(memberIndex: number): Float64Array;
+  /** Reactions (full 3n, non-zero only at restrained dofs) R = K u - f. */
+  reactions(u: Float64Array, f: Float64Array): Float64Array;
+  /** Internal nodal forces K u (full 3n), summed member by member from the member forces. */
+  internalForces(u: Float64Array): Float64Array;
+  stats: { dofs: number; equations: number; nonzerosK: number; nonzerosL: number };
+  /** Milliseconds spent in each step. */
+  timings: { assembly: number; ordering: number; factorisation: number };
+};
+
+const now = () => globalThis.performance.now();
+
+/** Orders, assembles and factors the stiffness matrix of a validated model. */
+export function prepareStructure(model: TrussModel): PreparedStructure {
+  const t0 = now();
+  const topology = buildTopology(model);
+  const t1 = now();
+  const n = topology.nodeIds.length;
+  const nodeOrder = approximateMinimumDegree(n, topology.adjStart, topology.adj);
+  const t2 = now();
+  const assembled = assembleStiffness(topology, nodeOrder);
+  const t3 = now();
+  const symbolic = symbolicLdl(assembled.matrix);
+  const factor = numericLdl(assembled.matrix, symbolic, assembled.pivotScale, PIVOT_TOLERANCE);
+  const t4 = now();
+
+  const { dofOfEquation } = assembled;
+  const byNode = new Map<number, Direction[]>();
+  for (const eq of factor.tinyPivots) {
+    const dof = dofOfEquation[eq];
+    const node = Math.floor(dof / 3);
+    const list = byNode.get(node) ?? [];
+    list.push(directions[dof % 3]);
+    byNode.set(node, list);
+  }
+  const instability = [...byNode.entries()]
+    .sort((a, b) => a[0] - b[0])
+    .map(([node, dirs]) => ({ node: topology.nodeIds[node], directions: dirs.sort() }));
+
+  const { memberI, memberJ, direction: c, axialStiffness: ks } = topology;
+  const m = topology.memberIds.length;
+  const neq = assembled.matrix.n;
+
+  const memberForces = (u: Float64Array) => {
+    const forces = new Float64Array(m);
+    for (let e = 0; e < m; e++) {
+      const a = 3 * memberI[e];
+      const b = 3 * memberJ[e];
+      const ce = 3 * e;
+      forces[e] = ks[e] * (c[ce] * (u[b] - u[a]) + c[ce + 1] * (u[b + 1] - u[a + 1]) + c[ce + 2] * (u[b + 2] - u[a + 2]));
+    }
+    return forces;
+  };
+  const internalForces = (u: Float64Array) => {
+    const r = new Float64Array(3 * n);
+    const forces = memberForces(u);
+    for (let e = 0; e < m; e++) {
+      const a = 3 * memberI[e];
+      const b = 3 * memberJ[e];
+      for (let s = 0; s < 3; s++) {
+        const v = forces[e] * c[3 * e + s];
+        r[a + s] -= v;
+        r[b + s] += v;
+      }
+    }
+    return r;
+  };
+
+  return {
+    status: instability.length === 0 ? "ok" : "unstable",
+    instability,
+    nodeIds: topology.nodeIds,
+    memberIds: topology.memberIds,
+    topology,
+    solve(f) {
+      const x = new Float64Array(neq);
+      for (let q = 0; q < neq; q++) x[q] = f[dofOfEquation[q]];
+      solveLdl(factor, x);
+      const u = new Float64Array(3 * n);
+      for (let q = 0; q < neq; q++) u[dofOfEquation[q]] = x[q];
+      return u;
+    },
+    memberForces,
+    memberForceVector(e) {
+      const b = new Float64Array(3 * n);
+      for (let s = 0; s < 3; s++) {
+        const v = ks[e] * c[3 * e + s];
+        b[3 * memberI[e] + s] -= v;
+        b[3 * memberJ[e] + s] += v;
+      }
+      return b;
+    },
+    reactions(u, f) {
+      const r = internalForces(u);
+      for (let dof = 0; dof < 3 * n; dof++) r[dof] = topology.restrained[dof] ? r[dof] - f[dof] : 0;
+      return r;
+    },
+    internalForces,
+    stats: { dofs: 3 * n, equations: neq, nonzerosK: assembled.matrix.colPtr[neq], nonzerosL: symbolic.nnzL },
+    timings: { assembly: t1 - t0 + (t3 - t2), ordering: t2 - t1, factorisation: t4 - t3 },
+  };
+}

@@ -1,0 +1,81 @@
+/**
+ * Command line analysis: `npm run analyze -- model.json` or `npm run analyze -- --csv DIR`.
+ * Prints the analysis result JSON (design.md) to stdout. Exit codes: 0 analysed, 1 usage or read error,
+ * 2 invalid model (each problem on its own stderr line), 3 unstable (the result JSON is still printed).
+ */
+import { readdirSync, readFileSync } from "node:fs";
+import { basename, join } from "node:path";
+import { parseArgs } from "node:util";
+import { analyzeModel, modelFromCsv, validateModel, type ValidationResult } from "@/lib/analysis";
+
+// Further flags (e.g. --review) are added to this table; values arrive typed in `args.values`.
+const options = {
+  csv: { type: "string", description: "read CSV tables (nodes.csv, members.csv, ...) from this folder" },
+  threshold: { type: "string", description: "report members below this axial force (kN) as low-force" },
+  pretty: { type: "boolean", description: "indent the JSON output" },
+  help: { type: "boolean", short: "h", description: "show this help" },
+} as const;
+
+const usage = () =>
+  [
+    "usage: npm run analyze -- [options] [model.json]",
+    ...Object.entries(options).map(([name, o]) => `  --${name}${o.type === "string" ? " VALUE" : ""}  ${o.description}`),
+  ].join("\n");
+
+class UsageError extends Error {}
+
+function readModel(file: string | undefined, csvDir: string | undefined): ValidationResult {
+  if (csvDir !== undefined) {
+    const tables: Record<string, string> = {};
+    for (const name of readdirSync(csvDir)) if (name.toLowerCase().endsWith(".csv")) tables[basename(name)] = readFileSync(join(csvDir, name), "utf8");
+    return modelFromCsv(tables, { name: basename(csvDir) });
+  }
+  if (file === undefined) throw new UsageError("give a model JSON file or --csv DIR");
+  let input: unknown;
+  try {
+    input = JSON.parse(readFileSync(file, "utf8"));
+  } catch (error) {
+    if (error instanceof SyntaxError) return { ok: false, problems: [{ where: file, message: `not valid JSON: ${error.message}` }] };
+    throw error;
+  }
+  return validateModel(input);
+}
+
+function main(argv: string[]): number {
+  let args;
+  try {
+    args = parseArgs({ args: argv, options, allowPositionals: true, strict: true });
+  } catch (error) {
+    process.stderr.write(`${(error as Error).message}\n${usage()}\n`);
+    return 1;
+  }
+  if (args.values.help) {
+    process.stdout.write(`${usage()}\n`);
+    return 0;
+  }
+  const threshold = args.values.threshold === undefined ? undefined : Number(args.values.threshold);
+  if (threshold !== undefined && !(threshold >= 0)) {
+    process.stderr.write(`--threshold must be a non-negative number of kN (got "${args.values.threshold}")\n`);
+    return 1;
+  }
+  let checked: ValidationResult;
+  try {
+    checked = readModel(args.positionals[0], args.values.csv);
+  } catch (error) {
+    process.stderr.write(`${(error as Error).message}\n${error instanceof UsageError ? `${usage()}\n` : ""}`);
+    return 1;
+  }
+  if (!checked.ok) {
+    for (const problem of checked.problems) process.stderr.write(`${problem.where}: ${problem.message}\n`);
+    return 2;
+  }
+  const result = analyzeModel(checked.model, { lowForceThreshold: threshold });
+  process.stdout.write(`${JSON.stringify(result, null, args.values.pretty ? 2 : undefined)}\n`);
+  if (result.status === "unstable") {
+    for (const line of result.info.instabilityText ?? []) process.stderr.write(`${line}\n`);
+    return 3;
+  }
+  return 0;
+}
+
+process.exitCode = main(process.argv.slice(2));
