@@ -1,0 +1,24 @@
+import type { Metadata } from "next";
+import { ProjectHeader } from "@/components/project/project-header";
+import { ProjectNav } from "@/components/project/project-nav";
+import { TeamPanel } from "@/components/project/team-panel";
+import { InvitePanel } from "@/components/project/invite-panel";
+import { requirePageProject } from "@/lib/auth/page";
+
+export const metadata: Metadata = { title: "Project overview" };
+
+export default async function ProjectOverviewPage({ params }: PageProps<"/projects/[projectId]">) {
+  const { projectId } = await params;
+  const { user, project } = await requirePageProject(projectId);
+  const canManage = project.abilities["team.manage"];
+  return (
+    <div className="flex flex-col gap-6">
+      <ProjectHeader project={project} />
+      <ProjectNav projectId={project.id} />
+      <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
+        <TeamPanel projectId={project.id} canManage={canManage} currentUserId={user.id} />
+        {canManage ? <InvitePanel projectId={project.id} /> : null}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,22 @@
+import type { Metadata } from "next";
+import type { ReactNode } from "react";
+// Fonts ship with the app (npm packages), so nothing is fetched from a font service at build or run time.
+import "@fontsource-variable/public-sans";
+import "@fontsource-variable/jetbrains-mono";
+import "./globals.css";
+import { Providers } from "@/components/providers";
+
+export const metadata: Metadata = {
+  title: { default: "Strutroom", template: "%s · Strutroom" },
+  description: "The shared review board for steel space-truss roofs.",
+};
+
+export default function RootLayout({ children }: { children: ReactNode }) {
+  return (
+    <html lang="en-GB">
+      <body className="min-h-screen">
+        <Providers>{children}</Providers>
+      </body>
+    </html>
+  );
+}

@@ -1,0 +1,12 @@
+"use client";
+
+import { signOut } from "next-auth/react";
+import { Button } from "@/components/ui/form";
+
+export function SignOutButton() {
+  return (
+    <Button variant="quiet" onClick={() => signOut({ callbackUrl: "/sign-in" })} data-testid="sign-out">
+      Sign out
+    </Button>
+  );
+}

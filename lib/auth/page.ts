@@ -1,0 +1,25 @@
+import "server-only";
+import { notFound } from "next/navigation";
+import { getProjectForMember, type ProjectForMember } from "@/db/queries/projects";
+import { HttpError } from "@/lib/http/errors";
+import type { Action } from "@/lib/permissions";
+import { requireProjectRole } from "./guard";
+import { requirePageUser, type SessionUser } from "./session";
+
+/**
+ * For a project page: signed in (else the sign-in page), then the project guard. Outsiders and roles without
+ * the action see "not found", so a page never tells who may not look whether a project exists.
+ */
+export async function requirePageProject(projectId: string, action: Action = "project.read"): Promise<{ user: SessionUser; project: ProjectForMember }> {
+  const user = await requirePageUser(`/projects/${projectId}`);
+  if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
+  try {
+    const membership = await requireProjectRole(user, projectId, action);
+    const project = await getProjectForMember({ projectId, role: membership.role });
+    if (!project) notFound();
+    return { user, project };
+  } catch (error) {
+    if (error instanceof HttpError) notFound();
+    throw error;
+  }
+}
