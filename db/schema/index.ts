@@ -3,3 +3,4 @@ export * from "./core";
 export * from "./review";
 export * from "./files";
 export * from "./mail";
+export * from "./mep";

@@ -84,3 +84,17 @@ export const runEditSchema = z.object({
   points: z.array(runPointSchema).min(2).optional(),
 });
 export type RunEdit = z.infer<typeof runEditSchema>;
+
+/** Which model revision (by its number in the project) a runs or clashes request is about. */
+export const revisionQuerySchema = z.object({ revision: z.coerce.number().int().positive("Give the revision number.") });
+
+/** Import request: the file's text and name (CSV or JSON), and whether to replace the revision's runs. */
+export const importRunsSchema = z.object({
+  revision: z.number().int().positive(),
+  fileName: z.string().trim().min(1).max(200),
+  text: z.string().min(1, "The file is empty.").max(2_000_000, "Keep run files under 2 MB."),
+  mode: z.enum(["replace", "upsert"]).default("upsert"),
+});
+export type ImportRunsInput = z.infer<typeof importRunsSchema>;
+
+export const editRunRequestSchema = runEditSchema.extend({ revision: z.number().int().positive() });

@@ -1,0 +1,39 @@
+import { importRuns, listRunsByRevision } from "@/db/queries/mep";
+import { requireProjectRole, requireUser } from "@/lib/auth/guard";
+import { getRequestUser } from "@/lib/auth/session";
+import { ValidationError, handleRoute } from "@/lib/http/errors";
+import { projectParamsSchema } from "@/lib/http/params";
+import { parseJson, parseParams, parseWith } from "@/lib/http/parse";
+import { parseRunsFile } from "@/lib/mep/import";
+import { requireRevision } from "@/lib/mep/revision";
+import { importRunsSchema, revisionQuerySchema } from "@/lib/mep/schemas";
+
+type Context = RouteContext<"/api/projects/[projectId]/runs">;
+
+/** The runs of one revision (`?revision=N`). */
+export const GET = handleRoute(async (request: Request, context: Context) => {
+  const { projectId } = parseParams(projectParamsSchema, await context.params);
+  await requireProjectRole(await getRequestUser(request), projectId, "project.read");
+  const { revision: number } = parseWith(revisionQuerySchema, Object.fromEntries(new URL(request.url).searchParams));
+  const revision = await requireRevision(projectId, number);
+  return Response.json({ runs: await listRunsByRevision({ revisionId: revision.id }) });
+});
+
+/** Imports runs from a CSV or JSON file; any problem rejects the whole file and every problem is listed. */
+export const POST = handleRoute(async (request: Request, context: Context) => {
+  const { projectId } = parseParams(projectParamsSchema, await context.params);
+  const user = requireUser(await getRequestUser(request));
+  await requireProjectRole(user, projectId, "runs.edit");
+  const input = await parseJson(request, importRunsSchema);
+  const revision = await requireRevision(projectId, input.revision);
+  const { runs, problems } = parseRunsFile(input.text, input.fileName);
+  if (problems.length > 0) {
+    throw new ValidationError(
+      problems.map((p) => ({ path: p.row === null ? p.field : `row ${p.row}.${p.field}`, message: p.message })),
+      `The file has ${problems.length} problem${problems.length === 1 ? "" : "s"}; nothing was imported.`,
+    );
+  }
+  if (runs.length === 0) throw new ValidationError([{ path: "text", message: "The file holds no runs." }], "The file holds no runs.");
+  const detection = await importRuns({ projectId, revision, runs, mode: input.mode, actorId: user.id });
+  return Response.json({ imported: runs.map((r) => r.id), detection }, { status: 201 });
+});

@@ -1,0 +1,191 @@
+import { eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { POST as ACCEPT } from "@/app/api/projects/[projectId]/clashes/[clashId]/acceptance/route";
+import { POST as PROPOSE } from "@/app/api/projects/[projectId]/clashes/[clashId]/proposal/route";
+import { GET as GET_CLASH } from "@/app/api/projects/[projectId]/clashes/[clashId]/route";
+import { GET as LIST_CLASHES, POST as DETECT } from "@/app/api/projects/[projectId]/clashes/route";
+import { DELETE as DELETE_RUN, PATCH as EDIT_RUN } from "@/app/api/projects/[projectId]/runs/[runId]/route";
+import { GET as LIST_RUNS, POST as IMPORT } from "@/app/api/projects/[projectId]/runs/route";
+import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { auditEvents, clashDecisions } from "@/db/schema";
+import { analyzeModel } from "@/lib/analysis/analyze";
+import { generateRoof } from "@/lib/analysis/generator";
+import { ROLES } from "@/lib/permissions";
+import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
+import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
+import { buildRequest, routeContext } from "../support/session";
+
+// Caution text copied from glossary.md (the project never reads ../shared at test time).
+const CAUTION =
+  "Advisory results for coordination. Any removal, opening or change to a structural member needs the written approval of the engineer of record under the applicable local codes.";
+
+let fx: ProjectFixture;
+const ctx = () => routeContext({ projectId: fx.projectId });
+
+// A 9 m × 9 m roof on 3 m modules, 2 m deep: top chords at z = 2. A duct along x at y = 1.5, z = 2 crosses the
+// four y-direction top chords TCY-i-0 (x = 0, 3, 6, 9) — hard clashes (see lib/clash/detect.test.ts for the
+// same geometry worked by hand).
+const csv = [
+  "run,system,shape,diameter,width,height,rotation,insulation,clearance,weight_per_metre,x,y,z",
+  "SA-01,supply air,round,0.5,,,,0.05,0.1,0.35,-1,1.5,2",
+  "SA-01,,,,,,,,,,10,1.5,2",
+].join("\n");
+
+beforeAll(async () => {
+  requireIntegrationEnv();
+  fx = await createProjectFixture("mep-clashes");
+  const model = generateRoof({ name: "Test roof", spanX: 9, spanY: 9, module: 3, depth: 2 });
+  await createRevisionWithAnalysis({ projectId: fx.projectId, name: "r1", model, source: "generated", createdBy: fx.users.structural_engineer.id, result: analyzeModel(model), review: null });
+});
+afterAll(closeDb);
+
+const importBody = (text = csv) => ({ revision: 1, fileName: "runs.csv", text, mode: "replace" });
+
+describe("runs import", () => {
+  const path = () => `/api/projects/${fx.projectId}/runs`;
+
+  it("answers 401 signed out, 404 to outsiders, 403 to roles without runs.edit", async () => {
+    expect((await IMPORT(await buildRequest(path(), { method: "POST", body: importBody() }), ctx())).status).toBe(401);
+    expect((await IMPORT(await buildRequest(path(), { method: "POST", body: importBody(), user: fx.users.outsider }), ctx())).status).toBe(404);
+    for (const role of ["owner", "architect", "viewer"] as const) {
+      expect((await IMPORT(await buildRequest(path(), { method: "POST", body: importBody(), user: fx.users[role] }), ctx())).status).toBe(403);
+    }
+  });
+
+  it("answers 400 listing every problem by row, and stores nothing", async () => {
+    const bad = csv.replace("0.5,,,,0.05", "big,,,,0.05").replace("10,1.5,2", "10,1.5,high");
+    const response = await IMPORT(await buildRequest(path(), { method: "POST", body: importBody(bad), user: fx.users.mep_engineer }), ctx());
+    expect(response.status).toBe(400);
+    const body = await response.json();
+    expect(body.issues.map((i: { path: string }) => i.path)).toEqual(["row 2.diameter", "row 3.z"]);
+    const list = await LIST_RUNS(await buildRequest(`${path()}?revision=1`, { user: fx.users.viewer }), ctx());
+    expect((await list.json()).runs).toEqual([]);
+  });
+
+  it("imports runs for an MEP engineer and detects the clashes", async () => {
+    const response = await IMPORT(await buildRequest(path(), { method: "POST", body: importBody(), user: fx.users.mep_engineer }), ctx());
+    expect(response.status).toBe(201);
+    const { detection } = await response.json();
+    expect(detection).toMatchObject({ found: 4, hard: 4, clearance: 0 });
+    const list = await LIST_RUNS(await buildRequest(`${path()}?revision=1`, { user: fx.users.viewer }), ctx());
+    expect((await list.json()).runs.map((r: { id: string }) => r.id)).toEqual(["SA-01"]);
+  });
+
+  it("answers 404 for a revision the project does not have", async () => {
+    const response = await IMPORT(await buildRequest(path(), { method: "POST", body: { ...importBody(), revision: 7 }, user: fx.users.mep_engineer }), ctx());
+    expect(response.status).toBe(404);
+  });
+});
+
+describe("clashes", () => {
+  const listPath = () => `/api/projects/${fx.projectId}/clashes?revision=1`;
+  async function list(user = fx.users.viewer) {
+    const response = await LIST_CLASHES(await buildRequest(listPath(), { user }), ctx());
+    expect(response.status).toBe(200);
+    return response.json();
+  }
+
+  it("lists clashes with system, the member's force state and the caller's abilities", async () => {
+    expect((await LIST_CLASHES(await buildRequest(listPath()), ctx())).status).toBe(401);
+    const body = await list();
+    expect(body.caution).toBe(CAUTION);
+    expect(body.abilities).toEqual({ propose: false, acceptOpening: false, editRuns: false });
+    expect(body.clashes.map((c: { memberId: string }) => c.memberId).sort()).toEqual(["TCY-0-0", "TCY-1-0", "TCY-2-0", "TCY-3-0"]);
+    for (const clash of body.clashes) {
+      expect(clash).toMatchObject({ kind: "hard", status: "active", system: "supply air", runId: "SA-01", outcome: null });
+      expect(["zero_in_all", "low_force", "load_bearing"]).toContain(clash.forceState);
+    }
+    expect((await list(fx.users.structural_engineer)).abilities).toEqual({ propose: true, acceptOpening: true, editRuns: true });
+  });
+
+  it("a viewer and an architect cannot propose; bad outcomes are a 400", async () => {
+    const [clash] = (await list()).clashes;
+    const path = `/api/projects/${fx.projectId}/clashes/${clash.id}/proposal`;
+    const cctx = routeContext({ projectId: fx.projectId, clashId: clash.id });
+    expect((await PROPOSE(await buildRequest(path, { method: "POST", body: { outcome: "opening_proposed" } }), cctx)).status).toBe(401);
+    for (const role of ["viewer", "architect", "owner"] as const) {
+      expect((await PROPOSE(await buildRequest(path, { method: "POST", body: { outcome: "opening_proposed" }, user: fx.users[role] }), cctx)).status).toBe(403);
+    }
+    const bad = await PROPOSE(await buildRequest(path, { method: "POST", body: { outcome: "opening_accepted" }, user: fx.users.mep_engineer }), cctx);
+    expect(bad.status).toBe(400);
+    expect((await bad.json()).issues[0].path).toBe("outcome");
+  });
+
+  it("settles a clash end to end: MEP proposes an opening, only the structural engineer accepts it, with conditions", async () => {
+    const [clash] = (await list()).clashes;
+    const cctx = routeContext({ projectId: fx.projectId, clashId: clash.id });
+    const base = `/api/projects/${fx.projectId}/clashes/${clash.id}`;
+
+    // Accepting before anything is proposed is a conflict.
+    const early = await ACCEPT(await buildRequest(`${base}/acceptance`, { method: "POST", body: { conditions: "Sleeve and stiffening ring, see sketch S-12." }, user: fx.users.structural_engineer }), cctx);
+    expect(early.status).toBe(409);
+
+    const proposed = await PROPOSE(await buildRequest(`${base}/proposal`, { method: "POST", body: { outcome: "opening_proposed", note: "Duct cannot drop: ceiling height." }, user: fx.users.mep_engineer }), cctx);
+    expect(proposed.status).toBe(200);
+    const proposedBody = await proposed.json();
+    expect(proposedBody.caution).toBe(CAUTION);
+    expect(proposedBody.clash).toMatchObject({ outcome: "opening_proposed", proposedBy: fx.users.mep_engineer.name, decidedBy: null });
+
+    for (const role of ["mep_engineer", "viewer", "owner", "architect"] as const) {
+      const refused = await ACCEPT(await buildRequest(`${base}/acceptance`, { method: "POST", body: { conditions: "Sleeve and stiffening ring." }, user: fx.users[role] }), cctx);
+      expect(refused.status).toBe(403);
+    }
+    const noConditions = await ACCEPT(await buildRequest(`${base}/acceptance`, { method: "POST", body: { conditions: "" }, user: fx.users.structural_engineer }), cctx);
+    expect(noConditions.status).toBe(400);
+    expect((await noConditions.json()).issues[0].path).toBe("conditions");
+
+    const accepted = await ACCEPT(await buildRequest(`${base}/acceptance`, { method: "POST", body: { conditions: "Sleeve and stiffening ring, see sketch S-12." }, user: fx.users.structural_engineer }), cctx);
+    expect(accepted.status).toBe(200);
+    expect((await accepted.json()).clash).toMatchObject({ outcome: "opening_accepted", conditions: "Sleeve and stiffening ring, see sketch S-12.", decidedBy: fx.users.structural_engineer.name, decidedAt: expect.any(String) });
+
+    const history = await (await GET_CLASH(await buildRequest(base, { user: fx.users.viewer }), cctx)).json();
+    expect(history.decisions.map((d: { outcome: string; decidedBy: string; caution: string }) => [d.outcome, d.decidedBy, d.caution])).toEqual([
+      ["opening_proposed", fx.users.mep_engineer.name, CAUTION],
+      ["opening_accepted", fx.users.structural_engineer.name, CAUTION],
+    ]);
+    const audits = await getDb().select().from(auditEvents).where(eq(auditEvents.subjectId, clash.id));
+    expect(audits.map((a) => a.action).sort()).toEqual(["clash.acceptOpening", "clash.propose"]);
+  });
+
+  it("keeps clash ids and decisions when the run moves a little, and clears clashes when it moves away", async () => {
+    const before = (await list()).clashes;
+    const runPath = `/api/projects/${fx.projectId}/runs/SA-01`;
+    const rctx = routeContext({ projectId: fx.projectId, runId: "SA-01" });
+    const nudge = await EDIT_RUN(await buildRequest(runPath, { method: "PATCH", body: { revision: 1, points: [{ x: -1, y: 1.5, z: 2.05 }, { x: 10, y: 1.5, z: 2.05 }] }, user: fx.users.mep_engineer }), rctx);
+    expect(nudge.status).toBe(200);
+    const after = (await list()).clashes;
+    expect(after.map((c: { id: string; clashKey: string }) => [c.id, c.clashKey]).sort()).toEqual(before.map((c: { id: string; clashKey: string }) => [c.id, c.clashKey]).sort());
+    expect(after.filter((c: { outcome: string | null }) => c.outcome === "opening_accepted")).toHaveLength(1);
+
+    // Above the roof (z = 4): no clashes remain active; the decided one stays on record as cleared.
+    const away = await EDIT_RUN(await buildRequest(runPath, { method: "PATCH", body: { revision: 1, points: [{ x: -1, y: 1.5, z: 4 }, { x: 10, y: 1.5, z: 4 }] }, user: fx.users.mep_engineer }), rctx);
+    expect((await away.json()).detection).toMatchObject({ found: 0, cleared: 4 });
+    const cleared = (await list()).clashes;
+    expect(cleared.every((c: { status: string }) => c.status === "cleared")).toBe(true);
+    expect(await getDb().select().from(clashDecisions)).not.toHaveLength(0);
+
+    const badEdit = await EDIT_RUN(await buildRequest(runPath, { method: "PATCH", body: { revision: 1, points: [{ x: 0, y: 0, z: 0 }] }, user: fx.users.mep_engineer }), rctx);
+    expect(badEdit.status).toBe(400);
+    const viewerEdit = await EDIT_RUN(await buildRequest(runPath, { method: "PATCH", body: { revision: 1, clearance: 0.2 }, user: fx.users.viewer }), rctx);
+    expect(viewerEdit.status).toBe(403);
+  });
+
+  it("re-runs detection on request (runs.edit) and removes runs", async () => {
+    const path = `/api/projects/${fx.projectId}/clashes`;
+    expect((await DETECT(await buildRequest(path, { method: "POST", body: { revision: 1 }, user: fx.users.viewer }), ctx())).status).toBe(403);
+    const detect = await DETECT(await buildRequest(path, { method: "POST", body: { revision: 1 }, user: fx.users.structural_engineer }), ctx());
+    expect((await detect.json()).detection).toMatchObject({ found: 0 });
+    const rctx = routeContext({ projectId: fx.projectId, runId: "SA-01" });
+    const removed = await DELETE_RUN(await buildRequest(`/api/projects/${fx.projectId}/runs/SA-01?revision=1`, { method: "DELETE", user: fx.users.mep_engineer }), rctx);
+    expect(removed.status).toBe(200);
+    const again = await DELETE_RUN(await buildRequest(`/api/projects/${fx.projectId}/runs/SA-01?revision=1`, { method: "DELETE", user: fx.users.mep_engineer }), rctx);
+    expect(again.status).toBe(404);
+  });
+});
+
+it("every role may read the clash list", async () => {
+  for (const role of ROLES) {
+    const response = await LIST_CLASHES(await buildRequest(`/api/projects/${fx.projectId}/clashes?revision=1`, { user: fx.users[role] }), ctx());
+    expect(response.status).toBe(200);
+  }
+});
