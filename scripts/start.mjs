@@ -55,7 +55,7 @@ async function main() {
   const databaseUrl = await startPostgres({ dataDir: pgDir, port: ports.postgres });
   const env = serviceEnv({ databaseUrl, ports, secret: secret(), dataDir });
   for (const step of ["db-migrate.ts", "db-seed.ts"]) {
-    if ((await run("node_modules/.bin/tsx", [`scripts/${step}`], { env })) !== 0) throw new Error(`scripts/${step} failed (see above).`);
+    if ((await run("node_modules/.bin/tsx", ["--conditions=react-server", `scripts/${step}`], { env })) !== 0) throw new Error(`scripts/${step} failed (see above).`);
   }
   if (needsBuild()) {
     console.log("[setup] building the web app (next build)…");

@@ -60,7 +60,7 @@ async function main() {
   await vitestProject("integration", { ...env, NODE_ENV: "test" });
 
   await step("build", "node_modules/.bin/next", ["build"], env);
-  await step("seed demo", "node_modules/.bin/tsx", ["scripts/db-seed.ts"], env);
+  await step("seed demo", "node_modules/.bin/tsx", ["--conditions=react-server", "scripts/db-seed.ts"], env);
   await startServices({ env, ports, kinds: ["app"], quiet: true });
   await vitestProject("e2e", { ...env, NODE_ENV: "test", BASE_URL: env.APP_URL });
 }

@@ -1,0 +1,20 @@
+// `npm run db:seed`: the idempotent demo (run by `npm start` and before the browser tests). Each area adds its
+// own step as a function in db/seed/*.ts, called below inside the one transaction. It runs with tsx
+// --conditions=react-server, so seed steps may call the "server-only" data layer in db/queries.
+import { closeDb, withTransaction } from "../db/client";
+import { DEMO_PROJECT, seedDemoProject, seedDemoTeam } from "../db/seed/demo-team";
+
+async function main() {
+  await withTransaction(async (tx) => {
+    const { projectId } = await seedDemoProject(tx);
+    await seedDemoTeam(tx, projectId);
+  });
+  console.log(`[seed] demo project "${DEMO_PROJECT}" is ready`);
+}
+
+main()
+  .catch((error) => {
+    console.error(`[seed] failed: ${error instanceof Error ? error.message : error}`);
+    process.exitCode = 1;
+  })
+  .finally(closeDb);
