@@ -133,6 +133,8 @@ export async function yjsClient(url: string, projectId: string, user: Person, do
   const provider = new WebsocketProvider(url.replace(/^http/, "ws") + "/yjs", projectId, doc, {
     WebSocketPolyfill: CookieWebSocket as unknown as typeof globalThis.WebSocket,
     connect: true,
+    // Each test client stands for another machine: no cross-tab BroadcastChannel shortcut inside this process.
+    disableBc: true,
   });
   return { doc, provider };
 }
