@@ -1,0 +1,45 @@
+// CSV exports of stored analysis results: member forces of one result, and the envelope (pure; papaparse writes
+// the CSV so quoting follows RFC 4180).
+import Papa from "papaparse";
+import type { AnalysisResult } from "../analysis/analyze";
+import type { TrussModel } from "../analysis/model";
+import { memberState } from "./states";
+
+export const MEMBER_FORCE_COLUMNS = ["member", "node_i", "node_j", "section", "result", "axial_force_kN", "state"] as const;
+export const ENVELOPE_COLUMNS = ["member", "node_i", "node_j", "section", "max_tension_kN", "max_compression_kN", "zero_in_all", "governing_tension", "governing_compression"] as const;
+
+/** One row per member: its axial force (kN, tension positive) and state in the result. */
+export function memberForcesCsv(model: TrussModel, result: AnalysisResult, resultId: string): string {
+  const caseResult = result.results[resultId];
+  if (!caseResult) throw new Error(`The analysis has no result "${resultId}".`);
+  const rows = model.members.map((member) => [
+    member.id,
+    member.i,
+    member.j,
+    member.section,
+    resultId,
+    caseResult.memberForces[member.id] ?? 0,
+    memberState(caseResult, member.id),
+  ]);
+  return Papa.unparse({ fields: [...MEMBER_FORCE_COLUMNS], data: rows }, { newline: "\n" }) + "\n";
+}
+
+/** One row per member: the largest tension and compression over the envelope's results, and where they occur. */
+export function envelopeCsv(model: TrussModel, result: AnalysisResult): string {
+  const rows = model.members.map((member) => {
+    const entry = result.envelope[member.id];
+    const governing = result.info?.governing?.[member.id];
+    return [
+      member.id,
+      member.i,
+      member.j,
+      member.section,
+      entry?.maxTension ?? "",
+      entry?.maxCompression ?? "",
+      entry ? String(entry.zeroInAll) : "",
+      governing?.maxTension ?? "",
+      governing?.maxCompression ?? "",
+    ];
+  });
+  return Papa.unparse({ fields: [...ENVELOPE_COLUMNS], data: rows }, { newline: "\n" }) + "\n";
+}
