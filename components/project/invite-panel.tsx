@@ -29,6 +29,7 @@ export function InvitePanel({ projectId }: { projectId: string }) {
   });
   const invite = useMutation({
     mutationFn: (values: InviteValues) => apiFetch<{ joinLink: string }>(`/api/projects/${projectId}/invitations`, { method: "POST", body: values }),
+    onMutate: () => setJoinLink(undefined),
     onSuccess: (result) => {
       setJoinLink(result.joinLink);
       form.reset({ email: "", role: form.getValues("role") });
