@@ -1,0 +1,38 @@
+import { describe, expect, it } from "vitest";
+import { generateRoof } from "./generator";
+import { loadVectorForCase } from "./loads";
+import { prepareStructure } from "./prepare";
+
+describe("prepareStructure (used by the review engine for what-ifs and influence maps)", () => {
+  const model = generateRoof({ spanX: 12, spanY: 9, module: 3, depth: 1.2 });
+  const s = prepareStructure(model);
+  const f = loadVectorForCase(model, "snow", s.topology);
+  const u = s.solve(f);
+
+  it("solves the full 3n vector with zeros at restraints", () => {
+    expect(s.status).toBe("ok");
+    expect(u).toHaveLength(3 * model.nodes.length);
+    s.topology.restrained.forEach((r, q) => r && expect(u[q]).toBe(0));
+  });
+
+  it("memberForceVector b_e gives N_e = b_e . u, and the adjoint solve K z = b_e gives N_e = z . f (Maxwell-Betti)", () => {
+    const forces = s.memberForces(u);
+    for (const e of [0, 7, 40, forces.length - 1]) {
+      const b = s.memberForceVector(e);
+      const dot = (x: Float64Array, y: Float64Array) => x.reduce((sum, v, q) => sum + v * y[q], 0);
+      expect(dot(b, u)).toBeCloseTo(forces[e], 9);
+      const z = s.solve(b);
+      expect(dot(z, f)).toBeCloseTo(forces[e], 6);
+    }
+  });
+
+  it("reactions balance the applied loads", () => {
+    const r = s.reactions(u, f);
+    for (let d = 0; d < 3; d++) {
+      let sum = 0;
+      for (let q = d; q < r.length; q += 3) sum += r[q] + f[q];
+      expect(Math.abs(sum)).toBeLessThan(1e-8);
+    }
+    s.topology.restrained.forEach((restrained, q) => !restrained && expect(r[q]).toBe(0));
+  });
+});
