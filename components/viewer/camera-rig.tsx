@@ -67,6 +67,16 @@ export function CameraRig({ prepared }: { prepared: PreparedModel }) {
         gl.render(scene, camera);
         return gl.domElement.toDataURL("image/png");
       },
+      measureFrame: () => {
+        const context = gl.getContext();
+        const pixel = new Uint8Array(4);
+        const start = performance.now();
+        gl.render(scene, camera);
+        // Reading one pixel waits for the GPU (or the software rasteriser) to finish the frame.
+        context.readPixels(0, 0, 1, 1, context.RGBA, context.UNSIGNED_BYTE, pixel);
+        const ms = performance.now() - start;
+        return { calls: gl.info.render.calls, triangles: gl.info.render.triangles, ms };
+      },
     });
     const report = () => useViewerStore.getState().reportCameraPose(getPose());
     cc.addEventListener("update", report);

@@ -19,7 +19,7 @@ const model = {
     { id: "D2", i: "N3", j: "T", section: "s" },
   ],
 };
-const groups: Record<string, MemberGroup> = { B1: "bottom_chord", B2: "bottom_chord", D1: "diagonal", D2: "diagonal" };
+const groups: Record<string, MemberGroup> = { B1: "bottom_chord", B2: "bottom_chord", D1: "diagonal", D2: "other" };
 const memberIds = model.members.map((m) => m.id);
 const nodes = buildNodeTable(model);
 const ends = buildMemberEnds(model, nodes);
@@ -31,8 +31,9 @@ describe("member filters", () => {
   });
 
   it("filters by member group", () => {
-    const filters = { ...defaultFilters, groups: { top_chord: true, bottom_chord: false, diagonal: true } };
-    expect(Array.from(visibleMask({ memberIds, ends, positions: nodes.positions, groups, states, filters }))).toEqual([0, 0, 1, 1]);
+    const filters = { ...defaultFilters, groups: { top_chord: true, bottom_chord: false, diagonal: false } };
+    // D2 is classed "other" (neither chord layer nor a web member between them): never filtered by group.
+    expect(Array.from(visibleMask({ memberIds, ends, positions: nodes.positions, groups, states, filters }))).toEqual([0, 0, 0, 1]);
   });
 
   it("hides zero-force members", () => {

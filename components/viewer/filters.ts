@@ -1,12 +1,12 @@
 // Pure member filters and node-position transforms. The mesh layer hides a member by giving its instance zero
 // scale, so filtering never rebuilds geometry either.
 import { STATE_CODE } from "./colouring";
-import type { MemberGroup, ViewerCaseResult, ViewerModel } from "./types";
+import type { FilterableGroup, MemberGroup, ViewerCaseResult, ViewerModel } from "./types";
 
 export interface SectionBox { min: [number, number, number]; max: [number, number, number] }
 
 export interface MemberFilters {
-  groups: Record<MemberGroup, boolean>;
+  groups: Record<FilterableGroup, boolean>;
   hideZeroForce: boolean;
   sectionBox: SectionBox | null;
 }
@@ -102,7 +102,7 @@ export function visibleMask(input: VisibilityInput): Uint8Array {
   const mask = new Uint8Array(memberIds.length);
   for (let k = 0; k < memberIds.length; k += 1) {
     const group = groups[memberIds[k]];
-    if (group && !filters.groups[group]) continue;
+    if (group && group !== "other" && !filters.groups[group]) continue;
     if (filters.hideZeroForce && states[k] === STATE_CODE.zero) continue;
     if (filters.sectionBox) {
       const a = ends[k * 2] * 3;

@@ -33,6 +33,13 @@ const scale = new Vector3();
 const rotation = new Quaternion();
 const matrix = new Matrix4();
 
+/** Shows the first `count` instances after their buffers were written. */
+function commitInstances(mesh: InstancedMesh, count: number) {
+  mesh.count = count;
+  mesh.instanceMatrix.needsUpdate = true;
+  if (mesh.instanceColor) mesh.instanceColor.needsUpdate = true;
+}
+
 /** Small spheres at the nodes, following the deflected shape when it is on. */
 export function NodesLayer({ prepared, positions }: { prepared: PreparedModel; positions: Float32Array }) {
   const invalidate = useThree((s) => s.invalidate);
@@ -44,8 +51,7 @@ export function NodesLayer({ prepared, positions }: { prepared: PreparedModel; p
       matrix.makeScale(r, r, r).setPosition(positions[k * 3], positions[k * 3 + 1], positions[k * 3 + 2]);
       mesh.setMatrixAt(k, matrix);
     }
-    mesh.count = prepared.nodes.ids.length;
-    mesh.instanceMatrix.needsUpdate = true;
+    commitInstances(mesh, prepared.nodes.ids.length);
     invalidate();
   }, [mesh, positions, prepared, invalidate]);
   return <primitive object={mesh} />;
@@ -71,9 +77,7 @@ export function SupportsLayer({ prepared }: { prepared: PreparedModel }) {
       mesh.setColorAt(n, support.ux && support.uy && support.uz ? held : partial);
       n += 1;
     }
-    mesh.count = n;
-    mesh.instanceMatrix.needsUpdate = true;
-    if (mesh.instanceColor) mesh.instanceColor.needsUpdate = true;
+    commitInstances(mesh, n);
     invalidate();
   }, [mesh, supports, prepared, invalidate]);
   return <primitive object={mesh} />;
@@ -112,10 +116,8 @@ export function LoadsLayer({ prepared }: { prepared: PreparedModel }) {
       shafts.setMatrixAt(n, matrix);
       n += 1;
     }
-    for (const mesh of [shafts, heads]) {
-      mesh.count = n;
-      mesh.instanceMatrix.needsUpdate = true;
-    }
+    commitInstances(shafts, n);
+    commitInstances(heads, n);
     invalidate();
   }, [loads, prepared, shafts, heads, invalidate]);
   return (

@@ -30,7 +30,9 @@ export interface ViewerAnalysis {
   zeroInAll?: string[];
 }
 
-export type MemberGroup = "top_chord" | "bottom_chord" | "diagonal";
+/** Member classes of lib/analysis classifyMembers; "other" is never filtered out. */
+export type MemberGroup = "top_chord" | "bottom_chord" | "diagonal" | "other";
+export type FilterableGroup = Exclude<MemberGroup, "other">;
 export type MemberVerdict = "load-bearing" | "stabilising" | "bracing" | "idle";
 
 /** Per-member review numbers the colourings need (utilisation and verdict), keyed by member id. */

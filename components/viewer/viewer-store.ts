@@ -23,6 +23,8 @@ export interface CameraController {
   fit(): void;
   /** Renders the current view once and returns it as a PNG data URL. */
   exportPng(): string;
+  /** Renders one frame now and reports its draw calls, triangles and time (used by the benchmark). */
+  measureFrame(): { calls: number; triangles: number; ms: number };
 }
 
 export interface DeflectionSettings { enabled: boolean; scale: number }

@@ -3,4 +3,5 @@ export * from "./core";
 export * from "./review";
 export * from "./files";
 export * from "./mail";
+export * from "./models";
 export * from "./mep";

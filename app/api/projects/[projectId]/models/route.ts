@@ -1,0 +1,53 @@
+import { createRevisionWithAnalysis, listRevisionsByProject } from "@/db/queries/models";
+import { getProjectById } from "@/db/queries/projects";
+import { requireProjectRole, requireUser } from "@/lib/auth/guard";
+import { getRequestUser } from "@/lib/auth/session";
+import { handleRoute, NotFoundError, ValidationError } from "@/lib/http/errors";
+import { projectParamsSchema } from "@/lib/http/params";
+import { parseJson, parseParams } from "@/lib/http/parse";
+import { analyseForStorage } from "@/lib/models/analyse";
+import { buildRevision } from "@/lib/models/build-revision";
+import { createRevisionSchema } from "@/lib/models/schemas";
+
+type Context = RouteContext<"/api/projects/[projectId]/models">;
+
+/** The project's model revisions, newest first. */
+export const GET = handleRoute(async (request: Request, context: Context) => {
+  const { projectId } = parseParams(projectParamsSchema, await context.params);
+  await requireProjectRole(await getRequestUser(request), projectId, "project.read");
+  return Response.json({ revisions: await listRevisionsByProject({ projectId }) });
+});
+
+/**
+ * Creates a revision from generator parameters or an uploaded JSON / CSV model. Bad input is a 400 listing every
+ * problem and nothing is stored; otherwise the analysis and review run now and are stored with the revision.
+ */
+export const POST = handleRoute(async (request: Request, context: Context) => {
+  const { projectId } = parseParams(projectParamsSchema, await context.params);
+  const user = requireUser(await getRequestUser(request));
+  // Saving a revision also runs its analysis, so both permissions are needed.
+  await requireProjectRole(user, projectId, "model.edit");
+  await requireProjectRole(user, projectId, "analysis.run");
+  const input = await parseJson(request, createRevisionSchema);
+  const built = buildRevision(input);
+  if (!built.ok) {
+    const count = built.problems.length;
+    throw new ValidationError(
+      built.problems.map((p) => ({ path: p.where, message: p.message })),
+      `The model has ${count} problem${count === 1 ? "" : "s"}; nothing was saved.`,
+    );
+  }
+  const project = await getProjectById({ projectId });
+  if (!project) throw new NotFoundError();
+  const { result, review } = analyseForStorage(built.model, project.designStandard);
+  const revision = await createRevisionWithAnalysis({
+    projectId,
+    name: built.name,
+    model: built.model,
+    source: built.source,
+    createdBy: user.id,
+    result,
+    review,
+  });
+  return Response.json({ revision: { ...revision, status: result.status } }, { status: 201 });
+});

@@ -1,0 +1,69 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useForm } from "react-hook-form";
+import type { z } from "zod";
+import { Button, Field, FormMessage, showServerError } from "@/components/ui/form";
+import { roofParamsSchema } from "@/lib/analysis/generator";
+import { ApiError, apiFetch } from "@/lib/http/fetcher";
+import { revisionsKey } from "./revision-list";
+
+type RoofInput = z.input<typeof roofParamsSchema>;
+type RoofValues = z.output<typeof roofParamsSchema>;
+
+const numberFields: { name: keyof RoofInput & string; label: string; unit: string }[] = [
+  { name: "spanX", label: "Span along x", unit: "m" },
+  { name: "spanY", label: "Span along y", unit: "m" },
+  { name: "module", label: "Grid module", unit: "m" },
+  { name: "depth", label: "Depth between layers", unit: "m" },
+  { name: "roofing", label: "Roofing (superimposed dead)", unit: "kN/m²" },
+  { name: "snow", label: "Snow", unit: "kN/m²" },
+  { name: "windUplift", label: "Wind uplift", unit: "kN/m²" },
+  { name: "services", label: "Services on the bottom layer", unit: "kN/m²" },
+];
+
+/** The roof generator as a form; saving stores a new revision and runs its analysis. */
+export function GenerateForm({ projectId, onSaved }: { projectId: string; onSaved: (number: number) => void }) {
+  const queryClient = useQueryClient();
+  const form = useForm<RoofInput, unknown, RoofValues>({
+    resolver: zodResolver(roofParamsSchema),
+    defaultValues: { name: "Sports hall roof", pattern: "square_on_square_offset", spanX: 48, spanY: 36, module: 3, depth: 1.8, roofing: 0.6, snow: 0.8, windUplift: 0.7, services: 0.25 },
+  });
+  const { errors } = form.formState;
+  const save = useMutation({
+    mutationFn: (params: RoofValues) => apiFetch<{ revision: { number: number } }>(`/api/projects/${projectId}/models`, { method: "POST", body: { kind: "generate", params } }),
+    onSuccess: async ({ revision }) => {
+      await queryClient.invalidateQueries({ queryKey: revisionsKey(projectId) });
+      onSaved(revision.number);
+    },
+    onError: (error) => {
+      // The server names fields "params.spanX"; the form's fields are the parameters themselves.
+      const local = error instanceof ApiError ? new ApiError(error.status, error.message, error.issues.map((i) => ({ ...i, path: i.path.replace(/^params\.?/, "") }))) : error;
+      showServerError(form, local);
+    },
+  });
+  return (
+    <form onSubmit={form.handleSubmit((values) => save.mutate(values))} noValidate className="flex flex-col gap-3" data-testid="generate-form">
+      <Field id="roof-name" label="Name" error={errors.name?.message} {...form.register("name")} />
+      <div className="flex flex-col gap-1">
+        <label htmlFor="roof-pattern" className="text-sm font-medium text-board-800">
+          Grid pattern
+        </label>
+        <select id="roof-pattern" className="rounded-md border border-board-200 bg-white px-3 py-2" {...form.register("pattern")}>
+          <option value="square_on_square_offset">Square on square, offset half a module</option>
+          <option value="square_on_diagonal">Square on diagonal</option>
+        </select>
+      </div>
+      <div className="grid grid-cols-2 gap-3">
+        {numberFields.map((f) => (
+          <Field key={f.name} id={`roof-${f.name}`} label={`${f.label} (${f.unit})`} type="number" step="any" error={errors[f.name]?.message} {...form.register(f.name, { valueAsNumber: true })} />
+        ))}
+      </div>
+      <FormMessage message={errors.root?.message} />
+      <Button type="submit" disabled={save.isPending} data-testid="generate-submit">
+        {save.isPending ? "Generating and analysing…" : "Generate, analyse and save"}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,54 @@
+"use client";
+
+import { useQuery } from "@tanstack/react-query";
+import Link from "next/link";
+import type { RevisionSummary } from "@/db/queries/models";
+import { apiFetch } from "@/lib/http/fetcher";
+
+export const revisionsKey = (projectId: string) => ["projects", projectId, "models"] as const;
+
+/** The project's revisions, newest first, each opening in the viewer. */
+export function RevisionList({ projectId }: { projectId: string }) {
+  const query = useQuery({
+    queryKey: revisionsKey(projectId),
+    queryFn: () => apiFetch<{ revisions: RevisionSummary[] }>(`/api/projects/${projectId}/models`),
+  });
+  if (query.isPending) return <p className="text-sm text-board-700">Loading revisions…</p>;
+  if (query.isError) return <p role="alert" className="text-sm text-clash">{query.error.message}</p>;
+  const revisions = query.data.revisions;
+  if (revisions.length === 0) return <p className="text-sm text-board-700" data-testid="revisions-empty">No model yet. A structural engineer can generate or upload one.</p>;
+  return (
+    <table className="w-full text-sm" data-testid="revision-list">
+      <thead className="text-left text-xs uppercase text-board-700">
+        <tr>
+          <th className="py-1">Rev.</th>
+          <th>Name</th>
+          <th>Source</th>
+          <th>Members</th>
+          <th>Analysis</th>
+          <th>Saved</th>
+          <th />
+        </tr>
+      </thead>
+      <tbody>
+        {revisions.map((r) => (
+          <tr key={r.id} className="border-t border-board-100" data-testid={`revision-${r.number}`}>
+            <td className="py-1 font-mono">{r.number}</td>
+            <td>{r.name}</td>
+            <td>{r.source}</td>
+            <td className="font-mono">{r.memberCount}</td>
+            <td className={r.analysisStatus === "ok" ? "text-tension" : "text-compression"}>{r.analysisStatus === "ok" ? "analysed" : r.analysisStatus === "unstable" ? "unstable" : "not analysed"}</td>
+            <td className="text-xs">
+              {new Date(r.createdAt).toLocaleString()} {r.createdBy ? `by ${r.createdBy}` : ""}
+            </td>
+            <td>
+              <Link className="text-tension underline" href={`/projects/${projectId}/viewer?revision=${r.number}`}>
+                Open in 3D
+              </Link>
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}

@@ -1,0 +1,80 @@
+"use client";
+
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useState, type FormEvent } from "react";
+import { Button, FormMessage } from "@/components/ui/form";
+import type { Issue } from "@/lib/http/errors";
+import { ApiError, apiFetch } from "@/lib/http/fetcher";
+import type { CreateRevisionInput } from "@/lib/models/schemas";
+import { revisionsKey } from "./revision-list";
+
+/** Reads the chosen files into a request: one .json model, or CSV tables named by their file names. */
+async function requestFromFiles(files: File[], name: string): Promise<CreateRevisionInput> {
+  const json = files.filter((f) => f.name.toLowerCase().endsWith(".json"));
+  const csv = files.filter((f) => f.name.toLowerCase().endsWith(".csv"));
+  if (json.length === 1 && csv.length === 0) {
+    let model: unknown;
+    try {
+      model = JSON.parse(await json[0].text());
+    } catch {
+      throw new ApiError(400, `${json[0].name} is not valid JSON.`, [{ path: json[0].name, message: "not valid JSON" }]);
+    }
+    return { kind: "uploadJson", name: name || undefined, model };
+  }
+  if (csv.length > 0 && json.length === 0) {
+    const tables = Object.fromEntries(await Promise.all(csv.map(async (f) => [f.name, await f.text()] as const)));
+    return { kind: "uploadCsv", name: name || "Uploaded model", tables };
+  }
+  throw new ApiError(400, "Choose one .json model file, or the .csv tables (nodes, members, sections, supports, loads…).");
+}
+
+/** Upload a model file (our JSON format, or CSV tables); every validation problem is listed, nothing saved. */
+export function UploadForm({ projectId, onSaved }: { projectId: string; onSaved: (number: number) => void }) {
+  const queryClient = useQueryClient();
+  const [files, setFiles] = useState<File[]>([]);
+  const [name, setName] = useState("");
+  const upload = useMutation({
+    mutationFn: async () => {
+      const body = await requestFromFiles(files, name.trim());
+      return apiFetch<{ revision: { number: number } }>(`/api/projects/${projectId}/models`, { method: "POST", body });
+    },
+    onSuccess: async ({ revision }) => {
+      await queryClient.invalidateQueries({ queryKey: revisionsKey(projectId) });
+      onSaved(revision.number);
+    },
+  });
+  const issues: Issue[] = upload.error instanceof ApiError ? upload.error.issues : [];
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    upload.mutate();
+  };
+  return (
+    <form onSubmit={submit} className="flex flex-col gap-3" data-testid="upload-form">
+      <div className="flex flex-col gap-1">
+        <label htmlFor="upload-name" className="text-sm font-medium text-board-800">
+          Name (optional for JSON: the model&apos;s own name is used)
+        </label>
+        <input id="upload-name" value={name} onChange={(e) => setName(e.target.value)} className="rounded-md border border-board-200 bg-white px-3 py-2" />
+      </div>
+      <div className="flex flex-col gap-1">
+        <label htmlFor="upload-files" className="text-sm font-medium text-board-800">
+          Model file (.json) or CSV tables (.csv, several at once)
+        </label>
+        <input id="upload-files" type="file" multiple accept=".json,.csv,application/json,text/csv" onChange={(e) => setFiles(Array.from(e.target.files ?? []))} data-testid="upload-files" />
+      </div>
+      <FormMessage message={upload.error?.message} />
+      {issues.length > 0 ? (
+        <ul className="max-h-64 list-disc overflow-y-auto pl-6 text-sm text-clash" data-testid="upload-problems">
+          {issues.map((issue, k) => (
+            <li key={k}>
+              <span className="font-mono">{issue.path}</span>: {issue.message}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <Button type="submit" disabled={upload.isPending || files.length === 0} data-testid="upload-submit">
+        {upload.isPending ? "Checking and analysing…" : "Upload, analyse and save"}
+      </Button>
+    </form>
+  );
+}

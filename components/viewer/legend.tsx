@@ -1,0 +1,54 @@
+"use client";
+// The legend: always says what is shown (colouring and result) with the tension / compression / zero-force counts.
+import { useViewerStore } from "./viewer-store";
+
+const formatKn = (value: number) => `${value >= 0 ? "" : "−"}${Math.abs(value).toFixed(Math.abs(value) >= 100 ? 0 : 1)} kN`;
+
+export function Legend() {
+  const legend = useViewerStore((s) => s.legend);
+  if (!legend) return null;
+  const { counts, scale } = legend;
+  return (
+    <section data-testid="viewer-legend" aria-label="Legend" className="pointer-events-auto w-72 rounded-md border border-board-200 bg-white/95 p-3 text-sm shadow-sm">
+      <p className="font-semibold text-board-900" data-testid="legend-title">{legend.title}</p>
+      <p className="mb-2 text-xs text-board-700" data-testid="legend-result">{legend.resultLabel}</p>
+      <ul className="space-y-1">
+        {legend.entries.map((entry) => (
+          <li key={entry.key} className="flex items-center gap-2" data-testid={`legend-entry-${entry.key}`}>
+            <span aria-hidden className="inline-block h-3 w-5 rounded-sm border border-board-200" style={{ background: entry.colour }} />
+            <span className="flex-1">{entry.label}</span>
+            <span className="font-mono tabular-nums">{entry.count}</span>
+          </li>
+        ))}
+      </ul>
+      {scale ? (
+        <div className="mt-2">
+          <div
+            aria-hidden
+            className="h-2 rounded-sm"
+            style={{ background: `linear-gradient(to right, ${[scale.fromColour, scale.midColour, scale.toColour].filter(Boolean).join(", ")})` }}
+          />
+          <div className="mt-1 flex justify-between font-mono text-xs" data-testid="legend-scale">
+            <span>{scale.unit === "kN" ? formatKn(scale.min) : scale.min}</span>
+            {scale.midColour ? <span>0</span> : null}
+            <span>{scale.unit === "kN" ? formatKn(scale.max) : scale.max}</span>
+          </div>
+        </div>
+      ) : null}
+      <dl className="mt-2 grid grid-cols-3 gap-1 border-t border-board-100 pt-2 text-center text-xs">
+        <div>
+          <dt className="text-tension">Tension</dt>
+          <dd className="font-mono text-base" data-testid="legend-count-tension">{counts.tension}</dd>
+        </div>
+        <div>
+          <dt className="text-compression">Compression</dt>
+          <dd className="font-mono text-base" data-testid="legend-count-compression">{counts.compression}</dd>
+        </div>
+        <div>
+          <dt className="text-board-700">Zero-force</dt>
+          <dd className="font-mono text-base" data-testid="legend-count-zero">{counts.zero}</dd>
+        </div>
+      </dl>
+    </section>
+  );
+}

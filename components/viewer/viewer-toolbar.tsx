@@ -1,0 +1,155 @@
+"use client";
+// Controls of the viewer: result, colouring, comparison, filters, section box, deflected shape, camera, PNG.
+import { useState } from "react";
+import { colourModeLabels, type ColourMode } from "./colouring";
+import { autoDeflectionScale, type SectionBox } from "./filters";
+import { resultLabel, type PreparedModel } from "./prepare";
+import type { FilterableGroup, ViewerAnalysis } from "./types";
+import { useViewerStore, type CameraPreset } from "./viewer-store";
+
+const groupLabels: Record<FilterableGroup, string> = { top_chord: "Top chords", bottom_chord: "Bottom chords", diagonal: "Diagonals" };
+const presetLabels: Record<CameraPreset, string> = { plan: "Plan", elevationSouth: "South elevation", elevationEast: "East elevation", isometric: "Isometric" };
+const control = "rounded border border-board-200 bg-white px-2 py-1 text-sm";
+
+function modelBox(prepared: PreparedModel): SectionBox {
+  const p = prepared.nodes.positions;
+  const box: SectionBox = { min: [Infinity, Infinity, Infinity], max: [-Infinity, -Infinity, -Infinity] };
+  for (let k = 0; k < p.length; k += 3) {
+    for (let a = 0; a < 3; a += 1) {
+      box.min[a] = Math.min(box.min[a], p[k + a]);
+      box.max[a] = Math.max(box.max[a], p[k + a]);
+    }
+  }
+  return box;
+}
+
+function ResultSelect({ prepared, ids, value, onChange, testId, label }: { prepared: PreparedModel; ids: string[]; value: string | null; onChange: (id: string) => void; testId: string; label: string }) {
+  const cases = prepared.model.loadCases.filter((c) => ids.includes(c.id));
+  const combos = prepared.model.combinations.filter((c) => ids.includes(c.id));
+  return (
+    <label className="flex flex-col text-xs text-board-700">
+      {label}
+      <select className={control} data-testid={testId} value={value ?? ""} onChange={(e) => onChange(e.target.value)}>
+        <optgroup label="Load combinations">
+          {combos.map((c) => (
+            <option key={c.id} value={c.id}>{resultLabel(prepared.model, c.id)}</option>
+          ))}
+        </optgroup>
+        <optgroup label="Load cases">
+          {cases.map((c) => (
+            <option key={c.id} value={c.id}>{resultLabel(prepared.model, c.id)}</option>
+          ))}
+        </optgroup>
+      </select>
+    </label>
+  );
+}
+
+export function ViewerToolbar({ prepared, analysis, ids, hasReview, fileName }: { prepared: PreparedModel; analysis: ViewerAnalysis; ids: string[]; hasReview: boolean; fileName: string }) {
+  const store = useViewerStore.getState();
+  const resultId = useViewerStore((s) => s.resultId);
+  const compareResultId = useViewerStore((s) => s.compareResultId);
+  const mode = useViewerStore((s) => s.colourMode);
+  const threshold = useViewerStore((s) => s.lowForceThreshold);
+  const filters = useViewerStore((s) => s.filters);
+  const deflection = useViewerStore((s) => s.deflection);
+  const [box, setBox] = useState<SectionBox>(() => modelBox(prepared));
+
+  const modes = (Object.keys(colourModeLabels) as ColourMode[]).filter((m) => hasReview || (m !== "utilisation" && m !== "verdict"));
+  const updateBox = (end: "min" | "max", axis: number, value: number) => {
+    const next: SectionBox = { min: [...box.min], max: [...box.max] };
+    next[end][axis] = value;
+    setBox(next);
+    if (filters.sectionBox) store.setFilters({ sectionBox: next });
+  };
+  const exportPng = () => {
+    const url = store.exportPng();
+    if (!url) return;
+    const link = document.createElement("a");
+    link.href = url;
+    link.download = fileName;
+    link.click();
+  };
+
+  return (
+    <div className="flex flex-wrap items-end gap-3 border-b border-board-200 bg-white px-3 py-2" data-testid="viewer-toolbar">
+      <ResultSelect prepared={prepared} ids={ids} value={resultId} onChange={store.setResult} testId="viewer-result" label="Load case or combination" />
+      <label className="flex flex-col text-xs text-board-700">
+        Colour by
+        <select className={control} data-testid="viewer-colour-mode" value={mode} onChange={(e) => store.setColourMode(e.target.value as ColourMode)}>
+          {modes.map((m) => (
+            <option key={m} value={m}>{colourModeLabels[m]}</option>
+          ))}
+        </select>
+      </label>
+      {mode === "compare" ? (
+        <ResultSelect prepared={prepared} ids={ids} value={compareResultId} onChange={store.setCompareResult} testId="viewer-compare" label="Compared with" />
+      ) : null}
+      {mode === "forceState" ? (
+        <label className="flex flex-col text-xs text-board-700">
+          Low-force below (kN)
+          <input className={`${control} w-24`} type="number" min={0} step="any" value={threshold} onChange={(e) => store.setLowForceThreshold(Number(e.target.value) || 0)} data-testid="viewer-threshold" />
+        </label>
+      ) : null}
+      <fieldset className="flex items-center gap-2 text-sm">
+        <legend className="sr-only">Member filters</legend>
+        {(Object.keys(groupLabels) as FilterableGroup[]).map((g) => (
+          <label key={g} className="flex items-center gap-1">
+            <input type="checkbox" checked={filters.groups[g]} onChange={(e) => store.setFilters({ groups: { ...filters.groups, [g]: e.target.checked } })} data-testid={`viewer-filter-${g}`} />
+            {groupLabels[g]}
+          </label>
+        ))}
+        <label className="flex items-center gap-1">
+          <input type="checkbox" checked={filters.hideZeroForce} onChange={(e) => store.setFilters({ hideZeroForce: e.target.checked })} data-testid="viewer-filter-hide-zero" />
+          Hide zero-force
+        </label>
+      </fieldset>
+      <fieldset className="flex items-center gap-1 text-sm">
+        <legend className="sr-only">Section box</legend>
+        <label className="flex items-center gap-1">
+          <input type="checkbox" checked={filters.sectionBox !== null} onChange={(e) => store.setFilters({ sectionBox: e.target.checked ? box : null })} data-testid="viewer-section-box" />
+          Section box
+        </label>
+        {filters.sectionBox
+          ? (["x", "y", "z"] as const).map((axis, a) => (
+              <span key={axis} className="flex items-center gap-0.5 font-mono text-xs">
+                {axis}
+                <input aria-label={`${axis} from (m)`} className={`${control} w-16`} type="number" step="any" value={box.min[a]} onChange={(e) => updateBox("min", a, Number(e.target.value))} />
+                <input aria-label={`${axis} to (m)`} className={`${control} w-16`} type="number" step="any" value={box.max[a]} onChange={(e) => updateBox("max", a, Number(e.target.value))} />
+              </span>
+            ))
+          : null}
+      </fieldset>
+      <fieldset className="flex items-center gap-1 text-sm">
+        <legend className="sr-only">Deflected shape</legend>
+        <label className="flex items-center gap-1">
+          <input
+            type="checkbox"
+            checked={deflection.enabled}
+            data-testid="viewer-deflection"
+            onChange={(e) => {
+              const displacements = resultId ? analysis.results[resultId]?.displacements : undefined;
+              const scale = deflection.scale || (displacements ? autoDeflectionScale(prepared.nodes, displacements) : 1);
+              store.setDeflection({ enabled: e.target.checked, scale });
+            }}
+          />
+          Deflected shape ×
+        </label>
+        <input aria-label="Deflection scale factor" className={`${control} w-20`} type="number" min={0} step="any" value={deflection.scale} onChange={(e) => store.setDeflection({ scale: Math.max(0, Number(e.target.value) || 0) })} data-testid="viewer-deflection-scale" />
+      </fieldset>
+      <div className="flex items-center gap-1" role="group" aria-label="Camera">
+        {(Object.keys(presetLabels) as CameraPreset[]).map((p) => (
+          <button key={p} type="button" className={control} onClick={() => store.applyPreset(p)} data-testid={`viewer-preset-${p}`}>
+            {presetLabels[p]}
+          </button>
+        ))}
+        <button type="button" className={control} onClick={() => store.fitToView()} data-testid="viewer-fit">
+          Fit
+        </button>
+        <button type="button" className={control} onClick={exportPng} data-testid="viewer-export-png">
+          Export PNG
+        </button>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,51 @@
+// Models area: immutable model revisions (the model JSON of our format) and the analysis run stored with each
+// (results and member review as jsonb), so opening the viewer never waits for a solve (design.md, "Data").
+import { integer, jsonb, pgEnum, pgTable, text, uniqueIndex, uuid, index } from "drizzle-orm/pg-core";
+import type { AnalysisResult } from "../../lib/analysis/analyze";
+import type { TrussModel } from "../../lib/analysis/model";
+import { projects, timestamps, users } from "./core";
+
+export const REVISION_SOURCES = ["generated", "uploaded"] as const;
+export const revisionSource = pgEnum("revision_source", REVISION_SOURCES);
+export const ANALYSIS_STATUSES = ["ok", "unstable"] as const;
+export const analysisStatus = pgEnum("analysis_status", ANALYSIS_STATUSES);
+
+export const modelRevisions = pgTable(
+  "model_revisions",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    projectId: uuid()
+      .notNull()
+      .references(() => projects.id, { onDelete: "cascade" }),
+    /** 1, 2, 3 … per project. */
+    number: integer().notNull(),
+    name: text().notNull(),
+    /** The validated model; never updated after insert. */
+    model: jsonb().$type<TrussModel>().notNull(),
+    source: revisionSource().notNull(),
+    createdBy: uuid().references(() => users.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("model_revisions_project_number_idx").on(t.projectId, t.number)],
+);
+
+export const analysisRuns = pgTable(
+  "analysis_runs",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    revisionId: uuid()
+      .notNull()
+      .references(() => modelRevisions.id, { onDelete: "cascade" }),
+    status: analysisStatus().notNull(),
+    /** The analysis result of design.md (plus its `info`). */
+    result: jsonb().$type<AnalysisResult>().notNull(),
+    /** The member review of lib/review for the project's design standard; null when the model is unstable. */
+    review: jsonb().$type<unknown>(),
+    ...timestamps,
+  },
+  (t) => [index("analysis_runs_revision_idx").on(t.revisionId, t.createdAt)],
+);
+
+export type ModelRevision = typeof modelRevisions.$inferSelect;
+export type NewModelRevision = typeof modelRevisions.$inferInsert;
+export type AnalysisRun = typeof analysisRuns.$inferSelect;

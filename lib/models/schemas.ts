@@ -1,0 +1,22 @@
+// Request bodies for creating a model revision, shared by the models page forms and the route handler.
+import { z } from "zod";
+import { roofParamsSchema } from "@/lib/analysis/generator";
+
+/** Largest accepted upload text (JSON model or one CSV table), in characters. */
+export const MAX_UPLOAD_CHARS = 40_000_000;
+
+const revisionName = z.string().trim().min(1, "Give the revision a name").max(200);
+
+export const createRevisionSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("generate"), params: roofParamsSchema }),
+  z.object({ kind: z.literal("uploadJson"), name: revisionName.optional(), model: z.unknown() }),
+  z.object({
+    kind: z.literal("uploadCsv"),
+    name: revisionName,
+    tables: z.record(z.string().min(1), z.string().max(MAX_UPLOAD_CHARS)).refine((t) => Object.keys(t).length > 0, "Add at least one CSV table"),
+  }),
+]);
+
+export type CreateRevisionInput = z.input<typeof createRevisionSchema>;
+
+export const revisionParamsSchema = z.object({ projectId: z.uuid(), number: z.coerce.number().int().positive() });
