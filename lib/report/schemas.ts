@@ -1,0 +1,30 @@
+// Query schemas of the report and export routes: shared by the report form and the route handlers.
+import { z } from "zod";
+
+const resultId = z.string().trim().min(1).max(120);
+const idList = z
+  .string()
+  .transform((value) => value.split(",").map((id) => id.trim()).filter(Boolean))
+  .pipe(z.array(resultId).max(50, "Choose at most 50 results."));
+
+/** GET /api/projects/[projectId]/report?revision=&combinations=a,b&compare=a,b */
+export const reportQuerySchema = z.object({
+  /** Revision number; the newest revision when absent. */
+  revision: z.coerce.number().int().positive("Give a revision number.").optional(),
+  /** Result ids to tabulate (combinations or load cases); every combination when absent. */
+  combinations: idList.optional(),
+  /** Exactly two result ids whose member states are compared. */
+  compare: idList.pipe(z.array(resultId).length(2, "Compare exactly two results, as compare=a,b.")).optional(),
+});
+export type ReportQuery = z.output<typeof reportQuerySchema>;
+
+/** GET /api/projects/[projectId]/exports/member-forces.csv?revision=&result= */
+export const memberForcesQuerySchema = z.object({
+  revision: z.coerce.number().int().positive("Give a revision number.").optional(),
+  result: resultId,
+});
+
+/** GET /api/projects/[projectId]/exports/envelope.csv?revision= */
+export const envelopeQuerySchema = z.object({
+  revision: z.coerce.number().int().positive("Give a revision number.").optional(),
+});
