@@ -1,5 +1,5 @@
 // Small models for the review engine's unit tests (not used by product code).
-import type { TrussModel } from "@/lib/analysis/model";
+import type { TrussModel } from "@/lib/analysis";
 
 /**
  * check-values §5.3 Example 4: 4-panel Pratt truss in x–z, panel 3 m, height 4 m. Supports L0 (ux, uy, uz),
@@ -38,4 +38,25 @@ export function prattTruss(): TrussModel {
     ],
     combinations: [{ id: "C1", name: "1.5 x 4b", factors: { "4b": 1.5 } }],
   };
+}
+
+/**
+ * The Pratt truss with extras whose role is known by statics. Node X is held by four members to fully restrained
+ * nodes, no three of them in a plane through X: they never carry force and any one can go (idle). U2W runs in
+ * line with U2's own y restraint to a fixed node W: never any force, and it frames into the compressed top
+ * chords at U2 (bracing by our definition).
+ */
+export function prattWithExtras(): TrussModel {
+  const model = prattTruss();
+  const fixed = [
+    { id: "S1", x: 0, y: 2, z: 0 },
+    { id: "S2", x: -2, y: -1, z: 0 },
+    { id: "S3", x: -2, y: 0, z: 1.5 },
+    { id: "W", x: 6, y: 3, z: 4 },
+  ];
+  model.nodes.push(...fixed, { id: "X", x: -1, y: 0.5, z: 2 });
+  model.supports.push(...fixed.map((n) => ({ node: n.id, ux: true, uy: true, uz: true })));
+  for (const end of ["L0", "S1", "S2", "S3"]) model.members.push({ id: `X${end}`, i: "X", j: end, section: "T1" });
+  model.members.push({ id: "U2W", i: "U2", j: "W", section: "T1" });
+  return model;
 }

@@ -1,7 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { analyzeModel } from "@/lib/analysis/analyze";
-import { generateRoof } from "@/lib/analysis/generator";
-import type { TrussModel } from "@/lib/analysis/model";
+import { analyzeModel, generateRoof, type TrussModel } from "@/lib/analysis";
 import { buildTopology } from "@/lib/analysis/topology";
 import { prattTruss } from "./test-models";
 import { explainZeroForces, inspectZeroForces, loadVectorForResult } from "./why-zero";

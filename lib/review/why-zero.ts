@@ -6,9 +6,7 @@
 // from memory). All are one statement: at a joint, ΣF·n = 0 along any direction n normal to the other members,
 // the load and the restrained directions; if member m has a component along such an n, N_m = 0. Once a member
 // is shown zero it drops out at both its joints and the inspection is repeated there (Baker & Haynes §6.3).
-import type { TrussModel } from "@/lib/analysis/model";
-import type { AnalysisResult } from "@/lib/analysis/analyze";
-import { loadVectorForCase } from "@/lib/analysis/loads";
+import { loadVectorForCase, type AnalysisResult, type TrussModel } from "@/lib/analysis";
 import { buildTopology, type Topology } from "@/lib/analysis/topology";
 
 /** A basis vector is kept when its residual exceeds this (unit vectors): below it, "lies in the plane". */

@@ -41,12 +41,17 @@ export function aiscTension(input: MemberDesignInput, force: number): AxialCheck
   return finish("tension", force, resistance, "AISC 360-22 D2(a) tension yielding", steps, warnings);
 }
 
-/** E3 flexural buckling: φc Pn = 0.90 Fcr Ag, with Lc = K·L, in kN. */
-export function aiscCompression(input: MemberDesignInput, force: number): AxialCheck {
+/** E3 design compressive strength φc·Fcr·Ag (kN) with Lc = K·L, and the values behind it. */
+export function aiscCompressionStrength(input: MemberDesignInput) {
   const Lc = input.effectiveLengthFactor * input.length;
   const slenderness = Lc / input.radiusOfGyration;
-  const { Fe, Fcr, transition, inelastic } = aiscCriticalStress(input.fy, input.E, slenderness);
-  const resistance = AISC_PHI_C * Fcr * input.area;
+  const stress = aiscCriticalStress(input.fy, input.E, slenderness);
+  return { Lc, slenderness, ...stress, resistance: AISC_PHI_C * stress.Fcr * input.area };
+}
+
+/** E3 flexural buckling: φc Pn = 0.90 Fcr Ag, with Lc = K·L, in kN. */
+export function aiscCompression(input: MemberDesignInput, force: number): AxialCheck {
+  const { Lc, slenderness, Fe, Fcr, transition, inelastic, resistance } = aiscCompressionStrength(input);
   const steps: CalcStep[] = [
     ...commonSteps(input),
     { label: "Modulus E", value: sig(toMPa(input.E)), unit: "MPa" },

@@ -50,8 +50,8 @@ export function enTension(input: MemberDesignInput, force: number): AxialCheck {
   return finish("tension", force, resistance, "EN 1993-1-1 6.2.3 tension", steps, warnings);
 }
 
-/** 6.3.1 flexural buckling: Nb,Rd = χ·A·fy/γM1 with the CHS curve of Table 6.2, in kN. */
-export function enCompression(input: MemberDesignInput, force: number, curve = chsBucklingCurve(input.fabrication, input.fy)): AxialCheck {
+/** 6.3.1 compression resistance (kN) under force NEd, and the values behind it. */
+export function enCompressionStrength(input: MemberDesignInput, force: number, curve: BucklingCurve) {
   const Lcr = input.effectiveLengthFactor * input.length;
   const slenderness = Lcr / input.radiusOfGyration;
   const Ncr = (Math.PI ** 2 * input.E * input.area * input.radiusOfGyration ** 2) / Lcr ** 2;
@@ -59,8 +59,13 @@ export function enCompression(input: MemberDesignInput, force: number, curve = c
   const { alpha, phi, chi } = reductionFactor(lambdaBar, curve);
   // 6.3.1.2(4): buckling may be ignored for λ̄ ≤ 0.2 or NEd/Ncr ≤ 0.04; only the cross-section check remains.
   const ignoreBuckling = lambdaBar <= 0.2 || Math.abs(force) / Ncr <= 0.04;
-  const chiUsed = ignoreBuckling ? 1 : chi;
-  const resistance = (chiUsed * input.area * input.fy) / (ignoreBuckling ? EN_GAMMA_M0 : EN_GAMMA_M1);
+  const resistance = ignoreBuckling ? (input.area * input.fy) / EN_GAMMA_M0 : (chi * input.area * input.fy) / EN_GAMMA_M1;
+  return { Lcr, slenderness, Ncr, lambdaBar, alpha, phi, chi, ignoreBuckling, resistance };
+}
+
+/** 6.3.1 flexural buckling: Nb,Rd = χ·A·fy/γM1 with the CHS curve of Table 6.2, in kN. */
+export function enCompression(input: MemberDesignInput, force: number, curve = chsBucklingCurve(input.fabrication, input.fy)): AxialCheck {
+  const { Lcr, slenderness, Ncr, lambdaBar, alpha, phi, chi, ignoreBuckling, resistance } = enCompressionStrength(input, force, curve);
   const steps: CalcStep[] = [
     { label: "Area A", value: sig(toMm2(input.area)), unit: "mm²" },
     { label: "Yield strength fy", value: sig(toMPa(input.fy)), unit: "MPa" },

@@ -1,0 +1,44 @@
+// The state a review keeps between questions: the model, its analysis, one factored structure, design inputs.
+import { prepareStructure, type AnalysisResult, type PreparedStructure, type TrussModel } from "@/lib/analysis";
+import type { ChsFabrication, DesignStandard, MemberDesignInput } from "./design-checks/types";
+import { designResultIds, memberDesignInputs } from "./member-design";
+
+export type ReviewOptions = {
+  standard: DesignStandard;
+  /** Members under this |N| (kN) are low-force (passed through from the analysis; glossary "low-force"). */
+  lowForceThreshold?: number;
+  /** How the tubes were made (EN buckling curve); hot finished unless told. */
+  fabrication?: ChsFabrication;
+};
+
+export type ReviewContext = {
+  model: TrussModel;
+  result: AnalysisResult;
+  options: ReviewOptions;
+  structure: PreparedStructure;
+  inputs: MemberDesignInput[];
+  memberIndex: Map<string, number>;
+  /** Intact forces per result id, model member order. */
+  forces: Map<string, Float64Array>;
+  designResults: string[];
+};
+
+/** Factors the model's stiffness once so what-ifs and influence maps reuse it. The model must be stable. */
+export function createReviewContext(model: TrussModel, result: AnalysisResult, options: ReviewOptions): ReviewContext {
+  if (result.status !== "ok") throw new Error("the model is a mechanism: nothing to review until it is stable");
+  const structure = prepareStructure(model);
+  const forces = new Map<string, Float64Array>();
+  for (const [id, r] of Object.entries(result.results)) {
+    forces.set(id, Float64Array.from(model.members, (m) => r.memberForces[m.id]));
+  }
+  return {
+    model,
+    result,
+    options,
+    structure,
+    inputs: memberDesignInputs(model, options.fabrication),
+    memberIndex: new Map(model.members.map((m, e) => [m.id, e])),
+    forces,
+    designResults: designResultIds(model).filter((id) => forces.has(id)),
+  };
+}

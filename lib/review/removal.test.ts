@@ -1,0 +1,90 @@
+import { describe, expect, it } from "vitest";
+import { analyzeModel, generateRoof, type TrussModel } from "@/lib/analysis";
+import { STANDING_CAUTION } from "./caution";
+import { createReviewContext } from "./context";
+import { axialUtilisation } from "./design-checks/member-check";
+import { removalWhatIf } from "./removal";
+import { prattTruss, prattWithExtras } from "./test-models";
+
+const contextFor = (model: TrussModel) => createReviewContext(model, analyzeModel(model), { standard: "EN1993-1-1" });
+
+describe("removalWhatIf", () => {
+  // check-values §5.3 Example 4, removal checks (computed): the Pratt truss is statically determinate, so deleting
+  // U1L1 or U2L2 (zero-force in case 4a) leaves a rank-deficient equilibrium matrix: a mechanism.
+  it.each([["U1L1", "L1"], ["U2L2", "U2"], ["L1L2", null]])("removing %s from the determinate Pratt truss leaves a mechanism", (member, node) => {
+    const outcome = removalWhatIf(contextFor(prattTruss()), { remove: [member] });
+    expect(outcome.mechanism).toBe(true);
+    if (!outcome.mechanism) return;
+    if (node) expect(outcome.instability.map((i) => i.node)).toContain(node);
+    expect(outcome.instabilityText.length).toBeGreaterThan(0);
+    expect(outcome.caution).toBe(STANDING_CAUTION);
+  });
+
+  it("removing an idle member leaves every other force unchanged", () => {
+    const outcome = removalWhatIf(contextFor(prattWithExtras()), { remove: ["XS1"] });
+    expect(outcome.mechanism).toBe(false);
+    if (outcome.mechanism) return;
+    for (const c of outcome.changes) expect(c.changedCount, c.result).toBe(0);
+    expect(outcome.utilisation.changes).toEqual([]);
+  });
+
+  it("says a mechanism when too many of the idle members go", () => {
+    expect(removalWhatIf(contextFor(prattWithExtras()), { remove: ["XS1", "XS2"] }).mechanism).toBe(true);
+  });
+
+  it("matches a fresh analysis of the reduced roof, self-weight included", () => {
+    const roof = generateRoof({ spanX: 15, spanY: 12, module: 3, depth: 1.5 });
+    const context = contextFor(roof);
+    const remove = ["D-2-1-NE", "BCX-1-1"];
+    const outcome = removalWhatIf(context, { remove, maxListed: 10_000 });
+    expect(outcome.mechanism).toBe(false);
+    if (outcome.mechanism) return;
+    const reduced = { ...roof, members: roof.members.filter((m) => !remove.includes(m.id)) };
+    const fresh = analyzeModel(reduced);
+    for (const c of outcome.changes) {
+      const expected = fresh.results[c.result].memberForces;
+      const scale = Math.max(...Object.values(expected).map(Math.abs));
+      for (const change of c.changes) expect(Math.abs(change.after - expected[change.member])).toBeLessThan(1e-8 * scale);
+      // Unlisted members did not change: their intact force is the fresh one.
+      const listed = new Set(c.changes.map((x) => x.member));
+      for (const m of reduced.members) {
+        if (!listed.has(m.id)) expect(Math.abs(context.result.results[c.result].memberForces[m.id] - expected[m.id])).toBeLessThan(1e-6 * scale);
+      }
+      expect(c.changedCount).toBeGreaterThan(0);
+    }
+  });
+
+  it("re-checks compression members that lost a brace with a doubled buckling length", () => {
+    const roof = generateRoof({ spanX: 15, spanY: 12, module: 3, depth: 1.5 });
+    const context = contextFor(roof);
+    const outcome = removalWhatIf(context, { remove: ["D-2-1-NE"] });
+    if (outcome.mechanism) throw new Error("unexpected mechanism");
+    // D-2-1-NE joins B-2-1 to T-3-2; the members there that are in compression in some combination lose a brace.
+    expect(outcome.lostBraces.length).toBeGreaterThan(0);
+    for (const lost of outcome.lostBraces) {
+      expect(lost.joints.every((j) => j === "B-2-1" || j === "T-3-2")).toBe(true);
+      expect(lost.removedMembers).toEqual(["D-2-1-NE"]);
+      expect(lost.utilisationWithoutBrace).toBeGreaterThanOrEqual(lost.utilisationAfter);
+    }
+    expect(outcome.lostBraces[0].utilisationWithoutBrace).toBeGreaterThan(outcome.lostBraces[0].utilisationAfter);
+    const first = outcome.lostBraces[0];
+    const e = context.memberIndex.get(first.member)!;
+    const input = context.inputs[e];
+    const fresh = analyzeModel({ ...roof, members: roof.members.filter((m) => m.id !== "D-2-1-NE") });
+    const force = fresh.results[first.result].memberForces[first.member];
+    expect(first.utilisationWithoutBrace).toBeCloseTo(axialUtilisation("EN1993-1-1", { ...input, effectiveLengthFactor: 2 }, force), 8);
+  });
+
+  it("analyses an added load case before and after the removal", () => {
+    const model = prattWithExtras();
+    const outcome = removalWhatIf(contextFor(model), {
+      remove: ["XS1"],
+      addLoadCase: { id: "hang", name: "hanger at X", category: "services", selfWeight: false, nodalLoads: [{ node: "X", fx: 0, fy: 0, fz: -4 }] },
+    });
+    if (outcome.mechanism) throw new Error("unexpected mechanism");
+    const hang = outcome.changes.find((c) => c.result === "hang")!;
+    // With a load at X the remaining three members share it differently once XS1 is gone.
+    expect(hang.changedCount).toBeGreaterThan(0);
+    expect(hang.changes.every((c) => c.member.startsWith("X"))).toBe(true);
+  });
+});
