@@ -2,12 +2,14 @@
 // own step as a function in db/seed/*.ts, called below inside the one transaction. It runs with tsx
 // --conditions=react-server, so seed steps may call the "server-only" data layer in db/queries.
 import { closeDb, withTransaction } from "../db/client";
+import { seedDemoModel } from "../db/seed/demo-model";
 import { DEMO_PROJECT, seedDemoProject, seedDemoTeam } from "../db/seed/demo-team";
 
 async function main() {
   await withTransaction(async (tx) => {
     const { projectId } = await seedDemoProject(tx);
-    await seedDemoTeam(tx, projectId);
+    const team = await seedDemoTeam(tx, projectId);
+    await seedDemoModel(tx, { projectId, createdBy: team.structural_engineer });
   });
   console.log(`[seed] demo project "${DEMO_PROJECT}" is ready`);
 }

@@ -102,31 +102,33 @@ export type CreateRevisionInput = {
   review: unknown;
 };
 
+/** Inserts the next revision of the project with its analysis run and an audit event, inside the given transaction. */
+export async function insertRevisionWithAnalysis(tx: Executor, input: CreateRevisionInput): Promise<{ id: string; number: number }> {
+  const [row] = await tx.select({ latest: max(modelRevisions.number) }).from(modelRevisions).where(eq(modelRevisions.projectId, input.projectId));
+  const number = (row?.latest ?? 0) + 1;
+  const [revision] = await tx
+    .insert(modelRevisions)
+    .values({ projectId: input.projectId, number, name: input.name, model: input.model, source: input.source, createdBy: input.createdBy })
+    .returning({ id: modelRevisions.id, number: modelRevisions.number });
+  await tx.insert(analysisRuns).values({ revisionId: revision.id, status: input.result.status, result: input.result, review: input.review });
+  await recordAuditEvent({
+    db: tx,
+    projectId: input.projectId,
+    actorId: input.createdBy,
+    action: "model.revision.create",
+    subjectType: "model_revision",
+    subjectId: revision.id,
+    details: { number, name: input.name, source: input.source, status: input.result.status },
+  });
+  return revision;
+}
+
 /**
  * Stores a new revision (next number of the project) with its analysis run and an audit event, in one
  * transaction. A concurrent save that takes the same number fails the unique index and is retried once.
  */
 export async function createRevisionWithAnalysis(input: CreateRevisionInput): Promise<{ id: string; number: number }> {
-  const attempt = () =>
-    withTransaction(async (tx) => {
-      const [row] = await tx.select({ latest: max(modelRevisions.number) }).from(modelRevisions).where(eq(modelRevisions.projectId, input.projectId));
-      const number = (row?.latest ?? 0) + 1;
-      const [revision] = await tx
-        .insert(modelRevisions)
-        .values({ projectId: input.projectId, number, name: input.name, model: input.model, source: input.source, createdBy: input.createdBy })
-        .returning({ id: modelRevisions.id, number: modelRevisions.number });
-      await tx.insert(analysisRuns).values({ revisionId: revision.id, status: input.result.status, result: input.result, review: input.review });
-      await recordAuditEvent({
-        db: tx,
-        projectId: input.projectId,
-        actorId: input.createdBy,
-        action: "model.revision.create",
-        subjectType: "model_revision",
-        subjectId: revision.id,
-        details: { number, name: input.name, source: input.source, status: input.result.status },
-      });
-      return revision;
-    });
+  const attempt = () => withTransaction((tx) => insertRevisionWithAnalysis(tx, input));
   try {
     return await attempt();
   } catch (error) {

@@ -1,0 +1,23 @@
+// The demo roof (lib/analysis demoRoof: the Northfield sports hall) as revision 1 of the demo project, with its
+// analysis and member review stored, so the viewer opens on real results. Idempotent: skipped once revision 1 exists.
+import { and, eq } from "drizzle-orm";
+import type { Executor } from "../client";
+import { modelRevisions, projects } from "../schema";
+import { demoRoof } from "../../lib/analysis/generator";
+import { analyseForStorage } from "../../lib/models/analyse";
+import { insertRevisionWithAnalysis } from "../queries/models";
+
+/** Stores the demo roof as revision 1 (with results) unless the project already has it. */
+export async function seedDemoModel(db: Executor, { projectId, createdBy }: { projectId: string; createdBy: string }): Promise<void> {
+  const [existing] = await db
+    .select({ id: modelRevisions.id })
+    .from(modelRevisions)
+    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, 1)))
+    .limit(1);
+  if (existing) return;
+  const [project] = await db.select({ designStandard: projects.designStandard }).from(projects).where(eq(projects.id, projectId));
+  const model = demoRoof();
+  const { result, review } = analyseForStorage(model, project.designStandard);
+  if (result.status !== "ok") throw new Error("the demo roof analysed as unstable");
+  await insertRevisionWithAnalysis(db, { projectId, name: model.name, model, source: "generated", createdBy, result, review });
+}
