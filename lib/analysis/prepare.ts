@@ -1,7 +1,8 @@
 import { assembleStiffness } from "./assemble";
 import type { TrussModel } from "./model";
 import { approximateMinimumDegree } from "./sparse/amd";
-import { numericLdl, solveLdl, symbolicLdl } from "./sparse/ldl";
+import { symbolicLdl } from "./sparse/ldl";
+import { factorSupernodal, solveSupernodal, supernodes } from "./sparse/supernodal";
 import { buildTopology, type Topology } from "./topology";
 
 export type Direction = "ux" | "uy" | "uz";
@@ -51,7 +52,7 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
   const assembled = assembleStiffness(topology, nodeOrder);
   const t3 = now();
   const symbolic = symbolicLdl(assembled.matrix);
-  const factor = numericLdl(assembled.matrix, symbolic, assembled.pivotScale, PIVOT_TOLERANCE);
+  const factor = factorSupernodal(assembled.matrix, supernodes(assembled.matrix, symbolic), assembled.pivotScale, PIVOT_TOLERANCE);
   const t4 = now();
 
   const { dofOfEquation } = assembled;
@@ -105,7 +106,7 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
     solve(f) {
       const x = new Float64Array(neq);
       for (let q = 0; q < neq; q++) x[q] = f[dofOfEquation[q]];
-      solveLdl(factor, x);
+      solveSupernodal(factor, x);
       const u = new Float64Array(3 * n);
       for (let q = 0; q < neq; q++) u[dofOfEquation[q]] = x[q];
       return u;
