@@ -6,6 +6,7 @@ import type { TrussModel } from "@/lib/analysis/model";
 import { NotFoundError, ValidationError, issuesFrom } from "@/lib/http/errors";
 import { runSchema, type Run, type RunEdit } from "@/lib/mep/schemas";
 import { recordAuditEvent } from "./audit";
+import { insertRevisionWithAnalysis, type CreateRevisionInput } from "./models";
 import { syncClashes, type DetectionSummary } from "./clashes";
 
 /** A stored run in the shape of the run schema (plus when it last changed). */
@@ -131,4 +132,16 @@ export async function carryRunsForward({ projectId, fromRevisionId, toRevision, 
   const runs = await db.select().from(mepRuns).where(eq(mepRuns.revisionId, fromRevisionId));
   if (runs.length > 0) await db.insert(mepRuns).values(runs.map((row) => toRow(toRevision.id, toRun(row), actorId)));
   return redetect(db, projectId, toRevision);
+}
+
+/**
+ * Stores a revision derived from another (e.g. with the services hung) with its analysis, copies the runs onto it
+ * and detects its clashes, all in one transaction.
+ */
+export async function createDerivedRevision({ projectId, fromRevisionId, revision, actorId }: { projectId: string; fromRevisionId: string; revision: Omit<CreateRevisionInput, "projectId" | "createdBy">; actorId: string }): Promise<{ id: string; number: number; detection: DetectionSummary }> {
+  return withTransaction(async (tx) => {
+    const created = await insertRevisionWithAnalysis(tx, { ...revision, projectId, createdBy: actorId });
+    const detection = await carryRunsForward({ projectId, fromRevisionId, toRevision: { id: created.id, model: revision.model }, actorId, db: tx });
+    return { ...created, detection };
+  });
 }

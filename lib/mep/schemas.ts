@@ -98,3 +98,9 @@ export const importRunsSchema = z.object({
 export type ImportRunsInput = z.infer<typeof importRunsSchema>;
 
 export const editRunRequestSchema = runEditSchema.extend({ revision: z.number().int().positive() });
+
+/** "Hang the services": which revision, and the largest hanger spacing along each run (m). */
+export const hangServicesSchema = z.object({
+  revision: z.number().int().positive(),
+  hangerSpacing: z.number().finite().min(0.5, "Hangers closer than 0.5 m are not practical.").max(12, "Hangers further apart than 12 m are not practical.").default(2.5),
+});

@@ -6,10 +6,11 @@ import { GET as GET_CLASH } from "@/app/api/projects/[projectId]/clashes/[clashI
 import { GET as LIST_CLASHES, POST as DETECT } from "@/app/api/projects/[projectId]/clashes/route";
 import { DELETE as DELETE_RUN, PATCH as EDIT_RUN } from "@/app/api/projects/[projectId]/runs/[runId]/route";
 import { GET as LIST_RUNS, POST as IMPORT } from "@/app/api/projects/[projectId]/runs/route";
+import { POST as HANG } from "@/app/api/projects/[projectId]/services/route";
 import { createRevisionWithAnalysis } from "@/db/queries/models";
 import { auditEvents, clashDecisions } from "@/db/schema";
-import { analyzeModel } from "@/lib/analysis/analyze";
 import { generateRoof } from "@/lib/analysis/generator";
+import { analyseForStorage } from "@/lib/models/analyse";
 import { ROLES } from "@/lib/permissions";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
@@ -35,7 +36,8 @@ beforeAll(async () => {
   requireIntegrationEnv();
   fx = await createProjectFixture("mep-clashes");
   const model = generateRoof({ name: "Test roof", spanX: 9, spanY: 9, module: 3, depth: 2 });
-  await createRevisionWithAnalysis({ projectId: fx.projectId, name: "r1", model, source: "generated", createdBy: fx.users.structural_engineer.id, result: analyzeModel(model), review: null });
+  const { result, review } = analyseForStorage(model, "EN1993-1-1");
+  await createRevisionWithAnalysis({ projectId: fx.projectId, name: "r1", model, source: "generated", createdBy: fx.users.structural_engineer.id, result, review });
 });
 afterAll(closeDb);
 
@@ -94,6 +96,7 @@ describe("clashes", () => {
     for (const clash of body.clashes) {
       expect(clash).toMatchObject({ kind: "hard", status: "active", system: "supply air", runId: "SA-01", outcome: null });
       expect(["zero_in_all", "low_force", "load_bearing"]).toContain(clash.forceState);
+      expect(["load-bearing", "stabilising", "bracing", "idle"]).toContain(clash.verdict);
     }
     expect((await list(fx.users.structural_engineer)).abilities).toEqual({ propose: true, acceptOpening: true, editRuns: true });
   });
@@ -188,4 +191,34 @@ it("every role may read the clash list", async () => {
     const response = await LIST_CLASHES(await buildRequest(`/api/projects/${fx.projectId}/clashes?revision=1`, { user: fx.users[role] }), ctx());
     expect(response.status).toBe(200);
   }
+});
+
+describe("hang the services", () => {
+  const path = () => `/api/projects/${fx.projectId}/services`;
+
+  it("is for the structural engineer only, and needs runs", async () => {
+    expect((await HANG(await buildRequest(path(), { method: "POST", body: { revision: 1 } }), ctx())).status).toBe(401);
+    for (const role of ["mep_engineer", "owner", "architect", "viewer"] as const) {
+      expect((await HANG(await buildRequest(path(), { method: "POST", body: { revision: 1 }, user: fx.users[role] }), ctx())).status).toBe(403);
+    }
+    // The runs were removed above: nothing to hang.
+    expect((await HANG(await buildRequest(path(), { method: "POST", body: { revision: 1 }, user: fx.users.structural_engineer }), ctx())).status).toBe(400);
+  });
+
+  it("creates an analysed revision with the runs' weight, carrying the runs and their clashes over", async () => {
+    await IMPORT(await buildRequest(`/api/projects/${fx.projectId}/runs`, { method: "POST", body: importBody(), user: fx.users.mep_engineer }), ctx());
+    const response = await HANG(await buildRequest(path(), { method: "POST", body: { revision: 1, hangerSpacing: 2.5 }, user: fx.users.structural_engineer }), ctx());
+    expect(response.status).toBe(201);
+    const body = await response.json();
+    // The run is 11 m long at 0.35 kN/m: 3.85 kN hung in all (hand arithmetic).
+    expect(body.totalLoad).toBeCloseTo(3.85, 9);
+    expect(body.revision).toEqual({ number: 2, status: "ok" });
+    expect(body.detection).toMatchObject({ found: 4 });
+    expect(body.zeroForce).toEqual({ noLongerZero: expect.any(Array), newlyZero: expect.any(Array) });
+    const list = await (await LIST_CLASHES(await buildRequest(`/api/projects/${fx.projectId}/clashes?revision=2`, { user: fx.users.viewer }), ctx())).json();
+    const first = await (await LIST_CLASHES(await buildRequest(`/api/projects/${fx.projectId}/clashes?revision=1`, { user: fx.users.viewer }), ctx())).json();
+    // Same member, run and segment: the same stable clash keys on the new revision, so threads follow.
+    const keys = (rows: { clashKey: string; status: string }[]) => rows.filter((r) => r.status === "active").map((r) => r.clashKey).sort();
+    expect(keys(list.clashes)).toEqual(keys(first.clashes));
+  });
 });
