@@ -18,6 +18,12 @@ export const reportQuerySchema = z.object({
 });
 export type ReportQuery = z.output<typeof reportQuerySchema>;
 
+/** The raw report query from URL parameters, joining repeated list keys (a form's checkboxes) with commas. */
+export function reportQueryFrom(params: URLSearchParams): Record<string, string | undefined> {
+  const list = (key: string) => params.getAll(key).flatMap((value) => value.split(",")).map((id) => id.trim()).filter(Boolean).join(",") || undefined;
+  return { revision: params.get("revision") || undefined, combinations: list("combinations"), compare: list("compare") };
+}
+
 /** GET /api/projects/[projectId]/exports/member-forces.csv?revision=&result= */
 export const memberForcesQuerySchema = z.object({
   revision: z.coerce.number().int().positive("Give a revision number.").optional(),

@@ -36,7 +36,7 @@ async function upload(filename: string, bytes: Buffer, contentType: string, decl
   const started = await ask(fx.users.architect, { purpose: "comment", commentId, filename, contentType, sizeBytes: declaredSize });
   expect(started.status).toBe(201);
   const { attachmentId, uploadUrl, headers } = await started.json();
-  const put = await fetch(uploadUrl, { method: "PUT", headers, body: bytes });
+  const put = await fetch(uploadUrl, { method: "PUT", headers, body: new Uint8Array(bytes) });
   expect(put.status).toBe(200);
   const confirmed = await confirm(await buildRequest(`${base()}/${attachmentId}/confirm`, { method: "POST", user: fx.users.architect }), itemCtx(attachmentId));
   return { attachmentId, confirmed };
@@ -120,7 +120,7 @@ describe("comment attachments", () => {
   it("sweeps uploads that were never confirmed, with any bytes they left", async () => {
     const started = await ask(fx.users.architect, { purpose: "comment", commentId, filename: "abandoned.png", contentType: "image/png", sizeBytes: PNG.length });
     const { attachmentId, uploadUrl } = await started.json();
-    await fetch(uploadUrl, { method: "PUT", body: PNG });
+    await fetch(uploadUrl, { method: "PUT", body: new Uint8Array(PNG) });
     const later = new Date(Date.now() + 2 * 60 * 60_000);
     expect(await sweepStaleUploads({ now: later })).toBeGreaterThanOrEqual(1);
     expect(await row(attachmentId)).toBeUndefined();

@@ -28,9 +28,7 @@ let stored: AnalysisResult;
 const work = mkdtempSync(path.join(tmpdir(), "strutroom-report-api-"));
 const ctx = () => routeContext({ projectId: fx.projectId });
 
-async function get(handler: typeof report, url: string, user?: FixtureUser) {
-  return handler(await buildRequest(url, { user }), ctx());
-}
+const req = (url: string, user?: FixtureUser) => buildRequest(url, { user });
 
 beforeAll(async () => {
   requireIntegrationEnv();
@@ -54,19 +52,19 @@ afterAll(async () => {
 
 describe("GET /api/projects/[projectId]/report", () => {
   it("answers 401 signed out, 404 to outsiders, 400 for unknown results", async () => {
-    expect((await get(report, `/api/projects/${fx.projectId}/report`)).status).toBe(401);
-    expect((await get(report, `/api/projects/${fx.projectId}/report`, fx.users.outsider)).status).toBe(404);
-    const bad = await get(report, `/api/projects/${fx.projectId}/report?combinations=ULS-1,NOPE&compare=ULS-1`, fx.users.viewer);
+    expect((await report(await req(`/api/projects/${fx.projectId}/report`), ctx())).status).toBe(401);
+    expect((await report(await req(`/api/projects/${fx.projectId}/report`, fx.users.outsider), ctx())).status).toBe(404);
+    const bad = await report(await req(`/api/projects/${fx.projectId}/report?combinations=ULS-1,NOPE&compare=ULS-1`, fx.users.viewer), ctx());
     expect(bad.status).toBe(400);
     expect((await bad.json()).issues.map((i: { path: string }) => i.path)).toEqual(["compare"]);
-    const unknown = await get(report, `/api/projects/${fx.projectId}/report?combinations=ULS-1,NOPE`, fx.users.viewer);
+    const unknown = await report(await req(`/api/projects/${fx.projectId}/report?combinations=ULS-1,NOPE`, fx.users.viewer), ctx());
     expect(unknown.status).toBe(400);
     expect((await unknown.json()).error).toContain("NOPE");
-    expect((await get(report, `/api/projects/${fx.projectId}/report?revision=9`, fx.users.viewer)).status).toBe(404);
+    expect((await report(await req(`/api/projects/${fx.projectId}/report?revision=9`, fx.users.viewer), ctx())).status).toBe(404);
   });
 
   it("gives any member a PDF with the caution on every page, the decided clash and the open question", async () => {
-    const response = await get(report, `/api/projects/${fx.projectId}/report?revision=1&combinations=ULS-1,ULS-3&compare=ULS-1,ULS-3`, fx.users.viewer);
+    const response = await report(await req(`/api/projects/${fx.projectId}/report?revision=1&combinations=ULS-1,ULS-3&compare=ULS-1,ULS-3`, fx.users.viewer), ctx());
     expect(response.status).toBe(200);
     expect(response.headers.get("content-type")).toBe("application/pdf");
     const file = path.join(work, "report.pdf");
@@ -88,7 +86,7 @@ describe("GET /api/projects/[projectId]/report", () => {
 
 describe("CSV exports", () => {
   it("member forces of one result: the stored values, one row per member", async () => {
-    const response = await get(memberForces, `/api/projects/${fx.projectId}/exports/member-forces.csv?result=ULS-3`, fx.users.architect);
+    const response = await memberForces(await req(`/api/projects/${fx.projectId}/exports/member-forces.csv?result=ULS-3`, fx.users.architect), ctx());
     expect(response.status).toBe(200);
     expect(response.headers.get("content-type")).toContain("text/csv");
     const { data, meta } = Papa.parse<Record<string, string>>(await response.text(), { header: true, skipEmptyLines: true });
@@ -96,12 +94,12 @@ describe("CSV exports", () => {
     expect(data).toHaveLength(TRIPOD.members.length);
     for (const row of data) expect(Number(row.axial_force_kN)).toBe(stored.results["ULS-3"].memberForces[row.member]);
     expect(data.find((row) => row.member === "AD")?.state).toBe("tension");
-    expect((await get(memberForces, `/api/projects/${fx.projectId}/exports/member-forces.csv?result=X`, fx.users.architect)).status).toBe(400);
-    expect((await get(memberForces, `/api/projects/${fx.projectId}/exports/member-forces.csv?result=ULS-3`)).status).toBe(401);
+    expect((await memberForces(await req(`/api/projects/${fx.projectId}/exports/member-forces.csv?result=X`, fx.users.architect), ctx())).status).toBe(400);
+    expect((await memberForces(await req(`/api/projects/${fx.projectId}/exports/member-forces.csv?result=ULS-3`), ctx())).status).toBe(401);
   });
 
   it("envelope: the stored extremes per member", async () => {
-    const response = await get(envelope, `/api/projects/${fx.projectId}/exports/envelope.csv`, fx.users.mep_engineer);
+    const response = await envelope(await req(`/api/projects/${fx.projectId}/exports/envelope.csv`, fx.users.mep_engineer), ctx());
     expect(response.status).toBe(200);
     const { data } = Papa.parse<Record<string, string>>(await response.text(), { header: true, skipEmptyLines: true });
     for (const row of data) {
@@ -109,6 +107,6 @@ describe("CSV exports", () => {
       expect(Number(row.max_compression_kN)).toBe(stored.envelope[row.member].maxCompression);
       expect(row.zero_in_all).toBe(String(stored.envelope[row.member].zeroInAll));
     }
-    expect((await get(envelope, `/api/projects/${fx.projectId}/exports/envelope.csv`, fx.users.outsider)).status).toBe(404);
+    expect((await envelope(await req(`/api/projects/${fx.projectId}/exports/envelope.csv`, fx.users.outsider), ctx())).status).toBe(404);
   });
 });

@@ -1,0 +1,61 @@
+import type { Metadata } from "next";
+import { ProjectHeader } from "@/components/project/project-header";
+import { ProjectNav } from "@/components/project/project-nav";
+import { ReportForm } from "@/components/report/report-form";
+import { getRevisionWithResults, listRevisionsByProject } from "@/db/queries/models";
+import { requirePageProject } from "@/lib/auth/page";
+import { capturedMailPageEnabled } from "@/lib/mail/captured";
+import { STANDING_CAUTION } from "@/lib/review/caution";
+
+export const metadata: Metadata = { title: "Report" };
+
+export default async function ReportPage({ params, searchParams }: PageProps<"/projects/[projectId]/report">) {
+  const { projectId } = await params;
+  const { project } = await requirePageProject(projectId, "report.export");
+  const revisions = await listRevisionsByProject({ projectId });
+  const asked = Number((await searchParams).revision);
+  const chosen = revisions.find((r) => r.number === asked) ?? revisions[0];
+  const revision = chosen ? await getRevisionWithResults({ projectId, number: chosen.number }) : null;
+  const results = revision
+    ? [
+        ...revision.model.combinations.map((c) => ({ id: c.id, name: c.name, kind: "combination" as const })),
+        ...revision.model.loadCases.map((c) => ({ id: c.id, name: c.name, kind: "load case" as const })),
+      ]
+    : [];
+  return (
+    <div className="flex flex-col gap-6">
+      <ProjectHeader project={project} />
+      <ProjectNav projectId={project.id} current="report" />
+      <section className="flex max-w-3xl flex-col gap-4" data-testid="report-page">
+        <h2 className="text-lg font-semibold">Review report and exports</h2>
+        <p className="text-sm text-board-700">
+          A PDF of the chosen revision: model summary, load cases and combinations, member forces and zero-force members per result, the
+          members whose state differs between two results, the clash log and the open questions.
+        </p>
+        <p className="rounded-md border border-compression/40 bg-compression/5 px-3 py-2 text-sm text-board-800">{STANDING_CAUTION}</p>
+        {!revision ? (
+          <p className="text-board-700" data-testid="report-empty">
+            This project has no model revision yet. Add one on the Models page first.
+          </p>
+        ) : !revision.analysis || revision.analysis.status !== "ok" ? (
+          <p className="text-board-700" data-testid="report-unanalysed">
+            Revision {revision.number} has no stable analysis, so there are no forces to report.
+          </p>
+        ) : (
+          <ReportForm
+            projectId={project.id}
+            revisions={revisions.map((r) => ({ number: r.number, name: r.name }))}
+            revision={revision.number}
+            results={results}
+            defaultChosen={revision.model.combinations.length ? revision.model.combinations.map((c) => c.id) : revision.model.loadCases.map((c) => c.id)}
+          />
+        )}
+        {project.abilities["mail.viewCaptured"] && capturedMailPageEnabled() ? (
+          <p className="text-sm text-board-700">
+            Development: <a className="underline" href={`/projects/${project.id}/mail`}>mail captured by the local SMTP server</a>.
+          </p>
+        ) : null}
+      </section>
+    </div>
+  );
+}
