@@ -4,6 +4,7 @@ import { getDb, withTransaction, type Executor } from "@/db/client";
 import { analysisRuns, modelRevisions, users, type ModelRevision } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
+import type { StoredReview } from "@/lib/models/analyse";
 import { recordAuditEvent } from "./audit";
 
 /** A revision as listed (no model body). */
@@ -21,7 +22,7 @@ export type RevisionSummary = {
 /** A revision with its model and the stored analysis and review. */
 export type RevisionWithResults = Omit<RevisionSummary, "analysisStatus"> & {
   model: TrussModel;
-  analysis: { id: string; status: "ok" | "unstable"; result: AnalysisResult; review: unknown; createdAt: string } | null;
+  analysis: { id: string; status: "ok" | "unstable"; result: AnalysisResult; review: StoredReview | null; createdAt: string } | null;
 };
 
 /** Every revision of a project, newest first, with the status of its analysis. */
@@ -99,7 +100,7 @@ export type CreateRevisionInput = {
   source: ModelRevision["source"];
   createdBy: string | null;
   result: AnalysisResult;
-  review: unknown;
+  review: StoredReview | null;
 };
 
 /** Inserts the next revision of the project with its analysis run and an audit event, inside the given transaction. */

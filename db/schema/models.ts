@@ -3,6 +3,7 @@
 import { integer, jsonb, pgEnum, pgTable, text, uniqueIndex, uuid, index } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "../../lib/analysis/analyze";
 import type { TrussModel } from "../../lib/analysis/model";
+import type { StoredReview } from "../../lib/models/analyse";
 import { projects, timestamps, users } from "./core";
 
 export const REVISION_SOURCES = ["generated", "uploaded"] as const;
@@ -40,7 +41,7 @@ export const analysisRuns = pgTable(
     /** The analysis result of design.md (plus its `info`). */
     result: jsonb().$type<AnalysisResult>().notNull(),
     /** The member review of lib/review for the project's design standard; null when the model is unstable. */
-    review: jsonb().$type<unknown>(),
+    review: jsonb().$type<StoredReview>(),
     ...timestamps,
   },
   (t) => [index("analysis_runs_revision_idx").on(t.revisionId, t.createdAt)],

@@ -1,10 +1,45 @@
-// The analysis stored with a new revision, run at save time so the viewer never waits for a solve.
-import { analyzeModel, type AnalysisResult } from "@/lib/analysis/analyze";
-import type { TrussModel } from "@/lib/analysis/model";
-import type { Project } from "@/db/schema";
+// The analysis and member review stored with a new revision, run at save time so the viewer never waits for a
+// solve. The review keeps per member: verdict (load-bearing / stabilising / bracing / idle) and the governing
+// design check with its arithmetic; what-ifs and why-zero explanations are computed on demand in the browser.
+import { analyzeModel, type AnalysisResult, type TrussModel } from "@/lib/analysis";
+import { STANDING_CAUTION } from "@/lib/review/caution";
+import { createReviewContext } from "@/lib/review/context";
+import type { DesignStandard } from "@/lib/review/design-checks/types";
+import { designMembers, type MemberDesign } from "@/lib/review/member-design";
+import { memberVerdicts, type VerdictKind } from "@/lib/review/verdicts";
 
-/** Analyses a validated model and reviews its members against the project's design standard. */
-export function analyseForStorage(model: TrussModel, standard: Project["designStandard"]): { result: AnalysisResult; review: unknown } {
+export type StoredMemberReview = {
+  verdict: VerdictKind;
+  reason: string;
+  braces?: string[];
+  /** Largest utilisation over the design results; null when the member never carries force. */
+  utilisation: number | null;
+  governing: MemberDesign["governing"];
+  checks: MemberDesign["checks"];
+  warnings: string[];
+};
+
+export type StoredReview = { standard: DesignStandard; caution: string; members: Record<string, StoredMemberReview> };
+
+/** Analyses a validated model and, when it is stable, reviews every member against the design standard. */
+export function analyseForStorage(model: TrussModel, standard: DesignStandard): { result: AnalysisResult; review: StoredReview | null } {
   const result = analyzeModel(model);
-  return { result, review: result.status === "ok" ? { standard } : null };
+  if (result.status !== "ok") return { result, review: null };
+  const verdicts = memberVerdicts(createReviewContext(model, result, { standard }));
+  const design = designMembers(model, result, { standard });
+  const members: Record<string, StoredMemberReview> = {};
+  model.members.forEach((member, e) => {
+    const v = verdicts[e];
+    const d = design[e];
+    members[member.id] = {
+      verdict: v.verdict,
+      reason: v.reason,
+      ...(v.braces ? { braces: v.braces } : {}),
+      utilisation: d.governing ? d.governing.utilisation : null,
+      governing: d.governing,
+      checks: d.checks,
+      warnings: d.warnings,
+    };
+  });
+  return { result, review: { standard, caution: STANDING_CAUTION, members } };
 }

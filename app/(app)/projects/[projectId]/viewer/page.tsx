@@ -5,10 +5,17 @@ import { listRevisionsByProject } from "@/db/queries/models";
 import { ProjectHeader } from "@/components/project/project-header";
 import { ProjectNav } from "@/components/project/project-nav";
 import { RevisionPicker } from "@/components/viewer/revision-picker";
-import { ModelViewer } from "@/components/viewer/model-viewer";
+import { LiveReview } from "@/components/session/live-review";
 import { requirePageProject } from "@/lib/auth/page";
 
 export const metadata: Metadata = { title: "3D viewer" };
+
+/** Where browsers reach the realtime process (set by scripts/stack/services.mjs). */
+function realtimeUrl(): string {
+  const url = process.env.REALTIME_URL;
+  if (!url) throw new Error("REALTIME_URL is not set.");
+  return url;
+}
 
 export default async function ViewerPage({ params, searchParams }: PageProps<"/projects/[projectId]/viewer">) {
   const { projectId } = await params;
@@ -33,9 +40,7 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
       ) : (
         <>
           <RevisionPicker projectId={project.id} revisions={revisions.map((r) => ({ number: r.number, name: r.name }))} current={number} />
-          <div className="overflow-hidden rounded-xl border border-board-200 bg-white">
-            <ModelViewer key={number} projectId={project.id} revisionNumber={number} />
-          </div>
+          <LiveReview key={number} projectId={project.id} revisionNumber={number} realtimeUrl={realtimeUrl()} />
         </>
       )}
     </div>

@@ -1,0 +1,89 @@
+"use client";
+// The side panel of the selected member: forces in every load case and combination, envelope, utilisation with
+// the numbers behind it, why it is zero, and the removal / opening what-ifs with the standing caution.
+import type { RevisionWithResults } from "@/db/queries/models";
+import type { AnalysisResult } from "@/lib/analysis/analyze";
+import { MemberReviewSection } from "./member-review-section";
+import { resultLabel, type PreparedModel } from "./prepare";
+import { useWhatIfWorker } from "./use-whatif-worker";
+import { useViewerStore } from "./viewer-store";
+
+const kN = (value: number) => `${value.toFixed(2)} kN`;
+
+function stateWord(force: number, zero: boolean) {
+  if (zero) return "zero-force";
+  return force > 0 ? "tension" : "compression";
+}
+
+export function MemberPanel({ prepared, analysis, revision }: { prepared: PreparedModel; analysis: AnalysisResult; revision: RevisionWithResults }) {
+  const { ask, ready } = useWhatIfWorker(revision.model, analysis, revision.analysis?.review?.standard ?? null);
+  const selected = useViewerStore((s) => s.selectedMemberId);
+  const resultId = useViewerStore((s) => s.resultId);
+  const k = selected ? prepared.memberIndex.get(selected) : undefined;
+  if (!selected || k === undefined) return null;
+  const member = prepared.model.members[k];
+  const group = prepared.groups[member.id] ?? "other";
+  const a = prepared.ends[k * 2] * 3;
+  const b = prepared.ends[k * 2 + 1] * 3;
+  const p = prepared.nodes.positions;
+  const length = Math.hypot(p[b] - p[a], p[b + 1] - p[a + 1], p[b + 2] - p[a + 2]);
+  const envelope = analysis.envelope[member.id];
+  const governing = analysis.info.governing[member.id];
+  const ids = [...prepared.model.loadCases.map((c) => c.id), ...prepared.model.combinations.map((c) => c.id)].filter((id) => id in analysis.results);
+  const isCombination = new Set(prepared.model.combinations.map((c) => c.id));
+
+  return (
+    <aside data-testid="member-panel" aria-label={`Member ${member.id}`} className="h-[75vh] w-96 shrink-0 overflow-y-auto border-l border-board-200 bg-white p-4 text-sm">
+      <header className="mb-3 flex items-start justify-between">
+        <div>
+          <h2 className="text-lg font-semibold" data-testid="member-panel-id">Member {member.id}</h2>
+          <p className="text-xs text-board-700">
+            {group.replace("_", " ")} · section {member.section} · {member.i} → {member.j} · L = {length.toFixed(3)} m
+          </p>
+        </div>
+        <button type="button" className="rounded px-2 text-board-700 hover:bg-board-100" aria-label="Close the member panel" onClick={() => useViewerStore.getState().selectMember(null)}>
+          ×
+        </button>
+      </header>
+
+      <h3 className="mb-1 font-semibold">Axial force (tension positive)</h3>
+      <table className="mb-3 w-full text-xs" data-testid="member-panel-forces">
+        <tbody>
+          {ids.map((id) => {
+            const result = analysis.results[id];
+            const force = result.memberForces[member.id] ?? 0;
+            const zero = result.zeroForceMembers.includes(member.id);
+            return (
+              <tr key={id} className={id === resultId ? "bg-selection/10 font-semibold" : ""}>
+                <td className="py-0.5 pr-2">
+                  <button type="button" className="text-left hover:underline" onClick={() => useViewerStore.getState().setResult(id)}>
+                    {resultLabel(prepared.model, id)}
+                    {isCombination.has(id) ? "" : " (case)"}
+                  </button>
+                </td>
+                <td className="text-right font-mono tabular-nums">{kN(force)}</td>
+                <td className={`pl-2 ${zero ? "text-board-700" : force > 0 ? "text-tension" : "text-compression"}`}>{stateWord(force, zero)}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+
+      {envelope ? (
+        <section className="mb-3" data-testid="member-panel-envelope">
+          <h3 className="mb-1 font-semibold">Envelope over {analysis.info.envelopeOver === "combinations" ? "the combinations" : "the load cases"}</h3>
+          <dl className="grid grid-cols-2 gap-x-2 text-xs">
+            <dt>Largest tension</dt>
+            <dd className="font-mono">{kN(envelope.maxTension)} {governing?.maxTension ? `(${governing.maxTension})` : ""}</dd>
+            <dt>Largest compression</dt>
+            <dd className="font-mono">{kN(envelope.maxCompression)} {governing?.maxCompression ? `(${governing.maxCompression})` : ""}</dd>
+            <dt>Zero everywhere</dt>
+            <dd>{envelope.zeroInAll ? "yes" : "no"}</dd>
+          </dl>
+        </section>
+      ) : null}
+
+      <MemberReviewSection memberId={member.id} analysis={analysis} revision={revision} ask={ask} ready={ready} />
+    </aside>
+  );
+}

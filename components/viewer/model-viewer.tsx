@@ -1,0 +1,92 @@
+"use client";
+// The viewer screen: fetches one revision with its stored results (once, cached), then shows the toolbar, the
+// canvas (client-only, behind a sized placeholder), the legend, hover read-out and the member panel.
+import { useQuery } from "@tanstack/react-query";
+import dynamic from "next/dynamic";
+import { useEffect, useMemo, type ReactNode } from "react";
+import type { RevisionWithResults } from "@/db/queries/models";
+import { classifyMembers } from "@/lib/analysis/classify";
+import { apiFetch } from "@/lib/http/fetcher";
+import { HoverTooltip } from "./hover-tooltip";
+import { Legend } from "./legend";
+import { MemberPanel } from "./member-panel";
+import { prepareModel, resultIds } from "./prepare";
+import { memberReviewMap } from "./review-adapter";
+import { installTestHook } from "./test-hook";
+import { useViewerStore } from "./viewer-store";
+import { ViewerToolbar } from "./viewer-toolbar";
+
+function CanvasPlaceholder({ message }: { message: string }) {
+  return (
+    <div className="flex h-full w-full items-center justify-center bg-board-50 text-sm text-board-700" data-testid="viewer-placeholder">
+      {message}
+    </div>
+  );
+}
+
+const ViewerCanvas = dynamic(() => import("./viewer-canvas"), { ssr: false, loading: () => <CanvasPlaceholder message="Loading the 3D view…" /> });
+
+/** Query key of a revision with its results; the answer never changes, so it is fetched once per session. */
+export const revisionQueryKey = (projectId: string, number: number) => ["projects", projectId, "models", number] as const;
+
+export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: string; revisionNumber: number; layers?: ReactNode }) {
+  const query = useQuery({
+    queryKey: revisionQueryKey(projectId, revisionNumber),
+    queryFn: async () => {
+      const body = await apiFetch<{ revision: RevisionWithResults }>(`/api/projects/${projectId}/models/${revisionNumber}`);
+      performance.mark("viewer:results-fetched");
+      return body.revision;
+    },
+    staleTime: Infinity,
+    gcTime: 30 * 60_000,
+  });
+  const revision = query.data;
+  const prepared = useMemo(() => (revision ? prepareModel(revision.model, classifyMembers(revision.model)) : null), [revision]);
+  const analysis = revision?.analysis?.result;
+  const ids = useMemo(() => (prepared && analysis ? resultIds(prepared.model, analysis.results) : []), [prepared, analysis]);
+  const review = useMemo(() => memberReviewMap(revision?.analysis?.review), [revision]);
+
+  useEffect(() => {
+    if (!prepared) return;
+    const combos = prepared.model.combinations.map((c) => c.id).filter((id) => ids.includes(id));
+    useViewerStore.getState().reset(combos[0] ?? ids[0] ?? null);
+  }, [prepared, ids]);
+
+  useEffect(() => (prepared ? installTestHook(prepared) : undefined), [prepared]);
+
+  if (query.isPending) return <div className="h-[75vh]"><CanvasPlaceholder message="Loading the revision and its results…" /></div>;
+  if (query.isError) return <p role="alert" className="p-4 text-clash">{query.error.message}</p>;
+  if (!prepared || !revision) return null;
+  if (!analysis || analysis.status !== "ok") {
+    return (
+      <div className="p-4" role="alert" data-testid="viewer-unstable">
+        <p className="font-semibold">This revision has no results to show: the structure is unstable (a mechanism).</p>
+        <ul className="mt-2 list-disc pl-6 text-sm">
+          {(analysis?.info.instabilityText ?? []).map((line) => (
+            <li key={line}>{line}</li>
+          ))}
+        </ul>
+      </div>
+    );
+  }
+
+  return (
+    <div className="flex flex-col">
+      <ViewerToolbar prepared={prepared} analysis={analysis} ids={ids} hasReview={review !== undefined} fileName={`strutroom-${revision.name}-r${revision.number}.png`.replace(/\s+/g, "-")} />
+      <div className="flex">
+        <div className="relative h-[75vh] min-w-0 flex-1">
+          <ViewerCanvas prepared={prepared} analysis={analysis} review={review}>
+            {layers}
+          </ViewerCanvas>
+          <div className="pointer-events-none absolute left-3 top-3">
+            <Legend />
+          </div>
+          <div className="absolute bottom-3 left-3">
+            <HoverTooltip analysis={analysis} />
+          </div>
+        </div>
+        <MemberPanel prepared={prepared} analysis={analysis} revision={revision} />
+      </div>
+    </div>
+  );
+}
