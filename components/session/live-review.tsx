@@ -1,0 +1,94 @@
+"use client";
+// The viewer in a live review: the model viewer with the pins layer inside its canvas, and beside it the review
+// panel (connection, who is here, the session, pins and threads, shared notes).
+import { useQuery } from "@tanstack/react-query";
+import { useMemo } from "react";
+import { ModelViewer, revisionQueryKey } from "@/components/viewer/model-viewer";
+import { PinsLayer, type PinMarker } from "@/components/viewer/layers/pins-layer";
+import type { RevisionWithResults } from "@/db/queries/models";
+import { apiFetch } from "@/lib/http/fetcher";
+import { resolveAnchor } from "@/lib/realtime/anchors";
+import type { Vec3 } from "@/lib/realtime/events";
+import { NewPinForm } from "./new-pin-form";
+import { PinList } from "./pin-list";
+import { PinThread } from "./pin-thread";
+import { PresenceList } from "./presence-list";
+import { SessionControls } from "./session-controls";
+import { SessionNotes } from "./session-notes";
+import { useSessionStore, type ConnectionState } from "./session-store";
+import { useFollowPresenter } from "./use-follow-presenter";
+import { useReviewSocket } from "./use-review-socket";
+
+const CONNECTION_TEXT: Record<ConnectionState, string> = {
+  connecting: "Connecting to the live review…",
+  connected: "Live",
+  reconnecting: "Connection lost: reconnecting (your changes are kept and sent when it is back)…",
+  refused: "The live review refused the connection",
+};
+
+type ClashList = { clashes: { id: string; point: { x: number; y: number; z: number } }[] };
+
+export function LiveReview({ projectId, revisionNumber, realtimeUrl }: { projectId: string; revisionNumber: number; realtimeUrl: string }) {
+  const socket = useReviewSocket(projectId, realtimeUrl);
+  useFollowPresenter(socket);
+  const connection = useSessionStore((s) => s.connection);
+  const refusal = useSessionStore((s) => s.refusal);
+  const pins = useSessionStore((s) => s.pins);
+  const selectedPinId = useSessionStore((s) => s.selectedPinId);
+  const abilities = useSessionStore((s) => s.abilities);
+  const unread = useSessionStore((s) => s.notifications.filter((n) => !n.readAt).length);
+
+  // Same key as the model viewer: the revision is fetched once and shared.
+  const revision = useQuery({
+    queryKey: revisionQueryKey(projectId, revisionNumber),
+    queryFn: async () => (await apiFetch<{ revision: RevisionWithResults }>(`/api/projects/${projectId}/models/${revisionNumber}`)).revision,
+    staleTime: Infinity,
+  }).data;
+  const clashes = useQuery({
+    queryKey: ["projects", projectId, "clashes", revisionNumber, "points"],
+    queryFn: () => apiFetch<ClashList>(`/api/projects/${projectId}/clashes?revision=${revisionNumber}`),
+    retry: false,
+  }).data;
+
+  const { markers, positions, detached } = useMemo(() => {
+    const clashPoints = new Map<string, Vec3>((clashes?.clashes ?? []).map((c) => [c.id, [c.point.x, c.point.y, c.point.z]]));
+    const positions = new Map<string, Vec3>();
+    const detached = new Set<string>();
+    if (revision) {
+      for (const pin of Object.values(pins)) {
+        const position = resolveAnchor(pin.anchor, revision.model, clashPoints);
+        if (position) positions.set(pin.id, position);
+        else detached.add(pin.id);
+      }
+    }
+    const markers: PinMarker[] = Object.values(pins)
+      .filter((pin) => positions.has(pin.id))
+      .map((pin) => ({ id: pin.id, title: pin.title, state: pin.state, position: positions.get(pin.id)! }));
+    return { markers, positions, detached };
+  }, [pins, revision, clashes]);
+
+  const selectedPin = selectedPinId ? pins[selectedPinId] : undefined;
+  const layers = <PinsLayer pins={markers} selectedPinId={selectedPinId} onSelectPin={(id) => useSessionStore.getState().selectPin(id)} />;
+
+  return (
+    <div className="flex flex-col gap-3 xl:flex-row">
+      <div className="min-w-0 flex-1 overflow-hidden rounded-xl border border-board-200 bg-white">
+        <ModelViewer projectId={projectId} revisionNumber={revisionNumber} layers={layers} />
+      </div>
+      <aside className="flex w-full flex-col gap-4 rounded-xl border border-board-200 bg-white p-3 xl:w-96" aria-label="Live review" data-testid="review-panel">
+        <p className="text-sm" role="status" data-testid="connection-state" data-state={connection}>
+          <span className={`mr-1 inline-block h-2 w-2 rounded-full ${connection === "connected" ? "bg-tension" : connection === "refused" ? "bg-clash" : "bg-compression"}`} />
+          {CONNECTION_TEXT[connection]}
+          {refusal ? `: ${refusal}` : ""}
+          {unread > 0 ? <span className="ml-2 text-xs" data-testid="unread-mentions">{unread} new mention{unread === 1 ? "" : "s"}</span> : null}
+        </p>
+        <SessionControls socket={socket} />
+        <PresenceList />
+        {selectedPin && socket ? <PinThread key={selectedPin.id} socket={socket} projectId={projectId} pin={selectedPin} position={positions.get(selectedPin.id) ?? null} /> : null}
+        <PinList detached={detached} />
+        {socket && abilities["pin.create"] ? <NewPinForm socket={socket} revisionId={revision?.id ?? null} /> : null}
+        <SessionNotes projectId={projectId} realtimeUrl={realtimeUrl} canEdit={Boolean(abilities["comment.create"])} />
+      </aside>
+    </div>
+  );
+}

@@ -1,0 +1,80 @@
+"use client";
+// The socket.io connection of a live review: created in an effect and closed on cleanup, reconnecting with
+// exponential back-off (socket.io's own, 0.5 s doubling to 10 s, jittered), catching up on what was missed after
+// each reconnect. Writes made while offline wait in socket.io's send buffer and go out on reconnect; their
+// client-made ids make a resend harmless.
+import { useEffect } from "react";
+import { io } from "socket.io-client";
+import { apiFetch } from "@/lib/http/fetcher";
+import type { Ack, CatchUp, ClientToServerEvents, PresentedPin } from "@/lib/realtime/events";
+import { SOCKET_PATH } from "@/lib/realtime/events";
+import { useSessionStore, type ReviewSocket } from "./session-store";
+
+export type { ReviewSocket };
+
+/** Sends an event and resolves with the server's acknowledgement (after the reconnect, when offline). */
+export function send<T>(socket: ReviewSocket, event: keyof ClientToServerEvents, payload: unknown): Promise<Ack<T>> {
+  return socket.emitWithAck(event as "pin:create", payload) as Promise<Ack<T>>;
+}
+
+const RECONNECT = { reconnectionDelay: 500, reconnectionDelayMax: 10_000, randomizationFactor: 0.5 } as const;
+
+/** Connects to the project's room; returns the socket once created (null before the effect has run). */
+export function useReviewSocket(projectId: string, realtimeUrl: string): ReviewSocket | null {
+  useEffect(() => {
+    const store = useSessionStore.getState;
+    const client: ReviewSocket = io(realtimeUrl, {
+      path: SOCKET_PATH,
+      auth: { projectId },
+      withCredentials: true,
+      transports: ["websocket", "polling"],
+      ...RECONNECT,
+    });
+    let welcomed = false;
+    useSessionStore.getState().reset(client);
+
+    // The page load: pins from the route handler (the socket then keeps them current).
+    apiFetch<{ pins: PresentedPin[] }>(`/api/projects/${projectId}/pins`)
+      .then(({ pins }) => store().upsertPins(pins))
+      .catch(() => undefined);
+
+    client.on("welcome", async (welcome) => {
+      const since = store().lastServerTime;
+      store().welcome(welcome);
+      store().setConnection("connected");
+      if (welcomed && since) {
+        const catchUp = await send<CatchUp>(client, "sync:since", { since });
+        if (catchUp.ok) {
+          store().upsertPins(catchUp.data.pins);
+          store().addComments(catchUp.data.comments);
+          store().setServerTime(catchUp.data.serverTime);
+          return;
+        }
+      }
+      welcomed = true;
+      store().setServerTime(welcome.serverTime);
+    });
+    client.on("presence", (entries) => store().setPresence(entries));
+    client.on("session:state", (session) => store().setSession(session));
+    client.on("session:view", (view) => store().setLastView(view));
+    client.on("pin:created", (pin) => store().upsertPins([pin]));
+    client.on("pin:updated", (pin) => store().upsertPins([pin]));
+    client.on("comment:created", (comment) => store().addComments([comment]));
+    client.on("notification:created", (notification) => store().addNotifications([notification]));
+    client.on("realtime:error", (error) => console.warn(`[review] ${error.event}: ${error.error}`));
+    client.on("disconnect", () => store().setConnection("reconnecting"));
+    client.io.on("reconnect_attempt", () => store().setConnection("reconnecting"));
+    client.on("connect_error", (error) => {
+      // A refused handshake is final (signed out, not on the team); a network error is retried by socket.io.
+      if (!client.active) store().setConnection("refused", error.message);
+      else store().setConnection("reconnecting");
+    });
+    return () => {
+      client.removeAllListeners();
+      client.disconnect();
+      useSessionStore.getState().reset(null);
+    };
+  }, [projectId, realtimeUrl]);
+
+  return useSessionStore((s) => s.socket);
+}
