@@ -1,0 +1,100 @@
+// The whole-model review: design checks, verdicts, low-force flags and why-zero explanations per member.
+import type { AnalysisResult, TrussModel } from "@/lib/analysis";
+import { STANDING_CAUTION } from "./caution";
+import { createReviewContext, type ReviewContext, type ReviewOptions } from "./context";
+import { EN_COMPRESSION_SLENDERNESS_LIMIT, EN_TENSION_SLENDERNESS_LIMIT } from "./design-checks/en1993";
+import { designMembers, type MemberDesign } from "./member-design";
+import { memberVerdicts, type VerdictKind } from "./verdicts";
+import { explainZeroForces, type WhyZero } from "./why-zero";
+
+export type MemberReview = MemberDesign & {
+  verdict: { verdict: VerdictKind; reason: string; braces?: string[]; caution: string };
+  /** Results in which the member is low-force (below the threshold yet not zero-force). */
+  lowForceIn: string[];
+  /** Why the member is zero, per result in which it is zero-force. */
+  whyZero: Record<string, Omit<WhyZero, "member">>;
+};
+
+export type ModelReview = {
+  standard: ReviewOptions["standard"];
+  fabrication: NonNullable<ReviewOptions["fabrication"]>;
+  designResults: string[];
+  assumptions: string[];
+  members: MemberReview[];
+  summary: { maxUtilisation: number; governingMember: string | null; overCapacity: string[]; verdicts: Record<VerdictKind, number> };
+  caution: string;
+};
+
+function assumptions(options: ReviewOptions, model: TrussModel): string[] {
+  const list = [
+    model.combinations.length > 0
+      ? "Every combination is checked (serviceability ones included); the largest utilisation governs."
+      : "The model has no combinations: load cases are checked unfactored.",
+    "Axial checks only (pin-jointed truss): tension yielding of the gross section and flexural buckling; connections, joints and net-section rupture are not checked.",
+    "Buckling length = effective length factor × member length (factor 1.0 unless the member gives one).",
+    "Lost-brace screening doubles the buckling length of a compression member whose end joint lost a member not in line with it.",
+  ];
+  if (options.standard === "EN1993-1-1") {
+    list.push(
+      `Tubes taken as ${options.fabrication ?? "hot-finished"} for the buckling curve (Table 6.2); γM0 = γM1 = 1.0 (recommended values).`,
+      `Slenderness warnings at λ > ${EN_COMPRESSION_SLENDERNESS_LIMIT} (compression) and > ${EN_TENSION_SLENDERNESS_LIMIT} (tension): common practice, not an EN 1993-1-1 rule.`,
+    );
+  } else {
+    list.push("LRFD: φt = 0.90 (D2 yielding), φc = 0.90 (E3); slenderness warnings at the D1/E2 user-note limits 300 and 200.");
+  }
+  return list;
+}
+
+/** Reviews every member of an analysed, stable model. Plain JSON-serialisable data out. */
+export function reviewModel(model: TrussModel, result: AnalysisResult, options: ReviewOptions, context: ReviewContext = createReviewContext(model, result, options)): ModelReview {
+  const designs = designMembers(model, result, options);
+  const verdicts = memberVerdicts(context);
+  const why = explainZeroForces(model, result, context.structure.topology);
+  const whyByMember = new Map<string, Record<string, Omit<WhyZero, "member">>>();
+  for (const [resultId, list] of Object.entries(why)) {
+    for (const { member, ...rest } of list) {
+      const entry = whyByMember.get(member) ?? {};
+      entry[resultId] = rest;
+      whyByMember.set(member, entry);
+    }
+  }
+  const threshold = options.lowForceThreshold;
+  const zeroSets = Object.fromEntries(Object.entries(result.results).map(([id, r]) => [id, new Set(r.zeroForceMembers)]));
+  const members = designs.map((design, e): MemberReview => {
+    const id = design.member;
+    const lowForceIn =
+      threshold === undefined
+        ? []
+        : Object.entries(result.results)
+            .filter(([rid, r]) => !zeroSets[rid].has(id) && Math.abs(r.memberForces[id]) <= threshold)
+            .map(([rid]) => rid);
+    const { verdict: kind, reason, braces, caution } = verdicts[e];
+    const verdict = braces ? { verdict: kind, reason, braces, caution } : { verdict: kind, reason, caution };
+    return { ...design, verdict, lowForceIn, whyZero: whyByMember.get(id) ?? {} };
+  });
+
+  let maxUtilisation = 0;
+  let governingMember: string | null = null;
+  const counts: Record<VerdictKind, number> = { "load-bearing": 0, stabilising: 0, bracing: 0, idle: 0 };
+  for (const m of members) {
+    counts[m.verdict.verdict]++;
+    if (m.governing && m.governing.utilisation > maxUtilisation) {
+      maxUtilisation = m.governing.utilisation;
+      governingMember = m.member;
+    }
+  }
+  return {
+    standard: options.standard,
+    fabrication: options.fabrication ?? "hot-finished",
+    designResults: context.designResults,
+    assumptions: assumptions(options, model),
+    members,
+    summary: {
+      maxUtilisation,
+      governingMember,
+      overCapacity: members.filter((m) => (m.governing?.utilisation ?? 0) > 1).map((m) => m.member),
+      verdicts: counts,
+    },
+    caution: STANDING_CAUTION,
+  };
+}
