@@ -9,6 +9,7 @@ import { ConflictError, NotFoundError } from "@/lib/http/errors";
 import type { Run } from "@/lib/mep/schemas";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { recordAuditEvent } from "./audit";
+import { notifyClashDecision } from "@/lib/mail/notify";
 
 const UPSERT_BATCH = 500;
 
@@ -137,6 +138,7 @@ export async function listClashDecisions({ clashIds, db = getDb() }: { clashIds:
 
 async function recordDecision(tx: Executor, input: { projectId: string; clashId: string; outcome: ClashOutcome; note: string; conditions: string | null; actorId: string }) {
   await tx.insert(clashDecisions).values({ clashId: input.clashId, outcome: input.outcome, note: input.note, conditions: input.conditions, caution: STANDING_CAUTION, decidedBy: input.actorId });
+  await notifyClashDecision({ db: tx, ...input });
   await recordAuditEvent({
     db: tx,
     projectId: input.projectId,

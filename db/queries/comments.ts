@@ -6,6 +6,7 @@ import { listMembersByProject } from "./memberships";
 import { findMentions } from "../../lib/realtime/mentions";
 import type { CommentKind, PresentedComment, PresentedNotification } from "../../lib/realtime/events";
 import { presentNotification } from "./notifications";
+import { notifyMention } from "../../lib/mail/notify";
 
 type CommentRow = { comment: typeof comments.$inferSelect; authorName: string };
 
@@ -87,6 +88,7 @@ export async function writeComment(
         .returning()
     : [];
   const mentioned = members.filter((member) => mentions.includes(member.id)).map((m) => ({ userId: m.id, email: m.email, name: m.name }));
+  await notifyMention({ db: tx, projectId: input.projectId, pinId: input.pinId, commentId: input.id, byName: input.authorName, excerpt, recipients: mentioned });
   return {
     comment: presentComment(row),
     created,

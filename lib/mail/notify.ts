@@ -4,8 +4,9 @@ import "server-only";
 // sends it with retries (lib/mail/outbox.ts).
 import { and, eq, ne } from "drizzle-orm";
 import { getDb, type Executor } from "../../db/client";
-import { invitations, memberships, pins, projects, users } from "../../db/schema";
+import { clashes, invitations, memberships, pins, projects, users } from "../../db/schema";
 import { enqueueMail } from "../../db/queries/mail-outbox";
+import { CLASH_OUTCOME_LABELS, type ClashOutcome } from "../clash/outcomes";
 import { decisionMail, invitationMail, mentionMail } from "./templates";
 
 /** The web app's public base URL, for links in mails. */
@@ -85,7 +86,7 @@ export async function notifyMention({
 /**
  * Queues a decision mail to every member of the project but the one who decided: the outcome of a clash or a
  * decision on an opening. Call it inside the transaction that records the decision.
- * `decisionId` identifies the decision (e.g. the audit event or `clashId:decidedAt`) so a retried call queues once.
+ * `decisionId`, when given, identifies the decision so a call repeated outside a transaction queues once.
  */
 export async function notifyDecision({
   db = getDb(),
@@ -99,7 +100,7 @@ export async function notifyDecision({
 }: {
   db?: Executor;
   projectId: string;
-  decisionId: string;
+  decisionId?: string;
   deciderId: string;
   /** What was decided on, as readers say it: "clash C-12", "the opening in member B-41". */
   subject: string;
@@ -117,8 +118,43 @@ export async function notifyDecision({
     .where(and(eq(memberships.projectId, projectId), ne(memberships.userId, deciderId)));
   const mail = decisionMail({ projectName: await projectName(db, projectId), deciderName: decider?.name ?? "Someone", subject, outcome, note, url: appUrl(path) });
   for (const member of team) {
-    await enqueueMail({ db, mail: { projectId, kind: "decision", toAddress: member.email, ...bodies(mail), dedupeKey: `decision:${decisionId}:${member.userId}` } });
+    await enqueueMail({ db, mail: { projectId, kind: "decision", toAddress: member.email, ...bodies(mail), dedupeKey: decisionId ? `decision:${decisionId}:${member.userId}` : null } });
   }
+}
+
+/**
+ * Queues the decision mail for a clash outcome (proposed, or an opening accepted with conditions). Call it inside
+ * the transaction that records the decision (db/queries/clashes.ts recordDecision).
+ */
+export async function notifyClashDecision({
+  db = getDb(),
+  projectId,
+  clashId,
+  outcome,
+  note,
+  conditions,
+  actorId,
+}: {
+  db?: Executor;
+  projectId: string;
+  clashId: string;
+  outcome: ClashOutcome;
+  note: string;
+  conditions: string | null;
+  actorId: string;
+}): Promise<void> {
+  const [clash] = await db.select({ clashKey: clashes.clashKey, memberId: clashes.memberId, runId: clashes.runId }).from(clashes).where(eq(clashes.id, clashId));
+  if (!clash) throw new Error(`Clash ${clashId} does not exist.`);
+  const label = CLASH_OUTCOME_LABELS[outcome];
+  await notifyDecision({
+    db,
+    projectId,
+    deciderId: actorId,
+    subject: `clash ${clash.clashKey} (member ${clash.memberId}, run ${clash.runId})`,
+    outcome: label.charAt(0).toLowerCase() + label.slice(1),
+    note: [note, conditions ? `Conditions: ${conditions}` : ""].filter(Boolean).join(" ") || null,
+    path: `/projects/${projectId}/clashes?clash=${encodeURIComponent(clash.clashKey)}`,
+  });
 }
 
 function bodies(mail: { subject: string; text: string; html: string }) {

@@ -7,9 +7,14 @@ import nodemailer from "nodemailer";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as invite } from "@/app/api/projects/[projectId]/invitations/route";
 import { POST as accept } from "@/app/api/invitations/[token]/route";
-import { comments, mailOutbox, memberships, pins, projects, users } from "@/db/schema";
+import { clashes, comments, mailOutbox, memberships, pins, projects, users } from "@/db/schema";
 import { listOutboxMailTo } from "@/db/queries/mail-outbox";
 import { withTransaction } from "@/db/client";
+import { acceptClashOpening, proposeClashOutcome } from "@/db/queries/clashes";
+import { createComment } from "@/db/queries/comments";
+import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { analyzeModel } from "@/lib/analysis/analyze";
+import { TRIPOD } from "@/lib/report/test-report";
 import { listCapturedMail } from "@/lib/mail/captured";
 import { queueDailyDigests } from "@/lib/mail/digest";
 import { notifyDecision, notifyMention } from "@/lib/mail/notify";
@@ -142,5 +147,24 @@ describe("mention, decision and digest mails", () => {
     expect(mail.text).toContain("please check");
     const [sent] = await getDb().select().from(mailOutbox).where(eq(mailOutbox.id, queued.id));
     expect(sent).toMatchObject({ state: "sent", attempts: 2 });
+  });
+
+  it("the comment and clash queries queue their mails in their own transactions (the hooks other areas call)", async () => {
+    const written = await createComment({ id: randomUUID(), projectId: fx.projectId, pinId, authorId: fx.users.mep_engineer.id, authorName: fx.users.mep_engineer.name, body: `@${fx.users.owner.name} the duct is 400 mm wide`, kind: "comment" });
+    expect(written?.mentioned.map((m) => m.userId)).toEqual([fx.users.owner.id]);
+    expect((await deliveredTo(fx.users.owner.email, /mentioned you/)).text).toContain("the duct is 400 mm wide");
+
+    const revision = await createRevisionWithAnalysis({ projectId: fx.projectId, name: "Lantern", model: TRIPOD, source: "uploaded", createdBy: fx.users.structural_engineer.id, result: analyzeModel(TRIPOD), review: null });
+    const [clash] = await getDb()
+      .insert(clashes)
+      .values({ projectId: fx.projectId, revisionId: revision.id, clashKey: "c-mail1", memberId: "AB", runId: "SA-01", segmentIndex: 0, kind: "hard", gap: -0.01, depth: 0.01, requiredClearance: 0.05, pointX: 0, pointY: 0, pointZ: 0 })
+      .returning();
+    await proposeClashOutcome({ projectId: fx.projectId, clashId: clash.id, actorId: fx.users.mep_engineer.id, outcome: "opening_proposed", note: "Sleeve near mid-length" });
+    await acceptClashOpening({ projectId: fx.projectId, clashId: clash.id, actorId: fx.users.structural_engineer.id, conditions: "Sleeve 100 mm, stiffened, at mid-length only" });
+    const accepted = await deliveredTo(fx.users.architect.email, /opening accepted with conditions/);
+    expect(accepted.subject).toContain("clash c-mail1 (member AB, run SA-01)");
+    expect(accepted.text).toContain("Conditions: Sleeve 100 mm, stiffened, at mid-length only");
+    expect(accepted.text).toContain("Advisory results for coordination.");
+    expect((await deliveredTo(fx.users.structural_engineer.email, /opening proposed/)).text).toContain("Sleeve near mid-length");
   });
 });
