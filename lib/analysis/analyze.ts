@@ -91,14 +91,17 @@ function caseResult(s: PreparedStructure, u: Float64Array, f: Float64Array): { r
   const displacements: CaseResult["displacements"] = {};
   const reactions: CaseResult["reactions"] = {};
   let residual = 0;
+  const r = topology.restrained;
+  for (let q = 0; q < internal.length; q++) {
+    internal[q] -= f[q]; // now the nodal imbalance: the reaction where restrained, the residual elsewhere
+    if (!r[q]) residual = Math.max(residual, Math.abs(internal[q]));
+  }
   nodeIds.forEach((id, k) => {
-    displacements[id] = { ux: u[3 * k], uy: u[3 * k + 1], uz: u[3 * k + 2] };
-    const r = topology.restrained;
-    const imbalance = [0, 1, 2].map((d) => internal[3 * k + d] - f[3 * k + d]);
-    if (r[3 * k] || r[3 * k + 1] || r[3 * k + 2]) {
-      reactions[id] = { fx: r[3 * k] ? imbalance[0] : 0, fy: r[3 * k + 1] ? imbalance[1] : 0, fz: r[3 * k + 2] ? imbalance[2] : 0 };
+    const q = 3 * k;
+    displacements[id] = { ux: u[q], uy: u[q + 1], uz: u[q + 2] };
+    if (r[q] || r[q + 1] || r[q + 2]) {
+      reactions[id] = { fx: r[q] ? internal[q] : 0, fy: r[q + 1] ? internal[q + 1] : 0, fz: r[q + 2] ? internal[q + 2] : 0 };
     }
-    for (let d = 0; d < 3; d++) if (!r[3 * k + d]) residual = Math.max(residual, Math.abs(imbalance[d]));
   });
   return { result: { memberForces, reactions, displacements, zeroForceMembers, equilibriumResidual: residual }, forces };
 }
@@ -148,6 +151,7 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
   const envelope: Record<string, EnvelopeEntry> = {};
   const zeroInAll: string[] = [];
   const masks = envelopeIds.map((id) => zeroForceMask(forcesById.get(id)!));
+  const envelopeForces = envelopeIds.map((id) => forcesById.get(id)!);
   structure.memberIds.forEach((memberId, e) => {
     let maxTension = 0;
     let maxCompression = 0;
@@ -157,7 +161,7 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
     envelopeIds.forEach((id, k) => {
       if (masks[k][e]) return; // rounding noise of a zero-force result must not count as tension or compression
       zeroEverywhere = false;
-      const value = forcesById.get(id)![e];
+      const value = envelopeForces[k][e];
       if (value > maxTension) {
         maxTension = value;
         tensionId = id;

@@ -34,3 +34,4 @@ export { prepareStructure, PIVOT_TOLERANCE, type PreparedStructure, type Instabi
 export { loadVectorForCase } from "./loads";
 export { generateRoof, roofParamsSchema, demoRoof, type RoofParams } from "./generator";
 export { classifyMembers, type MemberClass } from "./classify";
+export { handleAnalysisRequest, type AnalysisRequest, type AnalysisResponse } from "./worker-protocol";

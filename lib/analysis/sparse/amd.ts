@@ -144,12 +144,14 @@ export function approximateMinimumDegree(n: number, adjStart: Int32Array, adj: I
 
     // Supervariables: variables of Lp with identical adjacency merge (this also mass-eliminates the ones
     // whose only neighbour is p: they all hash alike and compare equal).
-    for (let a = 0; a < lp.length; a++) {
-      const i = lp[a];
+    // Sorting by hash keeps the pairwise comparisons inside groups of equal hash.
+    const byHash = lp.slice().sort((x, y) => hash[x] - hash[y]);
+    for (let a = 0; a < byHash.length; a++) {
+      const i = byHash[a];
       if (weight[i] === 0) continue;
-      for (let b = a + 1; b < lp.length; b++) {
-        const j = lp[b];
-        if (weight[j] === 0 || hash[j] !== hash[i] || !sameSet(elAdj[i], elAdj[j]) || !sameSet(varAdj[i], varAdj[j])) continue;
+      for (let b = a + 1; b < byHash.length && hash[byHash[b]] === hash[i]; b++) {
+        const j = byHash[b];
+        if (weight[j] === 0 || !sameSet(elAdj[i], elAdj[j]) || !sameSet(varAdj[i], varAdj[j])) continue;
         degree[i] = Math.max(0, degree[i] - weight[j]);
         weight[i] += weight[j];
         weight[j] = 0;

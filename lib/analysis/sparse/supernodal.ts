@@ -148,24 +148,51 @@ export function factorSupernodal(a: UpperCsc, st: SupernodeStructure, scale: Flo
       }
       // update(r, c) = -sum_k L_d(p1 + r, k) * scaled(k, c), lower part r >= c, column-major by c
       update.fill(0, 0, height * nc);
-      for (let c = 0; c < nc; c++) {
-        const uc = c * height;
+      // Register blocking: two target columns c, c+1 and four columns of L_d per sweep, so each loaded L_d
+      // value serves two multiply-adds and each update entry is loaded and stored once per four. Column c+1
+      // also gets row c (above its diagonal); the scatter below skips it.
+      let c = 0;
+      for (; c + 1 < nc; c += 2) {
+        const ua = c * height;
+        const ub = ua + height;
         let k = 0;
-        // four columns of L_d per sweep: one load and store of update(r, c) per four multiply-adds
         for (; k + 3 < wd; k += 4) {
-          const t0 = scaled[k * nc + c];
-          const t1 = scaled[(k + 1) * nc + c];
-          const t2 = scaled[(k + 2) * nc + c];
-          const t3 = scaled[(k + 3) * nc + c];
+          const s0 = k * nc + c;
+          const a0 = scaled[s0];
+          const b0 = scaled[s0 + 1];
+          const a1 = scaled[s0 + nc];
+          const b1 = scaled[s0 + nc + 1];
+          const a2 = scaled[s0 + 2 * nc];
+          const b2 = scaled[s0 + 2 * nc + 1];
+          const a3 = scaled[s0 + 3 * nc];
+          const b3 = scaled[s0 + 3 * nc + 1];
           const o0 = dx0 + k * md + p1;
           const o1 = o0 + md;
           const o2 = o1 + md;
           const o3 = o2 + md;
           for (let r = c; r < height; r++) {
-            update[uc + r] -= values[o0 + r] * t0 + values[o1 + r] * t1 + values[o2 + r] * t2 + values[o3 + r] * t3;
+            const v0 = values[o0 + r];
+            const v1 = values[o1 + r];
+            const v2 = values[o2 + r];
+            const v3 = values[o3 + r];
+            update[ua + r] -= v0 * a0 + v1 * a1 + v2 * a2 + v3 * a3;
+            update[ub + r] -= v0 * b0 + v1 * b1 + v2 * b2 + v3 * b3;
           }
         }
         for (; k < wd; k++) {
+          const ta = scaled[k * nc + c];
+          const tb = scaled[k * nc + c + 1];
+          const o = dx0 + k * md + p1;
+          for (let r = c; r < height; r++) {
+            const v = values[o + r];
+            update[ua + r] -= v * ta;
+            update[ub + r] -= v * tb;
+          }
+        }
+      }
+      for (; c < nc; c++) {
+        const uc = c * height;
+        for (let k = 0; k < wd; k++) {
           const t = scaled[k * nc + c];
           const colk = dx0 + k * md + p1;
           for (let r = c; r < height; r++) update[uc + r] -= values[colk + r] * t;
