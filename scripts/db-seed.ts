@@ -3,6 +3,7 @@
 // --conditions=react-server, so seed steps may call the "server-only" data layer in db/queries.
 import { closeDb, withTransaction } from "../db/client";
 import { seedDemoModel } from "../db/seed/demo-model";
+import { seedDemoRuns } from "../db/seed/demo-runs";
 import { DEMO_PROJECT, seedDemoProject, seedDemoTeam } from "../db/seed/demo-team";
 
 async function main() {
@@ -10,6 +11,7 @@ async function main() {
     const { projectId } = await seedDemoProject(tx);
     const team = await seedDemoTeam(tx, projectId);
     await seedDemoModel(tx, { projectId, createdBy: team.structural_engineer });
+    await seedDemoRuns(tx, { projectId, createdBy: team.mep_engineer });
   });
   console.log(`[seed] demo project "${DEMO_PROJECT}" is ready`);
 }

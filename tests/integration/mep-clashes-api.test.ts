@@ -91,14 +91,14 @@ describe("clashes", () => {
     expect((await LIST_CLASHES(await buildRequest(listPath()), ctx())).status).toBe(401);
     const body = await list();
     expect(body.caution).toBe(CAUTION);
-    expect(body.abilities).toEqual({ propose: false, acceptOpening: false, editRuns: false });
+    expect(body.abilities).toEqual({ propose: false, acceptOpening: false, editRuns: false, hangServices: false });
     expect(body.clashes.map((c: { memberId: string }) => c.memberId).sort()).toEqual(["TCY-0-0", "TCY-1-0", "TCY-2-0", "TCY-3-0"]);
     for (const clash of body.clashes) {
       expect(clash).toMatchObject({ kind: "hard", status: "active", system: "supply air", runId: "SA-01", outcome: null });
       expect(["zero_in_all", "low_force", "load_bearing"]).toContain(clash.forceState);
       expect(["load-bearing", "stabilising", "bracing", "idle"]).toContain(clash.verdict);
     }
-    expect((await list(fx.users.structural_engineer)).abilities).toEqual({ propose: true, acceptOpening: true, editRuns: true });
+    expect((await list(fx.users.structural_engineer)).abilities).toEqual({ propose: true, acceptOpening: true, editRuns: true, hangServices: true });
   });
 
   it("a viewer and an architect cannot propose; bad outcomes are a 400", async () => {

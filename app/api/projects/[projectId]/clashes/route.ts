@@ -33,7 +33,12 @@ export const GET = handleRoute(async (request: Request, context: Context) => {
   return Response.json({
     revision: { id: revision.id, number: revision.number },
     clashes: rows,
-    abilities: { propose: abilities["clash.propose"], acceptOpening: abilities["clash.acceptOpening"], editRuns: abilities["runs.edit"] },
+    abilities: {
+      propose: abilities["clash.propose"],
+      acceptOpening: abilities["clash.acceptOpening"],
+      editRuns: abilities["runs.edit"],
+      hangServices: abilities["model.edit"] && abilities["analysis.run"],
+    },
     caution: STANDING_CAUTION,
   });
 });

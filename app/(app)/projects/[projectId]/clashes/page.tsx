@@ -1,0 +1,41 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { ClashBoard } from "@/components/clashes/clash-board";
+import { ClashRevisionPicker } from "@/components/clashes/clash-revision-picker";
+import { ProjectHeader } from "@/components/project/project-header";
+import { ProjectNav } from "@/components/project/project-nav";
+import { listRevisionsByProject } from "@/db/queries/models";
+import { requirePageProject } from "@/lib/auth/page";
+
+export const metadata: Metadata = { title: "Clashes" };
+
+export default async function ClashesPage({ params, searchParams }: PageProps<"/projects/[projectId]/clashes">) {
+  const { projectId } = await params;
+  const { revision, clash } = await searchParams;
+  const { project } = await requirePageProject(projectId);
+  const revisions = await listRevisionsByProject({ projectId });
+  const requested = typeof revision === "string" ? Number(revision) : null;
+  if (requested !== null && !revisions.some((r) => r.number === requested)) notFound();
+  const number = requested ?? revisions[0]?.number ?? null;
+  return (
+    <div className="flex flex-col gap-4">
+      <ProjectHeader project={project} />
+      <ProjectNav projectId={project.id} current="clashes" />
+      {number === null ? (
+        <p className="text-sm text-board-700" data-testid="clashes-empty">
+          This project has no model yet, so there is nothing for runs to clash with.{" "}
+          <Link className="text-tension underline" href={`/projects/${project.id}/models`}>
+            Generate or upload one
+          </Link>
+          .
+        </p>
+      ) : (
+        <>
+          <ClashRevisionPicker projectId={project.id} revisions={revisions.map((r) => ({ number: r.number, name: r.name }))} current={number} />
+          <ClashBoard key={number} projectId={project.id} revision={number} initialClash={typeof clash === "string" ? clash : null} />
+        </>
+      )}
+    </div>
+  );
+}

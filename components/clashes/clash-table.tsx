@@ -1,0 +1,183 @@
+"use client";
+// The clash table (TanStack Table v9): sortable columns and filters by system, state, outcome and the member's
+// force state over all combinations. Selecting a row flies the viewer to the clash and selects its member.
+import {
+  columnFilteringFeature,
+  createColumnHelper,
+  createFilteredRowModel,
+  createSortedRowModel,
+  filterFn_equals,
+  rowSortingFeature,
+  sortFn_alphanumeric,
+  sortFn_basic,
+  tableFeatures,
+  useTable,
+} from "@tanstack/react-table";
+import Link from "next/link";
+import { useMemo } from "react";
+import { FORCE_STATE_LABELS, type ForceState } from "@/lib/clash/member-state";
+import { CLASH_KIND_LABELS, CLASH_OUTCOME_LABELS, type ClashOutcome } from "@/lib/clash/outcomes";
+import type { ClashRowData } from "./types";
+
+const features = tableFeatures({
+  rowSortingFeature,
+  columnFilteringFeature,
+  sortedRowModel: createSortedRowModel(),
+  filteredRowModel: createFilteredRowModel(),
+  sortFns: { alphanumeric: sortFn_alphanumeric, basic: sortFn_basic },
+  filterFns: { equals: filterFn_equals },
+});
+const helper = createColumnHelper<typeof features, ClashRowData>();
+
+const kN = (v: number | null) => (v === null ? "–" : v.toFixed(1));
+/** Clash state in one word: kind while active, or cleared when the last detection no longer finds it. */
+const stateOf = (row: ClashRowData) => (row.status === "cleared" ? "cleared" : row.kind);
+const STATE_LABELS: Record<string, string> = { ...CLASH_KIND_LABELS, cleared: "Cleared (no longer found)" };
+const outcomeOf = (row: ClashRowData) => row.outcome ?? "undecided";
+const OUTCOME_LABELS: Record<string, string> = { ...CLASH_OUTCOME_LABELS, undecided: "Undecided" };
+
+const columns = helper.columns([
+  helper.accessor("memberId", { id: "member", header: "Member", sortFn: "alphanumeric" }),
+  helper.accessor((row) => row.verdict ?? "", { id: "verdict", header: "Verdict", sortFn: "alphanumeric" }),
+  helper.accessor((row) => row.forceState ?? "unknown", {
+    id: "forceState",
+    header: "Force state (all combinations)",
+    filterFn: "equals",
+    cell: (info) => {
+      const row = info.row.original;
+      const state = row.forceState as ForceState | null;
+      return (
+        <span>
+          {state ? FORCE_STATE_LABELS[state] : "No results"}
+          <span className="ml-1 font-mono text-xs text-board-700">
+            T {kN(row.maxTension)} / C {kN(row.maxCompression)} kN
+          </span>
+        </span>
+      );
+    },
+  }),
+  helper.accessor((row) => `${row.runId} · ${row.segmentIndex + 1}`, { id: "run", header: "Run · segment", sortFn: "alphanumeric" }),
+  helper.accessor((row) => row.system ?? "", { id: "system", header: "System", filterFn: "equals", sortFn: "alphanumeric" }),
+  helper.accessor(stateOf, { id: "state", header: "State", filterFn: "equals", cell: (info) => STATE_LABELS[info.getValue()] }),
+  helper.accessor("depth", { id: "depth", header: "Overlap / shortfall (mm)", sortFn: "basic", cell: (info) => (info.getValue() * 1000).toFixed(0) }),
+  helper.accessor(outcomeOf, { id: "outcome", header: "Outcome", filterFn: "equals", cell: (info) => OUTCOME_LABELS[info.getValue()] }),
+]);
+
+const FILTERS = [
+  { id: "system", label: "System" },
+  { id: "state", label: "State" },
+  { id: "outcome", label: "Outcome" },
+  { id: "forceState", label: "Force state" },
+] as const;
+
+function labelFor(filter: string, value: string): string {
+  if (filter === "state") return STATE_LABELS[value] ?? value;
+  if (filter === "outcome") return OUTCOME_LABELS[value as ClashOutcome | "undecided"] ?? value;
+  if (filter === "forceState") return value === "unknown" ? "No results" : FORCE_STATE_LABELS[value as ForceState];
+  return value;
+}
+
+export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: ClashRowData[]; selectedId: string | null; onSelect: (row: ClashRowData) => void; threadHref: (row: ClashRowData) => string }) {
+  const table = useTable({ features, columns, data: rows, getRowId: (row) => row.id, initialState: { sorting: [{ id: "depth", desc: true }] } });
+  // Filter choices come from all rows (not the filtered ones) so every combination can be picked.
+  const options = useMemo(() => {
+    const values = (get: (row: ClashRowData) => string) => [...new Set(rows.map(get))].sort();
+    return {
+      system: values((r) => r.system ?? ""),
+      state: values(stateOf),
+      outcome: values(outcomeOf),
+      forceState: values((r) => r.forceState ?? "unknown"),
+    } as Record<(typeof FILTERS)[number]["id"], string[]>;
+  }, [rows]);
+  const visible = table.getRowModel().rows;
+
+  return (
+    <div className="flex flex-col gap-2">
+      <div className="flex flex-wrap items-end gap-3" data-testid="clash-filters">
+        {FILTERS.map(({ id, label }) => {
+          const column = table.getColumn(id);
+          return (
+            <label key={id} className="flex flex-col text-xs text-board-700">
+              {label}
+              <select
+                className="mt-1 rounded border border-board-200 bg-white px-2 py-1 text-sm text-board-900"
+                value={(column?.getFilterValue() as string | undefined) ?? ""}
+                onChange={(e) => column?.setFilterValue(e.target.value === "" ? undefined : e.target.value)}
+                data-testid={`clash-filter-${id}`}
+              >
+                <option value="">All</option>
+                {options[id].map((value) => (
+                  <option key={value} value={value}>
+                    {labelFor(id, value)}
+                  </option>
+                ))}
+              </select>
+            </label>
+          );
+        })}
+        <span className="text-sm text-board-700" data-testid="clash-count">
+          {visible.length} of {rows.length} clashes
+        </span>
+      </div>
+      <div className="overflow-x-auto rounded-lg border border-board-200">
+        <table className="w-full text-left text-sm" data-testid="clash-table">
+          <thead className="bg-board-100">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  return (
+                    <th key={header.id} className="px-2 py-2 font-medium" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}>
+                      <button type="button" className="hover:underline" onClick={header.column.getToggleSortingHandler()}>
+                        <table.FlexRender header={header} />
+                        {sorted === "asc" ? " ▲" : sorted === "desc" ? " ▼" : ""}
+                      </button>
+                    </th>
+                  );
+                })}
+                <th className="px-2 py-2 font-medium">
+                  <span className="sr-only">Actions</span>
+                </th>
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {visible.map((row) => {
+              const selected = row.id === selectedId;
+              return (
+                <tr
+                  key={row.id}
+                  className={`border-t border-board-200 ${selected ? "bg-violet-50 outline outline-2 outline-selection" : "hover:bg-board-50"}`}
+                  aria-selected={selected}
+                  data-testid="clash-row"
+                  data-clash-key={row.original.clashKey}
+                >
+                  {row.getAllCells().map((cell) => (
+                    <td key={cell.id} className="px-2 py-1.5 align-top">
+                      <table.FlexRender cell={cell} />
+                    </td>
+                  ))}
+                  <td className="whitespace-nowrap px-2 py-1.5">
+                    <button type="button" className="rounded border border-board-200 px-2 py-0.5 text-xs hover:bg-board-100" onClick={() => onSelect(row.original)} data-testid="clash-show">
+                      Show in 3D
+                    </button>
+                    <Link className="ml-2 text-xs text-tension underline" href={threadHref(row.original)} data-testid="clash-thread">
+                      Thread
+                    </Link>
+                  </td>
+                </tr>
+              );
+            })}
+            {visible.length === 0 && (
+              <tr>
+                <td colSpan={columns.length + 1} className="px-2 py-6 text-center text-board-700">
+                  {rows.length === 0 ? "No clashes: the runs keep their clearance from every member." : "No clash matches these filters."}
+                </td>
+              </tr>
+            )}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,20 @@
+import type { ClashView } from "@/db/queries/clashes";
+import type { RunView } from "@/db/queries/mep";
+import type { ClashTableRow } from "@/lib/clash/rows";
+
+/** One row of GET /api/projects/[projectId]/clashes. */
+export type ClashRowData = ClashTableRow<ClashView>;
+
+export interface ClashListResponse {
+  revision: { id: string; number: number };
+  clashes: ClashRowData[];
+  abilities: { propose: boolean; acceptOpening: boolean; editRuns: boolean; hangServices: boolean };
+  caution: string;
+}
+
+export interface RunListResponse {
+  runs: RunView[];
+}
+
+export const clashesQueryKey = (projectId: string, revision: number, lowForce: number) => ["projects", projectId, "clashes", revision, lowForce] as const;
+export const runsQueryKey = (projectId: string, revision: number) => ["projects", projectId, "runs", revision] as const;
