@@ -2,6 +2,7 @@
 // One pin's thread: comments oldest first, a reply box (decisions for the structural engineer) and the
 // open / answered / closed state. The server decides who may close; its refusal is shown as is.
 import { useEffect, useState, type FormEvent } from "react";
+import { CommentAttachments } from "@/components/files/comment-attachments";
 import { Button } from "@/components/ui/form";
 import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
@@ -14,6 +15,7 @@ const EMPTY: PresentedComment[] = [];
 export function PinThread({ socket, projectId, pin, position }: { socket: ReviewSocket; projectId: string; pin: PresentedPin; position: Vec3 | null }) {
   const comments = useSessionStore((s) => s.comments[pin.id] ?? EMPTY);
   const abilities = useSessionStore((s) => s.abilities);
+  const me = useSessionStore((s) => s.me);
   const [body, setBody] = useState("");
   const [decision, setDecision] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
@@ -72,6 +74,7 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
               {c.kind === "decision" ? " · decision" : ""} · {new Date(c.createdAt).toLocaleString()}
             </span>
             <span className="whitespace-pre-wrap">{c.body}</span>
+            <CommentAttachments projectId={projectId} commentId={c.id} canAttach={Boolean(abilities["comment.create"]) && c.author.id === me?.id} />
           </li>
         ))}
       </ol>
