@@ -58,7 +58,7 @@ const directionWords = { ux: "x", uy: "y", uz: "z" } as const;
 export function describeInstability(instability: Instability[]): string[] {
   return instability.map(
     ({ node, directions }) =>
-      `Node ${node} is free to move along ${directions.map((d) => directionWords[d]).join(" and ")}: no member or support holds it in ` +
+      `Node ${node} is free to move along ${directions.map((d) => directionWords[d]).join(", ").replace(/, (?=[^,]*$)/, " and ")}: no member or support holds it in ` +
       `${directions.length > 1 ? "those directions" : "that direction"} (a mechanism). Add a member or a support there.`,
   );
 }
@@ -171,6 +171,8 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
         compressionId = id;
       }
     });
+    // with no results at all nothing is known, so no member is called zero in all
+    if (envelopeIds.length === 0) zeroEverywhere = false;
     envelope[memberId] = { maxTension, maxCompression, zeroInAll: zeroEverywhere };
     info.governing[memberId] = { maxTension: tensionId, maxCompression: compressionId };
     if (zeroEverywhere) zeroInAll.push(memberId);

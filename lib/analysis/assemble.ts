@@ -63,8 +63,10 @@ export function assembleStiffness(t: Topology, nodeOrder: Int32Array): Assembled
   const rowIdx = new Int32Array(colPtr[neq]);
   const values = new Float64Array(colPtr[neq]);
 
-  const nbNode = new Int32Array(64);
-  const nbMember = new Int32Array(64);
+  let maxDegree = 0;
+  for (let a = 0; a < n; a++) maxDegree = Math.max(maxDegree, adjStart[a + 1] - adjStart[a]);
+  const nbNode = new Int32Array(maxDegree);
+  const nbMember = new Int32Array(maxDegree);
   const localDir = new Int32Array(3);
   for (let a = 0; a < n; a++) {
     const fa = freeCount[a];
@@ -82,7 +84,6 @@ export function assembleStiffness(t: Topology, nodeOrder: Int32Array): Assembled
       }
       nbNode[h] = b;
       nbMember[h] = adjMember[q];
-      if (count === nbNode.length) throw new Error("node joined by more than 64 earlier-ordered members");
     }
     let f = 0;
     for (let r = 0; r < 3; r++) if (!restrained[3 * a + r]) localDir[f++] = r;

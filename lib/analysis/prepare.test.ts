@@ -36,3 +36,26 @@ describe("prepareStructure (used by the review engine for what-ifs and influence
     s.topology.restrained.forEach((restrained, q) => !restrained && expect(r[q]).toBe(0));
   });
 });
+
+describe("unusual shapes", () => {
+  it("a hub joint with 80 members: each carries -P / (80 sin θ) by symmetry and vertical equilibrium", () => {
+    const count = 80;
+    const ring = Array.from({ length: count }, (_, k) => ({ id: `R${k}`, x: 3 * Math.cos((2 * Math.PI * k) / count), y: 3 * Math.sin((2 * Math.PI * k) / count), z: 0 }));
+    const model = {
+      format: "truss-model/1" as const,
+      name: "hub",
+      materials: [{ id: "S", E: 2e8, fy: 355e3, unitWeight: 78.5 }],
+      sections: [{ id: "T", material: "S", area: 0.001, radiusOfGyration: 0.03, outerDiameter: 0.0889, wallThickness: 0.004 }],
+      nodes: [{ id: "HUB", x: 0, y: 0, z: 1 }, ...ring],
+      members: ring.map((r) => ({ id: `M-${r.id}`, i: "HUB", j: r.id, section: "T" })),
+      supports: ring.map((r) => ({ node: r.id, ux: true, uy: true, uz: true })),
+      loadCases: [{ id: "P", name: "P", category: "other" as const, selfWeight: false, nodalLoads: [{ node: "HUB", fx: 0, fy: 0, fz: -80 }] }],
+      combinations: [],
+    };
+    const s = prepareStructure(model);
+    expect(s.status).toBe("ok");
+    const forces = s.memberForces(s.solve(loadVectorForCase(model, "P")));
+    const sinTheta = 1 / Math.sqrt(10);
+    for (const n of forces) expect(n).toBeCloseTo(-80 / (count * sinTheta), 9);
+  });
+});

@@ -204,3 +204,15 @@ describe("zero-force member rules", () => {
     expect(lifted.results.Q.memberForces.JE).toBeCloseTo(-7, 9);
   });
 });
+
+describe("models without results", () => {
+  it("with no load cases no member is called zero in all", () => {
+    const model = triangle();
+    model.loadCases = [];
+    model.combinations = [];
+    const r = analyzeModel(model);
+    expect(r.results).toEqual({});
+    expect(r.zeroInAll).toEqual([]);
+    expect(r.envelope.AB).toEqual({ maxTension: 0, maxCompression: 0, zeroInAll: false });
+  });
+});
