@@ -123,9 +123,11 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
   const results: Record<string, CaseResult> = {};
   const forcesById = new Map<string, Float64Array>();
   const caseVectors = new Map<string, { u: Float64Array; f: Float64Array }>();
-  for (const loadCase of model.loadCases) {
-    const f = loadVectorForCase(model, loadCase.id, structure.topology);
-    const u = structure.solve(f);
+  const loadVectors = model.loadCases.map((c) => loadVectorForCase(model, c.id, structure.topology));
+  const displacementVectors = structure.solveMany(loadVectors);
+  for (const [k, loadCase] of model.loadCases.entries()) {
+    const f = loadVectors[k];
+    const u = displacementVectors[k];
     caseVectors.set(loadCase.id, { u, f });
     const { result, forces } = caseResult(structure, u, f);
     results[loadCase.id] = result;

@@ -2,7 +2,7 @@ import { assembleStiffness } from "./assemble";
 import type { TrussModel } from "./model";
 import { approximateMinimumDegree } from "./sparse/amd";
 import { symbolicLdl } from "./sparse/ldl";
-import { factorSupernodal, solveSupernodal, supernodes } from "./sparse/supernodal";
+import { factorSupernodal, solveSupernodal, solveSupernodalMany, supernodes } from "./sparse/supernodal";
 import { buildTopology, type Topology } from "./topology";
 
 export type Direction = "ux" | "uy" | "uz";
@@ -26,6 +26,8 @@ export type PreparedStructure = {
   topology: Topology;
   /** Full 3n nodal load vector in (kN), full 3n displacement vector out (m), zeros at restraints. */
   solve(f: Float64Array): Float64Array;
+  /** Several load vectors at once (one pass over the factor; use it for influence or what-if batches). */
+  solveMany(fs: Float64Array[]): Float64Array[];
   /** Axial forces N (kN, tension positive) from a full displacement vector. */
   memberForces(u: Float64Array): Float64Array;
   /** b_e (full 3n) with N_e = b_e . u; for adjoint solves K z = b_e (influence of loads on member e). */
@@ -110,6 +112,17 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
       const u = new Float64Array(3 * n);
       for (let q = 0; q < neq; q++) u[dofOfEquation[q]] = x[q];
       return u;
+    },
+    solveMany(fs) {
+      const count = fs.length;
+      const x = new Float64Array(neq * count);
+      for (let q = 0; q < neq; q++) for (let c = 0; c < count; c++) x[q * count + c] = fs[c][dofOfEquation[q]];
+      solveSupernodalMany(factor, x, count);
+      return fs.map((_, c) => {
+        const u = new Float64Array(3 * n);
+        for (let q = 0; q < neq; q++) u[dofOfEquation[q]] = x[q * count + c];
+        return u;
+      });
     },
     memberForces,
     memberForceVector(e) {

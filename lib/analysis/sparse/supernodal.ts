@@ -290,3 +290,43 @@ export function solveSupernodal(fct: SupernodalFactor, x: Float64Array): void {
     }
   }
 }
+
+/**
+ * Solves L D L^T X = B in place for several right-hand sides stored interleaved (x[j * count + c] is row j of
+ * column c): each entry of L is loaded once for all of them.
+ */
+export function solveSupernodalMany(fct: SupernodalFactor, x: Float64Array, count: number): void {
+  const { superStart, rowStart, rows, valueStart, values, inversePivot } = fct;
+  const ns = superStart.length - 1;
+  for (let s = 0; s < ns; s++) {
+    const f = superStart[s];
+    const w = superStart[s + 1] - f;
+    const r0 = rowStart[s];
+    const m = rowStart[s + 1] - r0;
+    for (let k = 0; k < w; k++) {
+      const base = (f + k) * count;
+      const col = valueStart[s] + k * m;
+      for (let r = k + 1; r < m; r++) {
+        const v = values[col + r];
+        const target = rows[r0 + r] * count;
+        for (let c = 0; c < count; c++) x[target + c] -= v * x[base + c];
+      }
+    }
+  }
+  for (let j = 0; j < fct.n; j++) for (let c = 0; c < count; c++) x[j * count + c] *= inversePivot[j];
+  for (let s = ns - 1; s >= 0; s--) {
+    const f = superStart[s];
+    const w = superStart[s + 1] - f;
+    const r0 = rowStart[s];
+    const m = rowStart[s + 1] - r0;
+    for (let k = w - 1; k >= 0; k--) {
+      const base = (f + k) * count;
+      const col = valueStart[s] + k * m;
+      for (let r = k + 1; r < m; r++) {
+        const v = values[col + r];
+        const source = rows[r0 + r] * count;
+        for (let c = 0; c < count; c++) x[base + c] -= v * x[source + c];
+      }
+    }
+  }
+}
