@@ -1,7 +1,8 @@
 // The state a review keeps between questions: the model, its analysis, one factored structure, design inputs.
 import { prepareStructure, type AnalysisResult, type PreparedStructure, type TrussModel } from "@/lib/analysis";
+import { resistanceTable, type ResistanceTable } from "./design-checks/member-check";
 import type { ChsFabrication, DesignStandard, MemberDesignInput } from "./design-checks/types";
-import { designResultIds, memberDesignInputs } from "./member-design";
+import { designResultIds, governingUtilisations, memberDesignInputs } from "./member-design";
 
 export type ReviewOptions = {
   standard: DesignStandard;
@@ -20,7 +21,12 @@ export type ReviewContext = {
   memberIndex: Map<string, number>;
   /** Intact forces per result id, model member order. */
   forces: Map<string, Float64Array>;
+  /** Intact displacements per load case (full 3n, m), from the analysis result. */
+  displacements: Map<string, Float64Array>;
   designResults: string[];
+  resistances: ResistanceTable;
+  /** Intact governing utilisation per member over the design results. */
+  utilisation: Float64Array;
 };
 
 /** Factors the model's stiffness once so what-ifs and influence maps reuse it. The model must be stable. */
@@ -31,14 +37,25 @@ export function createReviewContext(model: TrussModel, result: AnalysisResult, o
   for (const [id, r] of Object.entries(result.results)) {
     forces.set(id, Float64Array.from(model.members, (m) => r.memberForces[m.id]));
   }
+  const displacements = new Map<string, Float64Array>();
+  for (const loadCase of model.loadCases) {
+    const d = result.results[loadCase.id].displacements;
+    displacements.set(loadCase.id, Float64Array.from(structure.nodeIds.flatMap((id) => [d[id].ux, d[id].uy, d[id].uz])));
+  }
+  const inputs = memberDesignInputs(model, options.fabrication);
+  const resistances = resistanceTable(options.standard, inputs);
+  const designResults = designResultIds(model).filter((id) => forces.has(id));
   return {
     model,
     result,
     options,
     structure,
-    inputs: memberDesignInputs(model, options.fabrication),
+    inputs,
     memberIndex: new Map(model.members.map((m, e) => [m.id, e])),
     forces,
-    designResults: designResultIds(model).filter((id) => forces.has(id)),
+    displacements,
+    designResults,
+    resistances,
+    utilisation: governingUtilisations(resistances, designResults.map((id) => forces.get(id)!)),
   };
 }

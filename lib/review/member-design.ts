@@ -1,6 +1,6 @@
 // Per-member design checks across results: the inputs from the model and the governing check per member.
 import type { AnalysisResult, TrussModel } from "@/lib/analysis";
-import { axialUtilisation, checkAxialForce } from "./design-checks/member-check";
+import { checkAxialForce, tableUtilisation, type ResistanceTable } from "./design-checks/member-check";
 import type { AxialCheck, ChsFabrication, DesignStandard, MemberDesignInput } from "./design-checks/types";
 
 export type DesignOptions = { standard: DesignStandard; fabrication?: ChsFabrication };
@@ -73,12 +73,12 @@ export function designMembers(model: TrussModel, result: AnalysisResult, options
 }
 
 /** Largest utilisation per member (index order) over the given force sets: the fast path for what-ifs. */
-export function governingUtilisations(standard: DesignStandard, inputs: MemberDesignInput[], forceSets: Float64Array[], skip?: Uint8Array): Float64Array {
-  const out = new Float64Array(inputs.length);
-  for (let e = 0; e < inputs.length; e++) {
+export function governingUtilisations(table: ResistanceTable, forceSets: Float64Array[], skip?: Uint8Array): Float64Array {
+  const out = new Float64Array(table.tension.length);
+  for (let e = 0; e < out.length; e++) {
     if (skip?.[e]) continue;
     let worst = 0;
-    for (const forces of forceSets) worst = Math.max(worst, axialUtilisation(standard, inputs[e], forces[e]));
+    for (const forces of forceSets) worst = Math.max(worst, tableUtilisation(table, e, forces[e]));
     out[e] = worst;
   }
   return out;

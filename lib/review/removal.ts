@@ -60,7 +60,7 @@ export type RemovalOutcome =
 
 /** Removes members (and optionally adds a load case), then reports mechanism, force and utilisation changes. */
 export function removalWhatIf(context: ReviewContext, request: RemovalRequest): RemovalOutcome {
-  const { model, structure, memberIndex, inputs, options } = context;
+  const { model, structure, memberIndex, inputs } = context;
   const removedIdx = request.remove.map((id) => {
     const e = memberIndex.get(id);
     if (e === undefined) throw new Error(`no member "${id}"`);
@@ -81,15 +81,21 @@ export function removalWhatIf(context: ReviewContext, request: RemovalRequest): 
     return { removed: request.remove, mechanism: true, instability, instabilityText: describeInstability(instability), caution: STANDING_CAUTION };
   }
 
-  // Loads of the reduced model (removed members no longer weigh anything), solved with the intact factor.
-  const reducedTopology = buildTopology(reduced);
-  const intactWithAdded: TrussModel = { ...reduced, members: model.members };
+  // The intact displacements come from the analysis; the removed members' self-weight no longer acts, so
+  // their weight (loadVectorForCase on just those members) is taken off every self-weight case: one solve.
+  const weightModel: TrussModel = { ...model, members: model.members.filter((_, e) => removedMask[e]), loadCases: [{ id: "weight", name: "", category: "dead", selfWeight: true, nodalLoads: [] }] };
+  const lostWeight = structure.solve(loadVectorForCase(weightModel, "weight", buildTopology(weightModel)));
+  const without = (u: Float64Array, selfWeight: boolean) => (selfWeight ? u.map((v, q) => v - lostWeight[q]) : u);
   const before = new Map(context.forces);
   const after = new Map<string, Float64Array>();
   for (const loadCase of reduced.loadCases) {
-    const u = update.update(structure.solve(loadVectorForCase(reduced, loadCase.id, reducedTopology)));
-    after.set(loadCase.id, structure.memberForces(u));
-    if (!before.has(loadCase.id)) before.set(loadCase.id, structure.memberForces(structure.solve(loadVectorForCase(intactWithAdded, loadCase.id, structure.topology))));
+    let intact = context.displacements.get(loadCase.id);
+    if (!intact) {
+      const withAdded: TrussModel = { ...model, loadCases: [loadCase] };
+      intact = structure.solve(loadVectorForCase(withAdded, loadCase.id, structure.topology));
+      before.set(loadCase.id, structure.memberForces(intact));
+    }
+    after.set(loadCase.id, structure.memberForces(update.update(without(intact, loadCase.selfWeight))));
   }
   for (const combination of reduced.combinations) {
     after.set(combination.id, combine(combination, after, model.members.length));
@@ -101,8 +107,9 @@ export function removalWhatIf(context: ReviewContext, request: RemovalRequest): 
   const changes = [...after.keys()].map((id) => compareForces(id, before.get(id)!, after.get(id)!, removedMask, model, maxListed));
 
   const designIds = reduced.combinations.length > 0 ? reduced.combinations.map((c) => c.id) : reduced.loadCases.map((c) => c.id);
-  const utilBefore = governingUtilisations(options.standard, inputs, designIds.map((id) => before.get(id)!), removedMask);
-  const utilAfter = governingUtilisations(options.standard, inputs, designIds.map((id) => after.get(id)!), removedMask);
+  const sameDesign = designIds.length === context.designResults.length && designIds.every((id, k) => id === context.designResults[k]);
+  const utilBefore = sameDesign ? context.utilisation : governingUtilisations(context.resistances, designIds.map((id) => before.get(id)!));
+  const utilAfter = governingUtilisations(context.resistances, designIds.map((id) => after.get(id)!), removedMask);
   const utilChanges: UtilisationChange[] = [];
   let maxBefore = 0;
   let maxAfter = 0;
@@ -136,25 +143,42 @@ function combine(combination: Combination, caseForces: Map<string, Float64Array>
 }
 
 function compareForces(result: string, before: Float64Array, after: Float64Array, removed: Uint8Array, model: TrussModel, maxListed: number): ResultChanges {
+  const m = before.length;
+  const kept = new Float64Array(m);
   let largest = 0;
-  for (let e = 0; e < before.length; e++) if (!removed[e]) largest = Math.max(largest, Math.abs(before[e]), Math.abs(after[e]));
+  for (let e = 0; e < m; e++) {
+    if (removed[e]) continue;
+    kept[e] = before[e];
+    largest = Math.max(largest, Math.abs(before[e]), Math.abs(after[e]));
+  }
   // Same tolerance as the zero-force rule of design.md: smaller differences are rounding.
   const tolerance = Math.max(1e-6 * largest, 1e-9);
-  const zeroBefore = zeroForceMask(before.map((v, e) => (removed[e] ? 0 : v)));
+  const zeroBefore = zeroForceMask(kept);
   const zeroAfter = zeroForceMask(after);
-  const all: ForceChange[] = [];
+  const size = new Float64Array(m);
+  let changedCount = 0;
   const newlyZero: string[] = [];
   const noLongerZero: string[] = [];
-  for (let e = 0; e < before.length; e++) {
+  for (let e = 0; e < m; e++) {
+    if (removed[e]) continue;
+    const delta = Math.abs(after[e] - before[e]);
+    if (delta > tolerance) {
+      size[changedCount++] = delta;
+    }
+    if (zeroAfter[e] && !zeroBefore[e]) newlyZero.push(model.members[e].id);
+    if (!zeroAfter[e] && zeroBefore[e]) noLongerZero.push(model.members[e].id);
+  }
+  // The listed changes are the largest ones: find the cut-off with a native numeric sort, then collect.
+  const listed = Math.min(maxListed, changedCount);
+  const cutoff = listed === 0 ? Infinity : size.subarray(0, changedCount).sort()[changedCount - listed];
+  const changes: ForceChange[] = [];
+  for (let e = 0; e < m && changes.length < listed; e++) {
     if (removed[e]) continue;
     const delta = after[e] - before[e];
-    const id = model.members[e].id;
-    if (Math.abs(delta) > tolerance) all.push({ member: id, before: before[e], after: after[e], delta });
-    if (zeroAfter[e] && !zeroBefore[e]) newlyZero.push(id);
-    if (!zeroAfter[e] && zeroBefore[e]) noLongerZero.push(id);
+    if (Math.abs(delta) > tolerance && Math.abs(delta) >= cutoff) changes.push({ member: model.members[e].id, before: before[e], after: after[e], delta });
   }
-  all.sort((p, q) => Math.abs(q.delta) - Math.abs(p.delta));
-  return { result, changedCount: all.length, changes: all.slice(0, maxListed), newlyZero, noLongerZero };
+  changes.sort((p, q) => Math.abs(q.delta) - Math.abs(p.delta));
+  return { result, changedCount, changes, newlyZero, noLongerZero };
 }
 
 function lostBraces(context: ReviewContext, removedIdx: number[], removed: Uint8Array, designIds: string[], after: Map<string, Float64Array>): LostBrace[] {

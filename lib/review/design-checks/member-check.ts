@@ -20,3 +20,41 @@ export function axialResistance(standard: DesignStandard, input: MemberDesignInp
 export function axialUtilisation(standard: DesignStandard, input: MemberDesignInput, force: number): number {
   return force === 0 ? 0 : Math.abs(force) / axialResistance(standard, input, force);
 }
+
+/** Per-member resistances that do not depend on the force, for fast whole-model sweeps (kN). */
+export type ResistanceTable = {
+  tension: Float64Array;
+  /** Flexural buckling resistance. */
+  compression: Float64Array;
+  /** EN 1993-1-1 6.3.1.2(4): section resistance used when NEd/Ncr ≤ 0.04 (Infinity-free: 0 for AISC). */
+  compressionSmallForce: Float64Array;
+  /** Ncr (kN) for the 0.04 rule; 0 for AISC (the rule does not exist there). */
+  ncr: Float64Array;
+};
+
+/** Builds the resistance table; `tableUtilisation` then gives the same numbers as axialUtilisation. */
+export function resistanceTable(standard: DesignStandard, inputs: MemberDesignInput[]): ResistanceTable {
+  const m = inputs.length;
+  const table = { tension: new Float64Array(m), compression: new Float64Array(m), compressionSmallForce: new Float64Array(m), ncr: new Float64Array(m) };
+  inputs.forEach((input, e) => {
+    table.tension[e] = axialResistance(standard, input, 1);
+    if (standard === "AISC360-22") {
+      table.compression[e] = aiscCompressionStrength(input).resistance;
+      return;
+    }
+    // Ask for the buckling resistance with a force large enough that the 0.04 rule cannot apply.
+    const strength = enCompressionStrength(input, -Infinity, chsBucklingCurve(input.fabrication, input.fy));
+    table.ncr[e] = strength.Ncr;
+    table.compression[e] = strength.resistance; // A·fy/γM0 when λ̄ ≤ 0.2, else χ·A·fy/γM1
+    table.compressionSmallForce[e] = (input.area * input.fy) / EN_GAMMA_M0;
+  });
+  return table;
+}
+
+/** Utilisation of member e under `force` from a resistance table. */
+export function tableUtilisation(table: ResistanceTable, e: number, force: number): number {
+  if (force > 0) return force / table.tension[e];
+  if (force === 0) return 0;
+  const demand = -force;
+  return demand / (table.ncr[e] > 0 && demand / table.ncr[e] <= 0.04 ? table.compressionSmallForce[e] : table.compression[e]);
+}
