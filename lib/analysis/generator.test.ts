@@ -77,6 +77,17 @@ describe("double-layer grid generator (square on square offset)", () => {
     expect(combinations.find((c) => c.id === "ULS-3")!.factors).toEqual({ dead: 1.0, "wind-uplift": 1.5 });
   });
 
+  it("offers ASCE 7-22 §2.3.1 strength combinations: 1.4D, 1.2D + 1.0S, 0.9D + 1.0W", () => {
+    // ASCE/SEI 7-22 §2.3.1 (check-values §1.1: 1.4D and 0.9D + 1.0W confirmed basic forms; 1.2D + 1.0S confirmed,
+    // STRUCTURE magazine "Ground Snow Loads for ASCE 7-22")
+    const { combinations } = generateRoof({ spanX: 6, spanY: 6, module: 3, depth: 1, standard: "ASCE 7-22" });
+    expect(combinations.map((c) => c.factors)).toEqual([
+      { dead: 1.4, services: 1.4 },
+      { dead: 1.2, services: 1.2, snow: 1.0 },
+      { dead: 0.9, "wind-uplift": 1.0 },
+    ]);
+  });
+
   it("the demo roof has realistic proportions, several tube sizes and plausible forces", () => {
     const model = demoRoof();
     expect(model.name).toMatch(/Northfield/);

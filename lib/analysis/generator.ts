@@ -17,6 +17,8 @@ export const roofParamsSchema = z
     windUplift: z.number().nonnegative().default(0.7),
     /** Services hung from the bottom layer: ducts, pipes, lights, sprinklers. */
     services: z.number().nonnegative().default(0.25),
+    /** Which published strength combinations to generate. */
+    standard: z.enum(["EN 1990", "ASCE 7-22"]).default("EN 1990"),
   })
   .superRefine((p, ctx) => {
     for (const key of ["spanX", "spanY"] as const) {
@@ -77,7 +79,8 @@ const sizes = {
  * stable yet free to expand; more horizontal restraints would attract forces from temperature and wall drift.
  *
  * Load cases (characteristic): dead (self-weight plus roofing), services (bottom nodes), snow and wind uplift
- * (top nodes), each by tributary area. Combinations: EN 1990:2002 Annex A1, expression (6.10), recommended
+ * (top nodes), each by tributary area. Combinations (default; ASCE 7-22 below on request): EN 1990:2002
+ * Annex A1, expression (6.10), recommended
  * partial factors of Table A1.2(B): gammaG,sup 1.35, gammaG,inf 1.00, gammaQ 1.50; a variable action that
  * relieves the effect (wind uplift under gravity, snow under uplift) gets factor 0, so psi0 (snow 0.5, wind
  * 0.6, Table A1.1) never enters. Services count as permanent but are left out of the uplift combination: they
@@ -159,12 +162,7 @@ export function generateRoof(input: RoofParams): TrussModel {
     { id: "snow", name: `Snow ${p.snow} kN/m2`, category: "snow", selfWeight: false, nodalLoads: topLoads(-p.snow) },
     { id: "wind-uplift", name: `Wind uplift ${p.windUplift} kN/m2`, category: "wind", selfWeight: false, nodalLoads: topLoads(p.windUplift) },
   ];
-  const combinations: Combination[] = [
-    { id: "ULS-1", name: "EN 1990 (6.10) permanent only: 1.35G", factors: { dead: 1.35, services: 1.35 } },
-    { id: "ULS-2", name: "EN 1990 (6.10) snow leading: 1.35G + 1.5S", factors: { dead: 1.35, services: 1.35, snow: 1.5 } },
-    { id: "ULS-3", name: "EN 1990 (6.10) wind uplift leading, G favourable: 1.0G + 1.5W", factors: { dead: 1.0, "wind-uplift": 1.5 } },
-    { id: "SLS-1", name: "EN 1990 (6.14b) characteristic, snow leading: G + S", factors: { dead: 1.0, services: 1.0, snow: 1.0 } },
-  ];
+  const combinations = p.standard === "ASCE 7-22" ? asce722Combinations : en1990Combinations;
 
   const usedSections = new Set(members.map((m) => m.section));
   return {
@@ -179,6 +177,24 @@ export function generateRoof(input: RoofParams): TrussModel {
     combinations,
   };
 }
+
+const en1990Combinations: Combination[] = [
+  { id: "ULS-1", name: "EN 1990 (6.10) permanent only: 1.35G", factors: { dead: 1.35, services: 1.35 } },
+  { id: "ULS-2", name: "EN 1990 (6.10) snow leading: 1.35G + 1.5S", factors: { dead: 1.35, services: 1.35, snow: 1.5 } },
+  { id: "ULS-3", name: "EN 1990 (6.10) wind uplift leading, G favourable: 1.0G + 1.5W", factors: { dead: 1.0, "wind-uplift": 1.5 } },
+  { id: "SLS-1", name: "EN 1990 (6.14b) characteristic, snow leading: G + S", factors: { dead: 1.0, services: 1.0, snow: 1.0 } },
+];
+
+/**
+ * ASCE/SEI 7-22 §2.3.1 strength combinations for a roof with D, S (strength-level, factor 1.0 when leading)
+ * and W: 1.4D; 1.2D + 1.0S (the companion 0.5W is uplift here, which relieves, so it is left out); 0.9D + 1.0W
+ * for uplift. Services are dead load but, as above, not relied upon against uplift.
+ */
+const asce722Combinations: Combination[] = [
+  { id: "LRFD-1", name: "ASCE 7-22 2.3.1: 1.4D", factors: { dead: 1.4, services: 1.4 } },
+  { id: "LRFD-2", name: "ASCE 7-22 2.3.1: 1.2D + 1.0S", factors: { dead: 1.2, services: 1.2, snow: 1.0 } },
+  { id: "LRFD-3", name: "ASCE 7-22 2.3.1: 0.9D + 1.0W (uplift)", factors: { dead: 0.9, "wind-uplift": 1.0 } },
+];
 
 /** The demo project's roof: our invented Northfield Community Sports Hall, 36 m x 48 m on 3 m modules. */
 export function demoRoof(): TrussModel {
