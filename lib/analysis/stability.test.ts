@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "./analyze";
+import { generateRoof } from "./generator";
 import { prepareStructure } from "./prepare";
 import { pointLoads, trussModel } from "./test-fixtures";
 
@@ -139,5 +140,16 @@ describe("mechanisms are reported as unstable with the free node and direction",
     expect(s.status).toBe("unstable");
     const u = s.solve(new Float64Array([0, 0, 0, 0, 0, 0, 1, 1, 1]));
     expect([...u].every(Number.isFinite)).toBe(true);
+  });
+});
+
+describe("mechanisms inside a large grid", () => {
+  it("a bottom node left with two collinear chords is named alone, and nothing else is flagged", () => {
+    const model = generateRoof({ spanX: 36, spanY: 36, module: 3, depth: 2 });
+    model.members = model.members.filter((m) => !/^D-6-6-|^BCY-6-6$|^BCY-6-5$/.test(m.id));
+    const r = analyzeModel(model);
+    expect(r.status).toBe("unstable");
+    expect(r.instability).toEqual([{ node: "B-6-6", directions: ["uy", "uz"] }]);
+    expectFiniteJson(r);
   });
 });
