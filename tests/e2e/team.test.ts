@@ -1,0 +1,89 @@
+import { readFileSync } from "node:fs";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, newContext, screenshot } from "../support/browser";
+import { AccountPage } from "./pages/account-page";
+import { JoinPage } from "./pages/join-page";
+import { ProjectOverviewPage } from "./pages/project-overview-page";
+import { ProjectsPage } from "./pages/projects-page";
+import { SignInPage } from "./pages/sign-in-page";
+
+const accounts = JSON.parse(readFileSync(new URL("../../db/seed/demo-accounts.json", import.meta.url), "utf8")) as {
+  password: string;
+  users: { email: string; name: string; role: string }[];
+};
+const DEMO_PROJECT = "Northfield Community Sports Hall — roof";
+const owner = accounts.users.find((u) => u.role === "owner")!;
+const unique = `${process.pid}-${Math.floor(Math.random() * 1e6)}`;
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signedIn(email: string, password: string): Promise<Page> {
+  const context = await newContext(browser);
+  const page = await context.newPage();
+  const signIn = new SignInPage(page);
+  await signIn.open();
+  await signIn.signIn(email, password);
+  await new ProjectsPage(page).waitForList();
+  return page;
+}
+
+describe("inviting and joining", () => {
+  it("an owner invites a newcomer, who joins with the link once; a used link says so", async () => {
+    const ownerPage = await signedIn(owner.email, accounts.password);
+    const projectId = await new ProjectsPage(ownerPage).open(DEMO_PROJECT);
+    const overview = new ProjectOverviewPage(ownerPage);
+    await overview.waitForTeam(accounts.users.length);
+
+    const newcomer = `newcomer-${unique}@northfield-demo.test`;
+    const link = await overview.invite(newcomer, "Architect");
+    expect(link).toMatch(/\/join\/[A-Za-z0-9_-]{40,}$/);
+    await screenshot(ownerPage, "project-overview-invited");
+
+    // Inviting a current member is refused beside the e-mail field.
+    await overview.submitInvite(accounts.users[1].email, "Viewer");
+    await overview.inviteEmailError().waitFor();
+    await ownerPage.context().close();
+
+    const context = await newContext(browser);
+    const page = await context.newPage();
+    const join = new JoinPage(page);
+    await join.open(link);
+    await join.join("Rosa Whitfield", "short");
+    await join.passwordError().waitFor();
+    await screenshot(page, "join");
+    await join.join("Rosa Whitfield", "a-long-newcomer-password");
+    await page.waitForURL(new RegExp(`/projects/${projectId}$`));
+    const joined = new ProjectOverviewPage(page);
+    await joined.waitForTeam(accounts.users.length + 1);
+    expect(await joined.invitePanel.isVisible()).toBe(false);
+    expect(await joined.header.textContent()).toContain("Architect");
+
+    await join.open(link);
+    await join.notice().waitFor();
+    expect(await join.notice().textContent()).toContain("already been used");
+    await screenshot(page, "join-used");
+    await context.close();
+  });
+});
+
+describe("account", () => {
+  it("a member renames themselves and a wrong current password is refused beside its field", async () => {
+    const architect = accounts.users.find((u) => u.role === "architect")!;
+    const page = await signedIn(architect.email, accounts.password);
+    const account = new AccountPage(page);
+    await account.open();
+    await account.rename(`${architect.name}`);
+    await account.changePassword("definitely-wrong", "another-long-password");
+    await account.currentPasswordError().waitFor();
+    expect(await account.currentPasswordError().textContent()).toContain("not your current password");
+    await screenshot(page, "account-errors");
+    await page.context().close();
+  });
+});
