@@ -49,7 +49,6 @@ describe("inviting and joining", () => {
     // Inviting a current member is refused beside the e-mail field.
     await overview.submitInvite(accounts.users[1].email, "Viewer");
     await overview.inviteEmailError().waitFor();
-    await ownerPage.context().close();
 
     const context = await newContext(browser);
     const page = await context.newPage();
@@ -64,6 +63,16 @@ describe("inviting and joining", () => {
     await joined.waitForTeam(accounts.users.length + 1);
     expect(await joined.invitePanel.isVisible()).toBe(false);
     expect(await joined.header.textContent()).toContain("Architect");
+
+    // The owner changes the newcomer's role (through the server action); the newcomer then sees the new role.
+    await overview.open(projectId);
+    await overview.waitForTeam(accounts.users.length + 1);
+    await overview.roleSelect(newcomer).selectOption({ label: "Viewer" });
+    await overview.teamMessage().waitFor();
+    expect(await overview.teamMessage().textContent()).toBe("Rosa Whitfield is now Viewer.");
+    await ownerPage.context().close();
+    await joined.open(projectId);
+    expect(await joined.header.textContent()).toContain("Viewer");
 
     await join.open(link);
     await join.notice().waitFor();

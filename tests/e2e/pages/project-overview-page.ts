@@ -49,6 +49,10 @@ export class ProjectOverviewPage {
     return link.inputValue();
   }
 
+  teamMessage() {
+    return this.page.getByTestId("team-message");
+  }
+
   inviteEmailError() {
     return this.page.getByTestId("invite-email-error");
   }
