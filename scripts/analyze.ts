@@ -7,12 +7,15 @@ import { readdirSync, readFileSync } from "node:fs";
 import { basename, join } from "node:path";
 import { parseArgs } from "node:util";
 import { analyzeModel, modelFromCsv, validateModel, type ValidationResult } from "@/lib/analysis";
+import { reviewModel, type DesignStandard } from "@/lib/review";
 
 // Further flags (e.g. --review) are added to this table; values arrive typed in `args.values`.
 const options = {
   csv: { type: "string", description: "read CSV tables (nodes.csv, members.csv, ...) from this folder" },
   threshold: { type: "string", description: "report members below this axial force (kN) as low-force" },
   pretty: { type: "boolean", description: "indent the JSON output" },
+  review: { type: "boolean", description: "add design checks, member verdicts and why-zero explanations under \"review\"" },
+  standard: { type: "string", description: "design standard for --review: EN1993-1-1 (default) or AISC360-22" },
   help: { type: "boolean", short: "h", description: "show this help" },
 } as const;
 
@@ -58,6 +61,12 @@ function main(argv: string[]): number {
     process.stderr.write(`--threshold must be a non-negative number of kN (got "${args.values.threshold}")\n`);
     return 1;
   }
+  const standards: DesignStandard[] = ["EN1993-1-1", "AISC360-22"];
+  const standard = (args.values.standard ?? "EN1993-1-1") as DesignStandard;
+  if (!standards.includes(standard)) {
+    process.stderr.write(`--standard must be one of ${standards.join(", ")} (got "${args.values.standard}")\n`);
+    return 1;
+  }
   let checked: ValidationResult;
   try {
     checked = readModel(args.positionals[0], args.values.csv);
@@ -70,7 +79,8 @@ function main(argv: string[]): number {
     return 2;
   }
   const result = analyzeModel(checked.model, { lowForceThreshold: threshold });
-  process.stdout.write(`${JSON.stringify(result, null, args.values.pretty ? 2 : undefined)}\n`);
+  const review = args.values.review && result.status === "ok" ? reviewModel(checked.model, result, { standard, lowForceThreshold: threshold }) : undefined;
+  process.stdout.write(`${JSON.stringify(review ? { ...result, review } : result, null, args.values.pretty ? 2 : undefined)}\n`);
   if (result.status === "unstable") {
     for (const line of result.info.instabilityText ?? []) process.stderr.write(`${line}\n`);
     return 3;
