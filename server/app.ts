@@ -6,6 +6,7 @@ import { abilitiesOf } from "@/lib/permissions";
 import { SOCKET_PATH, YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { getLiveSession } from "@/db/queries/review-sessions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
+import { createCursorBatcher } from "./cursor-batcher";
 import { projectRoom, userRoom, type RealtimeServer } from "./context";
 import { flushViews } from "./live-session-state";
 import { registerPinEvents } from "./pin-events";
@@ -26,6 +27,7 @@ export function createRealtimeServer({ appUrl }: { appUrl: string }) {
     destroyUpgrade: false,
   });
   const yjs = createYjsUpgradeHandler({ appUrl });
+  const cursors = createCursorBatcher(io);
   httpServer.on("upgrade", (request, socket, head) => {
     if ((request.url ?? "").startsWith(YJS_PATH_PREFIX)) yjs.handleUpgrade(request, socket, head);
   });
@@ -47,7 +49,7 @@ export function createRealtimeServer({ appUrl }: { appUrl: string }) {
   io.on("connection", (socket) => {
     const { user, role, projectId } = socket.data;
     void socket.join([projectRoom(projectId), userRoom(user.id)]);
-    registerSessionEvents(io, socket);
+    registerSessionEvents(io, socket, cursors);
     registerPinEvents(io, socket);
     socket.on("disconnect", () => {
       void broadcastPresence(io, projectId).catch((error) => console.error("[realtime] presence failed", error));
@@ -69,6 +71,7 @@ export function createRealtimeServer({ appUrl }: { appUrl: string }) {
     io,
     /** Stops accepting, closes every connection and writes what is pending (views, Yjs documents). */
     async close() {
+      cursors.close();
       await yjs.close();
       await new Promise<void>((resolve) => io.close(() => resolve()));
       await flushViews();

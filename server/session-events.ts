@@ -12,6 +12,7 @@ import {
 } from "@/lib/realtime/events";
 import { can } from "@/lib/permissions";
 import { currentRole } from "./auth";
+import type { CursorBatcher } from "./cursor-batcher";
 import { projectRoom, type RealtimeServer } from "./context";
 import { onEvent, type RealtimeSocket } from "./handle-event";
 import { forgetPresenter, presenterOf, rememberView } from "./live-session-state";
@@ -32,7 +33,7 @@ async function broadcastSession(io: RealtimeServer, projectId: string) {
 }
 
 /** Registers the review-session events of one socket. */
-export function registerSessionEvents(io: RealtimeServer, socket: RealtimeSocket): void {
+export function registerSessionEvents(io: RealtimeServer, socket: RealtimeSocket, cursors: CursorBatcher): void {
   const { user, projectId } = socket.data;
   const room = projectRoom(projectId);
 
@@ -82,7 +83,7 @@ export function registerSessionEvents(io: RealtimeServer, socket: RealtimeSocket
   });
 
   onEvent(socket, "cursor:move", cursorMoveSchema, async ({ point, seq }) => {
-    socket.to(room).emit("cursor", { userId: user.id, socketId: socket.id, point, seq });
+    cursors.add(projectId, { userId: user.id, socketId: socket.id, point, seq });
     return null;
   });
 }

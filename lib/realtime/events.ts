@@ -144,6 +144,9 @@ export const reviewSessionSchema = z.object({
 });
 export type PresentedReviewSession = z.infer<typeof reviewSessionSchema>;
 
+/** One cursor move as relayed to the room. */
+export type CursorMove = { userId: string; socketId: string; point: Vec3; seq: number };
+
 /** Every acknowledgement: the created/updated object, or an error shaped like the HTTP API's. */
 export type Ack<T> = { ok: true; data: T } | { ok: false; error: string; issues?: { path: string; message: string }[] };
 
@@ -165,7 +168,8 @@ export interface ServerToClientEvents {
   presence: (entries: PresenceEntry[]) => void;
   "session:state": (session: PresentedReviewSession | null) => void;
   "session:view": (view: SessionView & { presenterId: string }) => void;
-  cursor: (cursor: { userId: string; socketId: string; point: Vec3; seq: number }) => void;
+  /** Cursor moves of the last few tens of milliseconds, oldest first (including the receiver's own). */
+  cursors: (moves: CursorMove[]) => void;
   "pin:created": (pin: PresentedPin) => void;
   "pin:updated": (pin: PresentedPin) => void;
   "comment:created": (comment: PresentedComment) => void;

@@ -89,6 +89,23 @@ describe("review session", () => {
   });
 });
 
+describe("cursors", () => {
+  it("relays every cursor move to the others, in order, in batches", async () => {
+    const mover = await signedIn("mep_engineer");
+    const watcher = await signedIn("architect");
+    const seen: number[] = [];
+    const all = new Promise<void>((resolve) => {
+      watcher.on("cursors", (moves) => {
+        for (const move of moves) if (move.socketId === mover.id) seen.push(move.seq);
+        if (seen.length >= 5) resolve();
+      });
+    });
+    for (let seq = 1; seq <= 5; seq += 1) mover.emit("cursor:move", { point: [seq, 2, 9], seq });
+    await all;
+    expect(seen).toEqual([1, 2, 3, 4, 5]);
+  });
+});
+
 describe("pins and threads in the room", () => {
   it("shows each client the other's pin and comment, and notifies the person mentioned", async () => {
     const architect = await signedIn("architect");

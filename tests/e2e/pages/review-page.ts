@@ -1,0 +1,50 @@
+import type { Page } from "playwright-core";
+import { appUrl } from "../../support/browser";
+
+/** The viewer with its live review panel. */
+export class ReviewPage {
+  constructor(readonly page: Page) {}
+
+  async open(projectId: string) {
+    await this.page.goto(appUrl(`/projects/${projectId}/viewer`));
+    await this.page.getByTestId("review-panel").waitFor();
+    await this.page.locator('[data-testid="connection-state"][data-state="connected"]').waitFor();
+  }
+
+  sessionStatus() {
+    return this.page.getByTestId("session-status");
+  }
+
+  async startPresenting() {
+    await this.page.getByTestId("session-start").click();
+  }
+
+  presenceEntry(userName: string) {
+    return this.page.getByTestId("presence-entry").filter({ hasText: userName });
+  }
+
+  newPinForm() {
+    return this.page.getByTestId("new-pin-form");
+  }
+
+  async pinOnMember(memberId: string, title: string, details: string) {
+    await this.page.getByTestId("pin-anchor-kind").selectOption("member");
+    await this.page.getByTestId("pin-anchor-id").fill(memberId);
+    await this.page.getByTestId("pin-title").fill(title);
+    await this.newPinForm().getByLabel("Details").fill(details);
+    await this.page.getByTestId("pin-submit").click();
+  }
+
+  pinItem(title: string) {
+    return this.page.getByTestId("pin-item").filter({ hasText: title });
+  }
+
+  async reply(body: string) {
+    await this.page.getByTestId("comment-body").fill(body);
+    await this.page.getByTestId("comment-submit").click();
+  }
+
+  comment(text: string) {
+    return this.page.getByTestId("comment").filter({ hasText: text });
+  }
+}
