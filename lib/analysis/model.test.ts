@@ -74,3 +74,24 @@ describe("validateModel", () => {
     expect(!result.ok && result.problems.map((p) => p.where)).toContain("format");
   });
 });
+
+describe("validateModel after a wrong type", () => {
+  it("still checks the cross-references of the other rows", () => {
+    const model = valid() as unknown as { nodes: { x: unknown }[]; members: { j: string }[] };
+    model.nodes[0].x = "zero";
+    model.members[2].j = "Q";
+    const result = validateModel(model);
+    const lines = result.ok ? [] : result.problems.map((p) => `${p.where}: ${p.message}`);
+    expect(lines).toHaveLength(2);
+    expect(lines[0]).toMatch(/^nodes\[0\] "A" x: .*number/);
+    expect(lines[1]).toMatch(/^members\[2\] "BC": member "BC" ends at a missing node "Q"/);
+  });
+
+  it("does not report stand-in values as further problems of a broken row", () => {
+    const model = valid() as unknown as { sections: { area: unknown }[] };
+    model.sections[0].area = "big";
+    const result = validateModel(model);
+    expect(result.ok).toBe(false);
+    expect(!result.ok && result.problems).toHaveLength(1);
+  });
+});

@@ -51,6 +51,37 @@ export const trussModelSchema = z.object({
 });
 
 export type TrussModel = z.infer<typeof trussModelSchema>;
+
+// The same shape with every bad field (or row) replaced by a neutral stand-in: after a failed parse it lets the
+// cross-reference checks still run, so one wrong type does not hide the other problems.
+const anyId = z.string().catch("");
+const anyNum = z.number().catch(0);
+const anyFlag = z.boolean().catch(false);
+const salvageRow = <T extends z.ZodObject>(row: T) => row.catch(row.parse({}));
+const salvageSchema = z.object({
+  format: z.literal("truss-model/1").catch("truss-model/1"),
+  name: z.string().catch(""),
+  materials: z.array(salvageRow(z.object({ id: anyId, E: z.number().catch(1), fy: anyNum, unitWeight: anyNum }))),
+  sections: z.array(
+    salvageRow(z.object({ id: anyId, material: anyId, area: z.number().catch(1), radiusOfGyration: anyNum, outerDiameter: anyNum, wallThickness: anyNum })),
+  ),
+  nodes: z.array(salvageRow(z.object({ id: anyId, x: anyNum, y: anyNum, z: anyNum }))),
+  members: z.array(salvageRow(z.object({ id: anyId, i: anyId, j: anyId, section: anyId, effectiveLengthFactor: z.number().optional().catch(undefined) }))),
+  supports: z.array(salvageRow(z.object({ node: anyId, ux: anyFlag, uy: anyFlag, uz: anyFlag }))),
+  loadCases: z.array(
+    salvageRow(
+      z.object({
+        id: anyId,
+        name: z.string().catch(""),
+        category: z.enum(loadCategories).catch("other"),
+        selfWeight: anyFlag,
+        nodalLoads: z.array(salvageRow(z.object({ node: anyId, fx: anyNum, fy: anyNum, fz: anyNum }))).catch([]),
+      }),
+    ),
+  ),
+  combinations: z.array(salvageRow(z.object({ id: anyId, name: z.string().catch(""), factors: z.record(z.string(), anyNum).catch({}) }))),
+});
+
 export type TrussMaterial = z.infer<typeof materialSchema>;
 export type TrussSection = z.infer<typeof sectionSchema>;
 export type TrussNode = z.infer<typeof nodeSchema>;
@@ -88,13 +119,20 @@ const tables = new Set<string>(["materials", "sections", "nodes", "members", "su
 export function validateModel(input: unknown, locate: Locator = jsonLocator(input)): ValidationResult {
   const parsed = trussModelSchema.safeParse(input);
   if (!parsed.success) {
-    return {
-      ok: false,
-      problems: parsed.error.issues.map((issue) => ({
-        where: describePath(issue.path, locate),
-        message: issue.code === "invalid_type" && issue.expected === "number" ? `${issue.message} (numbers must be finite)` : issue.message,
-      })),
-    };
+    const problems = parsed.error.issues.map((issue) => ({
+      where: describePath(issue.path, locate),
+      message: issue.code === "invalid_type" && issue.expected === "number" ? `${issue.message} (numbers must be finite)` : issue.message,
+    }));
+    const salvaged = salvageSchema.safeParse(input);
+    // only when every table is at least a list: otherwise each reference would look missing
+    if (salvaged.success) {
+      // rows with a structural problem already have one; their stand-in values would only add noise
+      const flagged = problems.map((p) => p.where);
+      for (const p of checkReferences(salvaged.data, locate)) {
+        if (!flagged.some((w) => w.startsWith(p.where))) problems.push(p);
+      }
+    }
+    return { ok: false, problems };
   }
   const problems = checkReferences(parsed.data, locate);
   return problems.length === 0 ? { ok: true, model: parsed.data } : { ok: false, problems };
