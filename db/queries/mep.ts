@@ -1,7 +1,8 @@
 import "server-only";
-import { and, asc, desc, eq } from "drizzle-orm";
+import { and, asc, desc, eq, sql } from "drizzle-orm";
 import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
 import { analysisRuns, mepRuns, modelRevisions, type MepRun } from "@/db/schema";
+import type { EnvelopeEntry } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
 import { NotFoundError, ValidationError, issuesFrom } from "@/lib/http/errors";
 import { runSchema, type Run, type RunEdit } from "@/lib/mep/schemas";
@@ -54,6 +55,23 @@ export async function getRevisionForMep({ projectId, number, db = getDb() }: { p
 export async function getLatestAnalysisForRevision({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }) {
   const [row] = await db.select().from(analysisRuns).where(eq(analysisRuns.revisionId, revisionId)).orderBy(desc(analysisRuns.createdAt)).limit(1);
   return row ?? null;
+}
+
+/**
+ * What the clash table needs from the newest analysis of a revision: each member's envelope and verdict. Picked
+ * out in SQL because the stored result and review (every case, every check) are large to load and parse.
+ */
+export async function getMemberStatesForRevision({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ envelope: Record<string, EnvelopeEntry> | null; verdicts: unknown }> {
+  const [row] = await db
+    .select({
+      envelope: sql<Record<string, EnvelopeEntry> | null>`${analysisRuns.result} -> 'envelope'`,
+      verdicts: sql<unknown>`(select jsonb_object_agg(m.key, m.value -> 'verdict') from jsonb_each(${analysisRuns.review} -> 'members') as m)`,
+    })
+    .from(analysisRuns)
+    .where(eq(analysisRuns.revisionId, revisionId))
+    .orderBy(desc(analysisRuns.createdAt))
+    .limit(1);
+  return row ?? { envelope: null, verdicts: null };
 }
 
 /** Every run of a revision, in id order. */

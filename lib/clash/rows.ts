@@ -1,4 +1,4 @@
-import type { AnalysisResult } from "@/lib/analysis/analyze";
+import type { EnvelopeEntry } from "@/lib/analysis/analyze";
 import type { Run } from "@/lib/mep/schemas";
 import { memberForceState, type ForceState } from "./member-state";
 
@@ -34,10 +34,10 @@ export type ClashTableRow<C extends StoredClash = StoredClash> = C & {
 };
 
 /** Joins clashes with their run's system and the member's envelope over all combinations. */
-export function clashTableRows<C extends StoredClash>({ clashes, runs, result, verdicts, lowForceThreshold }: { clashes: C[]; runs: Pick<Run, "id" | "system">[]; result: AnalysisResult | null; verdicts: Record<string, string>; lowForceThreshold: number }): ClashTableRow<C>[] {
+export function clashTableRows<C extends StoredClash>({ clashes, runs, envelope, verdicts, lowForceThreshold }: { clashes: C[]; runs: Pick<Run, "id" | "system">[]; envelope: Record<string, EnvelopeEntry> | null; verdicts: Record<string, string>; lowForceThreshold: number }): ClashTableRow<C>[] {
   const systems = new Map(runs.map((r) => [r.id, r.system]));
   return clashes.map((clash) => {
-    const entry = result?.envelope[clash.memberId];
+    const entry = envelope?.[clash.memberId];
     return {
       ...clash,
       system: systems.get(clash.runId) ?? null,

@@ -1,12 +1,14 @@
 import { z } from "zod";
 
-// The stored member review (analysis_runs.review, written by lib/models/analyse.ts) carries each member's verdict;
-// this reads only that part, and a missing review (unstable model) gives no verdicts.
+// Member verdicts as read from the stored review (analysis_runs.review.members[id].verdict, written by
+// lib/models/analyse.ts); anything that is not one of the four verdicts is dropped rather than shown.
 const VERDICTS = ["load-bearing", "stabilising", "bracing", "idle"] as const;
-const reviewSchema = z.object({ members: z.record(z.string(), z.object({ verdict: z.enum(VERDICTS) })) });
+const verdictMapSchema = z.record(z.string(), z.unknown());
+const verdictSchema = z.enum(VERDICTS);
 
-/** memberId → verdict (load-bearing / stabilising / bracing / idle) from a stored review, empty when absent. */
-export function memberVerdicts(review: unknown): Record<string, string> {
-  const parsed = reviewSchema.safeParse(review);
-  return parsed.success ? Object.fromEntries(Object.entries(parsed.data.members).map(([id, m]) => [id, m.verdict])) : {};
+/** memberId → verdict (load-bearing / stabilising / bracing / idle), empty when the review has none. */
+export function memberVerdicts(raw: unknown): Record<string, string> {
+  const parsed = verdictMapSchema.safeParse(raw);
+  if (!parsed.success) return {};
+  return Object.fromEntries(Object.entries(parsed.data).filter((entry): entry is [string, (typeof VERDICTS)[number]] => verdictSchema.safeParse(entry[1]).success));
 }

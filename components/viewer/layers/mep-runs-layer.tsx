@@ -14,7 +14,7 @@ export const mepLook = {
   runOpacity: 0.45,
   clash: "#e11d48",
   /** Marker radius in metres; the selected clash is drawn larger. */
-  clashRadius: 0.12,
+  clashRadius: 0.35,
   selectedScale: 1.8,
 } as const;
 

@@ -1,5 +1,5 @@
 import { listClashesByRevision } from "@/db/queries/clashes";
-import { getLatestAnalysisForRevision, listRunsByRevision, redetectClashes } from "@/db/queries/mep";
+import { getMemberStatesForRevision, listRunsByRevision, redetectClashes } from "@/db/queries/mep";
 import { requireProjectRole, requireUser } from "@/lib/auth/guard";
 import { getRequestUser } from "@/lib/auth/session";
 import { clashListQuerySchema, detectRequestSchema } from "@/lib/clash/outcomes";
@@ -23,12 +23,12 @@ export const GET = handleRoute(async (request: Request, context: Context) => {
   const membership = await requireProjectRole(await getRequestUser(request), projectId, "project.read");
   const query = parseWith(clashListQuerySchema, Object.fromEntries(new URL(request.url).searchParams));
   const revision = await requireRevision(projectId, query.revision);
-  const [clashes, runs, analysis] = await Promise.all([
+  const [clashes, runs, states] = await Promise.all([
     listClashesByRevision({ revisionId: revision.id }),
     listRunsByRevision({ revisionId: revision.id }),
-    getLatestAnalysisForRevision({ revisionId: revision.id }),
+    getMemberStatesForRevision({ revisionId: revision.id }),
   ]);
-  const rows = clashTableRows({ clashes, runs, result: analysis?.result ?? null, verdicts: memberVerdicts(analysis?.review), lowForceThreshold: query.lowForce });
+  const rows = clashTableRows({ clashes, runs, envelope: states.envelope, verdicts: memberVerdicts(states.verdicts), lowForceThreshold: query.lowForce });
   const abilities = abilitiesOf(membership.role);
   return Response.json({
     revision: { id: revision.id, number: revision.number },
