@@ -58,10 +58,24 @@ export function issuesFrom(error: ZodError): Issue[] {
   return error.issues.map((issue) => ({ path: issue.path.map(String).join("."), message: issue.message }));
 }
 
+/** PostgreSQL's SQLSTATE of a database error (drizzle wraps the driver's error as its cause). */
+function sqlState(error: unknown): string | undefined {
+  for (let current = error, depth = 0; current && typeof current === "object" && depth < 3; current = (current as { cause?: unknown }).cause, depth++) {
+    const code = (current as { code?: unknown }).code;
+    if (typeof code === "string" && /^[0-9A-Z]{5}$/.test(code)) return code;
+  }
+  return undefined;
+}
+
 /** The JSON body and status for any thrown value; unknown errors are logged and answered with a plain 500. */
 export function errorBody(error: unknown): { status: number; body: { error: string; issues?: Issue[] } } {
   if (error instanceof HttpError) {
     return { status: error.status, body: error.issues ? { error: error.message, issues: error.issues } : { error: error.message } };
+  }
+  // A unique violation lost to a concurrent request (two sign-ups with one e-mail): a conflict, not a crash.
+  if (sqlState(error) === "23505") {
+    console.error("[strutroom] unique violation", error);
+    return { status: 409, body: { error: "This already exists: reload and try again." } };
   }
   console.error("[strutroom] unexpected error", error);
   return { status: 500, body: { error: "Something went wrong on our side. Please try again." } };
