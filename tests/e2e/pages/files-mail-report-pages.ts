@@ -1,0 +1,89 @@
+// Page objects for the screens of issue 8: the captured-mail page, a pin thread's attachments in the viewer's live
+// review, and the report page; plus signing in (kept here so these tests depend on no other area's page objects).
+import type { Page } from "playwright-core";
+
+/** Signs in through the sign-in screen and waits for the project list. */
+export async function signIn(page: Page, email: string, password: string): Promise<void> {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByTestId("sign-in-submit").click();
+  await page.waitForURL(/\/projects$/);
+}
+
+/** The owners' captured-mail page (development). */
+export class CapturedMailPage {
+  constructor(readonly page: Page) {}
+
+  async open(projectId: string) {
+    await this.page.goto(`/projects/${projectId}/mail`);
+    await this.page.getByTestId("captured-mail").waitFor();
+  }
+
+  /** Reloads until a mail to `to` with the subject shows up (the jobs process sends the outbox every few seconds). */
+  async waitForMail(projectId: string, to: string, subject: RegExp, attempts = 30) {
+    for (let attempt = 0; attempt < attempts; attempt += 1) {
+      await this.open(projectId);
+      const item = this.page.getByTestId("captured-mail-item").filter({ hasText: to }).filter({ hasText: subject });
+      if ((await item.count()) > 0) return item.first();
+      await this.page.waitForTimeout(1000);
+    }
+    throw new Error(`No captured mail to ${to} matching ${subject}.`);
+  }
+}
+
+/** The live review beside the 3D viewer: pins, a thread, and its comments' attachments. */
+export class ReviewThreadPage {
+  constructor(readonly page: Page) {}
+
+  async open(projectId: string) {
+    await this.page.goto(`/projects/${projectId}/viewer`);
+    await this.page.locator('[data-testid="connection-state"][data-state="connected"]').waitFor({ timeout: 60_000 });
+  }
+
+  async selectPin(title: string) {
+    await this.page.getByTestId("pin-item").filter({ hasText: title }).click();
+    await this.page.getByTestId("pin-thread").waitFor();
+  }
+
+  comment(text: string) {
+    return this.page.getByTestId("comment").filter({ hasText: text });
+  }
+
+  async attach(commentText: string, file: { name: string; mimeType: string; buffer: Buffer }) {
+    await this.comment(commentText).getByTestId("attachment-input").setInputFiles(file);
+  }
+}
+
+/** The report page: revision, results, comparison, and the CSV exports. */
+export class ReportPage {
+  constructor(readonly page: Page) {}
+
+  async open(projectId: string) {
+    await this.page.goto(`/projects/${projectId}/report`);
+    await this.page.getByTestId("report-form").waitFor();
+  }
+
+  async chooseResults(ids: string[]) {
+    for (const box of await this.page.getByTestId("report-form").locator('input[name="combinations"]').all()) {
+      await box.setChecked(ids.includes(await box.getAttribute("value") ?? ""));
+    }
+  }
+
+  async compare(first: string, second: string) {
+    await this.page.getByTestId("report-compare-first").selectOption(first);
+    await this.page.getByTestId("report-compare-second").selectOption(second);
+  }
+
+  /** The URL the form would open (its action and fields), to fetch the PDF with the page's session. */
+  reportUrl(): Promise<string> {
+    return this.page.getByTestId("report-form").evaluate((form: HTMLFormElement) => {
+      const query = new URLSearchParams([...new FormData(form)].map(([key, value]) => [key, String(value)]));
+      return `${form.action}?${query}`;
+    });
+  }
+
+  envelopeUrl(): Promise<string | null> {
+    return this.page.getByTestId("export-envelope").getAttribute("href");
+  }
+}
