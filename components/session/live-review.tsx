@@ -9,6 +9,7 @@ import type { RevisionWithResults } from "@/db/queries/models";
 import { apiFetch } from "@/lib/http/fetcher";
 import { resolveAnchor } from "@/lib/realtime/anchors";
 import type { Vec3 } from "@/lib/realtime/events";
+import { MentionsList } from "./mentions-list";
 import { NewPinForm } from "./new-pin-form";
 import { PinList } from "./pin-list";
 import { PinThread } from "./pin-thread";
@@ -36,7 +37,6 @@ export function LiveReview({ projectId, revisionNumber, realtimeUrl }: { project
   const pins = useSessionStore((s) => s.pins);
   const selectedPinId = useSessionStore((s) => s.selectedPinId);
   const abilities = useSessionStore((s) => s.abilities);
-  const unread = useSessionStore((s) => s.notifications.filter((n) => !n.readAt).length);
 
   // Same key as the model viewer: the revision is fetched once and shared.
   const revision = useQuery({
@@ -80,9 +80,9 @@ export function LiveReview({ projectId, revisionNumber, realtimeUrl }: { project
           <span className={`mr-1 inline-block h-2 w-2 rounded-full ${connection === "connected" ? "bg-tension" : connection === "refused" ? "bg-clash" : "bg-compression"}`} />
           {CONNECTION_TEXT[connection]}
           {refusal ? `: ${refusal}` : ""}
-          {unread > 0 ? <span className="ml-2 text-xs" data-testid="unread-mentions">{unread} new mention{unread === 1 ? "" : "s"}</span> : null}
         </p>
         <SessionControls socket={socket} />
+        <MentionsList projectId={projectId} />
         <PresenceList />
         {selectedPin && socket ? <PinThread key={selectedPin.id} socket={socket} projectId={projectId} pin={selectedPin} position={positions.get(selectedPin.id) ?? null} /> : null}
         <PinList detached={detached} />

@@ -53,6 +53,7 @@ export interface SessionState {
   addComments(comments: PresentedComment[]): void;
   setThread(pinId: string, comments: PresentedComment[]): void;
   addNotifications(notifications: PresentedNotification[]): void;
+  markNotificationRead(notification: PresentedNotification): void;
   selectPin(id: string | null): void;
   setFilter(patch: Partial<PinFilter>): void;
   setServerTime(time: string): void;
@@ -108,6 +109,7 @@ export const useSessionStore = create<SessionState>()((set, get) => ({
     const known = new Set(get().notifications.map((n) => n.id));
     set({ notifications: [...notifications.filter((n) => !known.has(n.id)), ...get().notifications] });
   },
+  markNotificationRead: (read) => set({ notifications: get().notifications.map((n) => (n.id === read.id ? read : n)) }),
   selectPin: (id) => set({ selectedPinId: id }),
   setFilter: (patch) => set({ filter: { ...get().filter, ...patch } }),
   setServerTime: (time) => set({ lastServerTime: time }),
