@@ -9,6 +9,7 @@ import { MepRunsLayer } from "@/components/viewer/layers/mep-runs-layer";
 import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
 import { ClashTable } from "./clash-table";
+import { CopyRunsForm } from "./copy-runs-form";
 import { useClashStore } from "./clash-store";
 import { DecisionPanel } from "./decision-panel";
 import { HangServicesButton } from "./hang-services-button";
@@ -23,7 +24,7 @@ function focusClash(row: ClashRowData) {
   viewer.flyTo([row.point.x, row.point.y, row.point.z]);
 }
 
-export function ClashBoard({ projectId, revision, initialClash }: { projectId: string; revision: number; initialClash: string | null }) {
+export function ClashBoard({ projectId, revision, otherRevisions, initialClash }: { projectId: string; revision: number; otherRevisions: number[]; initialClash: string | null }) {
   const queryClient = useQueryClient();
   const [lowForce, setLowForce] = useState(5);
   const clashes = useQuery({
@@ -96,6 +97,7 @@ export function ClashBoard({ projectId, revision, initialClash }: { projectId: s
             {clashes.data.abilities.editRuns && (
               <section className="rounded-xl border border-board-200 bg-white p-4" aria-label="Import runs">
                 <h2 className="mb-2 font-semibold text-board-900">Duct and pipe runs</h2>
+                {runs.data?.runs.length === 0 && otherRevisions.length > 0 && <CopyRunsForm projectId={projectId} revision={revision} sources={otherRevisions} onCopied={refresh} />}
                 <ImportRunsForm projectId={projectId} revision={revision} onImported={refresh} />
               </section>
             )}

@@ -4,7 +4,7 @@ import { getDb, withTransaction, type Executor, type Transaction } from "@/db/cl
 import { analysisRuns, mepRuns, modelRevisions, type MepRun } from "@/db/schema";
 import type { EnvelopeEntry } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
-import { NotFoundError, ValidationError, issuesFrom } from "@/lib/http/errors";
+import { ConflictError, NotFoundError, ValidationError, issuesFrom } from "@/lib/http/errors";
 import { runSchema, type Run, type RunEdit } from "@/lib/mep/schemas";
 import { recordAuditEvent } from "./audit";
 import { insertRevisionWithAnalysis, type CreateRevisionInput } from "./models";
@@ -138,6 +138,17 @@ export async function redetectClashes({ projectId, revision, actorId }: { projec
   return withTransaction(async (tx) => {
     const detection = await redetect(tx, projectId, revision);
     await recordAuditEvent({ db: tx, projectId, actorId, action: "clashes.detect", subjectType: "model_revision", subjectId: revision.id, details: { ...detection } });
+    return detection;
+  });
+}
+
+/** Brings another revision's runs onto a revision that has none (after a model change) and detects its clashes. */
+export async function copyRunsToRevision({ projectId, fromRevisionId, toRevision, actorId }: { projectId: string; fromRevisionId: string; toRevision: { id: string; model: TrussModel }; actorId: string }): Promise<DetectionSummary> {
+  return withTransaction(async (tx) => {
+    const [existing] = await tx.select({ id: mepRuns.id }).from(mepRuns).where(eq(mepRuns.revisionId, toRevision.id)).limit(1);
+    if (existing) throw new ConflictError("This revision already has runs; import or edit them instead.");
+    const detection = await carryRunsForward({ projectId, fromRevisionId, toRevision, actorId, db: tx });
+    await recordAuditEvent({ db: tx, projectId, actorId, action: "runs.copy", subjectType: "model_revision", subjectId: toRevision.id, details: { fromRevisionId, ...detection } });
     return detection;
   });
 }

@@ -39,4 +39,5 @@ export const clashListQuerySchema = z.object({
   lowForce: z.coerce.number().min(0).max(100_000).default(5),
 });
 
-export const detectRequestSchema = z.object({ revision: z.number().int().positive() });
+/** Re-run detection on a revision; with copyRunsFrom, first bring that revision's runs onto it (model changed). */
+export const detectRequestSchema = z.object({ revision: z.number().int().positive(), copyRunsFrom: z.number().int().positive().optional() });

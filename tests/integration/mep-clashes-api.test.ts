@@ -222,3 +222,19 @@ describe("hang the services", () => {
     expect(keys(list.clashes)).toEqual(keys(first.clashes));
   });
 });
+
+describe("a model change: bringing runs onto a new revision", () => {
+  it("copies the runs of revision 1 onto a fresh revision, keeps clash keys, and refuses a second copy", async () => {
+    const model = generateRoof({ name: "Test roof, deeper", spanX: 9, spanY: 9, module: 3, depth: 2 });
+    const { result, review } = analyseForStorage(model, "EN1993-1-1");
+    const fresh = await createRevisionWithAnalysis({ projectId: fx.projectId, name: "r3", model, source: "generated", createdBy: fx.users.structural_engineer.id, result, review });
+    const path = `/api/projects/${fx.projectId}/clashes`;
+    const body = { revision: fresh.number, copyRunsFrom: 1 };
+    expect((await DETECT(await buildRequest(path, { method: "POST", body, user: fx.users.architect }), ctx())).status).toBe(403);
+    const copied = await DETECT(await buildRequest(path, { method: "POST", body, user: fx.users.mep_engineer }), ctx());
+    expect(copied.status).toBe(200);
+    expect((await copied.json()).detection).toMatchObject({ found: 4, hard: 4 });
+    const again = await DETECT(await buildRequest(path, { method: "POST", body, user: fx.users.mep_engineer }), ctx());
+    expect(again.status).toBe(409);
+  });
+});

@@ -33,7 +33,7 @@ export default async function ClashesPage({ params, searchParams }: PageProps<"/
       ) : (
         <>
           <ClashRevisionPicker projectId={project.id} revisions={revisions.map((r) => ({ number: r.number, name: r.name }))} current={number} />
-          <ClashBoard key={number} projectId={project.id} revision={number} initialClash={typeof clash === "string" ? clash : null} />
+          <ClashBoard key={number} projectId={project.id} revision={number} otherRevisions={revisions.map((r) => r.number).filter((n) => n !== number)} initialClash={typeof clash === "string" ? clash : null} />
         </>
       )}
     </div>

@@ -1,5 +1,5 @@
 import { listClashesByRevision } from "@/db/queries/clashes";
-import { getMemberStatesForRevision, listRunsByRevision, redetectClashes } from "@/db/queries/mep";
+import { copyRunsToRevision, getMemberStatesForRevision, listRunsByRevision, redetectClashes } from "@/db/queries/mep";
 import { requireProjectRole, requireUser } from "@/lib/auth/guard";
 import { getRequestUser } from "@/lib/auth/session";
 import { clashListQuerySchema, detectRequestSchema } from "@/lib/clash/outcomes";
@@ -43,12 +43,19 @@ export const GET = handleRoute(async (request: Request, context: Context) => {
   });
 });
 
-/** Re-runs clash detection on the revision's runs (after a model change or on request). */
+/**
+ * Re-runs clash detection on the revision's runs (on request), or — with `copyRunsFrom` — first brings an earlier
+ * revision's runs onto a new revision that has none, so a model change keeps its services and clash ids.
+ */
 export const POST = handleRoute(async (request: Request, context: Context) => {
   const { projectId } = parseParams(projectParamsSchema, await context.params);
   const user = requireUser(await getRequestUser(request));
   await requireProjectRole(user, projectId, "runs.edit");
   const input = await parseJson(request, detectRequestSchema);
   const revision = await requireRevision(projectId, input.revision);
+  if (input.copyRunsFrom !== undefined) {
+    const from = await requireRevision(projectId, input.copyRunsFrom);
+    return Response.json({ detection: await copyRunsToRevision({ projectId, fromRevisionId: from.id, toRevision: revision, actorId: user.id }) });
+  }
   return Response.json({ detection: await redetectClashes({ projectId, revision, actorId: user.id }) });
 });
