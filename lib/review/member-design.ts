@@ -1,6 +1,6 @@
 // Per-member design checks across results: the inputs from the model and the governing check per member.
 import type { AnalysisResult, TrussModel } from "@/lib/analysis";
-import { checkAxialForce, tableUtilisation, type ResistanceTable } from "./design-checks/member-check";
+import { checkAxialForce, resistanceTable, tableResistance, tableUtilisation, type ResistanceTable } from "./design-checks/member-check";
 import type { AxialCheck, ChsFabrication, DesignStandard, MemberDesignInput } from "./design-checks/types";
 
 export type DesignOptions = { standard: DesignStandard; fabrication?: ChsFabrication };
@@ -51,14 +51,15 @@ export function memberDesignInputs(model: TrussModel, fabrication: ChsFabricatio
 /** Checks every member under every design result; keeps the governing check's arithmetic. */
 export function designMembers(model: TrussModel, result: AnalysisResult, options: DesignOptions): MemberDesign[] {
   const inputs = memberDesignInputs(model, options.fabrication);
+  const table = resistanceTable(options.standard, inputs);
   const ids = designResultIds(model).filter((id) => result.results[id]);
   const zero = ids.map((id) => new Set(result.results[id].zeroForceMembers));
   return model.members.map((member, e) => {
     const checks = ids.map((id, k): ResultCheck => {
       // A zero-force member's rounding-level force is no force at all.
       const force = zero[k].has(member.id) ? 0 : result.results[id].memberForces[member.id];
-      const check = checkAxialForce(options.standard, inputs[e], force);
-      return { result: id, force, mode: check.mode, resistance: check.resistance, utilisation: check.utilisation };
+      const mode = force > 0 ? "tension" : force < 0 ? "compression" : "none";
+      return { result: id, force, mode, resistance: tableResistance(table, e, force), utilisation: tableUtilisation(table, e, force) };
     });
     const worst = checks.reduce<ResultCheck | null>((g, c) => (c.mode !== "none" && (g === null || c.utilisation > g.utilisation) ? c : g), null);
     const governing = worst ? { result: worst.result, ...checkAxialForce(options.standard, inputs[e], worst.force) } : null;

@@ -83,9 +83,16 @@ export function removalWhatIf(context: ReviewContext, request: RemovalRequest): 
 
   // The intact displacements come from the analysis; the removed members' self-weight no longer acts, so
   // their weight (loadVectorForCase on just those members) is taken off every self-weight case: one solve.
-  const weightModel: TrussModel = { ...model, members: model.members.filter((_, e) => removedMask[e]), loadCases: [{ id: "weight", name: "", category: "dead", selfWeight: true, nodalLoads: [] }] };
-  const lostWeight = structure.solve(loadVectorForCase(weightModel, "weight", buildTopology(weightModel)));
-  const without = (u: Float64Array, selfWeight: boolean) => (selfWeight ? u.map((v, q) => v - lostWeight[q]) : u);
+  let lostWeight: Float64Array | null = null;
+  const without = (u: Float64Array, selfWeight: boolean) => {
+    if (!selfWeight) return u;
+    if (!lostWeight) {
+      const weightModel: TrussModel = { ...model, members: model.members.filter((_, e) => removedMask[e]), loadCases: [{ id: "weight", name: "", category: "dead", selfWeight: true, nodalLoads: [] }] };
+      lostWeight = structure.solve(loadVectorForCase(weightModel, "weight", buildTopology(weightModel)));
+    }
+    const lost = lostWeight;
+    return u.map((v, q) => v - lost[q]);
+  };
   const before = new Map(context.forces);
   const after = new Map<string, Float64Array>();
   for (const loadCase of reduced.loadCases) {

@@ -51,10 +51,14 @@ export function resistanceTable(standard: DesignStandard, inputs: MemberDesignIn
   return table;
 }
 
+/** Resistance (kN) of member e for the sign of `force`, from a resistance table (0 for no force). */
+export function tableResistance(table: ResistanceTable, e: number, force: number): number {
+  if (force > 0) return table.tension[e];
+  if (force === 0) return 0;
+  return table.ncr[e] > 0 && -force / table.ncr[e] <= 0.04 ? table.compressionSmallForce[e] : table.compression[e];
+}
+
 /** Utilisation of member e under `force` from a resistance table. */
 export function tableUtilisation(table: ResistanceTable, e: number, force: number): number {
-  if (force > 0) return force / table.tension[e];
-  if (force === 0) return 0;
-  const demand = -force;
-  return demand / (table.ncr[e] > 0 && demand / table.ncr[e] <= 0.04 ? table.compressionSmallForce[e] : table.compression[e]);
+  return force === 0 ? 0 : Math.abs(force) / tableResistance(table, e, force);
 }
