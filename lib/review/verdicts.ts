@@ -3,6 +3,7 @@ import { STANDING_CAUTION } from "./caution";
 import type { ReviewContext } from "./context";
 import { lowRankRemoval } from "./low-rank";
 import { fullyRestrained } from "./removal";
+import { holdingRank } from "./span";
 
 export type VerdictKind = "load-bearing" | "stabilising" | "bracing" | "idle";
 
@@ -43,7 +44,10 @@ export function memberVerdicts(context: ReviewContext): MemberVerdict[] {
       const sense = worst > 0 ? "tension" : "compression";
       return { member: member.id, verdict: "load-bearing", reason: `Carries force: up to ${Math.abs(worst).toPrecision(4)} kN ${sense} in ${where}.`, caution: STANDING_CAUTION };
     }
-    if (lowRankRemoval(structure, [e]).mechanism) {
+    // A joint left with fewer than three independent holding directions is a mechanism outright; otherwise
+    // one low-rank solve decides.
+    const locallyFree = holdingRank(structure.topology, memberI[e], e) < 3 || holdingRank(structure.topology, memberJ[e], e) < 3;
+    if (locallyFree || lowRankRemoval(structure, [e]).mechanism) {
       return { member: member.id, verdict: "stabilising", reason: "Zero in every load case and combination, but the roof becomes a mechanism without it.", caution: STANDING_CAUTION };
     }
     const braces = new Set<string>();

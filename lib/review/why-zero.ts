@@ -8,9 +8,8 @@
 // is shown zero it drops out at both its joints and the inspection is repeated there (Baker & Haynes §6.3).
 import { loadVectorForCase, type AnalysisResult, type TrussModel } from "@/lib/analysis";
 import { buildTopology, type Topology } from "@/lib/analysis/topology";
+import { AXES, Span } from "./span";
 
-/** A basis vector is kept when its residual exceeds this (unit vectors): below it, "lies in the plane". */
-const IN_PLANE_TOLERANCE = 1e-12;
 /** A member must leave the plane by more than this (sine of the angle) before inspection calls it zero. */
 const OUT_OF_PLANE_TOLERANCE = 1e-4;
 
@@ -23,30 +22,6 @@ export type WhyZero =
   | { member: string; method: "inspection"; explanation: string; chain: InspectionStep[] }
   | { member: string; method: "analysis"; explanation: string; chain: [] };
 
-/** Orthonormal basis of a span of up to three directions. */
-class Span {
-  basis: number[][] = [];
-  add(v: ArrayLike<number>) {
-    const r = this.residual(v);
-    const norm = Math.hypot(r[0], r[1], r[2]);
-    const scale = Math.hypot(v[0], v[1], v[2]);
-    if (this.basis.length < 3 && norm > IN_PLANE_TOLERANCE * scale) this.basis.push(r.map((x) => x / norm));
-  }
-  residual(v: ArrayLike<number>): number[] {
-    const r = [v[0], v[1], v[2]];
-    for (const q of this.basis) {
-      const dot = r[0] * q[0] + r[1] * q[1] + r[2] * q[2];
-      for (let s = 0; s < 3; s++) r[s] -= dot * q[s];
-    }
-    return r;
-  }
-}
-
-const AXES = [
-  [1, 0, 0],
-  [0, 1, 0],
-  [0, 0, 1],
-];
 
 /**
  * Runs joint inspection for one load vector (full 3n, kN). Returns, by member index, the step that shows it zero.
