@@ -1,0 +1,101 @@
+import { readFileSync } from "node:fs";
+import { chromium, type Browser, type Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { appUrl, baseUrl, CHROMIUM_FLAGS, screenshot } from "../support/browser";
+import { ProjectsPage } from "./pages/projects-page";
+import { SignInPage } from "./pages/sign-in-page";
+import { ViewerPage } from "./pages/viewer-page";
+
+const accounts = JSON.parse(readFileSync(new URL("../../db/seed/demo-accounts.json", import.meta.url), "utf8")) as {
+  password: string;
+  users: { email: string; role: string }[];
+};
+const DEMO_PROJECT = "Northfield Community Sports Hall — roof";
+// WebGL needs a software rasteriser in headless chromium without a GPU: ANGLE on SwiftShader.
+const WEBGL_FLAGS = ["--use-gl=angle", "--use-angle=swiftshader", "--enable-unsafe-swiftshader"];
+
+type CaseResult = { memberForces: Record<string, number>; zeroForceMembers: string[] };
+type Revision = {
+  model: { members: { id: string }[]; loadCases: { id: string }[]; combinations: { id: string }[] };
+  analysis: { result: { results: Record<string, CaseResult> } };
+};
+
+/** The counts the legend must show, computed here from the stored results (tension positive, design notes). */
+function expectedCounts(memberIds: string[], result: CaseResult) {
+  const zero = new Set(result.zeroForceMembers);
+  const counts = { tension: 0, compression: 0, zero: 0 };
+  for (const id of memberIds) {
+    if (zero.has(id)) counts.zero += 1;
+    else if (result.memberForces[id] > 0) counts.tension += 1;
+    else counts.compression += 1;
+  }
+  return counts;
+}
+
+let browser: Browser;
+let page: Page;
+let projectId: string;
+
+beforeAll(async () => {
+  browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH, args: [...CHROMIUM_FLAGS, ...WEBGL_FLAGS], headless: true });
+  const context = await browser.newContext({ baseURL: baseUrl(), viewport: { width: 1440, height: 900 } });
+  page = await context.newPage();
+  const structural = accounts.users.find((u) => u.role === "structural_engineer")!;
+  const signIn = new SignInPage(page);
+  await signIn.open();
+  await signIn.signIn(structural.email, accounts.password);
+  const projects = new ProjectsPage(page);
+  await projects.waitForList();
+  projectId = await projects.open(DEMO_PROJECT);
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("the 3D viewer on the demo roof", () => {
+  it("opens the latest revision, draws it with WebGL in a handful of draw calls", async () => {
+    const viewer = new ViewerPage(page);
+    await viewer.open(projectId);
+    const frame = await viewer.measureFrame();
+    expect(frame).not.toBeNull();
+    expect(frame!.triangles).toBeGreaterThan(0);
+    // Members are two instanced meshes; nodes, supports and the load arrows a few more; plus grid lines.
+    expect(frame!.calls).toBeLessThanOrEqual(10);
+    await screenshot(page, "viewer-demo-roof");
+  });
+
+  it("shows legend counts that match the stored results for every load case and combination", async () => {
+    const viewer = new ViewerPage(page);
+    const response = await page.request.get(appUrl(`/api/projects/${projectId}/models/1`));
+    expect(response.status()).toBe(200);
+    const { revision } = (await response.json()) as { revision: Revision };
+    const memberIds = revision.model.members.map((m) => m.id);
+    const ids = [...revision.model.combinations.map((c) => c.id), ...revision.model.loadCases.map((c) => c.id)];
+    expect(ids.length).toBeGreaterThan(1);
+    for (const id of ids) {
+      await viewer.chooseResult(id);
+      await expect.poll(() => viewer.legendResultLabel()).toContain(id);
+      const expected = expectedCounts(memberIds, revision.analysis.result.results[id]);
+      expect(expected.tension + expected.compression + expected.zero).toBe(memberIds.length);
+      expect(await viewer.legendCounts()).toEqual(expected);
+      expect(await viewer.hookCounts()).toEqual(expected);
+    }
+    await screenshot(page, "viewer-last-result");
+  });
+
+  it("opens the member panel with forces in every result, the review and the standing caution", async () => {
+    const viewer = new ViewerPage(page);
+    const response = await page.request.get(appUrl(`/api/projects/${projectId}/models/1`));
+    const { revision } = (await response.json()) as { revision: Revision };
+    const member = revision.model.members[0].id;
+    await viewer.selectMember(member);
+    expect(await page.getByTestId("member-panel-id").textContent()).toBe(`Member ${member}`);
+    const rows = page.getByTestId("member-panel-forces").locator("tr");
+    expect(await rows.count()).toBe(revision.model.loadCases.length + revision.model.combinations.length);
+    await page.getByTestId("member-panel-verdict").waitFor();
+    expect(await page.getByTestId("standing-caution").textContent()).toContain("engineer of record");
+    await page.getByTestId("whatif-remove").click();
+    await page.getByTestId("removal-result").waitFor({ timeout: 60_000 });
+    await screenshot(page, "viewer-member-panel");
+  });
+});
