@@ -5,6 +5,7 @@ import { useQuery } from "@tanstack/react-query";
 import { useMemo } from "react";
 import { ModelViewer, revisionQueryKey } from "@/components/viewer/model-viewer";
 import { PinsLayer, type PinMarker } from "@/components/viewer/layers/pins-layer";
+import { MepViewerLayer } from "@/components/clashes/mep-viewer-layer";
 import type { RevisionWithResults } from "@/db/queries/models";
 import { apiFetch } from "@/lib/http/fetcher";
 import { resolveAnchor } from "@/lib/realtime/anchors";
@@ -27,9 +28,9 @@ const CONNECTION_TEXT: Record<ConnectionState, string> = {
   refused: "The live review refused the connection",
 };
 
-type ClashList = { clashes: { id: string; point: { x: number; y: number; z: number } }[] };
+type ClashList = { clashes: { clashKey: string; point: { x: number; y: number; z: number } }[] };
 
-export function LiveReview({ projectId, revisionNumber, realtimeUrl }: { projectId: string; revisionNumber: number; realtimeUrl: string }) {
+export function LiveReview({ projectId, revisionNumber, realtimeUrl, focusClash = null }: { projectId: string; revisionNumber: number; realtimeUrl: string; focusClash?: string | null }) {
   const socket = useReviewSocket(projectId, realtimeUrl);
   useFollowPresenter(socket);
   const connection = useSessionStore((s) => s.connection);
@@ -51,7 +52,7 @@ export function LiveReview({ projectId, revisionNumber, realtimeUrl }: { project
   }).data;
 
   const { markers, positions, detached } = useMemo(() => {
-    const clashPoints = new Map<string, Vec3>((clashes?.clashes ?? []).map((c) => [c.id, [c.point.x, c.point.y, c.point.z]]));
+    const clashPoints = new Map<string, Vec3>((clashes?.clashes ?? []).map((c) => [c.clashKey, [c.point.x, c.point.y, c.point.z]]));
     const positions = new Map<string, Vec3>();
     const detached = new Set<string>();
     if (revision) {
@@ -68,7 +69,12 @@ export function LiveReview({ projectId, revisionNumber, realtimeUrl }: { project
   }, [pins, revision, clashes]);
 
   const selectedPin = selectedPinId ? pins[selectedPinId] : undefined;
-  const layers = <PinsLayer pins={markers} selectedPinId={selectedPinId} onSelectPin={(id) => useSessionStore.getState().selectPin(id)} />;
+  const layers = (
+    <>
+      <PinsLayer pins={markers} selectedPinId={selectedPinId} onSelectPin={(id) => useSessionStore.getState().selectPin(id)} />
+      <MepViewerLayer projectId={projectId} revision={revisionNumber} focusClash={focusClash} />
+    </>
+  );
 
   return (
     <div className="flex flex-col gap-3 xl:flex-row">

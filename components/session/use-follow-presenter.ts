@@ -40,8 +40,17 @@ export function useFollowPresenter(socket: ReviewSocket | null): void {
     if (latest) applyView(latest);
     const onView = (view: SessionView) => applyView(view);
     socket.on("session:view", onView);
+    // The 3D view may load after the session state: apply the latest view once its camera exists.
+    const unsubscribe = useViewerStore.subscribe(
+      (s) => s.controller,
+      (controller) => {
+        const view = useSessionStore.getState().lastView;
+        if (controller && view) applyView(view);
+      },
+    );
     return () => {
       socket.off("session:view", onView);
+      unsubscribe();
     };
   }, [socket, presenting, following, presenterId]);
 
