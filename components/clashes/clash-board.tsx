@@ -2,10 +2,9 @@
 // The clash review screen: the viewer with the MEP layer, the clash table, the selected clash's decision panel,
 // importing runs, re-running detection and hanging the services. What a user may do comes from the server.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useEffect, useMemo, useState } from "react";
+import { useEffect, useState } from "react";
 import { Button, FormMessage } from "@/components/ui/form";
 import { ModelViewer } from "@/components/viewer/model-viewer";
-import { MepRunsLayer } from "@/components/viewer/layers/mep-runs-layer";
 import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
 import { ClashTable } from "./clash-table";
@@ -14,6 +13,7 @@ import { useClashStore } from "./clash-store";
 import { DecisionPanel } from "./decision-panel";
 import { HangServicesButton } from "./hang-services-button";
 import { ImportRunsForm } from "./import-runs-form";
+import { MepViewerLayer } from "./mep-viewer-layer";
 import { clashesQueryKey, runsQueryKey, type ClashListResponse, type ClashRowData, type RunListResponse } from "./types";
 
 /** Selects the clash everywhere: table row, markers, the member in the viewer, and flies the camera to it. */
@@ -35,7 +35,6 @@ export function ClashBoard({ projectId, revision, otherRevisions, initialClash }
   const selectedKey = useClashStore((s) => s.selectedClashId);
   const rows = clashes.data?.clashes;
   const selected = rows?.find((r) => r.clashKey === selectedKey) ?? null;
-  const markers = useMemo(() => (rows ?? []).filter((r) => r.status === "active").map((r) => ({ id: r.clashKey, kind: r.kind, point: r.point })), [rows]);
   const refresh = () => {
     void queryClient.invalidateQueries({ queryKey: ["projects", projectId, "clashes"] });
     void queryClient.invalidateQueries({ queryKey: runsQueryKey(projectId, revision) });
@@ -48,11 +47,6 @@ export function ClashBoard({ projectId, revision, otherRevisions, initialClash }
     if (row) focusClash(row);
   }, [initialClash, rows]);
 
-  const handleMarker = (key: string) => {
-    const row = rows?.find((r) => r.clashKey === key);
-    if (row) focusClash(row);
-  };
-
   return (
     <div className="flex flex-col gap-4">
       {clashes.data && (
@@ -64,7 +58,7 @@ export function ClashBoard({ projectId, revision, otherRevisions, initialClash }
         <ModelViewer
           projectId={projectId}
           revisionNumber={revision}
-          layers={<MepRunsLayer runs={runs.data?.runs ?? []} clashes={markers} selectedClashId={selectedKey} onSelectClash={handleMarker} />}
+          layers={<MepViewerLayer projectId={projectId} revision={revision} />}
         />
       </div>
       {clashes.isPending ? (
@@ -86,7 +80,7 @@ export function ClashBoard({ projectId, revision, otherRevisions, initialClash }
                 </Button>
               )}
             </div>
-            <ClashTable rows={clashes.data.clashes} selectedId={selected?.id ?? null} onSelect={focusClash} threadHref={(row) => `/projects/${projectId}/sessions?clash=${row.clashKey}`} />
+            <ClashTable rows={clashes.data.clashes} selectedId={selected?.id ?? null} onSelect={focusClash} threadHref={(row) => `/projects/${projectId}/viewer?revision=${revision}&clash=${row.clashKey}`} />
           </div>
           <div className="flex flex-col gap-4">
             {selected ? (

@@ -19,7 +19,7 @@ function realtimeUrl(): string {
 
 export default async function ViewerPage({ params, searchParams }: PageProps<"/projects/[projectId]/viewer">) {
   const { projectId } = await params;
-  const { revision } = await searchParams;
+  const { revision, clash } = await searchParams;
   const { project } = await requirePageProject(projectId);
   const revisions = await listRevisionsByProject({ projectId });
   const requested = typeof revision === "string" ? Number(revision) : null;
@@ -40,7 +40,7 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
       ) : (
         <>
           <RevisionPicker projectId={project.id} revisions={revisions.map((r) => ({ number: r.number, name: r.name }))} current={number} />
-          <LiveReview key={number} projectId={project.id} revisionNumber={number} realtimeUrl={realtimeUrl()} />
+          <LiveReview key={number} projectId={project.id} revisionNumber={number} realtimeUrl={realtimeUrl()} focusClash={typeof clash === "string" ? clash : null} />
         </>
       )}
     </div>
