@@ -32,6 +32,7 @@ function assumptions(options: ReviewOptions, model: TrussModel): string[] {
       : "The model has no combinations: load cases are checked unfactored.",
     "Axial checks only (pin-jointed truss): tension yielding of the gross section and flexural buckling; connections, joints and net-section rupture are not checked.",
     "Buckling length = effective length factor × member length (factor 1.0 unless the member gives one).",
+    "E and fy are the model material's values; area and radius of gyration the model section's.",
     "Lost-brace screening doubles the buckling length of a compression member whose end joint lost a member not in line with it.",
   ];
   if (options.standard === "EN1993-1-1") {

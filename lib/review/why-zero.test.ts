@@ -144,3 +144,22 @@ describe("explainZeroForces", () => {
     expect(why["4a"][0].explanation).toMatch(/collinear/);
   });
 });
+
+describe("rule names", () => {
+  it("names the special case only when the load acts along the other member", () => {
+    // check-values §5.1 special case: two members at a joint, the load in line with one: the other is zero.
+    // A spur Z off U2/U3 loaded along U3Z; then the same spur loaded off that line (no longer the special case).
+    const spur = (load: { fx: number; fz: number }) => {
+      const model = prattTruss();
+      model.nodes.push({ id: "Z", x: 9, y: 0, z: 7 });
+      model.members.push({ id: "U3Z", i: "U3", j: "Z", section: "T1" }, { id: "U2Z", i: "U2", j: "Z", section: "T1" });
+      model.supports.push({ node: "Z", ux: false, uy: true, uz: false });
+      model.loadCases = [{ id: "P", name: "at Z", category: "other", selfWeight: false, nodalLoads: [{ node: "Z", fx: load.fx, fy: 0, fz: load.fz }] }];
+      model.combinations = [];
+      const topology = buildTopology(model);
+      return [...inspectZeroForces(topology, loadVectorForResult(model, "P", topology)).values()].find((s) => s.joint === "Z");
+    };
+    expect(spur({ fx: 0, fz: 5 })).toMatchObject({ member: "U2Z", rule: "special case: load along the other member" });
+    expect(spur({ fx: 3, fz: 5 })).toBeUndefined(); // a load off both lines needs both members
+  });
+});

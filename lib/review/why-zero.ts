@@ -70,22 +70,23 @@ export function inspectZeroForces(topology: Topology, load: Float64Array): Map<n
       for (const o of others) span.add(direction.subarray(3 * o, 3 * o + 3));
       const otherRank = span.basis.length;
       if (loaded) span.add(P);
+      const loadInLine = span.basis.length === otherRank;
       for (let s = 0; s < 3; s++) if (restrained[3 * a + s]) span.add(AXES[s]);
       const r = span.residual(direction.subarray(3 * m, 3 * m + 3));
       if (Math.hypot(r[0], r[1], r[2]) <= OUT_OF_PLANE_TOLERANCE) continue;
-      const rule = nameRule(others.length, otherRank, loaded, supported);
+      const rule = nameRule(others.length, otherRank, loaded && loadInLine, loaded, supported);
       return { index: m, step: { member: memberIds[m], joint: nodeIds[a], rule, after: [...droppedAt[a]], text: describe(memberIds[m], nodeIds[a], others.map((o) => memberIds[o]), rule, loaded, supported, droppedAt[a]) } };
     }
     return null;
   }
 }
 
-function nameRule(otherCount: number, otherRank: number, loaded: boolean, supported: boolean): ZeroRule {
+function nameRule(otherCount: number, otherRank: number, loadAlongOthers: boolean, loaded: boolean, supported: boolean): ZeroRule {
   const free = !loaded && !supported;
   if (free && otherCount === 0) return "last member at the joint";
   if (free && otherCount === 1) return "planar rule 1";
   if (free && otherCount === 2 && otherRank === 1) return "planar rule 2";
-  if (loaded && !supported && otherCount === 1) return "special case: load along the other member";
+  if (loadAlongOthers && !supported && otherCount === 1) return "special case: load along the other member";
   return "space-truss rule";
 }
 
