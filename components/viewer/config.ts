@@ -43,8 +43,8 @@ export const glyphLook = {
   /** Node sphere radius as a fraction of the typical member length. */
   nodeRadius: 0.03,
   supportSize: 0.12,
-  /** Longest load arrow as a fraction of the model's span. */
-  maxLoadArrow: 0.08,
+  /** Longest load arrow as a multiple of the typical member length. */
+  maxLoadArrow: 0.9,
 } as const;
 
 export const cameraLook = {

@@ -96,23 +96,23 @@ export function LoadsLayer({ prepared }: { prepared: PreparedModel }) {
   useLayoutEffect(() => {
     let largest = 0;
     for (const load of loads) largest = Math.max(largest, Math.hypot(load.fx, load.fy, load.fz));
-    const longest = glyphLook.maxLoadArrow * prepared.span;
+    const longest = glyphLook.maxLoadArrow * prepared.unitLength;
     let n = 0;
     for (const load of loads) {
       const k = prepared.nodes.index.get(load.node);
       const magnitude = Math.hypot(load.fx, load.fy, load.fz);
       if (k === undefined || magnitude === 0 || largest === 0) continue;
       const length = Math.max(0.25, magnitude / largest) * longest;
-      const head = Math.min(length * 0.35, prepared.unitLength * 0.25);
+      const head = Math.min(length * 0.35, prepared.unitLength * 0.15);
       // Unit geometry has its tip at the origin and its body along -y: turn +y to the force direction so the
       // arrow points along the force with its tip on the node.
       direction.set(load.fx, load.fy, load.fz).divideScalar(magnitude);
       rotation.setFromUnitVectors(yAxis, direction);
       position.fromArray(prepared.nodes.positions, k * 3);
-      matrix.compose(position, rotation, scale.set(head * 0.45, head, head * 0.45));
+      matrix.compose(position, rotation, scale.set(head * 0.35, head, head * 0.35));
       heads.setMatrixAt(n, matrix);
       position.addScaledVector(direction, -head);
-      matrix.compose(position, rotation, scale.set(head * 0.12, length - head, head * 0.12));
+      matrix.compose(position, rotation, scale.set(head * 0.08, length - head, head * 0.08));
       shafts.setMatrixAt(n, matrix);
       n += 1;
     }

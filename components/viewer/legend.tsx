@@ -9,7 +9,7 @@ export function Legend() {
   if (!legend) return null;
   const { counts, scale } = legend;
   return (
-    <section data-testid="viewer-legend" aria-label="Legend" className="pointer-events-auto w-72 rounded-md border border-board-200 bg-white/95 p-3 text-sm shadow-sm">
+    <section data-testid="viewer-legend" aria-label="Legend" className="pointer-events-auto w-60 rounded-md border border-board-200 bg-white/90 p-2 text-xs shadow-sm">
       <p className="font-semibold text-board-900" data-testid="legend-title">{legend.title}</p>
       <p className="mb-2 text-xs text-board-700" data-testid="legend-result">{legend.resultLabel}</p>
       <ul className="space-y-1">
@@ -38,15 +38,15 @@ export function Legend() {
       <dl className="mt-2 grid grid-cols-3 gap-1 border-t border-board-100 pt-2 text-center text-xs">
         <div>
           <dt className="text-tension">Tension</dt>
-          <dd className="font-mono text-base" data-testid="legend-count-tension">{counts.tension}</dd>
+          <dd className="font-mono text-sm" data-testid="legend-count-tension">{counts.tension}</dd>
         </div>
         <div>
           <dt className="text-compression">Compression</dt>
-          <dd className="font-mono text-base" data-testid="legend-count-compression">{counts.compression}</dd>
+          <dd className="font-mono text-sm" data-testid="legend-count-compression">{counts.compression}</dd>
         </div>
         <div>
           <dt className="text-board-700">Zero-force</dt>
-          <dd className="font-mono text-base" data-testid="legend-count-zero">{counts.zero}</dd>
+          <dd className="font-mono text-sm" data-testid="legend-count-zero">{counts.zero}</dd>
         </div>
       </dl>
     </section>

@@ -33,7 +33,7 @@ export function MemberPanel({ prepared, analysis, revision }: { prepared: Prepar
   const isCombination = new Set(prepared.model.combinations.map((c) => c.id));
 
   return (
-    <aside data-testid="member-panel" aria-label={`Member ${member.id}`} className="h-[75vh] w-96 shrink-0 overflow-y-auto border-l border-board-200 bg-white p-4 text-sm">
+    <aside data-testid="member-panel" aria-label={`Member ${member.id}`} className="h-[75vh] w-80 shrink-0 overflow-y-auto border-l border-board-200 bg-white p-4 text-sm">
       <header className="mb-3 flex items-start justify-between">
         <div>
           <h2 className="text-lg font-semibold" data-testid="member-panel-id">Member {member.id}</h2>

@@ -60,7 +60,9 @@ async function main() {
   const ports = { web: await freePort(), postgres: await freePort() };
   const databaseUrl = await startPostgres({ dataDir, port: ports.postgres, throwaway: true });
   const secret = "bench-viewer-secret-not-for-production";
-  const env = { ...process.env, NODE_ENV: "production" as const, DATABASE_URL: databaseUrl, NEXTAUTH_SECRET: secret, NEXTAUTH_URL: `http://127.0.0.1:${ports.web}`, APP_URL: `http://127.0.0.1:${ports.web}` };
+  const env = { ...process.env, NODE_ENV: "production" as const, DATABASE_URL: databaseUrl, NEXTAUTH_SECRET: secret, NEXTAUTH_URL: `http://127.0.0.1:${ports.web}`, APP_URL: `http://127.0.0.1:${ports.web}`,
+    // The viewer page embeds the live review; no realtime process runs here, so its socket just keeps retrying.
+    REALTIME_URL: "http://127.0.0.1:9" };
   process.env.DATABASE_URL = databaseUrl;
   execFileSync("node_modules/.bin/tsx", ["scripts/db-migrate.ts"], { env, stdio: "inherit" });
   const { projectId, user } = await storeModel();
