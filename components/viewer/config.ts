@@ -37,6 +37,9 @@ export const memberLook = {
   /** How much of the sign colour a low-force member keeps (the rest is white). */
   lowForceTint: 0.35,
   radialSegments: 8,
+  /** Above this many members: 4-sided members and no antialiasing, to keep software-rendered frames affordable. */
+  largeModel: 5000,
+  radialSegmentsLarge: 4,
 } as const;
 
 export const glyphLook = {

@@ -3,7 +3,7 @@
 // head), so glyph draw calls stay constant however big the roof is.
 import { useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo } from "react";
-import { BufferGeometry, Color, ConeGeometry, CylinderGeometry, IcosahedronGeometry, InstancedMesh, Matrix4, MeshLambertMaterial, Quaternion, Vector3 } from "three";
+import { BufferGeometry, Color, ConeGeometry, CylinderGeometry, OctahedronGeometry, InstancedMesh, Matrix4, MeshLambertMaterial, Quaternion, Vector3 } from "three";
 import { glyphLook, palette } from "./config";
 import { nodalLoadsFor, type PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
@@ -43,7 +43,7 @@ function commitInstances(mesh: InstancedMesh, count: number) {
 /** Small spheres at the nodes, following the deflected shape when it is on. */
 export function NodesLayer({ prepared, positions }: { prepared: PreparedModel; positions: Float32Array }) {
   const invalidate = useThree((s) => s.invalidate);
-  const geometry = useMemo(() => new IcosahedronGeometry(1, 0), []);
+  const geometry = useMemo(() => new OctahedronGeometry(1, 0), []);
   const mesh = useInstanced(geometry, palette.node, prepared.nodes.ids.length);
   useLayoutEffect(() => {
     const r = glyphLook.nodeRadius * prepared.unitLength;
@@ -89,8 +89,8 @@ export function LoadsLayer({ prepared }: { prepared: PreparedModel }) {
   const resultId = useViewerStore((s) => s.resultId);
   const loads = useMemo(() => (resultId ? nodalLoadsFor(prepared.model, resultId) : []), [prepared, resultId]);
   const capacity = prepared.model.nodes.length;
-  const shaftGeometry = useMemo(() => new CylinderGeometry(1, 1, 1, 6, 1).translate(0, -0.5, 0), []);
-  const headGeometry = useMemo(() => new ConeGeometry(1, 1, 8).translate(0, -0.5, 0), []);
+  const shaftGeometry = useMemo(() => new CylinderGeometry(1, 1, 1, 4, 1).translate(0, -0.5, 0), []);
+  const headGeometry = useMemo(() => new ConeGeometry(1, 1, 6).translate(0, -0.5, 0), []);
   const shafts = useInstanced(shaftGeometry, palette.load, capacity);
   const heads = useInstanced(headGeometry, palette.load, capacity);
   useLayoutEffect(() => {

@@ -16,7 +16,8 @@ import { useViewerStore } from "./viewer-store";
 interface Layer { mesh: InstancedMesh; order: Int32Array }
 
 function makeLayer(count: number, translucent: boolean): Layer {
-  const geometry = new CylinderGeometry(1, 1, 1, memberLook.radialSegments, 1, true);
+  const segments = count > memberLook.largeModel ? memberLook.radialSegmentsLarge : memberLook.radialSegments;
+  const geometry = new CylinderGeometry(1, 1, 1, segments, 1, true);
   const material = translucent
     ? new MeshBasicMaterial({ transparent: true, opacity: memberLook.translucentOpacity, depthWrite: false })
     : new MeshLambertMaterial();

@@ -24,7 +24,8 @@ function CanvasPlaceholder({ message }: { message: string }) {
   );
 }
 
-const ViewerCanvas = dynamic(() => import("./viewer-canvas"), { ssr: false, loading: () => <CanvasPlaceholder message="Loading the 3D view…" /> });
+const loadCanvas = () => import("./viewer-canvas");
+const ViewerCanvas = dynamic(loadCanvas, { ssr: false, loading: () => <CanvasPlaceholder message="Loading the 3D view…" /> });
 
 /** Query key of a revision with its results; the answer never changes, so it is fetched once per session. */
 export const revisionQueryKey = (projectId: string, number: number) => ["projects", projectId, "models", number] as const;
@@ -40,6 +41,10 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
     staleTime: Infinity,
     gcTime: 30 * 60_000,
   });
+  // Fetch the 3D code while the (large) results download, not after.
+  useEffect(() => {
+    void loadCanvas();
+  }, []);
   const revision = query.data;
   const prepared = useMemo(() => (revision ? prepareModel(revision.model, classifyMembers(revision.model)) : null), [revision]);
   const analysis = revision?.analysis?.result;

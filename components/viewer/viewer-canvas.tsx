@@ -6,7 +6,7 @@
 import { Canvas } from "@react-three/fiber";
 import { useMemo, type ReactNode } from "react";
 import { CameraRig } from "./camera-rig";
-import { cameraLook, palette } from "./config";
+import { cameraLook, memberLook, palette } from "./config";
 import { deflectedPositions } from "./filters";
 import { LoadsLayer, NodesLayer, SupportsLayer } from "./glyphs-layer";
 import { MembersLayer } from "./members-layer";
@@ -64,7 +64,7 @@ export default function ViewerCanvas(props: ViewerCanvasProps) {
     <Canvas
       frameloop="demand"
       dpr={[1, 2]}
-      gl={{ antialias: true }}
+      gl={{ antialias: props.prepared.memberIds.length <= memberLook.largeModel }}
       camera={{ fov: cameraLook.fov, up: [0, 0, 1], near: far / 10_000, far, position: [0, -1, 1] }}
       onPointerMissed={(e) => {
         if (e.type === "click") useViewerStore.getState().selectMember(null);

@@ -7,7 +7,9 @@
  *   - frame time while orbiting (a mouse drag on the canvas, intervals between animation frames) and the render
  *     time of a single frame (render + read back one pixel)
  *   - draw calls and triangles of a frame (three.js renderer.info)
- *   - load case / combination switch → next frame drawn, for every result
+ *   - load case / combination switch → the next frame with the new colours submitted, for every result
+ * "Submitted" is the mark set in the frame callback, before the GPU (here the software rasteriser) draws; the
+ * rasterising time of one frame is reported separately as the single-frame render time.
  * Targets (issue 5): first frame under 1.5 s, members in at most 10 draw calls, switching under 100 ms.
  */
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
@@ -90,7 +92,7 @@ async function main() {
       const drawn = performance.getEntriesByName("viewer:colouring-drawn")[0].startTime;
       return drawn - fetched;
     });
-    record("results fetched → first frame", `${firstFrame.toFixed(0)} ms`, "< 1500 ms");
+    record("results fetched → first frame submitted", `${firstFrame.toFixed(0)} ms`, "< 1500 ms");
 
     const frames: { calls: number; triangles: number; ms: number }[] = [];
     for (let k = 0; k < 10; k += 1) frames.push((await page.evaluate(() => window.__strutroom!.measureFrame()))!);
@@ -100,49 +102,39 @@ async function main() {
 
     // Orbit: drag across the canvas while the page records the intervals between animation frames.
     const box = (await page.locator("canvas").boundingBox())!;
-    await page.evaluate(() => {
-      const stamps: number[] = [];
-      (window as unknown as { __stamps: number[] }).__stamps = stamps;
-      const tick = (t: number) => {
-        stamps.push(t);
-        if (stamps.length < 100_000) requestAnimationFrame(tick);
-      };
+    // Scripts run in the page are passed as strings: tsx would wrap named functions in a helper the page lacks.
+    await page.evaluate(`(() => {
+      const stamps = [];
+      window.__stamps = stamps;
+      const tick = (t) => { stamps.push(t); if (stamps.length < 100000) requestAnimationFrame(tick); };
       requestAnimationFrame(tick);
-    });
+    })()`);
     const cx = box.x + box.width / 2;
     const cy = box.y + box.height / 2;
     await page.mouse.move(cx, cy);
     await page.mouse.down();
     for (let k = 1; k <= 60; k += 1) await page.mouse.move(cx + Math.sin(k / 10) * box.width * 0.3, cy + Math.cos(k / 15) * 40);
     await page.mouse.up();
-    const intervals = await page.evaluate(() => {
-      const s = (window as unknown as { __stamps: number[] }).__stamps;
-      return s.slice(1).map((t, k) => t - s[k]);
-    });
+    const intervals = (await page.evaluate(`window.__stamps.slice(1).map((t, k) => t - window.__stamps[k])`)) as number[];
     record("frame time while orbiting, median / p95", `${median(intervals).toFixed(1)} / ${p95(intervals).toFixed(1)} ms (${intervals.length} frames)`);
 
     const ids = await page.$$eval('[data-testid="viewer-result"] option', (options) => options.map((o) => (o as HTMLOptionElement).value));
     const switches: number[] = [];
     for (const id of [...ids, ...ids]) {
-      switches.push(
-        await page.evaluate(
-          (resultId) =>
-            new Promise<number>((resolve) => {
-              const before = performance.getEntriesByName("viewer:colouring-drawn").length;
-              const start = performance.now();
-              window.__strutroom!.setResult(resultId);
-              const wait = () => {
-                const marks = performance.getEntriesByName("viewer:colouring-drawn");
-                if (marks.length > before) resolve(marks[marks.length - 1].startTime - start);
-                else requestAnimationFrame(wait);
-              };
-              requestAnimationFrame(wait);
-            }),
-          id,
-        ),
-      );
+      const script = `new Promise((resolve) => {
+        const before = performance.getEntriesByName("viewer:colouring-drawn").length;
+        const start = performance.now();
+        window.__strutroom.setResult(${JSON.stringify(id)});
+        const wait = () => {
+          const marks = performance.getEntriesByName("viewer:colouring-drawn");
+          if (marks.length > before) resolve(marks[marks.length - 1].startTime - start);
+          else requestAnimationFrame(wait);
+        };
+        requestAnimationFrame(wait);
+      })`;
+      switches.push((await page.evaluate(script)) as number);
     }
-    record("switch case / combination → frame drawn, median / max", `${median(switches).toFixed(0)} / ${Math.max(...switches).toFixed(0)} ms`, "< 100 ms");
+    record("switch case / combination → new colours submitted, median / max", `${median(switches).toFixed(0)} / ${Math.max(...switches).toFixed(0)} ms`, "< 100 ms");
   } finally {
     await browser.close();
   }
