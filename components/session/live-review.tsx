@@ -2,7 +2,8 @@
 // The viewer in a live review: the model viewer with the pins layer inside its canvas, and beside it the review
 // panel (connection, who is here, the session, pins and threads, shared notes).
 import { useQuery } from "@tanstack/react-query";
-import { useMemo } from "react";
+import { useSearchParams } from "next/navigation";
+import { useEffect, useMemo } from "react";
 import { ModelViewer, revisionQueryKey } from "@/components/viewer/model-viewer";
 import { PinsLayer, type PinMarker } from "@/components/viewer/layers/pins-layer";
 import { MepViewerLayer } from "@/components/clashes/mep-viewer-layer";
@@ -32,6 +33,11 @@ type ClashList = { clashes: { clashKey: string; point: { x: number; y: number; z
 
 export function LiveReview({ projectId, revisionNumber, realtimeUrl, focusClash = null }: { projectId: string; revisionNumber: number; realtimeUrl: string; focusClash?: string | null }) {
   const socket = useReviewSocket(projectId, realtimeUrl);
+  // A link to one pin (from the review overview or a mention mail) opens its thread.
+  const pinParam = useSearchParams().get("pin");
+  useEffect(() => {
+    if (pinParam) useSessionStore.getState().selectPin(pinParam);
+  }, [pinParam, socket]);
   useFollowPresenter(socket);
   const connection = useSessionStore((s) => s.connection);
   const refusal = useSessionStore((s) => s.refusal);

@@ -68,5 +68,11 @@ describe("live review session in two browsers", () => {
     const viewer = await signedInReview("viewer");
     await viewer.pinItem(title).waitFor();
     expect(await viewer.newPinForm().count()).toBe(0);
+
+    // The review overview lists the pin; its link opens the thread in the viewer.
+    await viewer.openOverview();
+    await viewer.page.getByTestId("live-session-summary").filter({ hasText: account("structural_engineer").name }).waitFor();
+    await viewer.page.getByTestId("sessions-pin-table").getByRole("link", { name: title }).click();
+    await viewer.comment("keep 50 mm clear").waitFor();
   });
 });

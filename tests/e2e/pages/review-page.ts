@@ -11,6 +11,12 @@ export class ReviewPage {
     await this.page.locator('[data-testid="connection-state"][data-state="connected"]').waitFor();
   }
 
+  /** The project's review overview (Review sessions tab). */
+  async openOverview() {
+    await this.page.getByTestId("project-nav").getByRole("link", { name: "Review sessions" }).click();
+    await this.page.waitForURL(/\/sessions$/);
+  }
+
   sessionStatus() {
     return this.page.getByTestId("session-status");
   }
