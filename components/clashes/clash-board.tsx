@@ -9,11 +9,13 @@ import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
 import { ClashTable } from "./clash-table";
 import { CopyRunsForm } from "./copy-runs-form";
+import { DrawRunForm } from "./draw-run-form";
 import { useClashStore } from "./clash-store";
 import { DecisionPanel } from "./decision-panel";
 import { HangServicesButton } from "./hang-services-button";
 import { ImportRunsForm } from "./import-runs-form";
 import { MepViewerLayer } from "./mep-viewer-layer";
+import { RunsPanel } from "./runs-panel";
 import { clashesQueryKey, runsQueryKey, type ClashListResponse, type ClashRowData, type RunListResponse } from "./types";
 
 /** Selects the clash everywhere: table row, markers, the member in the viewer, and flies the camera to it. */
@@ -92,7 +94,11 @@ export function ClashBoard({ projectId, revision, otherRevisions, initialClash }
               <section className="rounded-xl border border-board-200 bg-white p-4" aria-label="Import runs">
                 <h2 className="mb-2 font-semibold text-board-900">Duct and pipe runs</h2>
                 {runs.data?.runs.length === 0 && otherRevisions.length > 0 && <CopyRunsForm projectId={projectId} revision={revision} sources={otherRevisions} onCopied={refresh} />}
+                <RunsPanel projectId={projectId} revision={revision} runs={runs.data?.runs ?? []} canEdit onChanged={refresh} />
+                <h3 className="mb-1 mt-4 text-sm font-semibold text-board-900">Import</h3>
                 <ImportRunsForm projectId={projectId} revision={revision} onImported={refresh} />
+                <h3 className="mb-1 mt-4 text-sm font-semibold text-board-900">Draw a run in the 3D view</h3>
+                <DrawRunForm projectId={projectId} revision={revision} onSaved={refresh} />
               </section>
             )}
             {clashes.data.abilities.hangServices && (runs.data?.runs.length ?? 0) > 0 && (

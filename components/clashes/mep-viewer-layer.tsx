@@ -5,6 +5,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { useEffect, useMemo } from "react";
 import { MepRunsLayer } from "@/components/viewer/layers/mep-runs-layer";
+import { RunDraftLayer } from "@/components/viewer/layers/run-draft-layer";
 import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
 import { useClashStore } from "./clash-store";
@@ -40,5 +41,10 @@ export function MepViewerLayer({ projectId, revision, focusClash }: { projectId:
     useViewerStore.getState().flyTo([row.point.x, row.point.y, row.point.z]);
   }, [focusClash, rows]);
 
-  return <MepRunsLayer runs={runs.data?.runs ?? []} clashes={markers} selectedClashId={selectedKey} onSelectClash={select} />;
+  return (
+    <>
+      <MepRunsLayer runs={runs.data?.runs ?? []} clashes={markers} selectedClashId={selectedKey} onSelectClash={select} />
+      <RunDraftLayer />
+    </>
+  );
 }
