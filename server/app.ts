@@ -29,7 +29,10 @@ export function createRealtimeServer({ appUrl }: { appUrl: string }) {
   const yjs = createYjsUpgradeHandler({ appUrl });
   const cursors = createCursorBatcher(io);
   httpServer.on("upgrade", (request, socket, head) => {
-    if ((request.url ?? "").startsWith(YJS_PATH_PREFIX)) yjs.handleUpgrade(request, socket, head);
+    const url = request.url ?? "";
+    if (url.startsWith(YJS_PATH_PREFIX)) yjs.handleUpgrade(request, socket, head);
+    // socket.io answers its own path; any other upgrade is closed rather than left hanging.
+    else if (!url.startsWith(`${SOCKET_PATH}/`)) socket.end("HTTP/1.1 404 Not Found\r\nConnection: close\r\nContent-Length: 0\r\n\r\n");
   });
 
   io.use((socket, next) => {

@@ -2,8 +2,10 @@
 // permission table does not allow, and answers malformed payloads with errors without falling over.
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import WebSocket from "ws";
 import { closeDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
+import { sessionCookie } from "../support/session";
 import { connectClient, nextEvent, realtimeClient, request, startRealtimeServer, type ClientSocket, type RealtimeProcess } from "../support/realtime";
 import type { PresentedPin } from "@/lib/realtime/events";
 
@@ -51,6 +53,18 @@ describe("realtime handshake", () => {
   it("refuses a browser from another site", async () => {
     const socket = await realtimeClient(server.url, project.projectId, project.users.owner, { origin: "http://evil.example" });
     await expect(connectClient(socket)).rejects.toThrow();
+  });
+
+  it("refuses a Yjs connection from an outsider and closes upgrades to unknown paths", async () => {
+    const cookie = await sessionCookie(project.users.outsider);
+    const refusedStatus = (path: string) =>
+      new Promise<number>((resolve) => {
+        const ws = new WebSocket(server.url.replace(/^http/, "ws") + path, { headers: { cookie } });
+        ws.on("unexpected-response", (_request, response) => resolve(response.statusCode ?? 0));
+        ws.on("open", () => resolve(101));
+      });
+    expect(await refusedStatus(`/yjs/${project.projectId}`)).toBe(404);
+    expect(await refusedStatus("/elsewhere")).toBe(404);
   });
 
   it("welcomes a member with their role and the abilities the server computed", async () => {
