@@ -117,6 +117,28 @@ describe("comment attachments", () => {
     expect((await listAttachments(await buildRequest(`${base()}?commentId=${commentId}`, { user: fx.users.outsider }), ctx())).status).toBe(404);
   });
 
+  it("lets only the uploader confirm, and serves nothing before the bytes are confirmed", async () => {
+    const started = await ask(fx.users.architect, { purpose: "comment", commentId, filename: "plan.png", contentType: "image/png", sizeBytes: PNG.length });
+    const { attachmentId, uploadUrl } = await started.json();
+    await fetch(uploadUrl, { method: "PUT", body: new Uint8Array(PNG) });
+    const confirmAs = async (user: FixtureUser) => confirm(await buildRequest(`${base()}/${attachmentId}/confirm`, { method: "POST", user }), itemCtx(attachmentId));
+    expect((await download(await buildRequest(`${base()}/${attachmentId}`, { user: fx.users.architect }), itemCtx(attachmentId))).status).toBe(404);
+    expect((await confirmAs(fx.users.owner)).status).toBe(404);
+    expect((await confirmAs(fx.users.outsider)).status).toBe(404);
+    expect((await confirmAs(fx.users.architect)).status).toBe(200);
+    expect((await confirmAs(fx.users.architect)).status).toBe(200);
+    expect((await download(await buildRequest(`${base()}/${attachmentId}`, { user: fx.users.outsider }), itemCtx(attachmentId))).status).toBe(404);
+  });
+
+  it("answers a confirmation before any upload with a 400 and keeps the upload open", async () => {
+    const started = await ask(fx.users.architect, { purpose: "comment", commentId, filename: "later.png", contentType: "image/png", sizeBytes: PNG.length });
+    const { attachmentId } = await started.json();
+    const early = await confirm(await buildRequest(`${base()}/${attachmentId}/confirm`, { method: "POST", user: fx.users.architect }), itemCtx(attachmentId));
+    expect(early.status).toBe(400);
+    expect((await early.json()).error).toBe("Nothing has been uploaded for this file yet.");
+    expect((await row(attachmentId)).state).toBe("pending");
+  });
+
   it("sweeps uploads that were never confirmed, with any bytes they left", async () => {
     const started = await ask(fx.users.architect, { purpose: "comment", commentId, filename: "abandoned.png", contentType: "image/png", sizeBytes: PNG.length });
     const { attachmentId, uploadUrl } = await started.json();
