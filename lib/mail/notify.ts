@@ -15,9 +15,9 @@ export function appUrl(path: string): string {
   return new URL(path, base).toString();
 }
 
-/** Where a pin's thread opens in the project. */
+/** Where a pin's thread opens: the viewer with its live review. */
 export function pinUrl(projectId: string, pinId: string): string {
-  return appUrl(`/projects/${projectId}?pin=${encodeURIComponent(pinId)}`);
+  return appUrl(`/projects/${projectId}/viewer?pin=${encodeURIComponent(pinId)}`);
 }
 
 async function projectName(db: Executor, projectId: string): Promise<string> {

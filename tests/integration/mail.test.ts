@@ -97,7 +97,7 @@ describe("mention, decision and digest mails", () => {
     });
     const mail = await deliveredTo(fx.users.structural_engineer.email, /mentioned you/);
     expect(mail.subject).toContain('"Supply duct at grid D"');
-    expect(mail.text).toContain(`/projects/${fx.projectId}?pin=${pinId}`);
+    expect(mail.text).toContain(`/projects/${fx.projectId}/viewer?pin=${pinId}`);
   });
 
   it("decision: every member but the decider is told, with the standing caution", async () => {
