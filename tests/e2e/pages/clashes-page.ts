@@ -1,0 +1,70 @@
+// Page object for the clashes screen (issue 7): table, filters, the selected clash's panel and its forms.
+import type { Page } from "playwright-core";
+import { appUrl } from "../../support/browser";
+
+/** Signs in through the sign-in screen and waits for the project list (kept here so this area stands alone). */
+export async function signInAs(page: Page, email: string, password: string): Promise<void> {
+  await page.goto(appUrl("/sign-in"));
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByTestId("sign-in-submit").click();
+  await page.waitForURL(/\/projects$/);
+}
+
+export class ClashesPage {
+  constructor(readonly page: Page) {}
+
+  async open(projectId: string, revision: number) {
+    await this.page.goto(appUrl(`/projects/${projectId}/clashes?revision=${revision}`));
+    await this.page.getByTestId("clash-table").waitFor({ timeout: 60_000 });
+  }
+
+  count() {
+    return this.page.getByTestId("clash-count").textContent();
+  }
+
+  rows() {
+    return this.page.getByTestId("clash-row");
+  }
+
+  caution() {
+    return this.page.getByTestId("standing-caution").textContent();
+  }
+
+  async filter(by: "system" | "state" | "outcome" | "forceState", value: string) {
+    await this.page.getByTestId(`clash-filter-${by}`).selectOption(value);
+  }
+
+  /** Selects the first clash of a run (flies the viewer there and opens its panel). */
+  async select(runId: string) {
+    await this.rows().filter({ hasText: runId }).first().getByTestId("clash-show").click();
+    await this.page.getByTestId("clash-panel").waitFor();
+  }
+
+  outcome() {
+    return this.page.getByTestId("clash-outcome");
+  }
+
+  async propose(outcome: string, note: string) {
+    await this.page.getByTestId("propose-outcome").selectOption(outcome);
+    await this.page.getByTestId("propose-note").fill(note);
+    await this.page.getByTestId("propose-submit").click();
+  }
+
+  proposeForm() {
+    return this.page.getByTestId("propose-form");
+  }
+
+  acceptForm() {
+    return this.page.getByTestId("accept-form");
+  }
+
+  async accept(conditions: string) {
+    await this.page.getByTestId("accept-conditions").fill(conditions);
+    await this.page.getByTestId("accept-submit").click();
+  }
+
+  history() {
+    return this.page.getByTestId("clash-history").locator("li");
+  }
+}
