@@ -53,5 +53,5 @@ export const glyphLook = {
 export const cameraLook = {
   fov: 40,
   transitionSeconds: 0.6,
-  fitPadding: 1.15,
+  fitPadding: 0.9,
 } as const;

@@ -1,4 +1,5 @@
-import { readFileSync } from "node:fs";
+import { readFileSync, statSync } from "node:fs";
+import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { appUrl, baseUrl, CHROMIUM_FLAGS, screenshot } from "../support/browser";
@@ -97,5 +98,15 @@ describe("the 3D viewer on the demo roof", () => {
     await page.getByTestId("whatif-remove").click();
     await page.getByTestId("removal-result").waitFor({ timeout: 60_000 });
     await screenshot(page, "viewer-member-panel");
+  });
+
+  it("exports the current view as a PNG file", async () => {
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("viewer-export-png").click()]);
+    expect(download.suggestedFilename()).toMatch(/\.png$/);
+    const file = path.join(process.env.ARTIFACTS_DIR ?? ".artifacts", "screenshots", "viewer-export.png");
+    await download.saveAs(file);
+    // Every PNG file starts with the 8-byte signature 89 50 4E 47 0D 0A 1A 0A (PNG specification, section 5.2).
+    expect([...readFileSync(file).subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+    expect(statSync(file).size).toBeGreaterThan(10_000);
   });
 });
