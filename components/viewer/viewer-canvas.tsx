@@ -44,6 +44,8 @@ function Scene({ prepared, analysis, review, children }: ViewerCanvasProps) {
   );
   return (
     <>
+      {/* An opaque background, so the PNG export is not transparent. */}
+      <color attach="background" args={[palette.background]} />
       <ambientLight intensity={1.6} />
       <directionalLight position={[1, -2, 3]} intensity={1.4} />
       <GroundGrid prepared={prepared} />
