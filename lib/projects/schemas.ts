@@ -1,0 +1,26 @@
+// Input schema for creating a project: shared by the create-project form and POST /api/projects.
+import { z } from "zod";
+import { COMBINATION_STANDARDS, DESIGN_STANDARDS } from "@/db/schema/core";
+
+export { COMBINATION_STANDARDS, DESIGN_STANDARDS };
+
+export const DESIGN_STANDARD_LABELS: Record<(typeof DESIGN_STANDARDS)[number], string> = {
+  "AISC360-22": "AISC 360-22 (LRFD)",
+  "EN1993-1-1": "EN 1993-1-1",
+};
+
+export const COMBINATION_STANDARD_LABELS: Record<(typeof COMBINATION_STANDARDS)[number], string> = {
+  "ASCE7-22": "ASCE 7-22",
+  EN1990: "EN 1990",
+};
+
+export const createProjectSchema = z.object({
+  name: z.string().trim().min(1, "Give the project a name.").max(120, "Keep the name under 120 characters."),
+  description: z.string().trim().max(2000, "Keep the description under 2000 characters.").default(""),
+  designStandard: z.enum(DESIGN_STANDARDS, { error: "Choose a design standard." }),
+  combinationStandard: z.enum(COMBINATION_STANDARDS, { error: "Choose a combination standard." }),
+  // Only read when the user owns no project yet, so has no organisation (see createProject in db/queries/projects.ts).
+  organizationName: z.string().trim().max(120, "Keep the organisation name under 120 characters.").optional(),
+});
+export type CreateProjectInput = z.input<typeof createProjectSchema>;
+export type CreateProjectValues = z.output<typeof createProjectSchema>;
