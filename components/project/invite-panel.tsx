@@ -37,6 +37,10 @@ export function InvitePanel({ projectId }: { projectId: string }) {
     },
     onError: (error) => showServerError(form, error),
   });
+  const cancel = useMutation({
+    mutationFn: (invitation: PresentedInvitation) => apiFetch<null>(`/api/projects/${projectId}/invitations/${invitation.id}`, { method: "DELETE" }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: invitationsKey(projectId) }),
+  });
 
   return (
     <section className="flex flex-col gap-4 rounded-xl border border-board-200 bg-white p-5" aria-labelledby="invite-heading" data-testid="invite-panel">
@@ -74,12 +78,16 @@ export function InvitePanel({ projectId }: { projectId: string }) {
           <h3 className="text-sm font-medium">Waiting to join</h3>
           <ul className="flex flex-col gap-1 text-sm" data-testid="pending-invitations">
             {pending.data.invitations.map((invitation) => (
-              <li key={invitation.id} className="flex justify-between gap-2">
-                <span className="truncate font-mono text-xs">{invitation.email}</span>
+              <li key={invitation.id} className="flex items-center justify-between gap-2">
+                <span className="min-w-0 flex-1 truncate font-mono text-xs">{invitation.email}</span>
                 <span className="text-board-700">{ROLE_LABELS[invitation.role]}</span>
+                <Button type="button" variant="quiet" disabled={cancel.isPending} onClick={() => cancel.mutate(invitation)} data-testid={`cancel-invitation-${invitation.email}`}>
+                  Cancel
+                </Button>
               </li>
             ))}
           </ul>
+          <FormMessage message={cancel.error?.message} />
         </div>
       ) : null}
     </section>

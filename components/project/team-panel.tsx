@@ -6,12 +6,12 @@ import { changeMemberRole } from "@/app/(app)/projects/[projectId]/actions";
 import type { PresentedMember } from "@/db/queries/memberships";
 import { apiFetch } from "@/lib/http/fetcher";
 import { ROLES, ROLE_LABELS, type Role } from "@/lib/permissions";
-import { FormMessage } from "@/components/ui/form";
+import { Button, FormMessage } from "@/components/ui/form";
 import { RoleBadge } from "./role-badge";
 
 export const membersQueryKey = (projectId: string) => ["projects", projectId, "members"] as const;
 
-/** The team with roles; owners (as the server said) get a role selector per member. */
+/** The team with roles; owners (as the server said) get a role selector and a remove button per member. */
 export function TeamPanel({ projectId, canManage, currentUserId }: { projectId: string; canManage: boolean; currentUserId: string }) {
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<{ tone: "error" | "success"; text: string }>();
@@ -26,6 +26,15 @@ export function TeamPanel({ projectId, canManage, currentUserId }: { projectId: 
       return result.data;
     },
     onSuccess: (member) => setMessage({ tone: "success", text: `${member.name} is now ${ROLE_LABELS[member.role]}.` }),
+    onError: (error) => setMessage({ tone: "error", text: error.message }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: membersQueryKey(projectId) }),
+  });
+  const removeMember = useMutation({
+    mutationFn: async (member: PresentedMember) => {
+      await apiFetch<null>(`/api/projects/${projectId}/members/${member.userId}`, { method: "DELETE" });
+      return member;
+    },
+    onSuccess: (member) => setMessage({ tone: "success", text: `${member.name} is no longer on the team.` }),
     onError: (error) => setMessage({ tone: "error", text: error.message }),
     onSettled: () => queryClient.invalidateQueries({ queryKey: membersQueryKey(projectId) }),
   });
@@ -66,6 +75,19 @@ export function TeamPanel({ projectId, canManage, currentUserId }: { projectId: 
                     ))}
                   </select>
                 </label>
+              ) : null}
+              {canManage ? (
+                <Button
+                  type="button"
+                  variant="quiet"
+                  disabled={removeMember.isPending}
+                  onClick={() => {
+                    if (window.confirm(`Remove ${member.name} from this project?`)) removeMember.mutate(member);
+                  }}
+                  data-testid={`remove-member-${member.email}`}
+                >
+                  Remove
+                </Button>
               ) : (
                 <RoleBadge role={member.role} />
               )}

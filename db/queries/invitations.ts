@@ -94,6 +94,30 @@ export async function listPendingInvitations({ projectId, db = getDb() }: { proj
   return rows.map(presentInvitation);
 }
 
+/** Cancels a pending invitation of the project (its join link stops working) and records it. */
+export async function cancelInvitation({ projectId, invitationId, actorId }: { projectId: string; invitationId: string; actorId: string }): Promise<void> {
+  await withTransaction(async (tx) => {
+    const [invitation] = await tx
+      .select()
+      .from(invitations)
+      .where(and(eq(invitations.id, invitationId), eq(invitations.projectId, projectId)))
+      .for("update")
+      .limit(1);
+    if (!invitation) throw new NotFoundError("No such invitation on this project.");
+    if (invitation.acceptedAt) throw new ConflictError("This invitation has already been accepted: remove the member instead.");
+    await tx.delete(invitations).where(eq(invitations.id, invitation.id));
+    await recordAuditEvent({
+      db: tx,
+      projectId,
+      actorId,
+      action: "invitation.cancelled",
+      subjectType: "invitation",
+      subjectId: invitation.id,
+      details: { email: invitation.email, role: invitation.role },
+    });
+  });
+}
+
 /** The state of the invitation behind a join link, or null for an unknown token. */
 export async function checkInvitation({ token }: { token: string }): Promise<InvitationCheck | null> {
   const db = getDb();

@@ -65,3 +65,18 @@ export async function updateMemberRole({ projectId, userId, role, actorId }: { p
     return member;
   });
 }
+
+/** Removes a member from the project and records it; a project always keeps at least one owner. */
+export async function removeMember({ projectId, userId, actorId }: { projectId: string; userId: string; actorId: string }): Promise<void> {
+  await withTransaction(async (tx) => {
+    // Same lock as updateMemberRole: two concurrent removals cannot both pass the last-owner check.
+    const team = await tx.select().from(memberships).where(eq(memberships.projectId, projectId)).for("update");
+    const current = team.find((m) => m.userId === userId);
+    if (!current) throw new NotFoundError("That person is not on this project.");
+    if (current.role === "owner" && team.filter((m) => m.role === "owner").length <= 1) {
+      throw new ConflictError("A project needs at least one owner: make someone else owner first.");
+    }
+    await tx.delete(memberships).where(eq(memberships.id, current.id));
+    await recordAuditEvent({ db: tx, projectId, actorId, action: "member.removed", subjectType: "user", subjectId: userId, details: { role: current.role } });
+  });
+}

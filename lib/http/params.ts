@@ -3,3 +3,5 @@ import { z } from "zod";
 
 export const projectParamsSchema = z.object({ projectId: z.uuid() });
 export const tokenParamsSchema = z.object({ token: z.string().min(20).max(200) });
+export const invitationParamsSchema = projectParamsSchema.extend({ invitationId: z.uuid() });
+export const memberParamsSchema = projectParamsSchema.extend({ userId: z.uuid() });
