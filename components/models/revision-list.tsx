@@ -45,6 +45,12 @@ export function RevisionList({ projectId }: { projectId: string }) {
               <Link className="text-tension underline" href={`/projects/${projectId}/viewer?revision=${r.number}`}>
                 Open in 3D
               </Link>
+              {r.originals.map((file) => (
+                // The attachments route redirects to a short-lived download URL of the object store.
+                <a key={file.id} className="ml-3 text-xs text-board-700 underline" href={`/api/projects/${projectId}/attachments/${file.id}`} data-testid="revision-original">
+                  {file.filename}
+                </a>
+              ))}
             </td>
           </tr>
         ))}

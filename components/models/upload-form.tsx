@@ -19,7 +19,7 @@ async function requestFromFiles(files: File[], name: string): Promise<CreateRevi
     } catch {
       throw new ApiError(400, `${json[0].name} is not valid JSON.`, [{ path: json[0].name, message: "not valid JSON" }]);
     }
-    return { kind: "uploadJson", name: name || undefined, model };
+    return { kind: "uploadJson", name: name || undefined, fileName: json[0].name, model };
   }
   if (csv.length > 0 && json.length === 0) {
     const tables = Object.fromEntries(await Promise.all(csv.map(async (f) => [f.name, await f.text()] as const)));

@@ -88,10 +88,26 @@ async function redetect(tx: Transaction, projectId: string, revision: { id: stri
 
 /**
  * Stores imported runs on a revision — "replace" drops the revision's other runs, "upsert" keeps them and
- * overwrites runs with the same id — and re-runs clash detection, all in one transaction.
+ * overwrites runs with the same id — and re-runs clash detection, all in one transaction; `alsoWrite` adds rows
+ * in the same transaction (the record of the imported file).
  */
-export async function importRuns({ projectId, revision, runs, mode, actorId }: { projectId: string; revision: { id: string; model: TrussModel }; runs: Run[]; mode: "replace" | "upsert"; actorId: string | null }): Promise<DetectionSummary> {
+export async function importRuns({
+  projectId,
+  revision,
+  runs,
+  mode,
+  actorId,
+  alsoWrite,
+}: {
+  projectId: string;
+  revision: { id: string; model: TrussModel };
+  runs: Run[];
+  mode: "replace" | "upsert";
+  actorId: string | null;
+  alsoWrite?: (tx: Transaction) => Promise<unknown>;
+}): Promise<DetectionSummary> {
   return withTransaction(async (tx) => {
+    await alsoWrite?.(tx);
     if (mode === "replace") await tx.delete(mepRuns).where(eq(mepRuns.revisionId, revision.id));
     for (const run of runs) {
       const row = toRow(revision.id, run, actorId);

@@ -1,7 +1,7 @@
 import "server-only";
-import { and, desc, eq, max } from "drizzle-orm";
-import { getDb, withTransaction, type Executor } from "@/db/client";
-import { analysisRuns, modelRevisions, users, type ModelRevision } from "@/db/schema";
+import { and, asc, desc, eq, max } from "drizzle-orm";
+import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
+import { analysisRuns, attachments, modelRevisions, users, type ModelRevision } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
 import type { StoredReview } from "@/lib/models/analyse";
@@ -17,10 +17,12 @@ export type RevisionSummary = {
   createdBy: string | null;
   memberCount: number;
   analysisStatus: "ok" | "unstable" | null;
+  /** The uploaded original file(s) kept in object storage, downloadable through the attachments route. */
+  originals: { id: string; filename: string }[];
 };
 
 /** A revision with its model and the stored analysis and review. */
-export type RevisionWithResults = Omit<RevisionSummary, "analysisStatus"> & {
+export type RevisionWithResults = Omit<RevisionSummary, "analysisStatus" | "originals"> & {
   model: TrussModel;
   analysis: { id: string; status: "ok" | "unstable"; result: AnalysisResult; review: StoredReview | null; createdAt: string } | null;
 };
@@ -43,6 +45,11 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
     .leftJoin(analysisRuns, eq(analysisRuns.revisionId, modelRevisions.id))
     .where(eq(modelRevisions.projectId, projectId))
     .orderBy(desc(modelRevisions.number));
+  const originals = await db
+    .select({ id: attachments.id, filename: attachments.filename, revisionId: attachments.revisionId })
+    .from(attachments)
+    .where(and(eq(attachments.projectId, projectId), eq(attachments.purpose, "model"), eq(attachments.state, "ready")))
+    .orderBy(asc(attachments.filename));
   const seen = new Set<string>();
   return rows
     .filter((row) => !seen.has(row.id) && seen.add(row.id))
@@ -55,6 +62,7 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
       createdBy: row.createdBy,
       memberCount: row.model.members.length,
       analysisStatus: row.status,
+      originals: originals.filter((file) => file.revisionId === row.id).map(({ id, filename }) => ({ id, filename })),
     }));
 }
 
@@ -126,10 +134,19 @@ export async function insertRevisionWithAnalysis(tx: Executor, input: CreateRevi
 
 /**
  * Stores a new revision (next number of the project) with its analysis run and an audit event, in one
- * transaction. A concurrent save that takes the same number fails the unique index and is retried once.
+ * transaction; `alsoWrite` adds rows that belong to the new revision in the same transaction (the records of its
+ * uploaded original files). A concurrent save that takes the same number fails the unique index and is retried once.
  */
-export async function createRevisionWithAnalysis(input: CreateRevisionInput): Promise<{ id: string; number: number }> {
-  const attempt = () => withTransaction((tx) => insertRevisionWithAnalysis(tx, input));
+export async function createRevisionWithAnalysis(
+  input: CreateRevisionInput,
+  alsoWrite?: (tx: Transaction, revision: { id: string; number: number }) => Promise<unknown>,
+): Promise<{ id: string; number: number }> {
+  const attempt = () =>
+    withTransaction(async (tx) => {
+      const revision = await insertRevisionWithAnalysis(tx, input);
+      await alsoWrite?.(tx, revision);
+      return revision;
+    });
   try {
     return await attempt();
   } catch (error) {

@@ -9,7 +9,13 @@ const revisionName = z.string().trim().min(1, "Give the revision a name").max(20
 
 export const createRevisionSchema = z.discriminatedUnion("kind", [
   z.object({ kind: z.literal("generate"), params: roofParamsSchema }),
-  z.object({ kind: z.literal("uploadJson"), name: revisionName.optional(), model: z.unknown() }),
+  z.object({
+    kind: z.literal("uploadJson"),
+    name: revisionName.optional(),
+    // The uploaded file's name, kept with the stored original.
+    fileName: z.string().trim().min(1).max(200).optional(),
+    model: z.unknown(),
+  }),
   z.object({
     kind: z.literal("uploadCsv"),
     name: revisionName,
@@ -18,5 +24,7 @@ export const createRevisionSchema = z.discriminatedUnion("kind", [
 ]);
 
 export type CreateRevisionInput = z.input<typeof createRevisionSchema>;
+/** A parsed create-revision request, as the route handler sees it. */
+export type CreateRevisionRequest = z.output<typeof createRevisionSchema>;
 
 export const revisionParamsSchema = z.object({ projectId: z.uuid(), number: z.coerce.number().int().positive() });

@@ -12,6 +12,7 @@ import {
   listStalePendingAttachments,
   markAttachmentReady,
 } from "../../db/queries/attachments";
+import { withTransaction, type Executor } from "../../db/client";
 import type { Attachment } from "../../db/schema";
 import { HttpError, NotFoundError, ValidationError } from "../http/errors";
 import { checkContent, checkSize, HEAD_BYTES, needsWholeFile, type ContentVerdict, type FilePurpose } from "./content-check";
@@ -97,35 +98,70 @@ export async function confirmUpload({ projectId, attachmentId, userId }: { proje
   return markAttachmentReady({ id: attachment.id, contentType: verdict.contentType, sizeBytes: size });
 }
 
+/** A file the server received itself, before it is stored. */
+export type ReceivedFile = { filename: string; bytes: Uint8Array };
+
+/** Records the stored files with the given links inside the caller's transaction. */
+export type RecordStoredFiles = (tx: Executor, links: Links) => Promise<Attachment[]>;
+
 /**
- * Stores a file the server received itself (a model or run file posted to a route handler): bytes checked first,
- * then stored, then recorded; when recording fails the stored object is removed again.
+ * Stores files the server received itself (a model's original file or tables, a run file) together with what they
+ * belong to: every file's bytes are checked first (nothing stored when one is refused), then the objects are
+ * stored, then `write` writes its rows and calls `record` inside its one transaction so the attachment rows commit
+ * with them. When anything after storing fails, the stored objects are removed again: nothing is left dangling.
  */
-export async function storeFile(input: { projectId: string; userId: string; purpose: FilePurpose; filename: string; bytes: Uint8Array; links: Links }): Promise<Attachment> {
-  const verdict = await checkContent(input.purpose, input.bytes, input.bytes.byteLength);
-  if (!verdict.ok) throw new FileRefusedError(verdict);
-  const id = randomUUID();
-  const key = objectKey(input.projectId, input.purpose, id);
-  await putObject(key, input.bytes, verdict.contentType);
-  try {
-    return await insertAttachment({
-      values: {
-        id,
+export async function withStoredFiles<T>(
+  input: { projectId: string; userId: string; purpose: FilePurpose; files: ReceivedFile[] },
+  write: (record: RecordStoredFiles) => Promise<T>,
+): Promise<T> {
+  const checked: (ReceivedFile & { id: string; key: string; contentType: string })[] = [];
+  for (const file of input.files) {
+    const verdict = await checkContent(input.purpose, file.bytes, file.bytes.byteLength);
+    if (!verdict.ok) throw new FileRefusedError(verdict);
+    const id = randomUUID();
+    checked.push({ ...file, id, key: objectKey(input.projectId, input.purpose, id), contentType: verdict.contentType });
+  }
+  const stored: string[] = [];
+  const removeStored = () => Promise.all(stored.map((key) => deleteObject(key)));
+  // One insert after another: a transaction is one connection.
+  const record: RecordStoredFiles = async (tx, links) => {
+    const rows: Attachment[] = [];
+    for (const file of checked) {
+      const values = {
+        id: file.id,
         projectId: input.projectId,
         purpose: input.purpose,
-        objectKey: key,
-        filename: input.filename,
-        contentType: verdict.contentType,
-        sizeBytes: input.bytes.byteLength,
+        objectKey: file.key,
+        filename: file.filename,
+        contentType: file.contentType,
+        sizeBytes: file.bytes.byteLength,
         uploadedBy: input.userId,
-        ...input.links,
-        state: "ready",
-      },
-    });
+        ...links,
+        state: "ready" as const,
+      };
+      rows.push(await insertAttachment({ db: tx, values }));
+    }
+    return rows;
+  };
+  try {
+    for (const file of checked) {
+      await putObject(file.key, file.bytes, file.contentType);
+      stored.push(file.key);
+    }
+    return await write(record);
   } catch (error) {
-    await deleteObject(key);
+    await removeStored();
     throw error;
   }
+}
+
+/** Stores one file the server received itself with its record (see withStoredFiles). */
+export async function storeFile(input: { projectId: string; userId: string; purpose: FilePurpose; filename: string; bytes: Uint8Array; links: Links }): Promise<Attachment> {
+  const { projectId, userId, purpose, filename, bytes, links } = input;
+  return withStoredFiles({ projectId, userId, purpose, files: [{ filename, bytes }] }, async (record) => {
+    const [attachment] = await withTransaction((tx) => record(tx, links));
+    return attachment;
+  });
 }
 
 /** A short-lived download URL for a ready attachment of the project; images and PDF open in the browser. */

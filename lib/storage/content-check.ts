@@ -11,7 +11,7 @@ const MB = 1024 * 1024;
 /** Accepted content per purpose. Binary kinds are recognised by magic bytes (file-type); text kinds by parsing. */
 export const FILE_RULES = {
   comment: { maxBytes: 10 * MB, types: ["image/png", "image/jpeg", "image/webp", "application/pdf"] },
-  model: { maxBytes: 20 * MB, types: ["application/json"] },
+  model: { maxBytes: 20 * MB, types: ["application/json", "text/csv"] },
   run: { maxBytes: 10 * MB, types: ["application/json", "text/csv"] },
 } as const satisfies Record<FilePurpose, { maxBytes: number; types: readonly string[] }>;
 
@@ -31,7 +31,7 @@ export type ContentVerdict =
 
 const LABELS: Record<FilePurpose, string> = {
   comment: "an image (PNG, JPEG, WebP) or a PDF",
-  model: "a model file in JSON",
+  model: "a model file in JSON or a CSV table",
   run: "a run file in JSON or CSV",
 };
 

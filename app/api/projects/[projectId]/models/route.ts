@@ -7,9 +7,19 @@ import { projectParamsSchema } from "@/lib/http/params";
 import { parseJson, parseParams } from "@/lib/http/parse";
 import { analyseForStorage } from "@/lib/models/analyse";
 import { buildRevision } from "@/lib/models/build-revision";
-import { createRevisionSchema } from "@/lib/models/schemas";
+import { createRevisionSchema, type CreateRevisionRequest } from "@/lib/models/schemas";
+import { withStoredFiles, type ReceivedFile } from "@/lib/storage/attachments";
 
 type Context = RouteContext<"/api/projects/[projectId]/models">;
+
+const encoder = new TextEncoder();
+
+/** The files an upload request carried; a generated roof has none. */
+function originalFiles(input: CreateRevisionRequest): ReceivedFile[] {
+  if (input.kind === "uploadJson") return [{ filename: input.fileName ?? "model.json", bytes: encoder.encode(JSON.stringify(input.model)) }];
+  if (input.kind === "uploadCsv") return Object.entries(input.tables).map(([filename, text]) => ({ filename, bytes: encoder.encode(text) }));
+  return [];
+}
 
 /** The project's model revisions, newest first. */
 export const GET = handleRoute(async (request: Request, context: Context) => {
@@ -40,14 +50,12 @@ export const POST = handleRoute(async (request: Request, context: Context) => {
   const project = await getProjectById({ projectId });
   if (!project) throw new NotFoundError();
   const { result, review } = analyseForStorage(built.model, project.designStandard);
-  const revision = await createRevisionWithAnalysis({
-    projectId,
-    name: built.name,
-    model: built.model,
-    source: built.source,
-    createdBy: user.id,
-    result,
-    review,
-  });
+  // The uploaded original (the JSON model as received, or each CSV table) is stored and recorded with the revision.
+  const revision = await withStoredFiles({ projectId, userId: user.id, purpose: "model", files: originalFiles(input) }, (record) =>
+    createRevisionWithAnalysis(
+      { projectId, name: built.name, model: built.model, source: built.source, createdBy: user.id, result, review },
+      (tx, saved) => record(tx, { revisionId: saved.id }),
+    ),
+  );
   return Response.json({ revision: { ...revision, status: result.status } }, { status: 201 });
 });

@@ -7,6 +7,7 @@ import { parseJson, parseParams, parseWith } from "@/lib/http/parse";
 import { parseRunsFile } from "@/lib/mep/import";
 import { requireRevision } from "@/lib/mep/revision";
 import { importRunsSchema, revisionQuerySchema } from "@/lib/mep/schemas";
+import { withStoredFiles } from "@/lib/storage/attachments";
 
 type Context = RouteContext<"/api/projects/[projectId]/runs">;
 
@@ -34,6 +35,10 @@ export const POST = handleRoute(async (request: Request, context: Context) => {
     );
   }
   if (runs.length === 0) throw new ValidationError([{ path: "text", message: "The file holds no runs." }], "The file holds no runs.");
-  const detection = await importRuns({ projectId, revision, runs, mode: input.mode, actorId: user.id });
+  // The imported file is kept as uploaded, recorded on the revision together with the runs.
+  const file = { filename: input.fileName, bytes: new TextEncoder().encode(input.text) };
+  const detection = await withStoredFiles({ projectId, userId: user.id, purpose: "run", files: [file] }, (record) =>
+    importRuns({ projectId, revision, runs, mode: input.mode, actorId: user.id, alsoWrite: (tx) => record(tx, { revisionId: revision.id }) }),
+  );
   return Response.json({ imported: runs.map((r) => r.id), detection }, { status: 201 });
 });
