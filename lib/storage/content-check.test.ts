@@ -47,6 +47,8 @@ describe("checkContent for model and run files", () => {
     expect(await checkContent("model", model, model.length)).toEqual({ ok: true, contentType: "application/json" });
     const csv = Buffer.from("run,x1,y1,z1,x2,y2,z2,diameter\nD1,0,0,5.2,12,0,5.2,0.4\n");
     expect(await checkContent("run", csv, csv.length)).toEqual({ ok: true, contentType: "text/csv" });
+    const headerOnly = Buffer.from("loadCase,node,fx,fy,fz\n");
+    expect(await checkContent("model", headerOnly, headerOnly.length)).toEqual({ ok: true, contentType: "text/csv" });
     expect(needsWholeFile("model")).toBe(true);
     expect(needsWholeFile("comment")).toBe(false);
   });

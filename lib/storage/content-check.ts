@@ -71,8 +71,9 @@ function textKind(text: string, accepted: readonly string[]): string | null {
   if (accepted.includes("text/csv")) {
     const parsed = Papa.parse<string[]>(body, { skipEmptyLines: true });
     const rows = parsed.data;
-    // A table: a header and at least one row, every row as wide as the header, more than one column.
-    if (parsed.errors.length === 0 && rows.length >= 2 && rows[0].length >= 2 && rows.every((row) => row.length === rows[0].length)) {
+    // A table: a header of more than one column and rows as wide as it. A header alone is still a table: an
+    // optional model table (loads, say) may be uploaded empty.
+    if (parsed.errors.length === 0 && rows.length >= 1 && rows[0].length >= 2 && rows.every((row) => row.length === rows[0].length)) {
       return "text/csv";
     }
   }
