@@ -50,6 +50,13 @@ export const glyphLook = {
   maxLoadArrow: 0.9,
 } as const;
 
+export const influenceLook = {
+  /** Sphere radius at each top-layer node, as a fraction of the typical member length (larger than a node glyph). */
+  radius: 0.075,
+  widthSegments: 12,
+  heightSegments: 8,
+} as const;
+
 export const cameraLook = {
   fov: 40,
   transitionSeconds: 0.6,

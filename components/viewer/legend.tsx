@@ -1,5 +1,7 @@
 "use client";
-// The legend: always says what is shown (colouring and result) with the tension / compression / zero-force counts.
+// The legend: always says what is shown (colouring and result) with the tension / compression / zero-force counts;
+// below it, the influence map's own legend while one is shown.
+import { formatInfluence, influenceLegend } from "./influence-colours";
 import { useViewerStore } from "./viewer-store";
 
 const formatKn = (value: number) => `${value >= 0 ? "" : "−"}${Math.abs(value).toFixed(Math.abs(value) >= 100 ? 0 : 1)} kN`;
@@ -49,6 +51,34 @@ export function Legend() {
           <dd className="font-mono text-sm" data-testid="legend-count-zero">{counts.zero}</dd>
         </div>
       </dl>
+    </section>
+  );
+}
+
+/** Legend of the influence map on screen (if any): what it shows, its range, and a way to clear it. */
+export function InfluenceLegend() {
+  const influence = useViewerStore((s) => s.influence);
+  if (!influence) return null;
+  const legend = influenceLegend(influence.member, influence.values);
+  return (
+    <section data-testid="influence-legend" aria-label="Influence map legend" className="pointer-events-auto mt-2 w-60 rounded-md border border-board-200 bg-white/90 p-2 text-xs shadow-sm">
+      <p className="font-semibold text-board-900" data-testid="influence-legend-title">{legend.title}</p>
+      <div aria-hidden className="mt-2 h-2 rounded-sm" style={{ background: `linear-gradient(to right, ${legend.fromColour}, ${legend.midColour}, ${legend.toColour})` }} />
+      <div className="mt-1 flex justify-between font-mono text-xs">
+        <span>{formatInfluence(-legend.scaleMax)}</span>
+        <span>0</span>
+        <span>{formatInfluence(legend.scaleMax)}</span>
+      </div>
+      <div className="flex justify-between text-xs text-board-700">
+        <span>compression</span>
+        <span>tension</span>
+      </div>
+      <p className="mt-1" data-testid="influence-legend-range">
+        Range {formatInfluence(legend.min)} to {formatInfluence(legend.max)} {legend.unit} over {influence.values.length} top nodes
+      </p>
+      <button type="button" className="mt-2 rounded border border-board-200 px-2 py-0.5 hover:bg-board-100" onClick={() => useViewerStore.getState().showInfluence(null)} data-testid="influence-clear">
+        Clear influence map
+      </button>
     </section>
   );
 }

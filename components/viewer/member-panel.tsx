@@ -1,8 +1,10 @@
 "use client";
 // The side panel of the selected member: forces in every load case and combination, envelope, utilisation with
-// the numbers behind it, why it is zero, and the removal / opening what-ifs with the standing caution.
+// the numbers behind it, why it is zero, its influence map, and the removal / opening what-ifs with the standing
+// caution.
 import type { RevisionWithResults } from "@/db/queries/models";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
+import { InfluenceControl } from "./influence-control";
 import { MemberReviewSection } from "./member-review-section";
 import { resultLabel, type PreparedModel } from "./prepare";
 import { useWhatIfWorker } from "./use-whatif-worker";
@@ -82,6 +84,8 @@ export function MemberPanel({ prepared, analysis, revision }: { prepared: Prepar
           </dl>
         </section>
       ) : null}
+
+      <InfluenceControl key={member.id} memberId={member.id} ask={ask} ready={ready} />
 
       <MemberReviewSection memberId={member.id} analysis={analysis} revision={revision} ask={ask} ready={ready} />
     </aside>

@@ -8,7 +8,8 @@ import type { RevisionWithResults } from "@/db/queries/models";
 import { classifyMembers } from "@/lib/analysis/classify";
 import { apiFetch } from "@/lib/http/fetcher";
 import { HoverTooltip } from "./hover-tooltip";
-import { Legend } from "./legend";
+import { InfluenceLayer } from "./layers/influence-layer";
+import { InfluenceLegend, Legend } from "./legend";
 import { MemberPanel } from "./member-panel";
 import { prepareModel, resultIds } from "./prepare";
 import { memberReviewMap } from "./review-adapter";
@@ -81,10 +82,12 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
       <div className="flex">
         <div className="relative h-[75vh] min-w-0 flex-1">
           <ViewerCanvas prepared={prepared} analysis={analysis} review={review}>
+            <InfluenceLayer prepared={prepared} />
             {layers}
           </ViewerCanvas>
           <div className="pointer-events-none absolute left-3 top-3">
             <Legend />
+            <InfluenceLegend />
           </div>
           <div className="absolute bottom-3 left-3">
             <HoverTooltip analysis={analysis} />

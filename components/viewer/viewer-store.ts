@@ -4,9 +4,12 @@
 //   useViewerStore.getState().flyTo([x, y, z])                 aim the camera at a point, keeping the distance
 //   useViewerStore.subscribe((s) => s.cameraPose, (pose) => …) hear camera moves (updated while the camera moves)
 //   useViewerStore.subscribe((s) => s.selectedMemberId, …)     hear selection changes
+//   useViewerStore.getState().showInfluence(map)              show a member's influence map (null clears); it is
+//                                                             cleared when the selection or the revision changes
 // Components read it with selectors (`useViewerStore((s) => s.colourMode)`); per-frame code uses getState().
 import { create } from "zustand";
 import { subscribeWithSelector } from "zustand/middleware";
+import type { InfluenceMap } from "@/lib/review/influence";
 import type { ColourMode, Legend } from "./colouring";
 import { defaultFilters, type MemberFilters } from "./filters";
 
@@ -40,6 +43,8 @@ export interface ViewerState {
   deflection: DeflectionSettings;
   cameraPose: CameraPose | null;
   legend: Legend | null;
+  /** Influence map of the selected member, drawn on the top-layer nodes; null when none is shown. */
+  influence: InfluenceMap | null;
   controller: CameraController | null;
 
   selectMember(id: string | null): void;
@@ -60,6 +65,8 @@ export interface ViewerState {
   /** Called by the camera rig whenever the camera moves. */
   reportCameraPose(pose: CameraPose): void;
   setLegend(legend: Legend): void;
+  /** Shows an influence map if it belongs to the selected member (an answer that arrives late is dropped). */
+  showInfluence(map: InfluenceMap | null): void;
   /** Back to defaults when another revision is opened. */
   reset(resultId: string | null): void;
 }
@@ -73,6 +80,7 @@ const initial = {
   filters: defaultFilters,
   deflection: { enabled: false, scale: 0 },
   legend: null,
+  influence: null,
 };
 
 export const useViewerStore = create<ViewerState>()(
@@ -81,7 +89,9 @@ export const useViewerStore = create<ViewerState>()(
     resultId: null,
     cameraPose: null,
     controller: null,
-    selectMember: (id) => set({ selectedMemberId: id }),
+    selectMember: (id) => {
+      if (get().selectedMemberId !== id) set({ selectedMemberId: id, influence: null });
+    },
     hoverMember: (id) => {
       if (get().hoveredMemberId !== id) set({ hoveredMemberId: id });
     },
@@ -103,6 +113,9 @@ export const useViewerStore = create<ViewerState>()(
     registerController: (controller) => set({ controller, ...(controller ? { cameraPose: controller.getPose() } : {}) }),
     reportCameraPose: (pose) => set({ cameraPose: pose }),
     setLegend: (legend) => set({ legend }),
+    showInfluence: (map) => {
+      if (map === null || map.member === get().selectedMemberId) set({ influence: map });
+    },
     reset: (resultId) => set({ ...initial, resultId }),
   })),
 );

@@ -1,7 +1,8 @@
-// Web Worker: removal and opening what-ifs and why-zero explanations from lib/review, off the main thread so the
+// Web Worker: removal and opening what-ifs, why-zero explanations and influence maps from lib/review, off the main thread so the
 // viewer stays responsive. The review context (one factorisation of the stiffness) is built once per revision.
 import type { AnalysisResult, TrussModel } from "@/lib/analysis";
 import { createReviewContext, type ReviewContext } from "@/lib/review/context";
+import { influenceMap } from "@/lib/review/influence";
 import { assessOpening } from "@/lib/review/opening";
 import { removalWhatIf } from "@/lib/review/removal";
 import { explainZeroForces, type WhyZero } from "@/lib/review/why-zero";
@@ -32,6 +33,8 @@ function answer(request: WhatIfRequest): WhatIfAnswer {
       explanations ??= explainZeroForces(context.model as TrussModel, context.result as AnalysisResult);
       return explanations[request.resultId]?.find((w) => w.member === request.member) ?? null;
     }
+    case "influence":
+      return influenceMap(context, request.member);
   }
 }
 
