@@ -1,14 +1,15 @@
 import "server-only";
-import { notFound } from "next/navigation";
+import { forbidden, notFound } from "next/navigation";
 import { getProjectForMember, type ProjectForMember } from "@/db/queries/projects";
-import { HttpError } from "@/lib/http/errors";
+import { ForbiddenError, HttpError } from "@/lib/http/errors";
 import type { Action } from "@/lib/permissions";
 import { requireProjectRole } from "./guard";
 import { requirePageUser, type SessionUser } from "./session";
 
 /**
- * For a project page: signed in (else the sign-in page), then the project guard. Outsiders and roles without
- * the action see "not found", so a page never tells who may not look whether a project exists.
+ * For a project page: signed in (else the sign-in page), then the project guard. Outsiders see "not found", so a
+ * page never tells them whether a project exists; members whose role lacks the action see "not allowed" (403,
+ * app/forbidden.tsx), since they already know the project.
  */
 export async function requirePageProject(projectId: string, action: Action = "project.read"): Promise<{ user: SessionUser; project: ProjectForMember }> {
   const user = await requirePageUser(`/projects/${projectId}`);
@@ -19,6 +20,7 @@ export async function requirePageProject(projectId: string, action: Action = "pr
     if (!project) notFound();
     return { user, project };
   } catch (error) {
+    if (error instanceof ForbiddenError) forbidden();
     if (error instanceof HttpError) notFound();
     throw error;
   }

@@ -100,9 +100,10 @@ describe("comment attachments", () => {
     await expect.poll(() => thread.comment("Mock-up photo attached.").getByTestId("attachment-error").textContent()).toMatch(/EXE/);
     expect(await thread.comment("Mock-up photo attached.").getByTestId("attachment").count()).toBe(1);
     await screenshot(page, "comment-attachment");
-    // The captured-mail page is for owners only: everyone else sees "not found".
-    await page.goto(`/projects/${projectId}/mail`);
-    await page.getByRole("heading", { name: "Nothing here" }).waitFor();
+    // The captured-mail page is for owners only: a member with another role sees "not allowed" (403), not "not found".
+    const refused = await page.goto(`/projects/${projectId}/mail`);
+    expect(refused?.status()).toBe(403);
+    await page.getByRole("heading", { name: "Not allowed" }).waitFor();
     expect(await page.getByTestId("captured-mail").count()).toBe(0);
     await page.context().close();
   });
