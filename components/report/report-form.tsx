@@ -1,5 +1,7 @@
 // The report page's forms: plain GET forms to the report and export route handlers, so the browser downloads
 // the PDF or CSV itself (no client JavaScript needed).
+import { RevisionSelect, type RevisionOption } from "@/components/revision/revision-select";
+
 type ResultOption = { id: string; name: string; kind: "combination" | "load case" };
 
 const selectClass = "rounded-md border border-board-200 bg-white px-3 py-2 text-sm";
@@ -13,7 +15,7 @@ export function ReportForm({
   defaultChosen,
 }: {
   projectId: string;
-  revisions: { number: number; name: string }[];
+  revisions: RevisionOption[];
   revision: number;
   results: ResultOption[];
   defaultChosen: string[];
@@ -22,16 +24,14 @@ export function ReportForm({
   return (
     <div className="flex flex-col gap-6">
       <form method="get" className="flex flex-wrap items-end gap-3" data-testid="report-revision-form">
-        <label className="flex flex-col gap-1 text-sm font-medium text-board-800">
-          Revision
-          <select name="revision" defaultValue={String(revision)} className={selectClass} data-testid="report-revision">
-            {revisions.map((r) => (
-              <option key={r.number} value={r.number}>
-                {r.number}: {r.name}
-              </option>
-            ))}
-          </select>
-        </label>
+        <RevisionSelect
+          revisions={revisions}
+          labelClassName="flex flex-col gap-1 text-sm font-medium text-board-800"
+          name="revision"
+          defaultValue={String(revision)}
+          className={selectClass}
+          data-testid="report-revision"
+        />
         <button type="submit" className="rounded-md border border-board-200 bg-white px-4 py-2 text-sm">
           Show this revision
         </button>
