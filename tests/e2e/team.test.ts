@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, newContext, screenshot } from "../support/browser";
+import { appUrl, launchBrowser, newContext, screenshot } from "../support/browser";
 import { AccountPage } from "./pages/account-page";
 import { JoinPage } from "./pages/join-page";
 import { ProjectOverviewPage } from "./pages/project-overview-page";
@@ -33,6 +33,39 @@ async function signedIn(email: string, password: string): Promise<Page> {
   await new ProjectsPage(page).waitForList();
   return page;
 }
+
+describe("creating a project", () => {
+  it("the demo owner creates a project from the projects list, lands on its overview as its only owner, cancels an invitation and cannot remove themselves", async () => {
+    const page = await signedIn(owner.email, accounts.password);
+    const projects = new ProjectsPage(page);
+    // The form checks the name before asking the server (schema shared with POST /api/projects).
+    await projects.createProject({ name: "" });
+    await projects.projectNameError().waitFor();
+
+    const name = `Northfield practice court — canopy ${unique}`;
+    await projects.createProject({ name, description: "Invented canopy over the outdoor court", designStandard: "AISC 360-22 (LRFD)" });
+    await page.waitForURL(/\/projects\/[0-9a-f-]{36}$/);
+    await page.getByRole("heading", { name }).waitFor();
+    const overview = new ProjectOverviewPage(page);
+    await overview.waitForTeam(1);
+    expect(await page.getByTestId("team-member").count()).toBe(1);
+
+    // The owner cancels a pending invitation, and cannot remove themselves as the project's only owner.
+    const invitee = `canopy-${unique}@northfield-demo.test`;
+    await overview.invite(invitee, "Viewer");
+    await overview.pendingInvitation(invitee).waitFor();
+    await overview.cancelInvitation(invitee);
+    await overview.pendingInvitation(invitee).waitFor({ state: "detached" });
+    await overview.removeMember(owner.email);
+    await overview.teamMessage().waitFor();
+    expect(await overview.teamMessage().textContent()).toMatch(/at least one owner/);
+    expect(await page.getByTestId("team-member").count()).toBe(1);
+    await page.goto(appUrl("/projects"));
+    await projects.waitForList();
+    expect(await projects.card(name).textContent()).toMatch(/Owner/);
+    await page.context().close();
+  });
+});
 
 describe("inviting and joining", () => {
   it("an owner invites a newcomer, who joins with the link once; a used link says so", async () => {

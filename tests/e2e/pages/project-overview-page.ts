@@ -49,6 +49,20 @@ export class ProjectOverviewPage {
     return link.inputValue();
   }
 
+  pendingInvitation(email: string) {
+    return this.page.getByTestId("pending-invitations").getByText(email);
+  }
+
+  async cancelInvitation(email: string) {
+    await this.page.getByTestId(`cancel-invitation-${email}`).click();
+  }
+
+  /** Clicks a member's Remove button and accepts the confirmation. */
+  async removeMember(email: string) {
+    this.page.once("dialog", (dialog) => dialog.accept());
+    await this.page.getByTestId(`remove-member-${email}`).click();
+  }
+
   teamMessage() {
     return this.page.getByTestId("team-message");
   }

@@ -20,6 +20,20 @@ export class ProjectsPage {
     return this.page.url().split("/").pop()!;
   }
 
+  /** Fills the new-project form and submits it (organisationName only when the user has no organisation yet). */
+  async createProject({ name, description = "", designStandard, organizationName }: { name: string; description?: string; designStandard?: string; organizationName?: string }) {
+    const form = this.page.getByTestId("create-project-form");
+    if (organizationName !== undefined) await form.getByLabel("Your organisation").fill(organizationName);
+    await form.getByLabel("Project name").fill(name);
+    await form.getByLabel("Description (optional)").fill(description);
+    if (designStandard) await form.getByLabel("Design standard").selectOption({ label: designStandard });
+    await this.page.getByTestId("create-project-submit").click();
+  }
+
+  projectNameError() {
+    return this.page.getByTestId("project-name-error");
+  }
+
   signedInAs() {
     return this.page.getByTestId("signed-in-as");
   }
