@@ -3,7 +3,7 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { pointLoads, trussModel } from "./test-fixtures";
+import { pointLoads, triangleModel } from "./test-fixtures";
 
 // Runs the real command line (scripts/analyze.ts through tsx) on files in a scratch folder.
 const dir = mkdtempSync(join(tmpdir(), "strutroom-analyze-"));
@@ -14,22 +14,8 @@ function run(...args: string[]) {
   return { code: out.status, stdout: out.stdout, stderr: out.stderr };
 }
 
-const triangle = (supports: [string, boolean, boolean, boolean][]) =>
-  trussModel({
-    nodes: [
-      ["A", 0, 0, 0],
-      ["B", 4, 0, 0],
-      ["C", 2, 0, 1.5],
-    ],
-    members: ["A-B", "A-C", "B-C"],
-    supports,
-    loadCases: [pointLoads("G", [["C", 0, 0, -10]])],
-  });
-const stable = triangle([
-  ["A", true, true, true],
-  ["B", false, true, true],
-  ["C", false, true, false],
-]);
+const triangle = (supports?: [string, boolean, boolean, boolean][]) => triangleModel({ supports, loadCases: [pointLoads("G", [["C", 0, 0, -10]])] });
+const stable = triangle();
 
 describe("npm run analyze (scripts/analyze.ts)", () => {
   it("exit 0 and the result JSON for a valid stable model", () => {

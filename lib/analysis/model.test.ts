@@ -1,15 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { validateModel, type TrussModel } from "./model";
-import { pointLoads, trussModel } from "./test-fixtures";
+import { pointLoads, triangleModel } from "./test-fixtures";
 
 const valid = (): TrussModel =>
-  trussModel({
-    nodes: [
-      ["A", 0, 0, 0],
-      ["B", 4, 0, 0],
-      ["C", 2, 0, 1.5],
-    ],
-    members: ["A-B", "A-C", "B-C"],
+  triangleModel({
     supports: [
       ["A", true, true, true],
       ["B", false, true, true],

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "./analyze";
-import { pointLoads, trussModel } from "./test-fixtures";
+import { pointLoads, triangleModel, trussModel } from "./test-fixtures";
 
 // Planar trusses drawn in the x-z plane are held out of plane (uy) at every node, as a 3D model needs.
 
@@ -11,18 +11,7 @@ import { pointLoads, trussModel } from "./test-fixtures";
  * lateral H at C: Bz = H h / L = 3.75, N_BC = -3.75/0.6 = -6.25, N_AC = +6.25, N_AB = +5.
  */
 const triangle = () =>
-  trussModel({
-    nodes: [
-      ["A", 0, 0, 0],
-      ["B", 4, 0, 0],
-      ["C", 2, 0, 1.5],
-    ],
-    members: ["A-B", "A-C", "B-C"],
-    supports: [
-      ["A", true, true, true],
-      ["B", false, true, true],
-      ["C", false, true, false],
-    ],
+  triangleModel({
     loadCases: [pointLoads("gravity", [["C", 0, 0, -10]], "dead"), pointLoads("lateral", [["C", 10, 0, 0]], "wind")],
     combinations: [{ id: "C1", name: "1.2 gravity + 1.0 lateral", factors: { gravity: 1.2, lateral: 1.0 } }],
   });

@@ -31,6 +31,27 @@ export function trussModel(spec: {
   };
 }
 
+/**
+ * The 3-4-5 triangle A(0,0,0), B(4,0,0), C(2,0,1.5) drawn in the x-z plane (members AB, AC, BC). By default A
+ * is pinned, B is a roller in x and every node is held out of plane (uy), as a 3D model of a planar truss needs.
+ */
+export function triangleModel({ supports, ...rest }: { supports?: SupportSpec[]; loadCases?: LoadCase[]; combinations?: TrussModel["combinations"] } = {}): TrussModel {
+  return trussModel({
+    ...rest,
+    nodes: [
+      ["A", 0, 0, 0],
+      ["B", 4, 0, 0],
+      ["C", 2, 0, 1.5],
+    ],
+    members: ["A-B", "A-C", "B-C"],
+    supports: supports ?? [
+      ["A", true, true, true],
+      ["B", false, true, true],
+      ["C", false, true, false],
+    ],
+  });
+}
+
 /** A load case of point loads: [node, fx, fy, fz]. */
 export function pointLoads(id: string, loads: [string, number, number, number][], category: LoadCase["category"] = "other"): LoadCase {
   return { id, name: id, category, selfWeight: false, nodalLoads: loads.map(([node, fx, fy, fz]) => ({ node, fx, fy, fz })) };

@@ -1,20 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { pointLoads, trussModel } from "./test-fixtures";
+import { pointLoads, triangleModel } from "./test-fixtures";
 import { handleAnalysisRequest } from "./worker-protocol";
 
 describe("Web Worker protocol", () => {
-  const model = trussModel({
-    nodes: [
-      ["A", 0, 0, 0],
-      ["B", 4, 0, 0],
-      ["C", 2, 0, 1.5],
-    ],
-    members: ["A-B", "A-C", "B-C"],
-    supports: [
-      ["A", true, true, true],
-      ["B", false, true, true],
-      ["C", false, true, false],
-    ],
+  const model = triangleModel({
     loadCases: [pointLoads("G", [["C", 0, 0, -10]])],
   });
 

@@ -1,20 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel, generateRoof, type TrussModel } from "@/lib/analysis";
+import { seededRandom } from "@/lib/analysis/test-fixtures";
 import { buildTopology } from "@/lib/analysis/topology";
 import { prattTruss } from "./test-models";
 import { explainZeroForces, inspectZeroForces, loadVectorForResult } from "./why-zero";
-
-/** Small deterministic random numbers (mulberry32) so failures reproduce. */
-function random(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** A random planar truss in x–z (Pratt-, Howe- or mixed web), out-of-plane restraint at every node. */
 function randomPlanarTruss(rand: () => number): TrussModel {
@@ -108,7 +97,7 @@ describe("inspectZeroForces", () => {
   });
 
   it("only ever calls a member zero when the analysis finds it zero (many generated trusses)", { timeout: 60_000 }, () => {
-    const rand = random(20261201);
+    const rand = seededRandom(20261201);
     let shown = 0;
     let analysed = 0;
     let shownInSpace = 0;

@@ -10,6 +10,7 @@
 import { parseArgs } from "node:util";
 import { analyzeModel, generateRoof, loadVectorForCase, PIVOT_TOLERANCE, validateModel, type TrussModel } from "@/lib/analysis";
 import { assembleStiffness } from "@/lib/analysis/assemble";
+import { seededRandom } from "@/lib/analysis/test-fixtures";
 import { approximateMinimumDegree } from "@/lib/analysis/sparse/amd";
 import { symbolicLdl } from "@/lib/analysis/sparse/ldl";
 import { factorSupernodal, solveSupernodalMany, supernodes } from "@/lib/analysis/sparse/supernodal";
@@ -20,17 +21,6 @@ const { values } = parseArgs({
 });
 const sizes = values.sizes.split(",").map(Number);
 const repeat = Math.max(1, Number(values.repeat));
-
-function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function shuffled<T>(items: T[], random: () => number): T[] {
   const out = items.slice();
