@@ -1,77 +1,56 @@
 // The realtime server refuses signed-out, outsider and foreign-origin connections, refuses writes by roles the
 // permission table does not allow, and answers malformed payloads with errors without falling over.
 import { randomUUID } from "node:crypto";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import WebSocket from "ws";
-import { closeDb, requireIntegrationEnv } from "../support/db";
-import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { sessionCookie } from "../support/session";
-import { connectClient, nextEvent, realtimeClient, request, startRealtimeServer, type ClientSocket, type RealtimeProcess } from "../support/realtime";
+import { connectClient, nextEvent, realtimeClient, request } from "../support/realtime";
+import { realtimeProjectSuite } from "../support/realtime-suite";
 import type { PresentedPin } from "@/lib/realtime/events";
 
-let server: RealtimeProcess;
-let project: ProjectFixture;
-const open: ClientSocket[] = [];
-
-async function signedIn(role: keyof ProjectFixture["users"]) {
-  const socket = await realtimeClient(server.url, project.projectId, project.users[role]);
-  open.push(socket);
-  await connectClient(socket);
-  return socket;
-}
+const rt = realtimeProjectSuite("rt-access");
+const { sockets: open, signedIn } = rt;
 
 const pinInput = () => ({ id: randomUUID(), anchor: { kind: "member", id: "TC-12" }, revisionId: null, title: "Duct crossing", discipline: "mep" });
 
-beforeAll(async () => {
-  requireIntegrationEnv();
-  project = await createProjectFixture("rt-access");
-  server = await startRealtimeServer();
-});
-
-afterAll(async () => {
-  for (const socket of open) socket.disconnect();
-  await server?.stop();
-  await closeDb();
-});
-
 describe("realtime handshake", () => {
   it("refuses a socket without a session", async () => {
-    const socket = await realtimeClient(server.url, project.projectId);
+    const socket = await realtimeClient(rt.server.url, rt.project.projectId);
     await expect(connectClient(socket)).rejects.toThrow("Sign in to continue.");
   });
 
   it("refuses a signed-in person who is not on the project", async () => {
-    const socket = await realtimeClient(server.url, project.projectId, project.users.outsider);
+    const socket = await realtimeClient(rt.server.url, rt.project.projectId, rt.project.users.outsider);
     await expect(connectClient(socket)).rejects.toThrow("not on its team");
   });
 
   it("refuses a malformed project id", async () => {
-    const socket = await realtimeClient(server.url, "not-a-project", project.users.owner);
+    const socket = await realtimeClient(rt.server.url, "not-a-project", rt.project.users.owner);
     await expect(connectClient(socket)).rejects.toThrow("A project id is required.");
   });
 
   it("refuses a browser from another site", async () => {
-    const socket = await realtimeClient(server.url, project.projectId, project.users.owner, { origin: "http://evil.example" });
+    const socket = await realtimeClient(rt.server.url, rt.project.projectId, rt.project.users.owner, { origin: "http://evil.example" });
     await expect(connectClient(socket)).rejects.toThrow();
   });
 
   it("refuses a Yjs connection from an outsider and closes upgrades to unknown paths", async () => {
-    const cookie = await sessionCookie(project.users.outsider);
+    const cookie = await sessionCookie(rt.project.users.outsider);
     const refusedStatus = (path: string) =>
       new Promise<number>((resolve) => {
-        const ws = new WebSocket(server.url.replace(/^http/, "ws") + path, { headers: { cookie } });
+        const ws = new WebSocket(rt.server.url.replace(/^http/, "ws") + path, { headers: { cookie } });
         ws.on("unexpected-response", (_request, response) => resolve(response.statusCode ?? 0));
         ws.on("open", () => resolve(101));
       });
-    expect(await refusedStatus(`/yjs/${project.projectId}`)).toBe(404);
+    expect(await refusedStatus(`/yjs/${rt.project.projectId}`)).toBe(404);
     expect(await refusedStatus("/elsewhere")).toBe(404);
   });
 
   it("welcomes a member with their role and the abilities the server computed", async () => {
-    const socket = await realtimeClient(server.url, project.projectId, project.users.viewer);
+    const socket = await realtimeClient(rt.server.url, rt.project.projectId, rt.project.users.viewer);
     open.push(socket);
     const welcome = await connectClient(socket);
-    expect(welcome.user).toMatchObject({ id: project.users.viewer.id, role: "viewer" });
+    expect(welcome.user).toMatchObject({ id: rt.project.users.viewer.id, role: "viewer" });
     expect(welcome.abilities["pin.create"]).toBe(false);
     expect(welcome.abilities["project.read"]).toBe(true);
   });
@@ -102,7 +81,7 @@ describe("writes by role", () => {
     const byArchitect = await request(architect, "comment:create", { id: randomUUID(), pinId, body: "Opening accepted", kind: "decision" });
     expect(byArchitect).toEqual({ ok: false, error: "Only the structural engineer records decisions." });
     const byEngineer = await request(structural, "comment:create", { id: randomUUID(), pinId, body: "Opening accepted with conditions", kind: "decision" });
-    expect(byEngineer).toMatchObject({ ok: true, data: { kind: "decision", author: { id: project.users.structural_engineer.id } } });
+    expect(byEngineer).toMatchObject({ ok: true, data: { kind: "decision", author: { id: rt.project.users.structural_engineer.id } } });
   });
 
   it("lets the pin's author and the engineer close a thread, but not another architect-level member", async () => {

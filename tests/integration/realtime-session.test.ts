@@ -2,37 +2,17 @@
 // follows, stepping out and back in, handing over, and pins and mentions reaching the others at once.
 import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { notifications } from "@/db/schema";
 import type { PresentedComment, PresentedPin, PresentedReviewSession } from "@/lib/realtime/events";
-import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
-import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
-import { connectClient, nextEvent, realtimeClient, request, startRealtimeServer, type ClientSocket, type RealtimeProcess } from "../support/realtime";
+import { getDb } from "../support/db";
+import { connectClient, nextEvent, realtimeClient, request } from "../support/realtime";
+import { realtimeProjectSuite } from "../support/realtime-suite";
 
-let server: RealtimeProcess;
-let project: ProjectFixture;
-const open: ClientSocket[] = [];
-
-async function signedIn(role: keyof ProjectFixture["users"]) {
-  const socket = await realtimeClient(server.url, project.projectId, project.users[role]);
-  open.push(socket);
-  await connectClient(socket);
-  return socket;
-}
+const rt = realtimeProjectSuite("rt-session");
+const { sockets: open, signedIn } = rt;
 
 const view = (x: number) => ({ camera: { position: [x, -30, 25], target: [18, 12, 0] }, selectedMemberId: "BC-7", resultId: "ULS-1" });
-
-beforeAll(async () => {
-  requireIntegrationEnv();
-  project = await createProjectFixture("rt-session");
-  server = await startRealtimeServer();
-});
-
-afterAll(async () => {
-  for (const socket of open) socket.disconnect();
-  await server?.stop();
-  await closeDb();
-});
 
 describe("review session", () => {
   it("sends the presenter's camera, selection and result to a follower, and refuses it from anyone else", async () => {
@@ -40,12 +20,12 @@ describe("review session", () => {
     const follower = await signedIn("architect");
     const state = nextEvent(follower, "session:state");
     const started = await request<PresentedReviewSession>(presenter, "session:start", {});
-    expect(started).toMatchObject({ ok: true, data: { presenterId: project.users.structural_engineer.id } });
-    expect(await state).toMatchObject({ presenterId: project.users.structural_engineer.id });
+    expect(started).toMatchObject({ ok: true, data: { presenterId: rt.project.users.structural_engineer.id } });
+    expect(await state).toMatchObject({ presenterId: rt.project.users.structural_engineer.id });
 
     const received = nextEvent(follower, "session:view");
     expect(await request(presenter, "session:view", view(40))).toEqual({ ok: true, data: null });
-    expect(await received).toEqual({ ...view(40), presenterId: project.users.structural_engineer.id });
+    expect(await received).toEqual({ ...view(40), presenterId: rt.project.users.structural_engineer.id });
 
     expect(await request(follower, "session:view", view(1))).toMatchObject({ ok: false, error: "Only the presenter drives the view." });
   });
@@ -53,12 +33,12 @@ describe("review session", () => {
   it("lists who is here with their role, and who stepped out of following", async () => {
     const mep = await signedIn("mep_engineer");
     const watcher = await signedIn("viewer");
-    const steppedOut = nextEvent(watcher, "presence", (entries) => entries.some((e) => e.id === project.users.mep_engineer.id && !e.following));
+    const steppedOut = nextEvent(watcher, "presence", (entries) => entries.some((e) => e.id === rt.project.users.mep_engineer.id && !e.following));
     await request(mep, "presence:follow", { following: false });
     const entries = await steppedOut;
-    expect(entries.find((e) => e.id === project.users.mep_engineer.id)).toMatchObject({ role: "mep_engineer", following: false, presenting: false });
-    expect(entries.find((e) => e.id === project.users.structural_engineer.id)).toMatchObject({ role: "structural_engineer", presenting: true });
-    const backIn = nextEvent(watcher, "presence", (list) => list.some((e) => e.id === project.users.mep_engineer.id && e.following));
+    expect(entries.find((e) => e.id === rt.project.users.mep_engineer.id)).toMatchObject({ role: "mep_engineer", following: false, presenting: false });
+    expect(entries.find((e) => e.id === rt.project.users.structural_engineer.id)).toMatchObject({ role: "structural_engineer", presenting: true });
+    const backIn = nextEvent(watcher, "presence", (list) => list.some((e) => e.id === rt.project.users.mep_engineer.id && e.following));
     await request(mep, "presence:follow", { following: true });
     await backIn;
   });
@@ -70,20 +50,20 @@ describe("review session", () => {
     let welcome = null;
     for (let attempt = 0; attempt < 30 && welcome?.session?.view?.camera.position[0] !== 55; attempt += 1) {
       if (welcome) await new Promise((r) => setTimeout(r, 200));
-      const joiner = await realtimeClient(server.url, project.projectId, project.users.owner);
+      const joiner = await realtimeClient(rt.server.url, rt.project.projectId, rt.project.users.owner);
       open.push(joiner);
       welcome = await connectClient(joiner);
     }
     expect(welcome?.session?.view).toEqual(view(55));
 
     const architect = open[1];
-    expect(await request(architect, "session:handover", { toUserId: project.users.owner.id })).toMatchObject({ ok: false });
-    expect(await request(presenter, "session:handover", { toUserId: project.users.architect.id })).toMatchObject({
+    expect(await request(architect, "session:handover", { toUserId: rt.project.users.owner.id })).toMatchObject({ ok: false });
+    expect(await request(presenter, "session:handover", { toUserId: rt.project.users.architect.id })).toMatchObject({
       ok: false,
       error: "That person's role cannot present.",
     });
-    const handed = nextEvent(architect, "session:state", (s) => s?.presenterId === project.users.owner.id);
-    expect(await request(presenter, "session:handover", { toUserId: project.users.owner.id })).toMatchObject({ ok: true });
+    const handed = nextEvent(architect, "session:state", (s) => s?.presenterId === rt.project.users.owner.id);
+    expect(await request(presenter, "session:handover", { toUserId: rt.project.users.owner.id })).toMatchObject({ ok: true });
     await handed;
     expect(await request(presenter, "session:view", view(2))).toMatchObject({ ok: false });
   });
@@ -120,16 +100,16 @@ describe("pins and threads in the room", () => {
       discipline: "mep",
     });
     expect(created).toMatchObject({ ok: true, data: { id: pinId, state: "open", anchor: { kind: "node", id: "N-204" } } });
-    expect(await seenByMep).toMatchObject({ id: pinId, author: { id: project.users.architect.id } });
+    expect(await seenByMep).toMatchObject({ id: pinId, author: { id: rt.project.users.architect.id } });
 
     const seenByArchitect = nextEvent(architect, "comment:created");
     const mention = nextEvent(architect, "notification:created");
-    const name = project.users.architect.name;
+    const name = rt.project.users.architect.name;
     const reply = await request<PresentedComment>(mep, "comment:create", { id: randomUUID(), pinId, body: `@${name} yes, 150 mm below the bottom chord.` });
-    expect(reply).toMatchObject({ ok: true, data: { mentions: [project.users.architect.id] } });
+    expect(reply).toMatchObject({ ok: true, data: { mentions: [rt.project.users.architect.id] } });
     expect(await seenByArchitect).toMatchObject({ pinId, body: `@${name} yes, 150 mm below the bottom chord.` });
-    expect(await mention).toMatchObject({ kind: "mention", payload: { pinId, byName: project.users.mep_engineer.name } });
-    const stored = await getDb().select().from(notifications).where(eq(notifications.userId, project.users.architect.id));
+    expect(await mention).toMatchObject({ kind: "mention", payload: { pinId, byName: rt.project.users.mep_engineer.name } });
+    const stored = await getDb().select().from(notifications).where(eq(notifications.userId, rt.project.users.architect.id));
     expect(stored).toHaveLength(1);
   });
 
