@@ -1,17 +1,14 @@
 // Issue 7 end to end on the seeded demo: the Northfield roof's own runs and their clashes are in the table and the
 // viewer; an MEP engineer proposes an opening, only the structural engineer accepts it, with written conditions;
 // every step shows the standing caution; a viewer can only look.
-import { readFileSync } from "node:fs";
-import { eq } from "drizzle-orm";
-import type { Browser, Page } from "playwright-core";
+import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { projects } from "@/db/schema";
-import { launchBrowser, newContext, screenshot } from "../support/browser";
-import { closeDb, getDb } from "../support/db";
-import { ClashesPage, signInAs } from "./pages/clashes-page";
+import { launchBrowser, screenshot } from "../support/browser";
+import { closeDb } from "../support/db";
+import { demoAccount, demoAccounts, demoProjectId } from "../support/demo";
+import { ClashesPage } from "./pages/clashes-page";
+import { signedInPage } from "./pages/sign-in-page";
 
-const accounts = JSON.parse(readFileSync(new URL("../../db/seed/demo-accounts.json", import.meta.url), "utf8")) as { password: string; users: { email: string; role: string }[] };
-const email = (role: string) => accounts.users.find((u) => u.role === role)!.email;
 // Copied from glossary.md (the standing caution), so the test does not read ../shared.
 const CAUTION = "Advisory results for coordination. Any removal, opening or change to a structural member needs the written approval of the engineer of record under the applicable local codes.";
 
@@ -19,17 +16,14 @@ let browser: Browser;
 let projectId: string;
 
 async function clashesAs(role: string): Promise<ClashesPage> {
-  const page: Page = await (await newContext(browser)).newPage();
-  await signInAs(page, email(role), accounts.password);
-  const clashes = new ClashesPage(page);
+  const clashes = new ClashesPage(await signedInPage(browser, demoAccount(role).email, demoAccounts.password));
   await clashes.open(projectId, 1);
   return clashes;
 }
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  const [project] = await getDb().select({ id: projects.id }).from(projects).where(eq(projects.name, "Northfield Community Sports Hall — roof"));
-  projectId = project.id;
+  projectId = await demoProjectId();
 });
 afterAll(async () => {
   await browser?.close();

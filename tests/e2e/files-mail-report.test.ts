@@ -3,7 +3,7 @@
 // the review report PDF and CSV exports from the report page.
 import { execFileSync } from "node:child_process";
 import { randomUUID } from "node:crypto";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { eq } from "drizzle-orm";
@@ -11,19 +11,16 @@ import Papa from "papaparse";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getRevisionWithResults } from "@/db/queries/models";
-import { projects, users } from "@/db/schema";
+import { users } from "@/db/schema";
 import type { PresentedComment, PresentedPin } from "@/lib/realtime/events";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { launchBrowser, newContext, screenshot } from "../support/browser";
 import { closeDb, getDb } from "../support/db";
+import { DEMO_PROJECT, demoAccount, demoAccounts, demoProjectId } from "../support/demo";
 import { connectClient, realtimeClient } from "../support/realtime";
-import { CapturedMailPage, ReportPage, ReviewThreadPage, signIn } from "./pages/files-mail-report-pages";
+import { CapturedMailPage, ReportPage, ReviewThreadPage } from "./pages/files-mail-report-pages";
+import { signedInPage } from "./pages/sign-in-page";
 
-const accounts = JSON.parse(readFileSync(new URL("../../db/seed/demo-accounts.json", import.meta.url), "utf8")) as {
-  password: string;
-  users: { email: string; name: string; role: string }[];
-};
-const demo = (role: string) => accounts.users.find((u) => u.role === role)!;
 // A 1x1 PNG (common-practice test image; PNG signature per the W3C PNG specification §5.2) and a Windows
 // executable header ("MZ").
 const PNG = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==", "base64");
@@ -33,16 +30,11 @@ let browser: Browser;
 let projectId: string;
 const work = mkdtempSync(path.join(tmpdir(), "strutroom-e2e-report-"));
 
-async function signedIn(role: string): Promise<Page> {
-  const page = await (await newContext(browser)).newPage();
-  await signIn(page, demo(role).email, accounts.password);
-  return page;
-}
+const signedIn = (role: string): Promise<Page> => signedInPage(browser, demoAccount(role).email, demoAccounts.password);
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  const [project] = await getDb().select({ id: projects.id }).from(projects).where(eq(projects.name, "Northfield Community Sports Hall — roof"));
-  projectId = project.id;
+  projectId = await demoProjectId();
 });
 afterAll(async () => {
   await browser?.close();
@@ -76,7 +68,7 @@ describe("invitation mail", () => {
 
 describe("comment attachments", () => {
   it("the comment's author attaches an image, which shows in the thread; an executable named .png is refused", async () => {
-    const architect = demo("architect");
+    const architect = demoAccount("architect");
     const [row] = await getDb().select({ id: users.id }).from(users).where(eq(users.email, architect.email));
     const socket = await realtimeClient(process.env.REALTIME_URL!, projectId, { id: row.id, email: architect.email, name: architect.name });
     await connectClient(socket);
@@ -127,7 +119,7 @@ describe("review report", () => {
     const text = execFileSync("pdftotext", ["-raw", file, "-"]).toString().split("\f").slice(0, pages).map((p) => p.replace(/\s+/g, " "));
     expect(pages).toBeGreaterThan(3);
     text.forEach((p, k) => expect(p, `page ${k + 1}`).toContain(STANDING_CAUTION));
-    expect(text[0]).toContain("Northfield Community Sports Hall — roof");
+    expect(text[0]).toContain(DEMO_PROJECT);
     const revision = (await getRevisionWithResults({ projectId, number: 1 }))!;
     const all = text.join("\n");
     for (const id of ["ULS-2", "ULS-3"]) {

@@ -2,15 +2,6 @@
 import type { Page } from "playwright-core";
 import { appUrl } from "../../support/browser";
 
-/** Signs in through the sign-in screen and waits for the project list (kept here so this area stands alone). */
-export async function signInAs(page: Page, email: string, password: string): Promise<void> {
-  await page.goto(appUrl("/sign-in"));
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(password);
-  await page.getByTestId("sign-in-submit").click();
-  await page.waitForURL(/\/projects$/);
-}
-
 export class ClashesPage {
   constructor(readonly page: Page) {}
 

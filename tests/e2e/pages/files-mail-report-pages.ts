@@ -1,15 +1,6 @@
 // Page objects for the screens of issue 8: the captured-mail page, a pin thread's attachments in the viewer's live
-// review, and the report page; plus signing in (kept here so these tests depend on no other area's page objects).
+// review, and the report page.
 import type { Page } from "playwright-core";
-
-/** Signs in through the sign-in screen and waits for the project list. */
-export async function signIn(page: Page, email: string, password: string): Promise<void> {
-  await page.goto("/sign-in");
-  await page.getByLabel("E-mail").fill(email);
-  await page.getByLabel("Password").fill(password);
-  await page.getByTestId("sign-in-submit").click();
-  await page.waitForURL(/\/projects$/);
-}
 
 /** The owners' captured-mail page (development). */
 export class CapturedMailPage {

@@ -1,5 +1,5 @@
-import type { Page } from "playwright-core";
-import { appUrl } from "../../support/browser";
+import type { Browser, Page } from "playwright-core";
+import { appUrl, newContext } from "../../support/browser";
 
 /** The sign-in screen. */
 export class SignInPage {
@@ -28,4 +28,19 @@ export class SignInPage {
   emailError() {
     return this.page.getByTestId("email-error");
   }
+}
+
+/** Signs in through the sign-in screen and waits for the project list. */
+export async function signInAs(page: Page, email: string, password: string): Promise<void> {
+  const signIn = new SignInPage(page);
+  await signIn.open();
+  await signIn.signIn(email, password);
+  await page.waitForURL(/\/projects$/);
+}
+
+/** A page in a fresh browser context, signed in as this person. */
+export async function signedInPage(browser: Browser, email: string, password: string): Promise<Page> {
+  const page = await (await newContext(browser)).newPage();
+  await signInAs(page, email, password);
+  return page;
 }
