@@ -26,7 +26,8 @@ function toRun(row: MepRun): Run {
   };
 }
 
-function toRow(revisionId: string, run: Run, actorId: string | null) {
+/** The mep_runs row for a run on a revision (also used by the demo seed). */
+export function runRow(revisionId: string, run: Run, actorId: string | null) {
   return {
     revisionId,
     runId: run.id,
@@ -110,7 +111,7 @@ export async function importRuns({
     await alsoWrite?.(tx);
     if (mode === "replace") await tx.delete(mepRuns).where(eq(mepRuns.revisionId, revision.id));
     for (const run of runs) {
-      const row = toRow(revision.id, run, actorId);
+      const row = runRow(revision.id, run, actorId);
       await tx
         .insert(mepRuns)
         .values(row)
@@ -130,7 +131,7 @@ export async function updateRun({ projectId, revision, runId, edit, actorId }: {
     const merged = runSchema.safeParse({ ...toRun(row), ...edit });
     if (!merged.success) throw new ValidationError(issuesFrom(merged.error));
     const run = merged.data;
-    const next = toRow(revision.id, run, row.createdBy);
+    const next = runRow(revision.id, run, row.createdBy);
     await tx.update(mepRuns).set({ name: next.name, system: next.system, profile: next.profile, insulation: next.insulation, clearance: next.clearance, weightPerMetre: next.weightPerMetre, points: next.points }).where(eq(mepRuns.id, row.id));
     const detection = await redetect(tx, projectId, revision);
     await recordAuditEvent({ db: tx, projectId, actorId, action: "runs.edit", subjectType: "mep_run", subjectId: `${revision.id}/${runId}`, details: { fields: Object.keys(edit), ...detection } });
@@ -175,7 +176,7 @@ export async function copyRunsToRevision({ projectId, fromRevisionId, toRevision
  */
 export async function carryRunsForward({ projectId, fromRevisionId, toRevision, actorId, db }: { projectId: string; fromRevisionId: string; toRevision: { id: string; model: TrussModel }; actorId: string | null; db: Transaction }): Promise<DetectionSummary> {
   const runs = await db.select().from(mepRuns).where(eq(mepRuns.revisionId, fromRevisionId));
-  if (runs.length > 0) await db.insert(mepRuns).values(runs.map((row) => toRow(toRevision.id, toRun(row), actorId)));
+  if (runs.length > 0) await db.insert(mepRuns).values(runs.map((row) => runRow(toRevision.id, toRun(row), actorId)));
   return redetect(db, projectId, toRevision);
 }
 

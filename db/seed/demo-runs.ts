@@ -2,11 +2,12 @@
 // the supply-air duct's dog-leg cuts a diagonal, the chilled-water drop comes too close to a bottom chord, the
 // sprinkler main hangs too tight under the mid-span bottom chords, and a cable tray set on edge clips six
 // diagonals. Idempotent: skipped once the revision has runs.
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import type { Executor } from "../client";
-import { mepRuns, modelRevisions } from "../schema";
+import { mepRuns } from "../schema";
 import { runSchema, type RunInput } from "../../lib/mep/schemas";
 import { syncClashes } from "../queries/clashes";
+import { getRevisionForMep, runRow } from "../queries/mep";
 
 const DEMO_RUNS: RunInput[] = [
   {
@@ -53,28 +54,11 @@ const DEMO_RUNS: RunInput[] = [
 
 /** Adds the demo runs to revision 1 and stores their clashes, unless that revision already has runs. */
 export async function seedDemoRuns(db: Executor, { projectId, createdBy }: { projectId: string; createdBy: string }): Promise<void> {
-  const [revision] = await db
-    .select({ id: modelRevisions.id, model: modelRevisions.model })
-    .from(modelRevisions)
-    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, 1)))
-    .limit(1);
+  const revision = await getRevisionForMep({ projectId, number: 1, db });
   if (!revision) throw new Error("seed the demo model before its runs");
   const [existing] = await db.select({ id: mepRuns.id }).from(mepRuns).where(eq(mepRuns.revisionId, revision.id)).limit(1);
   if (existing) return;
   const runs = DEMO_RUNS.map((run) => runSchema.parse(run));
-  await db.insert(mepRuns).values(
-    runs.map((run) => ({
-      revisionId: revision.id,
-      runId: run.id,
-      name: run.name ?? null,
-      system: run.system,
-      profile: run.profile,
-      insulation: run.insulation,
-      clearance: run.clearance,
-      weightPerMetre: run.weightPerMetre,
-      points: run.points,
-      createdBy,
-    })),
-  );
+  await db.insert(mepRuns).values(runs.map((run) => runRow(revision.id, run, createdBy)));
   await syncClashes({ db, projectId, revisionId: revision.id, model: revision.model, runs });
 }
