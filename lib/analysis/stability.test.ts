@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { analyzeModel } from "./analyze";
 import { generateRoof } from "./generator";
 import { prepareStructure } from "./prepare";
-import { pointLoads, trussModel } from "./test-fixtures";
+import { pointLoads, triangleModel, trussModel } from "./test-fixtures";
 
 const pinned = (node: string): [string, boolean, boolean, boolean] => [node, true, true, true];
 
@@ -92,16 +92,7 @@ describe("mechanisms are reported as unstable with the free node and direction",
 
   it("a planar truss without out-of-plane restraint names the free node and y", () => {
     // check-values §5.2: every node of a planar truss needs an out-of-plane restraint in a 3D model.
-    const model = trussModel({
-      nodes: [
-        ["A", 0, 0, 0],
-        ["B", 4, 0, 0],
-        ["C", 2, 0, 1.5],
-      ],
-      members: ["A-B", "A-C", "B-C"],
-      supports: [pinned("A"), ["B", false, true, true]],
-      loadCases: [pointLoads("P", [["C", 0, 0, -10]])],
-    });
+    const model = triangleModel({ supports: [pinned("A"), ["B", false, true, true]], loadCases: [pointLoads("P", [["C", 0, 0, -10]])] });
     const r = analyzeModel(model);
     expect(r.status).toBe("unstable");
     expect(r.instability).toEqual([{ node: "C", directions: ["uy"] }]);
