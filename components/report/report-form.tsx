@@ -7,6 +7,15 @@ type ResultOption = { id: string; name: string; kind: "combination" | "load case
 const selectClass = "rounded-md border border-board-200 bg-white px-3 py-2 text-sm";
 const buttonClass = "inline-flex items-center justify-center rounded-md bg-board-800 px-4 py-2 text-sm font-medium text-white hover:bg-board-900";
 
+/** One <option> per result, "id: name". */
+function ResultOptions({ results }: { results: ResultOption[] }) {
+  return results.map((r) => (
+    <option key={r.id} value={r.id}>
+      {r.id}: {r.name}
+    </option>
+  ));
+}
+
 export function ReportForm({
   projectId,
   revisions,
@@ -55,11 +64,7 @@ export function ReportForm({
               {which === "first" ? "First result" : "Second result"}
               <select name="compare" defaultValue="" className={selectClass} data-testid={`report-compare-${which}`}>
                 <option value="">none</option>
-                {results.map((r) => (
-                  <option key={r.id} value={r.id}>
-                    {r.id}: {r.name}
-                  </option>
-                ))}
+                <ResultOptions results={results} />
               </select>
             </label>
           ))}
@@ -78,11 +83,7 @@ export function ReportForm({
           <label className="flex flex-col gap-1 text-sm">
             Member forces of
             <select name="result" className={selectClass} defaultValue={defaultChosen[0]} data-testid="export-result">
-              {results.map((r) => (
-                <option key={r.id} value={r.id}>
-                  {r.id}: {r.name}
-                </option>
-              ))}
+              <ResultOptions results={results} />
             </select>
           </label>
           <button type="submit" className={buttonClass} data-testid="export-member-forces">
