@@ -5,6 +5,7 @@ import { useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo } from "react";
 import { BufferGeometry, Color, ConeGeometry, CylinderGeometry, OctahedronGeometry, InstancedMesh, Matrix4, MeshLambertMaterial, Quaternion, Vector3 } from "three";
 import { glyphLook, palette } from "./config";
+import { disposeInstancedMesh } from "./dispose";
 import { nodalLoadsFor, type PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
@@ -15,14 +16,7 @@ function useInstanced(geometry: BufferGeometry, colour: string, capacity: number
     m.count = 0;
     return m;
   }, [geometry, colour, capacity]);
-  useEffect(
-    () => () => {
-      mesh.geometry.dispose();
-      (mesh.material as MeshLambertMaterial).dispose();
-      mesh.dispose();
-    },
-    [mesh],
-  );
+  useEffect(() => () => disposeInstancedMesh(mesh), [mesh]);
   return mesh;
 }
 

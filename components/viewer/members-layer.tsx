@@ -6,6 +6,7 @@ import { useEffect, useLayoutEffect, useMemo, useRef } from "react";
 import { CylinderGeometry, DynamicDrawUsage, InstancedBufferAttribute, InstancedMesh, MeshBasicMaterial, MeshLambertMaterial } from "three";
 import { computeAppearance, hexToRgb, type MemberAppearance } from "./colouring";
 import { memberLook, palette } from "./config";
+import { disposeInstancedMesh } from "./dispose";
 import { visibleMask } from "./filters";
 import { writeMemberMatrix } from "./geometry";
 import type { PreparedModel } from "./prepare";
@@ -94,11 +95,7 @@ export function MembersLayer({ prepared, analysis, review, positions }: MembersL
   const layers = useMemo(() => ({ solid: makeLayer(count, false), faint: makeLayer(count, true) }), [count]);
   useEffect(
     () => () => {
-      for (const layer of [layers.solid, layers.faint]) {
-        layer.mesh.geometry.dispose();
-        (layer.mesh.material as MeshBasicMaterial).dispose();
-        layer.mesh.dispose();
-      }
+      for (const layer of [layers.solid, layers.faint]) disposeInstancedMesh(layer.mesh);
     },
     [layers],
   );

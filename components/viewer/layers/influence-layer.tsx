@@ -6,6 +6,7 @@ import { useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo } from "react";
 import { DynamicDrawUsage, InstancedBufferAttribute, InstancedMesh, Matrix4, MeshLambertMaterial, SphereGeometry } from "three";
 import { influenceLook } from "../config";
+import { disposeInstancedMesh } from "../dispose";
 import { influenceColours, type InfluenceValue } from "../influence-colours";
 import type { PreparedModel } from "../prepare";
 import { useViewerStore } from "../viewer-store";
@@ -45,14 +46,7 @@ export function InfluenceLayer({ prepared }: { prepared: PreparedModel }) {
     m.name = "influence-map";
     return m;
   }, [capacity]);
-  useEffect(
-    () => () => {
-      mesh.geometry.dispose();
-      (mesh.material as MeshLambertMaterial).dispose();
-      mesh.dispose();
-    },
-    [mesh],
-  );
+  useEffect(() => () => disposeInstancedMesh(mesh), [mesh]);
 
   useLayoutEffect(() => {
     writeInfluence(mesh, influence?.values ?? [], prepared);
