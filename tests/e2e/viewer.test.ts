@@ -60,8 +60,10 @@ describe("the 3D viewer on the demo roof", () => {
     const frame = await viewer.measureFrame();
     expect(frame).not.toBeNull();
     expect(frame!.triangles).toBeGreaterThan(0);
-    // Members are two instanced meshes; nodes, supports and the load arrows a few more; plus grid lines.
-    expect(frame!.calls).toBeLessThanOrEqual(10);
+    // Every layer is instanced, so the count does not grow with members, runs, clashes or pins: members 2
+    // (carrying force, zero-force), nodes + supports + load arrows 3, grid 1, MEP runs and clash markers at most 4,
+    // pins at most 3, influence map at most 1. Members alone stay within the 10.
+    expect(frame!.calls).toBeLessThanOrEqual(14);
     await screenshot(page, "viewer-demo-roof");
   });
 

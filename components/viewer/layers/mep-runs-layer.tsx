@@ -1,8 +1,9 @@
 "use client";
 // MEP layer of the viewer: runs drawn translucent in sky (#0284c7) with their real section (round = cylinder,
-// rectangular = box turned by its rotation, insulation included), and clashes as rose (#e11d48) markers. Runs
-// are few (tens to hundreds of segments), so each segment is one mesh sharing two unit geometries; members, by
-// the thousand, are the instanced layer.
+// rectangular = box turned by its rotation, insulation included), and clashes as rose (#e11d48) markers. Each
+// kind of body is one instanced mesh (drei's Instances), so the layer costs at most four draw calls however many
+// segments and clashes a project has.
+import { Instance, Instances } from "@react-three/drei";
 import { useThree } from "@react-three/fiber";
 import { useEffect, useMemo } from "react";
 import { BoxGeometry, CylinderGeometry, Matrix4, Quaternion, SphereGeometry, Vector3 } from "three";
@@ -67,36 +68,53 @@ function segmentPoses(runs: Run[]): SegmentPose[] {
   return poses;
 }
 
-export function MepRunsLayer({ runs, clashes, selectedClashId, onSelectClash }: { runs: Run[]; clashes: ClashMarker[]; selectedClashId: string | null; onSelectClash?: (id: string) => void }) {
-  const invalidate = useThree((s) => s.invalidate);
-  const poses = useMemo(() => segmentPoses(runs), [runs]);
-  useEffect(() => invalidate(), [poses, clashes, selectedClashId, invalidate]);
+function ClashMarkers({ clashes, wireframe, selectedClashId, onSelectClash }: { clashes: ClashMarker[]; wireframe: boolean; selectedClashId: string | null; onSelectClash?: (id: string) => void }) {
   return (
-    <group name="mep-runs">
-      {poses.map((pose) => (
-        <mesh key={pose.key} geometry={pose.shape === "round" ? unitCylinder : unitBox} position={pose.position} quaternion={pose.quaternion} scale={pose.scale} renderOrder={2}>
-          <meshStandardMaterial color={mepLook.run} transparent opacity={mepLook.runOpacity} depthWrite={false} />
-        </mesh>
-      ))}
+    <Instances limit={Math.max(1, clashes.length)} geometry={unitSphere} renderOrder={3}>
+      {/* Hard clashes solid, clearance clashes hollow-looking: the kind reads without colour too. */}
+      <meshStandardMaterial color={mepLook.clash} wireframe={wireframe} depthTest={false} />
       {clashes.map((clash) => {
         const size = mepLook.clashRadius * (clash.id === selectedClashId ? mepLook.selectedScale : 1);
         return (
-          <mesh
+          <Instance
             key={clash.id}
-            geometry={unitSphere}
             position={[clash.point.x, clash.point.y, clash.point.z]}
-            scale={[size, size, size]}
-            renderOrder={3}
+            scale={size}
             onClick={(event) => {
               event.stopPropagation();
               onSelectClash?.(clash.id);
             }}
-          >
-            {/* Hard clashes solid, clearance clashes hollow-looking: the kind reads without colour too. */}
-            <meshStandardMaterial color={mepLook.clash} wireframe={clash.kind === "clearance"} depthTest={false} />
-          </mesh>
+          />
         );
       })}
+    </Instances>
+  );
+}
+
+function RunBodies({ poses, shape }: { poses: SegmentPose[]; shape: SegmentPose["shape"] }) {
+  const mine = poses.filter((pose) => pose.shape === shape);
+  return (
+    <Instances limit={Math.max(1, mine.length)} geometry={shape === "round" ? unitCylinder : unitBox} renderOrder={2}>
+      <meshStandardMaterial color={mepLook.run} transparent opacity={mepLook.runOpacity} depthWrite={false} />
+      {mine.map((pose) => (
+        <Instance key={pose.key} position={pose.position} quaternion={pose.quaternion} scale={pose.scale} />
+      ))}
+    </Instances>
+  );
+}
+
+export function MepRunsLayer({ runs, clashes, selectedClashId, onSelectClash }: { runs: Run[]; clashes: ClashMarker[]; selectedClashId: string | null; onSelectClash?: (id: string) => void }) {
+  const invalidate = useThree((s) => s.invalidate);
+  const poses = useMemo(() => segmentPoses(runs), [runs]);
+  useEffect(() => invalidate(), [poses, clashes, selectedClashId, invalidate]);
+  const hard = clashes.filter((clash) => clash.kind === "hard");
+  const clearance = clashes.filter((clash) => clash.kind === "clearance");
+  return (
+    <group name="mep-runs">
+      <RunBodies poses={poses} shape="round" />
+      <RunBodies poses={poses} shape="rectangular" />
+      <ClashMarkers clashes={hard} wireframe={false} selectedClashId={selectedClashId} onSelectClash={onSelectClash} />
+      <ClashMarkers clashes={clearance} wireframe selectedClashId={selectedClashId} onSelectClash={onSelectClash} />
     </group>
   );
 }
