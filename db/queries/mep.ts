@@ -181,6 +181,16 @@ export async function carryRunsForward({ projectId, fromRevisionId, toRevision, 
 }
 
 /**
+ * Carries the runs of the revision just before a newly stored one (number − 1, the latest previous revision) onto
+ * it and detects its clashes, inside the transaction that stores it; a first revision has nothing to carry.
+ */
+export async function carryPreviousRunsForward({ projectId, revision, model, actorId, db }: { projectId: string; revision: { id: string; number: number }; model: TrussModel; actorId: string | null; db: Transaction }): Promise<DetectionSummary | null> {
+  const previous = await getRevisionForMep({ projectId, number: revision.number - 1, db });
+  if (!previous) return null;
+  return carryRunsForward({ projectId, fromRevisionId: previous.id, toRevision: { id: revision.id, model }, actorId, db });
+}
+
+/**
  * Stores a revision derived from another (e.g. with the services hung) with its analysis, copies the runs onto it
  * and detects its clashes, all in one transaction.
  */

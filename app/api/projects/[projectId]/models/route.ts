@@ -1,4 +1,5 @@
 import { createRevisionWithAnalysis, listRevisionsByProject } from "@/db/queries/models";
+import { carryPreviousRunsForward } from "@/db/queries/mep";
 import { getProjectById } from "@/db/queries/projects";
 import { requireProjectRole, requireUser } from "@/lib/auth/guard";
 import { getRequestUser } from "@/lib/auth/session";
@@ -50,11 +51,16 @@ export const POST = handleRoute(async (request: Request, context: Context) => {
   const project = await getProjectById({ projectId });
   if (!project) throw new NotFoundError();
   const { result, review } = analyseForStorage(built.model, project.designStandard);
-  // The uploaded original (the JSON model as received, or each CSV table) is stored and recorded with the revision.
+  // The uploaded original (the JSON model as received, or each CSV table) is stored and recorded with the revision,
+  // and the previous revision's MEP runs come along with their clashes detected on the new model, in the same
+  // transaction (stable clash keys keep threads attached where the same member and segment still clash).
   const revision = await withStoredFiles({ projectId, userId: user.id, purpose: "model", files: originalFiles(input) }, (record) =>
     createRevisionWithAnalysis(
       { projectId, name: built.name, model: built.model, source: built.source, createdBy: user.id, result, review },
-      (tx, saved) => record(tx, { revisionId: saved.id }),
+      async (tx, saved) => {
+        await record(tx, { revisionId: saved.id });
+        await carryPreviousRunsForward({ projectId, revision: saved, model: built.model, actorId: user.id, db: tx });
+      },
     ),
   );
   return Response.json({ revision: { ...revision, status: result.status } }, { status: 201 });
