@@ -6,7 +6,7 @@ import { listMembersByProject } from "./memberships";
 import { findMentions } from "../../lib/realtime/mentions";
 import type { CommentKind, PresentedComment, PresentedNotification } from "../../lib/realtime/events";
 import { presentNotification } from "./notifications";
-import { notifyMention } from "../../lib/mail/notify";
+import { notifyMention, notifyThreadDecision } from "../../lib/mail/notify";
 
 type CommentRow = { comment: typeof comments.$inferSelect; authorName: string };
 
@@ -55,7 +55,8 @@ export type WrittenComment = {
 
 /**
  * Writes a comment inside the caller's transaction: resolves @mentions against the project's members, stores one
- * notification per mentioned member (never the author) and marks the pin changed.
+ * notification per mentioned member (never the author), queues their mention mails and, for a decision, the
+ * decision mail to the pin's author and the thread's writers (never the decider), and marks the pin changed.
  */
 export async function writeComment(
   tx: Executor,
@@ -89,6 +90,9 @@ export async function writeComment(
     : [];
   const mentioned = members.filter((member) => mentions.includes(member.id)).map((m) => ({ userId: m.id, email: m.email, name: m.name }));
   await notifyMention({ db: tx, projectId: input.projectId, pinId: input.pinId, commentId: input.id, byName: input.authorName, excerpt, recipients: mentioned });
+  if (input.kind === "decision") {
+    await notifyThreadDecision({ db: tx, projectId: input.projectId, pinId: input.pinId, commentId: input.id, deciderId: input.authorId, excerpt });
+  }
   return {
     comment: presentComment(row),
     created,

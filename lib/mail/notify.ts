@@ -2,9 +2,9 @@ import "server-only";
 // The mails other areas ask for. Each one renders its template and queues it in the outbox, inside the caller's
 // transaction when one is passed, so the mail commits with (and only with) what it announces; the jobs process
 // sends it with retries (lib/mail/outbox.ts).
-import { and, eq, ne } from "drizzle-orm";
+import { and, eq, inArray, ne } from "drizzle-orm";
 import { getDb, type Executor } from "../../db/client";
-import { clashes, invitations, memberships, pins, projects, users } from "../../db/schema";
+import { clashes, comments, invitations, memberships, pins, projects, users } from "../../db/schema";
 import { enqueueMail } from "../../db/queries/mail-outbox";
 import { CLASH_OUTCOME_LABELS, type ClashOutcome } from "../clash/outcomes";
 import { decisionMail, invitationMail, mentionMail } from "./templates";
@@ -110,16 +110,88 @@ export async function notifyDecision({
   /** Where to look at it in the app, e.g. `/projects/<id>?clash=C-12`. */
   path: string;
 }): Promise<void> {
-  const [decider] = await db.select({ name: users.name }).from(users).where(eq(users.id, deciderId));
   const team = await db
     .select({ userId: users.id, email: users.email })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(and(eq(memberships.projectId, projectId), ne(memberships.userId, deciderId)));
+  await queueDecisionMail({ db, projectId, decisionId, deciderId, subject, outcome, note, path, recipients: team });
+}
+
+async function queueDecisionMail({
+  db,
+  projectId,
+  decisionId,
+  deciderId,
+  subject,
+  outcome,
+  note,
+  path,
+  recipients,
+}: {
+  db: Executor;
+  projectId: string;
+  decisionId?: string;
+  deciderId: string;
+  subject: string;
+  outcome: string;
+  note: string | null;
+  path: string;
+  recipients: { userId: string; email: string }[];
+}): Promise<void> {
+  if (recipients.length === 0) return;
+  const [decider] = await db.select({ name: users.name }).from(users).where(eq(users.id, deciderId));
   const mail = decisionMail({ projectName: await projectName(db, projectId), deciderName: decider?.name ?? "Someone", subject, outcome, note, url: appUrl(path) });
-  for (const member of team) {
-    await enqueueMail({ db, mail: { projectId, kind: "decision", toAddress: member.email, ...bodies(mail), dedupeKey: decisionId ? `decision:${decisionId}:${member.userId}` : null } });
+  for (const recipient of recipients) {
+    await enqueueMail({ db, mail: { projectId, kind: "decision", toAddress: recipient.email, ...bodies(mail), dedupeKey: decisionId ? `decision:${decisionId}:${recipient.userId}` : null } });
   }
+}
+
+/**
+ * Queues the decision mail for a decision recorded in a pin's thread (a comment of kind "decision") to the pin's
+ * author and everyone who wrote in the thread, while still members of the project, never the decider. Call it
+ * inside the transaction that writes the comment (db/queries/comments.ts writeComment), after the comment is stored.
+ */
+export async function notifyThreadDecision({
+  db = getDb(),
+  projectId,
+  pinId,
+  commentId,
+  deciderId,
+  excerpt,
+}: {
+  db?: Executor;
+  projectId: string;
+  pinId: string;
+  commentId: string;
+  deciderId: string;
+  excerpt: string;
+}): Promise<void> {
+  const [pin] = await db
+    .select({ title: pins.title, authorId: pins.authorId })
+    .from(pins)
+    .where(and(eq(pins.id, pinId), eq(pins.projectId, projectId)));
+  if (!pin) throw new Error(`Pin ${pinId} is not in project ${projectId}.`);
+  const writers = await db.selectDistinct({ userId: comments.authorId }).from(comments).where(eq(comments.pinId, pinId));
+  const involved = [...new Set([pin.authorId, ...writers.map((w) => w.userId)])].filter((id) => id !== deciderId);
+  const recipients = involved.length
+    ? await db
+        .select({ userId: users.id, email: users.email })
+        .from(memberships)
+        .innerJoin(users, eq(users.id, memberships.userId))
+        .where(and(eq(memberships.projectId, projectId), inArray(memberships.userId, involved)))
+    : [];
+  await queueDecisionMail({
+    db,
+    projectId,
+    decisionId: commentId,
+    deciderId,
+    subject: `the thread "${pin.title}"`,
+    outcome: excerpt,
+    note: null,
+    path: `/projects/${projectId}/viewer?pin=${encodeURIComponent(pinId)}`,
+    recipients,
+  });
 }
 
 /**

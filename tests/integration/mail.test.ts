@@ -2,7 +2,7 @@
 // the capturing SMTP fake, read back from the capture folder with mailparser. The invitation's link is followed to
 // join the project through the API. Needs DATABASE_URL and the backing fakes (scripts/test.mjs starts both).
 import { randomUUID } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { and, eq, like } from "drizzle-orm";
 import nodemailer from "nodemailer";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as invite } from "@/app/api/projects/[projectId]/invitations/route";
@@ -114,6 +114,31 @@ describe("mention, decision and digest mails", () => {
     expect(mail.text).toContain("Advisory results for coordination.");
     expect(mail.text).toContain("Sleeve of 150 mm");
     expect(await listOutboxMailTo({ toAddress: fx.users.structural_engineer.email })).not.toContainEqual(expect.objectContaining({ kind: "decision" }));
+  });
+
+  it("decision in a thread: one mail per pin author and thread writer, never the decider; plain comments queue none", async () => {
+    const threadPin = randomUUID();
+    await getDb().insert(pins).values({ id: threadPin, projectId: fx.projectId, anchorKind: "member", anchorId: "B-41", title: "Opening in chord B-41", discipline: "mep", authorId: fx.users.architect.id });
+    const decisionMails = async () => (await getDb().select().from(mailOutbox).where(and(eq(mailOutbox.projectId, fx.projectId), eq(mailOutbox.kind, "decision")))).length;
+    const say = (author: keyof ProjectFixture["users"], body: string, kind: "comment" | "decision") =>
+      createComment({ id: randomUUID(), projectId: fx.projectId, pinId: threadPin, authorId: fx.users[author].id, authorName: fx.users[author].name, body, kind });
+
+    const before = await decisionMails();
+    await say("mep_engineer", "The 300 mm duct needs to pass B-41.", "comment");
+    await say("structural_engineer", "Checking the chord force first.", "comment");
+    await say("mep_engineer", "Thanks.", "comment");
+    expect(await decisionMails(), "plain comments queue no decision mail").toBe(before);
+
+    const decision = await say("structural_engineer", "No opening in B-41; reroute the duct below the bottom chord.", "decision");
+    const queued = await getDb().select().from(mailOutbox).where(like(mailOutbox.dedupeKey, `decision:${decision!.comment.id}:%`));
+    // The pin's author (architect) and the other writer (MEP engineer), once each; not the decider, not the owner or
+    // viewer who never wrote in the thread.
+    expect(queued.map((m) => m.toAddress).sort()).toEqual([fx.users.architect.email, fx.users.mep_engineer.email].sort());
+    expect(await decisionMails()).toBe(before + 2);
+    expect(queued[0].subject).toContain('Decision on the thread "Opening in chord B-41"');
+    expect(queued[0].textBody).toContain("reroute the duct below the bottom chord");
+    expect(queued[0].textBody).toContain("Advisory results for coordination.");
+    expect(queued[0].textBody).toContain(`/projects/${fx.projectId}/viewer?pin=${threadPin}`);
   });
 
   it("digest: queued once per member and day, listing the open thread", async () => {
