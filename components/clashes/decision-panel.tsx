@@ -5,7 +5,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useForm } from "react-hook-form";
-import { Button, FormMessage, showServerError } from "@/components/ui/form";
+import { Button, FieldError, FormMessage, showServerError } from "@/components/ui/form";
 import { FORCE_STATE_LABELS } from "@/lib/clash/member-state";
 import { CLASH_KIND_LABELS, CLASH_OUTCOME_LABELS, PROPOSABLE_OUTCOMES, acceptOpeningSchema, proposeOutcomeSchema, type AcceptOpeningInput, type ClashOutcome } from "@/lib/clash/outcomes";
 import { apiFetch } from "@/lib/http/fetcher";
@@ -40,12 +40,12 @@ function ProposeForm({ projectId, clash, onDone }: { projectId: string; clash: C
           ))}
         </select>
       </label>
-      {errors.outcome && <p className="text-sm text-clash">{errors.outcome.message}</p>}
+      <FieldError message={errors.outcome?.message} />
       <label className="flex flex-col text-sm font-medium text-board-800">
         Note (optional)
         <textarea className="mt-1 rounded-md border border-board-200 px-2 py-1.5 font-normal" rows={2} {...form.register("note")} data-testid="propose-note" />
       </label>
-      {errors.note && <p className="text-sm text-clash">{errors.note.message}</p>}
+      <FieldError message={errors.note?.message} />
       <FormMessage message={errors.root?.message} />
       <Button type="submit" disabled={propose.isPending} data-testid="propose-submit">
         {propose.isPending ? "Saving…" : "Record proposal"}
@@ -76,11 +76,7 @@ function AcceptForm({ projectId, clash, onDone }: { projectId: string; clash: Cl
         {...form.register("conditions")}
         data-testid="accept-conditions"
       />
-      {error && (
-        <p className="text-sm text-clash" role="alert" data-testid="accept-conditions-error">
-          {error}
-        </p>
-      )}
+      <FieldError message={error ?? undefined} id="accept-conditions-error" />
       <FormMessage message={form.formState.errors.root?.message} />
       <Button type="submit" disabled={accept.isPending} data-testid="accept-submit">
         {accept.isPending ? "Saving…" : "Accept opening with conditions"}

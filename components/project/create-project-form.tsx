@@ -15,7 +15,7 @@ import {
   type CreateProjectInput,
   type CreateProjectValues,
 } from "@/lib/projects/schemas";
-import { Button, Field, FormMessage, showServerError } from "@/components/ui/form";
+import { Button, Field, FieldError, FormMessage, showServerError } from "@/components/ui/form";
 
 /**
  * Any signed-in user creates a project and becomes its owner. `organization` is the user's organisation (the
@@ -66,7 +66,7 @@ export function CreateProjectForm({ organization, onCreatedKey }: { organization
                 </option>
               ))}
             </select>
-            {errors.designStandard ? <p className="text-sm text-clash">{errors.designStandard.message}</p> : null}
+            <FieldError message={errors.designStandard?.message} />
           </div>
           <div className="flex flex-col gap-1">
             <label htmlFor="project-combination-standard" className="text-sm font-medium text-board-800">
@@ -79,7 +79,7 @@ export function CreateProjectForm({ organization, onCreatedKey }: { organization
                 </option>
               ))}
             </select>
-            {errors.combinationStandard ? <p className="text-sm text-clash">{errors.combinationStandard.message}</p> : null}
+            <FieldError message={errors.combinationStandard?.message} />
           </div>
         </div>
         <FormMessage message={errors.root?.message} />

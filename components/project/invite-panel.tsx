@@ -9,7 +9,7 @@ import type { PresentedInvitation } from "@/db/queries/invitations";
 import { apiFetch } from "@/lib/http/fetcher";
 import { ROLES, ROLE_LABELS } from "@/lib/permissions";
 import { inviteSchema } from "@/lib/team/schemas";
-import { Button, Field, FormMessage, showServerError } from "@/components/ui/form";
+import { Button, Field, FieldError, FormMessage, showServerError } from "@/components/ui/form";
 
 type InviteValues = z.output<typeof inviteSchema>;
 const invitationsKey = (projectId: string) => ["projects", projectId, "invitations"] as const;
@@ -60,7 +60,7 @@ export function InvitePanel({ projectId }: { projectId: string }) {
               </option>
             ))}
           </select>
-          {errors.role ? <p className="text-sm text-clash">{errors.role.message}</p> : null}
+          <FieldError message={errors.role?.message} />
         </div>
         <FormMessage message={errors.root?.message} />
         <Button type="submit" disabled={invite.isPending} data-testid="invite-submit">

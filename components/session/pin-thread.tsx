@@ -3,7 +3,7 @@
 // open / answered / closed state. The server decides who may close; its refusal is shown as is.
 import { useEffect, useState, type FormEvent } from "react";
 import { CommentAttachments } from "@/components/files/comment-attachments";
-import { Button } from "@/components/ui/form";
+import { Button, FieldError } from "@/components/ui/form";
 import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
 import type { PresentedComment, PresentedPin, PinState, Vec3 } from "@/lib/realtime/events";
@@ -107,11 +107,7 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
           </Button>
         )}
       </div>
-      {message ? (
-        <p role="alert" className="text-sm text-clash">
-          {message}
-        </p>
-      ) : null}
+      <FieldError message={message ?? undefined} />
     </section>
   );
 }

@@ -1,7 +1,7 @@
 "use client";
 // Start, hand over and end the review session; step out of following and back in.
 import { useState } from "react";
-import { Button } from "@/components/ui/form";
+import { Button, FieldError } from "@/components/ui/form";
 import { useSessionStore } from "./session-store";
 import { send, type ReviewSocket } from "./use-review-socket";
 
@@ -75,11 +75,7 @@ export function SessionControls({ socket }: { socket: ReviewSocket | null }) {
           </select>
         </label>
       ) : null}
-      {message ? (
-        <p role="alert" className="text-sm text-clash">
-          {message}
-        </p>
-      ) : null}
+      <FieldError message={message ?? undefined} />
     </section>
   );
 }

@@ -19,12 +19,18 @@ export function Field({ label, error, hint, id, ...input }: { label: string; err
         {...input}
       />
       {hint && !error ? <p className="text-xs text-board-700">{hint}</p> : null}
-      {error ? (
-        <p id={`${id}-error`} data-testid={`${id}-error`} className="text-sm text-clash" role="alert">
-          {error}
-        </p>
-      ) : null}
+      <FieldError message={error} id={`${id}-error`} />
     </div>
+  );
+}
+
+/** One error line beside a field or control (announced to screen readers); nothing when there is no message. */
+export function FieldError({ message, id }: { message?: string; id?: string }) {
+  if (!message) return null;
+  return (
+    <p id={id} data-testid={id} className="text-sm text-clash" role="alert">
+      {message}
+    </p>
   );
 }
 
