@@ -19,6 +19,12 @@ const artifacts = path.join(root, ".artifacts");
 const runDir = path.join(root, ".data", `test-${process.pid}`);
 const pgDir = path.join(runDir, "pg");
 const tally = { passed: 0, failed: 0, skipped: 0 };
+// `npm test` runs every stage. While working on one part: `npm test -- --only=integration [vitest filters]` runs
+// just the named stages (checks, unit, integration, e2e; comma-separated) with the filters passed to vitest.
+const onlyArg = process.argv.slice(2).find((arg) => arg.startsWith("--only="));
+const stages = onlyArg ? new Set(onlyArg.slice("--only=".length).split(",")) : null;
+const filters = process.argv.slice(2).filter((arg) => !arg.startsWith("--only="));
+const wants = (stage) => !stages || stages.has(stage);
 
 async function step(name, command, args, env = process.env) {
   console.log(`\n=== ${name} ===`);
@@ -30,7 +36,7 @@ async function vitestProject(project, env) {
   const report = path.join(artifacts, `vitest-${project}.json`);
   rmSync(report, { force: true });
   console.log(`\n=== ${project} tests ===`);
-  const code = await run("node_modules/.bin/vitest", ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${report}`], { env });
+  const code = await run("node_modules/.bin/vitest", ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${report}`, ...filters], { env });
   if (existsSync(report)) {
     const result = JSON.parse(readFileSync(report, "utf8"));
     tally.passed += result.numPassedTests;
@@ -47,17 +53,21 @@ async function main() {
   ensurePoppler();
   mkdirSync(artifacts, { recursive: true });
 
-  await step("type check", "node_modules/.bin/next", ["typegen"]);
-  await step("type check", "node_modules/.bin/tsc", ["--noEmit"]);
-  await step("lint", "node_modules/.bin/eslint", [".", "--max-warnings=0"]);
-  await vitestProject("unit", process.env);
+  if (wants("checks")) {
+    await step("type check", "node_modules/.bin/next", ["typegen"]);
+    await step("type check", "node_modules/.bin/tsc", ["--noEmit"]);
+    await step("lint", "node_modules/.bin/eslint", [".", "--max-warnings=0"]);
+  }
+  if (wants("unit")) await vitestProject("unit", process.env);
+  if (!wants("integration") && !wants("e2e")) return;
 
   const ports = { web: await freePort(), postgres: await freePort(), realtime: await freePort(), s3: await freePort(), smtp: await freePort() };
   const databaseUrl = await startPostgres({ dataDir: pgDir, port: ports.postgres, throwaway: true });
   const env = { ...serviceEnv({ databaseUrl, ports, secret: randomBytes(32).toString("hex"), dataDir: runDir }), CHROMIUM_PATH: chromium, ARTIFACTS_DIR: artifacts };
   await step("migrate", "node_modules/.bin/tsx", ["scripts/db-migrate.ts"], env);
   await startServices({ env, ports, kinds: ["backing"], quiet: true });
-  await vitestProject("integration", { ...env, NODE_ENV: "test" });
+  if (wants("integration")) await vitestProject("integration", { ...env, NODE_ENV: "test" });
+  if (!wants("e2e")) return;
 
   await step("build", "node_modules/.bin/next", ["build"], env);
   await step("seed demo", "node_modules/.bin/tsx", ["--conditions=react-server", "scripts/db-seed.ts"], env);
