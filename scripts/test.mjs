@@ -6,7 +6,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { ensureDependencies, run, stopAll } from "./stack/processes.mjs";
-import { startPostgres, stopPostgres } from "./stack/postgres.mjs";
+import { removeCluster, startPostgres, stopPostgres } from "./stack/postgres.mjs";
 import { serviceEnv, startServices } from "./stack/services.mjs";
 import { freePort } from "./stack/ports.mjs";
 import { ensureChromium, ensurePoppler, ensurePostgres } from "./stack/system.mjs";
@@ -84,6 +84,7 @@ try {
 } finally {
   await stopAll();
   try { stopPostgres(pgDir); } catch (error) { console.error(String(error)); }
+  removeCluster(pgDir);
   rmSync(runDir, { recursive: true, force: true });
 }
 console.log(`\n${tally.passed} passed, ${tally.failed} failed${tally.skipped ? `, ${tally.skipped} skipped` : ""}`);

@@ -9,7 +9,7 @@ import path from "node:path";
 import { parseArgs } from "node:util";
 import { io } from "socket.io-client";
 import { encode } from "next-auth/jwt";
-import { startPostgres, stopPostgres } from "../stack/postgres.mjs";
+import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
 import { freePort, waitForPort } from "../stack/ports.mjs";
 import type { Ack, ClientToServerEvents, ServerToClientEvents } from "../../lib/realtime/events";
 import type { Socket } from "socket.io-client";
@@ -203,6 +203,7 @@ async function main() {
   });
   await closeDb();
   stopPostgres(path.join(runDir, "pg"));
+  removeCluster(path.join(runDir, "pg"));
   rmSync(runDir, { recursive: true, force: true });
   process.exitCode = ok ? 0 : 1;
 }

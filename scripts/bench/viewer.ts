@@ -23,7 +23,7 @@ import { insertRevisionWithAnalysis } from "@/db/queries/models";
 import { memberships, organizations, projects, users } from "@/db/schema";
 import { analyzeModel, generateRoof } from "@/lib/analysis";
 import { freePort, waitForPort } from "../stack/ports.mjs";
-import { startPostgres, stopPostgres } from "../stack/postgres.mjs";
+import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
 
 const { values } = parseArgs({ options: { bays: { type: "string", default: "60" } } });
 const bays = Number(values.bays);
@@ -160,5 +160,6 @@ try {
   } catch (error) {
     console.error(String(error));
   }
+  removeCluster(dataDir);
   rmSync(dataDir, { recursive: true, force: true });
 }

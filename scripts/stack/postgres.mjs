@@ -1,4 +1,5 @@
-// PostgreSQL from Debian's packages, run on loopback from a data folder inside the project.
+// PostgreSQL from Debian's packages, run on loopback from a data folder inside the project (or, where the postgres
+// system user cannot reach the project, from a folder named after it under /var/lib/strutroom: see clusterDir).
 // It refuses to run as root, so as root initdb and pg_ctl run as the `postgres` system user.
 import { execFileSync, spawnSync } from "node:child_process";
 import { chmodSync, chownSync, existsSync, mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
@@ -18,6 +19,35 @@ function asOwner(bin, args, options = {}) {
     throw new Error(`${path.basename(bin)} failed: ${result.stderr || result.stdout}`);
   }
   return result.stdout;
+}
+
+function canReach(user, dir) {
+  return spawnSync("runuser", ["-u", user, "--", "test", "-x", dir]).status === 0;
+}
+
+const announced = new Set();
+
+/**
+ * Where the cluster for dataDir really lives. As root, initdb and the server run as the `postgres` system user, who
+ * cannot enter a private folder (a project cloned into /root, say); the cluster then lives under
+ * /var/lib/strutroom in a folder named after the project path, so `npm start` and `npm test` work from any folder.
+ */
+export function clusterDir(dataDir) {
+  if (process.getuid?.() !== 0) return dataDir;
+  const parent = path.dirname(dataDir);
+  mkdirSync(parent, { recursive: true });
+  if (canReach("postgres", parent)) return dataDir;
+  const fallback = path.join("/var/lib/strutroom", dataDir.replace(/^\//, "").replace(/[^A-Za-z0-9._]+/g, "-"));
+  if (!announced.has(dataDir)) {
+    announced.add(dataDir);
+    console.log(`[postgres] the postgres system user cannot reach ${parent}, so this cluster's data lives in ${fallback}`);
+  }
+  return fallback;
+}
+
+/** Deletes a throwaway cluster's data wherever clusterDir placed it. */
+export function removeCluster(dataDir) {
+  rmSync(clusterDir(dataDir), { recursive: true, force: true });
 }
 
 function ownFolder(dir) {
@@ -47,8 +77,9 @@ function runningPort(dataDir) {
 }
 
 /** Starts (initialising when new) a cluster in dataDir on 127.0.0.1:port; returns its DATABASE_URL. */
-export async function startPostgres({ dataDir, port, database = "strutroom", throwaway = false }) {
+export async function startPostgres({ dataDir: projectDataDir, port, database = "strutroom", throwaway = false }) {
   const bin = ensurePostgres();
+  const dataDir = clusterDir(projectDataDir);
   const already = runningPort(dataDir);
   if (already && already !== port) {
     throw new Error(`PostgreSQL for ${dataDir} is already running on port ${already}; stop it first (npm run db:stop).`);
@@ -91,7 +122,8 @@ export async function startPostgres({ dataDir, port, database = "strutroom", thr
 }
 
 /** Stops the cluster in dataDir cleanly (fast shutdown: open sessions are ended, data is kept). */
-export function stopPostgres(dataDir) {
+export function stopPostgres(projectDataDir) {
+  const dataDir = clusterDir(projectDataDir);
   if (!runningPort(dataDir)) return;
   const bin = ensurePostgres();
   asOwner(`${bin}/pg_ctl`, ["stop", "-w", "-D", dataDir, "-m", "fast"]);
