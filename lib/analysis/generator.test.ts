@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "./analyze";
 import { classifyMembers } from "./classify";
-import { demoRoof, generateRoof, roofParamsSchema } from "./generator";
+import { demoRoof, generateRoof, roofParamsSchema, roofSize } from "./generator";
 import { loadVectorForCase } from "./loads";
 import { validateModel } from "./model";
 import { prepareStructure } from "./prepare";
@@ -121,5 +121,17 @@ describe("double-layer grid generator (square on square offset)", () => {
     const parsed = roofParamsSchema.safeParse({ spanX: 10, spanY: 9, module: 3, depth: 1 });
     expect(parsed.success).toBe(false);
     expect(parsed.error?.issues[0].path).toEqual(["spanX"]);
+  });
+
+  it("counts the grid before building it: 300 m spans on a 0.05 m module (36 million bays) are refused in milliseconds", () => {
+    const parsed = roofParamsSchema.safeParse({ spanX: 300, spanY: 300, module: 0.5, depth: 1 });
+    expect(parsed.success).toBe(false);
+    expect(parsed.error?.issues.map((i) => i.path.join("."))).toContain("module");
+    expect(() => generateRoof({ spanX: 300, spanY: 300, module: 0.05, depth: 1 })).toThrow();
+  });
+
+  it("roofSize counts exactly what generateRoof builds", () => {
+    const model = generateRoof({ spanX: 12, spanY: 21, module: 3, depth: 1.5 });
+    expect(roofSize(4, 7)).toEqual({ nodes: model.nodes.length, members: model.members.length });
   });
 });

@@ -1,22 +1,32 @@
 import { z } from "zod";
+import { generator, physical, text } from "../limits";
 import type { Combination, LoadCase, TrussMember, TrussModel, TrussNode, TrussSection, TrussSupport } from "./model";
+
+/** Inputs of the double-layer grid roof generator (m, kN/m2); shared by the web form and the server. */
+const pressure = z.number().nonnegative().max(physical.pressure, `Use at most ${physical.pressure} kN/m2.`);
+const range = ({ min, max }: { min: number; max: number }) => z.number().min(min, `Use at least ${min} m.`).max(max, `Use at most ${max} m.`);
+
+/** Nodes and members of a square-on-square-offset grid of nx by ny bays (counted, not built). */
+export function roofSize(nx: number, ny: number): { nodes: number; members: number } {
+  return { nodes: (nx + 1) * (ny + 1) + nx * ny, members: 8 * nx * ny };
+}
 
 /** Inputs of the double-layer grid roof generator (m, kN/m2); shared by the web form and the server. */
 export const roofParamsSchema = z
   .object({
-    name: z.string().min(1).default("Double-layer grid roof"),
+    name: z.string().min(1).max(text.name).default("Double-layer grid roof"),
     pattern: z.enum(["square_on_square_offset"]).default("square_on_square_offset"),
-    spanX: z.number().positive().max(300),
-    spanY: z.number().positive().max(300),
-    module: z.number().positive(),
-    depth: z.number().positive(),
+    spanX: range(generator.span),
+    spanY: range(generator.span),
+    module: range(generator.module),
+    depth: range(generator.depth),
     /** Superimposed dead load on the top layer: deck, insulation, membrane, purlins. */
-    roofing: z.number().nonnegative().default(0.6),
-    snow: z.number().nonnegative().default(0.8),
+    roofing: pressure.default(0.6),
+    snow: pressure.default(0.8),
     /** Net upward wind pressure on the roof, entered as a positive number. */
-    windUplift: z.number().nonnegative().default(0.7),
+    windUplift: pressure.default(0.7),
     /** Services hung from the bottom layer: ducts, pipes, lights, sprinklers. */
-    services: z.number().nonnegative().default(0.25),
+    services: pressure.default(0.25),
     /** Which published strength combinations to generate. */
     standard: z.enum(["EN 1990", "ASCE 7-22"]).default("EN 1990"),
   })
@@ -26,6 +36,15 @@ export const roofParamsSchema = z
       if (Math.abs(bays - Math.round(bays)) > 1e-6 || Math.round(bays) < 2) {
         ctx.addIssue({ code: "custom", path: [key], message: `span must be a whole number (at least 2) of ${p.module} m modules` });
       }
+    }
+    // Counted before anything is built: a fine module on a long span would otherwise exhaust memory.
+    const size = roofSize(Math.round(p.spanX / p.module), Math.round(p.spanY / p.module));
+    if (size.nodes > generator.nodes || size.members > generator.members) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["module"],
+        message: `This grid would have ${size.nodes.toLocaleString("en")} nodes and ${size.members.toLocaleString("en")} members; the limit is ${generator.nodes.toLocaleString("en")} nodes and ${generator.members.toLocaleString("en")} members. Use a larger module or smaller spans.`,
+      });
     }
   });
 

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { revisionNumber, revisionNumberText } from "@/lib/fields";
 
 /** Outcomes of a clash, in our words (glossary.md). */
 export const CLASH_OUTCOMES = ["reroute_run", "opening_proposed", "opening_accepted", "member_change_needed", "no_conflict"] as const;
@@ -35,9 +36,9 @@ export type AcceptOpeningInput = z.infer<typeof acceptOpeningSchema>;
 
 /** Query of the clash list: the revision and the low-force threshold (kN) for the force-state filter. */
 export const clashListQuerySchema = z.object({
-  revision: z.coerce.number().int().positive("Give the revision number."),
+  revision: revisionNumberText,
   lowForce: z.coerce.number().min(0).max(100_000).default(5),
 });
 
 /** Re-run detection on a revision; with copyRunsFrom, first bring that revision's runs onto it (model changed). */
-export const detectRequestSchema = z.object({ revision: z.number().int().positive(), copyRunsFrom: z.number().int().positive().optional() });
+export const detectRequestSchema = z.object({ revision: revisionNumber, copyRunsFrom: revisionNumber.optional() });

@@ -1,4 +1,6 @@
 import { z } from "zod";
+import { revisionNumber, revisionNumberText } from "@/lib/fields";
+import { formatBytes, runsFileChars } from "@/lib/limits";
 
 // Units follow the model format (design.md): metres, kN. Rotation is in degrees about the run's own axis.
 
@@ -86,21 +88,21 @@ export const runEditSchema = z.object({
 export type RunEdit = z.infer<typeof runEditSchema>;
 
 /** Which model revision (by its number in the project) a runs or clashes request is about. */
-export const revisionQuerySchema = z.object({ revision: z.coerce.number().int().positive("Give the revision number.") });
+export const revisionQuerySchema = z.object({ revision: revisionNumberText });
 
 /** Import request: the file's text and name (CSV or JSON), and whether to replace the revision's runs. */
 export const importRunsSchema = z.object({
-  revision: z.number().int().positive(),
+  revision: revisionNumber,
   fileName: z.string().trim().min(1).max(200),
-  text: z.string().min(1, "The file is empty.").max(2_000_000, "Keep run files under 2 MB."),
+  text: z.string().min(1, "The file is empty.").max(runsFileChars, `Keep run files under ${formatBytes(runsFileChars)}.`),
   mode: z.enum(["replace", "upsert"]).default("upsert"),
 });
 export type ImportRunsInput = z.infer<typeof importRunsSchema>;
 
-export const editRunRequestSchema = runEditSchema.extend({ revision: z.number().int().positive() });
+export const editRunRequestSchema = runEditSchema.extend({ revision: revisionNumber });
 
 /** "Hang the services": which revision, and the largest hanger spacing along each run (m). */
 export const hangServicesSchema = z.object({
-  revision: z.number().int().positive(),
+  revision: revisionNumber,
   hangerSpacing: z.number().finite().min(0.5, "Hangers closer than 0.5 m are not practical.").max(12, "Hangers further apart than 12 m are not practical.").default(2.5),
 });

@@ -1,9 +1,8 @@
 // Request bodies for creating a model revision, shared by the models page forms and the route handler.
 import { z } from "zod";
+import { revisionNumberText } from "@/lib/fields";
+import { modelUploadChars } from "@/lib/limits";
 import { roofParamsSchema } from "@/lib/analysis/generator";
-
-/** Largest accepted upload text (JSON model or one CSV table), in characters. */
-export const MAX_UPLOAD_CHARS = 40_000_000;
 
 const revisionName = z.string().trim().min(1, "Give the revision a name").max(200);
 
@@ -19,7 +18,7 @@ export const createRevisionSchema = z.discriminatedUnion("kind", [
   z.object({
     kind: z.literal("uploadCsv"),
     name: revisionName,
-    tables: z.record(z.string().min(1), z.string().max(MAX_UPLOAD_CHARS)).refine((t) => Object.keys(t).length > 0, "Add at least one CSV table"),
+    tables: z.record(z.string().min(1), z.string().max(modelUploadChars, "Keep each table under 40 million characters.")).refine((t) => Object.keys(t).length > 0, "Add at least one CSV table"),
   }),
 ]);
 
@@ -27,4 +26,4 @@ export type CreateRevisionInput = z.input<typeof createRevisionSchema>;
 /** A parsed create-revision request, as the route handler sees it. */
 export type CreateRevisionRequest = z.output<typeof createRevisionSchema>;
 
-export const revisionParamsSchema = z.object({ projectId: z.uuid(), number: z.coerce.number().int().positive() });
+export const revisionParamsSchema = z.object({ projectId: z.uuid(), number: revisionNumberText });

@@ -1,5 +1,6 @@
 // Query schemas of the report and export routes: shared by the report form and the route handlers.
 import { z } from "zod";
+import { revisionNumberText } from "@/lib/fields";
 
 const resultId = z.string().trim().min(1).max(120);
 const idList = z
@@ -10,7 +11,7 @@ const idList = z
 /** GET /api/projects/[projectId]/report?revision=&combinations=a,b&compare=a,b */
 export const reportQuerySchema = z.object({
   /** Revision number; the newest revision when absent. */
-  revision: z.coerce.number().int().positive("Give a revision number.").optional(),
+  revision: revisionNumberText.optional(),
   /** Result ids to tabulate (combinations or load cases); every combination when absent. */
   combinations: idList.optional(),
   /** Exactly two result ids whose member states are compared. */
@@ -26,11 +27,11 @@ export function reportQueryFrom(params: URLSearchParams): Record<string, string 
 
 /** GET /api/projects/[projectId]/exports/member-forces.csv?revision=&result= */
 export const memberForcesQuerySchema = z.object({
-  revision: z.coerce.number().int().positive("Give a revision number.").optional(),
+  revision: revisionNumberText.optional(),
   result: resultId,
 });
 
 /** GET /api/projects/[projectId]/exports/envelope.csv?revision= */
 export const envelopeQuerySchema = z.object({
-  revision: z.coerce.number().int().positive("Give a revision number.").optional(),
+  revision: revisionNumberText.optional(),
 });
