@@ -4,8 +4,10 @@ import { defineConfig } from "vitest/config";
 const root = fileURLToPath(new URL(".", import.meta.url));
 const alias = { "@": root, "server-only": fileURLToPath(new URL("./tests/support/server-only-stub.ts", import.meta.url)) };
 
-// Three suites: pure unit tests beside the code, integration tests against a real PostgreSQL (and the local
-// fakes) started by scripts/test.mjs, and browser tests against the built app in Debian's chromium.
+// Four suites: pure unit tests beside the code, integration tests against a real PostgreSQL (and the local
+// fakes) started by scripts/test.mjs, the security suite (each hole found when the product was tried as an
+// outsider, a removed member or a hostile file, against the same environment), and browser tests against the
+// built app in Debian's chromium.
 export default defineConfig({
   resolve: { alias },
   test: {
@@ -19,6 +21,17 @@ export default defineConfig({
         test: {
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: "security",
+          include: ["tests/security/**/*.test.ts"],
           environment: "node",
           fileParallelism: false,
           testTimeout: 60_000,

@@ -20,7 +20,7 @@ const runDir = path.join(root, ".data", `test-${process.pid}`);
 const pgDir = path.join(runDir, "pg");
 const tally = { passed: 0, failed: 0, skipped: 0 };
 // `npm test` runs every stage. While working on one part: `npm test -- --only=integration [vitest filters]` runs
-// just the named stages (checks, unit, integration, e2e; comma-separated) with the filters passed to vitest.
+// just the named stages (checks, unit, integration, security, e2e; comma-separated) with the filters passed to vitest.
 const onlyArg = process.argv.slice(2).find((arg) => arg.startsWith("--only="));
 const stages = onlyArg ? new Set(onlyArg.slice("--only=".length).split(",")) : null;
 const filters = process.argv.slice(2).filter((arg) => !arg.startsWith("--only="));
@@ -59,7 +59,7 @@ async function main() {
     await step("lint", "node_modules/.bin/eslint", [".", "--max-warnings=0"]);
   }
   if (wants("unit")) await vitestProject("unit", process.env);
-  if (!wants("integration") && !wants("e2e")) return;
+  if (!wants("integration") && !wants("security") && !wants("e2e")) return;
 
   const ports = { web: await freePort(), postgres: await freePort(), realtime: await freePort(), s3: await freePort(), smtp: await freePort() };
   const databaseUrl = await startPostgres({ dataDir: pgDir, port: ports.postgres, throwaway: true });
@@ -67,6 +67,7 @@ async function main() {
   await step("migrate", "node_modules/.bin/tsx", ["scripts/db-migrate.ts"], env);
   await startServices({ env, ports, kinds: ["backing"], quiet: true });
   if (wants("integration")) await vitestProject("integration", { ...env, NODE_ENV: "test" });
+  if (wants("security")) await vitestProject("security", { ...env, NODE_ENV: "test" });
   if (!wants("e2e")) return;
 
   await step("build", "node_modules/.bin/next", ["build"], env);

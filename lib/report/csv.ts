@@ -5,6 +5,11 @@ import type { AnalysisResult } from "../analysis/analyze";
 import type { TrussModel } from "../analysis/model";
 import { memberState } from "./states";
 
+// Cells starting with =, +, -, @, tab or CR are prefixed with a quote so a spreadsheet shows them as text (OWASP
+// "CSV Injection"). papaparse's own pattern for `escapeFormulae: true` ends in `.*$`, which misses a cell with a
+// line break, so the bare prefix pattern is passed. Numbers are never escaped (negative forces stay numbers).
+const UNPARSE = { newline: "\n", escapeFormulae: /^[=+\-@\t\r]/ } as const;
+
 export const MEMBER_FORCE_COLUMNS = ["member", "node_i", "node_j", "section", "result", "axial_force_kN", "state"] as const;
 export const ENVELOPE_COLUMNS = ["member", "node_i", "node_j", "section", "max_tension_kN", "max_compression_kN", "zero_in_all", "governing_tension", "governing_compression"] as const;
 
@@ -21,7 +26,7 @@ export function memberForcesCsv(model: TrussModel, result: AnalysisResult, resul
     caseResult.memberForces[member.id] ?? 0,
     memberState(caseResult, member.id),
   ]);
-  return Papa.unparse({ fields: [...MEMBER_FORCE_COLUMNS], data: rows }, { newline: "\n" }) + "\n";
+  return Papa.unparse({ fields: [...MEMBER_FORCE_COLUMNS], data: rows }, UNPARSE) + "\n";
 }
 
 /** One row per member: the largest tension and compression over the envelope's results, and where they occur. */
@@ -41,5 +46,5 @@ export function envelopeCsv(model: TrussModel, result: AnalysisResult): string {
       governing?.maxCompression ?? "",
     ];
   });
-  return Papa.unparse({ fields: [...ENVELOPE_COLUMNS], data: rows }, { newline: "\n" }) + "\n";
+  return Papa.unparse({ fields: [...ENVELOPE_COLUMNS], data: rows }, UNPARSE) + "\n";
 }
