@@ -1,4 +1,4 @@
-import type { Metadata } from "next";
+import type { Metadata, Viewport } from "next";
 import type { ReactNode } from "react";
 // Fonts ship with the app (npm packages), so nothing is fetched from a font service at build or run time.
 import "@fontsource-variable/public-sans";
@@ -9,7 +9,12 @@ import { Providers } from "@/components/providers";
 export const metadata: Metadata = {
   title: { default: "Strutroom", template: "%s · Strutroom" },
   description: "The shared review board for steel space-truss roofs.",
+  // The icons and the web manifest live in public/ (drawn from components/brand/mark.tsx).
+  manifest: "/manifest.webmanifest",
+  icons: { icon: [{ url: "/favicon.ico", sizes: "32x32" }, { url: "/icon.svg", type: "image/svg+xml" }], apple: "/apple-touch-icon.png" },
 };
+
+export const viewport: Viewport = { themeColor: "#0f766e" };
 
 export default function RootLayout({ children }: { children: ReactNode }) {
   return (
