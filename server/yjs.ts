@@ -9,6 +9,7 @@ import { appendYjsUpdate, compactYjsUpdates, loadYjsUpdates } from "@/db/queries
 import { YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { can } from "@/lib/permissions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
+import { readClientMessage } from "./yjs-messages";
 
 const LOADED_ORIGIN = Symbol("loaded from PostgreSQL");
 const COMPACT_EVERY_MS = 5 * 60_000;
@@ -45,12 +46,11 @@ async function writeState(projectId: string, doc: WSSharedDoc) {
   }
 }
 
-// Viewers may read the live document but not change it: sync step 2 and update messages carry changes.
-const MESSAGE_SYNC = 0;
-const SYNC_STEP_1 = 0;
+// Viewers may read the live document but not change it. Messages are decoded the way the Yjs server decodes them
+// (readClientMessage), never compared byte by byte: 0x80 0x00 is as much a zero as 0x00.
 function isChange(message: ArrayBuffer | Buffer): boolean {
-  const bytes = message instanceof ArrayBuffer ? new Uint8Array(message) : message;
-  return bytes[0] === MESSAGE_SYNC && bytes[1] !== SYNC_STEP_1;
+  const bytes = message instanceof ArrayBuffer ? new Uint8Array(message) : new Uint8Array(message.buffer, message.byteOffset, message.byteLength);
+  return readClientMessage(bytes).kind !== "read";
 }
 
 /** Lets a connection read the document but drops its changes (the library registers its own message listener). */
