@@ -1,4 +1,6 @@
-// The one permission table of Strutroom. Every route handler, server action and socket event asks `can`.
+// The one rule book of Strutroom: the role table (`can`) and the rules that also look at the thing acted on
+// (`authorize`). Route handlers (projectRoute), server actions, socket events, the Yjs endpoint and the pages'
+// buttons all ask here; nothing else decides who may do what.
 
 /** Project roles, a closed enum ordered from most to least authority. */
 export const ROLES = ["owner", "structural_engineer", "architect", "mep_engineer", "viewer"] as const;
@@ -45,7 +47,7 @@ const TABLE: Record<Action, readonly Role[]> = {
   "session.present": ["owner", "structural_engineer"],
   "pin.create": ["owner", "structural_engineer", "architect", "mep_engineer"],
   "comment.create": ["owner", "structural_engineer", "architect", "mep_engineer"],
-  // The pin's author may also close their own thread; the caller checks authorship (see canCloseThread).
+  // The pin's author may also close their own thread (authorize with the pin as resource).
   "thread.close": ["owner", "structural_engineer"],
   "clash.propose": ["mep_engineer", "structural_engineer"],
   "runs.edit": ["mep_engineer", "structural_engineer"],
@@ -59,12 +61,61 @@ export function can(role: Role | null | undefined, action: Action): boolean {
 
 /** thread.close: owners and structural engineers, plus the author of the pin whatever their role. */
 export function canCloseThread(role: Role | null | undefined, userId: string, pinAuthorId: string): boolean {
-  return can(role, "thread.close") || (role != null && userId === pinAuthorId);
+  return authorize(role ? { role, userId } : null, "thread.close", { kind: "pin", authorId: pinAuthorId });
 }
 
 /** Every action the role may perform, for the UI to enable buttons from the server's answer. */
 export function abilitiesOf(role: Role | null | undefined): Record<Action, boolean> {
   return Object.fromEntries(ACTIONS.map((action) => [action, can(role, action)])) as Record<Action, boolean>;
+}
+
+/** Actions whose answer depends on the resource as well as the role (kept apart from the role table above). */
+export const RESOURCE_ACTIONS = ["thread.reopen", "session.steer", "session.drive", "notes.edit", "comment.attach"] as const;
+export type ResourceAction = (typeof RESOURCE_ACTIONS)[number];
+
+/** Who is asking: their role on the project and their user id (a membership row fits). */
+export type Asker = { role: Role; userId: string } | null | undefined;
+
+/** The thing an action is done to, when the rule looks at it. */
+export type Resource =
+  /** A pin and its thread: its author may close (or reopen) it. */
+  | { kind: "pin"; authorId: string }
+  /** The live review session: its presenter (null when none is live). */
+  | { kind: "session"; presenterId: string | null }
+  /** A comment: only its author attaches files to it. */
+  | { kind: "comment"; authorId: string };
+
+function ownsResource(asker: NonNullable<Asker>, resource: Resource | undefined, kind: Resource["kind"]): boolean {
+  if (!resource || resource.kind !== kind) return false;
+  return (resource.kind === "session" ? resource.presenterId : resource.authorId) === asker.userId;
+}
+
+/**
+ * The one question every caller asks: may this member do this (to this resource)? Role-table actions need only the
+ * role, except `thread.close`, which the pin's author may also do. Resource actions:
+ * - `thread.reopen`: the same people who may close the pin's thread;
+ * - `session.steer` (hand over, end): the presenter or an owner;
+ * - `session.drive` (move everyone's view): the presenter only;
+ * - `notes.edit` (the shared session notes): whoever may comment;
+ * - `comment.attach`: the comment's author, while they may comment.
+ */
+export function authorize(asker: Asker, action: Action | ResourceAction, resource?: Resource): boolean {
+  if (!asker) return false;
+  switch (action) {
+    case "thread.close":
+    case "thread.reopen":
+      return can(asker.role, "thread.close") || ownsResource(asker, resource, "pin");
+    case "session.steer":
+      return ownsResource(asker, resource, "session") || asker.role === "owner";
+    case "session.drive":
+      return ownsResource(asker, resource, "session");
+    case "notes.edit":
+      return can(asker.role, "comment.create");
+    case "comment.attach":
+      return can(asker.role, "comment.create") && ownsResource(asker, resource, "comment");
+    default:
+      return can(asker.role, action);
+  }
 }
 
 /** True for a string that names a role. */

@@ -3,7 +3,7 @@
 import { z } from "zod";
 import { getMembership } from "@/db/queries/memberships";
 import { verifySessionCookie, type SessionUser } from "@/lib/auth/session-cookie";
-import { can, type Role } from "@/lib/permissions";
+import { authorize, type Asker, type Role } from "@/lib/permissions";
 
 export type Connected = { user: SessionUser; role: Role; projectId: string };
 
@@ -19,7 +19,7 @@ export async function authenticate(cookieHeader: string | undefined, projectId: 
   if (!user) return { status: 401, message: "Sign in to continue." };
   const membership = await getMembership({ projectId: parsedProject.data, userId: user.id });
   if (!membership) return { status: 404, message: "No such project, or you are not on its team." };
-  if (!can(membership.role, "project.read")) return { status: 403, message: "Your role on this project does not allow this." };
+  if (!authorize(membership, "project.read")) return { status: 403, message: "Your role on this project does not allow this." };
   return { user, role: membership.role, projectId: parsedProject.data };
 }
 
@@ -28,10 +28,9 @@ export function isRefusal(result: Connected | Refusal): result is Refusal {
   return "status" in result;
 }
 
-/** The member's current role (re-read before every write, so a role change applies at once). */
-export async function currentRole({ projectId, userId }: { projectId: string; userId: string }): Promise<Role | null> {
-  const membership = await getMembership({ projectId, userId });
-  return membership?.role ?? null;
+/** The member as the rule book sees them now (re-read before every write, so a role change applies at once). */
+export async function currentMember({ projectId, userId }: { projectId: string; userId: string }): Promise<Asker> {
+  return (await getMembership({ projectId, userId })) ?? null;
 }
 
 /** Browsers must come from the web app; clients without an Origin header (Node, tests) are not browsers. */

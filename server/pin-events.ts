@@ -3,8 +3,8 @@ import { createComment, listCommentsSince, type WrittenComment } from "@/db/quer
 import { createPin, getPinById, listPinsChangedSince, setPinState } from "@/db/queries/pins";
 import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
 import { commentCreateSchema, pinCreateSchema, pinSetStateSchema, syncSinceSchema } from "@/lib/realtime/events";
-import { can, canCloseThread } from "@/lib/permissions";
-import { currentRole } from "./auth";
+import { authorize } from "@/lib/permissions";
+import { currentMember } from "./auth";
 import { projectRoom, userRoom, type RealtimeServer } from "./context";
 import { onEvent, type RealtimeSocket } from "./handle-event";
 
@@ -24,7 +24,7 @@ export function registerPinEvents(io: RealtimeServer, socket: RealtimeSocket): v
   const room = projectRoom(projectId);
 
   onEvent(socket, "pin:create", pinCreateSchema, async (input) => {
-    if (!can(await currentRole({ projectId, userId: user.id }), "pin.create")) throw new ForbiddenError();
+    if (!authorize(await currentMember({ projectId, userId: user.id }), "pin.create")) throw new ForbiddenError();
     const result = await createPin({ projectId, authorId: user.id, authorName: user.name, input });
     if (!result) throw new NotFoundError("That pin id is already used elsewhere.");
     if (result.created) {
@@ -35,9 +35,9 @@ export function registerPinEvents(io: RealtimeServer, socket: RealtimeSocket): v
   });
 
   onEvent(socket, "comment:create", commentCreateSchema, async (input) => {
-    const role = await currentRole({ projectId, userId: user.id });
-    if (!can(role, "comment.create")) throw new ForbiddenError();
-    if (input.kind === "decision" && !can(role, "review.decide")) throw new ForbiddenError("Only the structural engineer records decisions.");
+    const member = await currentMember({ projectId, userId: user.id });
+    if (!authorize(member, "comment.create")) throw new ForbiddenError();
+    if (input.kind === "decision" && !authorize(member, "review.decide")) throw new ForbiddenError("Only the structural engineer records decisions.");
     const written = await createComment({ ...input, projectId, authorId: user.id, authorName: user.name });
     if (!written) throw new NotFoundError("No such pin in this project.");
     if (written.created) {
@@ -49,11 +49,13 @@ export function registerPinEvents(io: RealtimeServer, socket: RealtimeSocket): v
   });
 
   onEvent(socket, "pin:set-state", pinSetStateSchema, async ({ pinId, state }) => {
-    const role = await currentRole({ projectId, userId: user.id });
+    const member = await currentMember({ projectId, userId: user.id });
     const pin = await getPinById({ projectId, pinId });
     if (!pin) throw new NotFoundError("No such pin in this project.");
     // Closing a thread, or reopening a closed one, is the closer's call; marking it answered is anyone's who may comment.
-    const allowed = state === "closed" || pin.state === "closed" ? canCloseThread(role, user.id, pin.author.id) : can(role, "comment.create");
+    const resource = { kind: "pin", authorId: pin.author.id } as const;
+    const allowed =
+      state === "closed" ? authorize(member, "thread.close", resource) : pin.state === "closed" ? authorize(member, "thread.reopen", resource) : authorize(member, "comment.create");
     if (!allowed) throw new ForbiddenError();
     const updated = await setPinState({ projectId, pinId, state });
     if (!updated) throw new NotFoundError("No such pin in this project.");

@@ -10,8 +10,8 @@ import {
   sessionStartSchema,
   sessionViewSchema,
 } from "@/lib/realtime/events";
-import { can } from "@/lib/permissions";
-import { currentRole } from "./auth";
+import { authorize } from "@/lib/permissions";
+import { currentMember } from "./auth";
 import type { CursorBatcher } from "./cursor-batcher";
 import { projectRoom, type RealtimeServer } from "./context";
 import { onEvent, type RealtimeSocket } from "./handle-event";
@@ -38,7 +38,7 @@ export function registerSessionEvents(io: RealtimeServer, socket: RealtimeSocket
   const room = projectRoom(projectId);
 
   onEvent(socket, "session:start", sessionStartSchema, async () => {
-    if (!can(await currentRole({ projectId, userId: user.id }), "session.present")) throw new ForbiddenError();
+    if (!authorize(await currentMember({ projectId, userId: user.id }), "session.present")) throw new ForbiddenError();
     const session = await startSession({ projectId, presenterId: user.id });
     if (!session) throw new ConflictError("The session could not be started; try again.");
     if (session.presenterId !== user.id) throw new ConflictError(`${session.presenterName} is presenting; ask them to hand over.`);
@@ -47,30 +47,31 @@ export function registerSessionEvents(io: RealtimeServer, socket: RealtimeSocket
   });
 
   onEvent(socket, "session:handover", sessionHandoverSchema, async ({ toUserId }) => {
-    const role = await currentRole({ projectId, userId: user.id });
+    const member = await currentMember({ projectId, userId: user.id });
     const presenterId = await presenterOf(projectId);
     if (!presenterId) throw new NotFoundError("No review session is live.");
-    if (presenterId !== user.id && role !== "owner") throw new ForbiddenError("Only the presenter or an owner can hand over.");
+    if (!authorize(member, "session.steer", { kind: "session", presenterId })) throw new ForbiddenError("Only the presenter or an owner can hand over.");
     const target = await getMembership({ projectId, userId: toUserId });
     if (!target) throw new NotFoundError("That person is not on this project's team.");
-    if (!can(target.role, "session.present")) throw new ForbiddenError("That person's role cannot present.");
+    if (!authorize(target, "session.present")) throw new ForbiddenError("That person's role cannot present.");
     const session = await handOverSession({ projectId, toUserId });
     if (!session) throw new NotFoundError("No review session is live.");
     return (await broadcastSession(io, projectId)) ?? session;
   });
 
   onEvent(socket, "session:end", sessionEndSchema, async () => {
-    const role = await currentRole({ projectId, userId: user.id });
+    const member = await currentMember({ projectId, userId: user.id });
     const presenterId = await presenterOf(projectId);
     if (!presenterId) return null;
-    if (presenterId !== user.id && role !== "owner") throw new ForbiddenError("Only the presenter or an owner can end the session.");
+    if (!authorize(member, "session.steer", { kind: "session", presenterId })) throw new ForbiddenError("Only the presenter or an owner can end the session.");
     await endSession({ projectId });
     await broadcastSession(io, projectId);
     return null;
   });
 
   onEvent(socket, "session:view", sessionViewSchema, async (view) => {
-    if ((await presenterOf(projectId)) !== user.id) throw new ForbiddenError("Only the presenter drives the view.");
+    const asker = { role: socket.data.role, userId: user.id };
+    if (!authorize(asker, "session.drive", { kind: "session", presenterId: await presenterOf(projectId) })) throw new ForbiddenError("Only the presenter drives the view.");
     socket.to(room).emit("session:view", { ...view, presenterId: user.id });
     rememberView(projectId, user.id, view);
     return null;

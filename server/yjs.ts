@@ -7,7 +7,7 @@ import * as Y from "yjs";
 import { docs, getYDoc, setPersistence, setupWSConnection, type WSSharedDoc } from "@y/websocket-server/utils";
 import { appendYjsUpdate, compactYjsUpdates, loadYjsUpdates } from "@/db/queries/live-documents";
 import { YJS_PATH_PREFIX } from "@/lib/realtime/events";
-import { can } from "@/lib/permissions";
+import { authorize } from "@/lib/permissions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
 import { readClientMessage } from "./yjs-messages";
 
@@ -101,7 +101,7 @@ export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
     if (isRefusal(who)) return refuse(socket, who.status, who.message);
     await openDocument(who.projectId);
     wss.handleUpgrade(request, socket, head, (ws) => {
-      if (!can(who.role, "comment.create")) makeReadOnly(ws);
+      if (!authorize({ role: who.role, userId: who.user.id }, "notes.edit")) makeReadOnly(ws);
       setupWSConnection(ws, request, { docName: who.projectId });
     });
   }

@@ -2,6 +2,7 @@
 // Start, hand over and end the review session; step out of following and back in.
 import { useState } from "react";
 import { Button, FieldError } from "@/components/ui/form";
+import { authorize, can } from "@/lib/permissions";
 import { useSessionStore } from "./session-store";
 import { send, type ReviewSocket } from "./use-review-socket";
 
@@ -27,7 +28,9 @@ export function SessionControls({ socket }: { socket: ReviewSocket | null }) {
     useSessionStore.getState().setFollowing(value);
     await send(socket, "presence:follow", { following: value });
   };
-  const candidates = presence.filter((p) => p.id !== me.id && (p.role === "owner" || p.role === "structural_engineer"));
+  // The rule book decides who may steer the session and who may take it over; the server asks the same rules.
+  const maySteer = session !== null && authorize({ role: me.role, userId: me.id }, "session.steer", { kind: "session", presenterId: session.presenterId });
+  const candidates = presence.filter((p) => p.id !== me.id && p.id !== session?.presenterId && can(p.role, "session.present"));
 
   return (
     <section className="flex flex-col gap-2" aria-label="Review session">
@@ -51,13 +54,13 @@ export function SessionControls({ socket }: { socket: ReviewSocket | null }) {
             </Button>
           )
         ) : null}
-        {session && (presenting || me.role === "owner") ? (
+        {maySteer ? (
           <Button variant="quiet" data-testid="session-end" onClick={() => void run("session:end")}>
             End session
           </Button>
         ) : null}
       </div>
-      {presenting && candidates.length > 0 ? (
+      {maySteer && candidates.length > 0 ? (
         <label className="flex items-center gap-2 text-sm">
           Hand over to
           <select

@@ -1,15 +1,11 @@
 import { changePassword } from "@/db/queries/users";
-import { requireUser } from "@/lib/auth/guard";
 import { changePasswordSchema } from "@/lib/auth/schemas";
-import { getRequestUser } from "@/lib/auth/session";
-import { ValidationError, handleRoute } from "@/lib/http/errors";
-import { parseJson } from "@/lib/http/parse";
+import { ValidationError } from "@/lib/http/errors";
+import { accountRoute } from "@/lib/http/route";
 
 /** Changes the signed-in user's password after checking the current one. */
-export const POST = handleRoute(async (request: Request) => {
-  const { id } = requireUser(await getRequestUser(request));
-  const input = await parseJson(request, changePasswordSchema);
-  const changed = await changePassword({ userId: id, currentPassword: input.currentPassword, newPassword: input.newPassword });
+export const POST = accountRoute({ body: changePasswordSchema }, async ({ user, body }) => {
+  const changed = await changePassword({ userId: user.id, currentPassword: body.currentPassword, newPassword: body.newPassword });
   if (!changed) throw new ValidationError([{ path: "currentPassword", message: "This is not your current password." }], "The current password is wrong.");
   return Response.json({ ok: true });
 });

@@ -1,26 +1,15 @@
 import { listMembersByProject, updateMemberRole } from "@/db/queries/memberships";
-import { requireProjectRole, requireUser } from "@/lib/auth/guard";
-import { getRequestUser } from "@/lib/auth/session";
-import { handleRoute } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
-import { parseJson, parseParams } from "@/lib/http/parse";
+import { projectRoute } from "@/lib/http/route";
 import { changeRoleSchema } from "@/lib/team/schemas";
 
-type Context = RouteContext<"/api/projects/[projectId]/members">;
-
 /** The project's team with roles. */
-export const GET = handleRoute(async (request: Request, context: Context) => {
-  const { projectId } = parseParams(projectParamsSchema, await context.params);
-  await requireProjectRole(await getRequestUser(request), projectId, "project.read");
-  return Response.json({ members: await listMembersByProject({ projectId }) });
-});
+export const GET = projectRoute({ params: projectParamsSchema, action: "project.read" }, async ({ params }) =>
+  Response.json({ members: await listMembersByProject(params) }),
+);
 
 /** Changes one member's role (owners only); the change is audited. */
-export const PATCH = handleRoute(async (request: Request, context: Context) => {
-  const { projectId } = parseParams(projectParamsSchema, await context.params);
-  const user = requireUser(await getRequestUser(request));
-  await requireProjectRole(user, projectId, "team.manage");
-  const input = await parseJson(request, changeRoleSchema);
-  const member = await updateMemberRole({ projectId, userId: input.userId, role: input.role, actorId: user.id });
+export const PATCH = projectRoute({ params: projectParamsSchema, body: changeRoleSchema, action: "team.manage" }, async ({ params, body, user }) => {
+  const member = await updateMemberRole({ projectId: params.projectId, userId: body.userId, role: body.role, actorId: user.id });
   return Response.json({ member });
 });

@@ -1,17 +1,13 @@
 import { createRevisionWithAnalysis, listRevisionsByProject } from "@/db/queries/models";
 import { carryPreviousRunsForward } from "@/db/queries/mep";
 import { getProjectById } from "@/db/queries/projects";
-import { requireProjectRole, requireUser } from "@/lib/auth/guard";
-import { getRequestUser } from "@/lib/auth/session";
-import { handleRoute, NotFoundError, ValidationError } from "@/lib/http/errors";
+import { NotFoundError, ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
-import { parseJson, parseParams } from "@/lib/http/parse";
+import { projectRoute } from "@/lib/http/route";
 import { analyseForStorage } from "@/lib/models/analyse";
 import { buildRevision } from "@/lib/models/build-revision";
 import { createRevisionSchema, type CreateRevisionRequest } from "@/lib/models/schemas";
 import { withStoredFiles, type ReceivedFile } from "@/lib/storage/attachments";
-
-type Context = RouteContext<"/api/projects/[projectId]/models">;
 
 const encoder = new TextEncoder();
 
@@ -23,45 +19,41 @@ function originalFiles(input: CreateRevisionRequest): ReceivedFile[] {
 }
 
 /** The project's model revisions, newest first. */
-export const GET = handleRoute(async (request: Request, context: Context) => {
-  const { projectId } = parseParams(projectParamsSchema, await context.params);
-  await requireProjectRole(await getRequestUser(request), projectId, "project.read");
-  return Response.json({ revisions: await listRevisionsByProject({ projectId }) });
-});
+export const GET = projectRoute({ params: projectParamsSchema, action: "project.read" }, async ({ params }) =>
+  Response.json({ revisions: await listRevisionsByProject(params) }),
+);
 
 /**
  * Creates a revision from generator parameters or an uploaded JSON / CSV model. Bad input is a 400 listing every
  * problem and nothing is stored; otherwise the analysis and review run now and are stored with the revision.
  */
-export const POST = handleRoute(async (request: Request, context: Context) => {
-  const { projectId } = parseParams(projectParamsSchema, await context.params);
-  const user = requireUser(await getRequestUser(request));
+export const POST = projectRoute(
   // Saving a revision also runs its analysis, so both permissions are needed.
-  await requireProjectRole(user, projectId, "model.edit");
-  await requireProjectRole(user, projectId, "analysis.run");
-  const input = await parseJson(request, createRevisionSchema);
-  const built = buildRevision(input);
-  if (!built.ok) {
-    const count = built.problems.length;
-    throw new ValidationError(
-      built.problems.map((p) => ({ path: p.where, message: p.message })),
-      `The model has ${count} problem${count === 1 ? "" : "s"}; nothing was saved.`,
+  { params: projectParamsSchema, body: createRevisionSchema, action: ["model.edit", "analysis.run"] },
+  async ({ params: { projectId }, body: input, user }) => {
+    const built = buildRevision(input);
+    if (!built.ok) {
+      const count = built.problems.length;
+      throw new ValidationError(
+        built.problems.map((p) => ({ path: p.where, message: p.message })),
+        `The model has ${count} problem${count === 1 ? "" : "s"}; nothing was saved.`,
+      );
+    }
+    const project = await getProjectById({ projectId });
+    if (!project) throw new NotFoundError();
+    const { result, review } = analyseForStorage(built.model, project.designStandard);
+    // The uploaded original (the JSON model as received, or each CSV table) is stored and recorded with the revision,
+    // and the previous revision's MEP runs come along with their clashes detected on the new model, in the same
+    // transaction (stable clash keys keep threads attached where the same member and segment still clash).
+    const revision = await withStoredFiles({ projectId, userId: user.id, purpose: "model", files: originalFiles(input) }, (record) =>
+      createRevisionWithAnalysis(
+        { projectId, name: built.name, model: built.model, source: built.source, createdBy: user.id, result, review },
+        async (tx, saved) => {
+          await record(tx, { revisionId: saved.id });
+          await carryPreviousRunsForward({ projectId, revision: saved, model: built.model, actorId: user.id, db: tx });
+        },
+      ),
     );
-  }
-  const project = await getProjectById({ projectId });
-  if (!project) throw new NotFoundError();
-  const { result, review } = analyseForStorage(built.model, project.designStandard);
-  // The uploaded original (the JSON model as received, or each CSV table) is stored and recorded with the revision,
-  // and the previous revision's MEP runs come along with their clashes detected on the new model, in the same
-  // transaction (stable clash keys keep threads attached where the same member and segment still clash).
-  const revision = await withStoredFiles({ projectId, userId: user.id, purpose: "model", files: originalFiles(input) }, (record) =>
-    createRevisionWithAnalysis(
-      { projectId, name: built.name, model: built.model, source: built.source, createdBy: user.id, result, review },
-      async (tx, saved) => {
-        await record(tx, { revisionId: saved.id });
-        await carryPreviousRunsForward({ projectId, revision: saved, model: built.model, actorId: user.id, db: tx });
-      },
-    ),
-  );
-  return Response.json({ revision: { ...revision, status: result.status } }, { status: 201 });
-});
+    return Response.json({ revision: { ...revision, status: result.status } }, { status: 201 });
+  },
+);

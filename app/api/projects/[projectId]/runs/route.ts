@@ -1,31 +1,20 @@
 import { importRuns, listRunsByRevision } from "@/db/queries/mep";
-import { requireProjectRole, requireUser } from "@/lib/auth/guard";
-import { getRequestUser } from "@/lib/auth/session";
-import { ValidationError, handleRoute } from "@/lib/http/errors";
+import { ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
-import { parseJson, parseParams, parseWith } from "@/lib/http/parse";
+import { projectRoute } from "@/lib/http/route";
 import { parseRunsFile } from "@/lib/mep/import";
 import { requireRevision } from "@/lib/mep/revision";
 import { importRunsSchema, revisionQuerySchema } from "@/lib/mep/schemas";
 import { withStoredFiles } from "@/lib/storage/attachments";
 
-type Context = RouteContext<"/api/projects/[projectId]/runs">;
-
 /** The runs of one revision (`?revision=N`). */
-export const GET = handleRoute(async (request: Request, context: Context) => {
-  const { projectId } = parseParams(projectParamsSchema, await context.params);
-  await requireProjectRole(await getRequestUser(request), projectId, "project.read");
-  const { revision: number } = parseWith(revisionQuerySchema, Object.fromEntries(new URL(request.url).searchParams));
-  const revision = await requireRevision(projectId, number);
+export const GET = projectRoute({ params: projectParamsSchema, query: revisionQuerySchema, action: "project.read" }, async ({ params, query }) => {
+  const revision = await requireRevision(params.projectId, query.revision);
   return Response.json({ runs: await listRunsByRevision({ revisionId: revision.id }) });
 });
 
 /** Imports runs from a CSV or JSON file; any problem rejects the whole file and every problem is listed. */
-export const POST = handleRoute(async (request: Request, context: Context) => {
-  const { projectId } = parseParams(projectParamsSchema, await context.params);
-  const user = requireUser(await getRequestUser(request));
-  await requireProjectRole(user, projectId, "runs.edit");
-  const input = await parseJson(request, importRunsSchema);
+export const POST = projectRoute({ params: projectParamsSchema, body: importRunsSchema, action: "runs.edit" }, async ({ params: { projectId }, body: input, user }) => {
   const revision = await requireRevision(projectId, input.revision);
   const { runs, problems } = parseRunsFile(input.text, input.fileName);
   if (problems.length > 0) {

@@ -1,0 +1,93 @@
+import "server-only";
+// The only way to write a route handler under app/api (tests/integration/route-wrappers.test.ts checks it): the
+// preamble every handler needs — params, signed-in user, membership read once, the rule book, query and body
+// parsed with their zod schemas — then the handler, with every thrown error answered as `{ error, issues? }`.
+import { z } from "zod";
+import type { Membership } from "@/db/schema";
+import { requireMembership, requireUser } from "@/lib/auth/guard";
+import { getRequestUser, type SessionUser } from "@/lib/auth/session";
+import { authorize, type Action } from "@/lib/permissions";
+import { ForbiddenError, handleRoute } from "./errors";
+import { parseJson, parseParams, parseWith } from "./parse";
+
+/** What Next passes as the second argument of a route handler (typed routes narrow the params). */
+type NextContext = { params: Promise<unknown> };
+type Parsed<S> = S extends z.ZodType ? z.output<S> : undefined;
+
+type Inputs<P, Q, B> = {
+  /** Route params; a malformed id is "not found". */
+  params?: P;
+  /** Search params, read as a flat object (or by `readQuery` when a key may repeat). */
+  query?: Q;
+  readQuery?: (search: URLSearchParams) => unknown;
+  /** The JSON body; a body that is not JSON, or does not match, is a 400 with issues. */
+  body?: B;
+};
+
+type Handled<P, Q, B> = { request: Request; params: Parsed<P>; query: Parsed<Q>; body: Parsed<B> };
+
+async function parseInputs<P extends z.ZodType | undefined, Q extends z.ZodType | undefined, B extends z.ZodType | undefined>(
+  spec: Inputs<P, Q, B>,
+  request: Request,
+) {
+  const query = spec.query ? parseWith(spec.query, (spec.readQuery ?? Object.fromEntries)(new URL(request.url).searchParams)) : undefined;
+  const body = spec.body ? await parseJson(request, spec.body) : undefined;
+  return { query: query as Parsed<Q>, body: body as Parsed<B> };
+}
+
+/**
+ * A route under /api/projects/[projectId]: params (a projectId and any others), signed in (401), on the team (404,
+ * so outsiders cannot probe which projects exist), allowed by the rule book (403), then query and body (400).
+ * `action` may be one action, several (all needed), or chosen from the parsed body (the body is then parsed first).
+ */
+export function projectRoute<
+  P extends z.ZodObject<{ projectId: z.ZodType<string> }>,
+  Q extends z.ZodType | undefined = undefined,
+  B extends z.ZodType | undefined = undefined,
+>(
+  spec: Inputs<P, Q, B> & { params: P; action: Action | readonly Action[] | ((body: Parsed<B>) => Action) },
+  handler: (input: Handled<P, Q, B> & { user: SessionUser; membership: Membership }) => Promise<Response>,
+) {
+  return handleRoute(async (request: Request, context?: NextContext) => {
+    const params = parseParams(spec.params, await context?.params) as Parsed<P>;
+    const user = requireUser(await getRequestUser(request));
+    const membership = await requireMembership(user, params.projectId);
+    const byBody = typeof spec.action === "function";
+    const check = (actions: readonly Action[]) => {
+      if (!actions.every((action) => authorize(membership, action))) throw new ForbiddenError();
+    };
+    if (!byBody) check(typeof spec.action === "string" ? [spec.action] : (spec.action as readonly Action[]));
+    const { query, body } = await parseInputs(spec, request);
+    if (byBody) check([(spec.action as (body: Parsed<B>) => Action)(body)]);
+    return handler({ request, params, query, body, user, membership });
+  });
+}
+
+/** A route for the signed-in person's own things (account, notifications, their project list): 401 when signed out. */
+export function accountRoute<P extends z.ZodType | undefined = undefined, Q extends z.ZodType | undefined = undefined, B extends z.ZodType | undefined = undefined>(
+  spec: Inputs<P, Q, B>,
+  handler: (input: Handled<P, Q, B> & { user: SessionUser }) => Promise<Response>,
+) {
+  return handleRoute(async (request: Request, context?: NextContext) => {
+    const params = (spec.params ? parseParams(spec.params, await context?.params) : undefined) as Parsed<P>;
+    const user = requireUser(await getRequestUser(request));
+    const { query, body } = await parseInputs(spec, request);
+    return handler({ request, params, query, body, user });
+  });
+}
+
+/**
+ * A route anyone may call (the join link): the handler gets the signed-in person or null and decides with the
+ * resource in hand (an invitation names who may accept it).
+ */
+export function publicRoute<P extends z.ZodType | undefined = undefined, Q extends z.ZodType | undefined = undefined, B extends z.ZodType | undefined = undefined>(
+  spec: Inputs<P, Q, B>,
+  handler: (input: Handled<P, Q, B> & { user: SessionUser | null }) => Promise<Response>,
+) {
+  return handleRoute(async (request: Request, context?: NextContext) => {
+    const params = (spec.params ? parseParams(spec.params, await context?.params) : undefined) as Parsed<P>;
+    const user = await getRequestUser(request);
+    const { query, body } = await parseInputs(spec, request);
+    return handler({ request, params, query, body, user });
+  });
+}
