@@ -1,7 +1,7 @@
 import { assembleStiffness } from "./assemble";
 import type { TrussModel } from "./model";
-import { approximateMinimumDegree } from "./sparse/amd";
 import { symbolicLdl } from "./sparse/ldl";
+import { fillReducingOrder } from "./sparse/ordering";
 import { factorSupernodal, solveSupernodal, solveSupernodalMany, supernodes } from "./sparse/supernodal";
 import { buildTopology, type Topology } from "./topology";
 
@@ -43,13 +43,21 @@ export type PreparedStructure = {
 
 const now = () => globalThis.performance.now();
 
+/** Equations per node (its unrestrained translations): the block size the ordering weighs fill by. */
+export function freeDofsPerNode(topology: Topology): Uint8Array {
+  const { restrained } = topology;
+  const weight = new Uint8Array(topology.nodeIds.length);
+  for (let a = 0; a < weight.length; a++) weight[a] = 3 - restrained[3 * a] - restrained[3 * a + 1] - restrained[3 * a + 2];
+  return weight;
+}
+
 /** Orders, assembles and factors the stiffness matrix of a validated model. */
 export function prepareStructure(model: TrussModel): PreparedStructure {
   const t0 = now();
   const topology = buildTopology(model);
   const t1 = now();
   const n = topology.nodeIds.length;
-  const nodeOrder = approximateMinimumDegree(n, topology.adjStart, topology.adj);
+  const nodeOrder = fillReducingOrder(n, topology.adjStart, topology.adj, topology.coords, freeDofsPerNode(topology)).order;
   const t2 = now();
   const assembled = assembleStiffness(topology, nodeOrder);
   const t3 = now();
