@@ -63,7 +63,8 @@ async function main() {
 
   const ports = { web: await freePort(), postgres: await freePort(), realtime: await freePort(), s3: await freePort(), smtp: await freePort() };
   const databaseUrl = await startPostgres({ dataDir: pgDir, port: ports.postgres, throwaway: true });
-  const env = { ...serviceEnv({ databaseUrl, ports, secret: randomBytes(32).toString("hex"), dataDir: runDir }), CHROMIUM_PATH: chromium, ARTIFACTS_DIR: artifacts };
+  // STRUTROOM_TEST_PG_DIR lets the security suite stop and start this throwaway cluster (a database outage test).
+  const env = { ...serviceEnv({ databaseUrl, ports, secret: randomBytes(32).toString("hex"), dataDir: runDir }), CHROMIUM_PATH: chromium, ARTIFACTS_DIR: artifacts, STRUTROOM_TEST_PG_DIR: pgDir };
   await step("migrate", "node_modules/.bin/tsx", ["scripts/db-migrate.ts"], env);
   await startServices({ env, ports, kinds: ["backing"], quiet: true });
   if (wants("integration")) await vitestProject("integration", { ...env, NODE_ENV: "test" });

@@ -1,5 +1,6 @@
 // The Yjs websocket endpoint (/yjs/<projectId>) on the realtime port: authenticated like the sockets, with each
-// project's document stored in PostgreSQL (every update appended, merged by compaction) and reloaded on demand.
+// project's document stored in PostgreSQL (every change appended before it is applied, merged by compaction) and
+// reloaded on demand.
 import type { IncomingMessage } from "node:http";
 import type { Duplex } from "node:stream";
 import { WebSocketServer, type WebSocket } from "ws";
@@ -11,33 +12,26 @@ import { authorize } from "@/lib/permissions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
 import { readClientMessage } from "./yjs-messages";
 
-const LOADED_ORIGIN = Symbol("loaded from PostgreSQL");
 const COMPACT_EVERY_MS = 5 * 60_000;
+// A change is written with up to five tries (0.1, 0.2, 0.4, 0.8 s apart) before its connection is closed.
+const STORE_TRIES = 5;
+const FIRST_RETRY_MS = 100;
 
 const loading = new Map<string, Promise<void>>();
-const pendingWrites = new Set<Promise<void>>();
+/** Projects with a failed write since their last stored row: the whole document state is stored next. */
+const needsWholeState = new Set<string>();
 
-function track(write: Promise<void>) {
-  pendingWrites.add(write);
-  void write.finally(() => pendingWrites.delete(write));
-}
-
-/** Loads the stored updates into a fresh document, then stores every later update as it happens. */
+/** Loads the stored updates into a fresh document (later changes are stored by the message gate below). */
 function bindState(projectId: string, doc: WSSharedDoc) {
   const loaded = loadYjsUpdates({ projectId }).then((rows) => {
-    if (rows.length) Y.applyUpdate(doc, Y.mergeUpdates(rows.map((row) => row.update)), LOADED_ORIGIN);
-    doc.on("update", (update: Uint8Array, origin: unknown) => {
-      if (origin === LOADED_ORIGIN) return;
-      track(appendYjsUpdate({ projectId, update }).catch((error) => console.error("[realtime] could not store a Yjs update", error)));
-    });
+    if (rows.length) Y.applyUpdate(doc, Y.mergeUpdates(rows.map((row) => row.update)));
   });
   loading.set(projectId, loaded);
 }
 
-/** When the last client leaves: store the whole state once more (covers any failed append), then compact. */
+/** When the last client leaves: store the whole state once more, then compact. */
 async function writeState(projectId: string, doc: WSSharedDoc) {
   loading.delete(projectId);
-  await Promise.allSettled([...pendingWrites]);
   try {
     await appendYjsUpdate({ projectId, update: Y.encodeStateAsUpdate(doc) });
     await compactYjsUpdates({ projectId });
@@ -46,20 +40,64 @@ async function writeState(projectId: string, doc: WSSharedDoc) {
   }
 }
 
-// Viewers may read the live document but not change it. Messages are decoded the way the Yjs server decodes them
-// (readClientMessage), never compared byte by byte: 0x80 0x00 is as much a zero as 0x00.
-function isChange(message: ArrayBuffer | Buffer): boolean {
-  const bytes = message instanceof ArrayBuffer ? new Uint8Array(message) : new Uint8Array(message.buffer, message.byteOffset, message.byteLength);
-  return readClientMessage(bytes).kind !== "read";
+/**
+ * Stores one change, retrying with back-off. After any failed write the whole document state is stored before
+ * anything else, so replaying the stored rows never depends on which single writes got through.
+ */
+async function storeChange(projectId: string, update: Uint8Array): Promise<void> {
+  for (let attempt = 1; ; attempt += 1) {
+    try {
+      const doc = docs.get(projectId);
+      if (needsWholeState.has(projectId) && doc) await appendYjsUpdate({ projectId, update: Y.encodeStateAsUpdate(doc) });
+      needsWholeState.delete(projectId);
+      await appendYjsUpdate({ projectId, update });
+      return;
+    } catch (error) {
+      needsWholeState.add(projectId);
+      if (attempt >= STORE_TRIES) throw error;
+      await new Promise((resolve) => setTimeout(resolve, FIRST_RETRY_MS * 2 ** (attempt - 1)));
+    }
+  }
 }
 
-/** Lets a connection read the document but drops its changes (the library registers its own message listener). */
-function makeReadOnly(ws: WebSocket) {
+function bytesOf(data: ArrayBuffer | Buffer): Uint8Array {
+  return data instanceof ArrayBuffer ? new Uint8Array(data) : new Uint8Array(data.buffer, data.byteOffset, data.byteLength);
+}
+
+/**
+ * Hands a connection's messages to the Yjs server one at a time, in order (the library registers its own message
+ * listener, which this wraps). Messages are decoded the way the Yjs server decodes them (readClientMessage), never
+ * compared byte by byte: 0x80 0x00 is as much a zero as 0x00. A change passes only from a role with the right to
+ * edit the notes, and only once it is stored in PostgreSQL, so no client is sent, and nothing is built on, a change
+ * the database does not hold. When it cannot be stored the connection is closed: the client keeps the change and
+ * sends it again when it reconnects.
+ */
+function gateMessages(ws: WebSocket, { projectId, mayEdit }: { projectId: string; mayEdit: boolean }) {
   const on = ws.on.bind(ws);
-  ws.on = ((event: string, listener: (...args: unknown[]) => void) =>
-    event === "message"
-      ? on("message", (data: ArrayBuffer | Buffer, ...rest: unknown[]) => (isChange(data) ? undefined : listener(data, ...rest)))
-      : on(event, listener)) as WebSocket["on"];
+  let queue = Promise.resolve();
+  async function admit(data: ArrayBuffer | Buffer): Promise<boolean> {
+    const message = readClientMessage(bytesOf(data));
+    if (message.kind === "read") return true;
+    if (message.kind === "malformed" || !mayEdit) return false;
+    try {
+      await storeChange(projectId, message.update);
+      return true;
+    } catch (error) {
+      console.error("[realtime] could not store a Yjs change; closing the connection so the client sends it again", error);
+      ws.close(1011, "Your change could not be stored yet.");
+      return false;
+    }
+  }
+  ws.on = ((event: string, listener: (...args: unknown[]) => void) => {
+    if (event !== "message") return on(event, listener);
+    return on("message", (data: ArrayBuffer | Buffer, ...rest: unknown[]) => {
+      queue = queue
+        .then(async () => {
+          if ((await admit(data)) && ws.readyState === ws.OPEN) listener(data, ...rest);
+        })
+        .catch((error) => console.error("[realtime] Yjs message failed", error));
+    });
+  }) as WebSocket["on"];
 }
 
 /** The project's document, loaded from PostgreSQL before any client sees it. */
@@ -101,7 +139,7 @@ export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
     if (isRefusal(who)) return refuse(socket, who.status, who.message);
     await openDocument(who.projectId);
     wss.handleUpgrade(request, socket, head, (ws) => {
-      if (!authorize({ role: who.role, userId: who.user.id }, "notes.edit")) makeReadOnly(ws);
+      gateMessages(ws, { projectId: who.projectId, mayEdit: authorize({ role: who.role, userId: who.user.id }, "notes.edit") });
       setupWSConnection(ws, request, { docName: who.projectId });
     });
   }

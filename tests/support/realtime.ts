@@ -40,9 +40,12 @@ async function waitForPort(port: number, child: ChildProcess, output: () => stri
   throw new Error(`The realtime server did not listen on ${port}:\n${output()}`);
 }
 
-export type RealtimeProcess = { url: string; port: number; appUrl: string; stop: () => Promise<void>; start: () => Promise<void> };
+export type RealtimeProcess = { url: string; port: number; appUrl: string; stop: () => Promise<void>; crash: () => Promise<void>; start: () => Promise<void> };
 
-/** Starts server/index.ts on a free port; stop() sends SIGTERM and waits, start() starts it again on the same port. */
+/**
+ * Starts server/index.ts on a free port; stop() sends SIGTERM and waits, crash() kills it with SIGKILL (nothing
+ * stored on the way out), start() starts it again on the same port.
+ */
 export async function startRealtimeServer({ appUrl = "http://127.0.0.1:3999" }: { appUrl?: string } = {}): Promise<RealtimeProcess> {
   const port = await freePort();
   let child: ChildProcess | null = null;
@@ -57,17 +60,17 @@ export async function startRealtimeServer({ appUrl = "http://127.0.0.1:3999" }: 
     child.stderr?.on("data", (chunk) => (output += chunk));
     await waitForPort(port, child, () => output);
   };
-  const stop = async () => {
+  const end = async (signal: NodeJS.Signals) => {
     const running = child;
     child = null;
     if (!running || running.exitCode !== null) return;
     await new Promise<void>((resolve) => {
       running.once("exit", () => resolve());
-      running.kill("SIGTERM");
+      running.kill(signal);
     });
   };
   await start();
-  return { url: `http://127.0.0.1:${port}`, port, appUrl, start, stop };
+  return { url: `http://127.0.0.1:${port}`, port, appUrl, start, stop: () => end("SIGTERM"), crash: () => end("SIGKILL") };
 }
 
 /** A socket.io client signed in as `user` (or signed out), joining the project's room; not yet connected. */
