@@ -29,8 +29,18 @@ function bindState(projectId: string, doc: WSSharedDoc) {
   loading.set(projectId, loaded);
 }
 
+/** Whole-state writes under way (started when a last client left), awaited on shutdown. */
+const writingState = new Set<Promise<void>>();
+
 /** When the last client leaves: store the whole state once more, then compact. */
-async function writeState(projectId: string, doc: WSSharedDoc) {
+function writeState(projectId: string, doc: WSSharedDoc): Promise<void> {
+  const write = storeWholeState(projectId, doc);
+  writingState.add(write);
+  void write.finally(() => writingState.delete(write));
+  return write;
+}
+
+async function storeWholeState(projectId: string, doc: WSSharedDoc) {
   loading.delete(projectId);
   try {
     await appendYjsUpdate({ projectId, update: Y.encodeStateAsUpdate(doc) });
@@ -158,7 +168,7 @@ export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
       // Store the documents here, once, rather than from the library's close handlers that nobody awaits.
       setPersistence(null);
       for (const client of wss.clients) client.terminate();
-      await Promise.all(open.map(([projectId, doc]) => writeState(projectId, doc)));
+      await Promise.all([...open.map(([projectId, doc]) => writeState(projectId, doc)), ...writingState]);
     },
   };
 }
