@@ -1,0 +1,107 @@
+import { describe, expect, it } from "vitest";
+import { analyzeModel } from "@/lib/analysis";
+import { readIfcRoof } from "./index";
+import { StepText } from "./test-files";
+
+const encode = (text: string) => new TextEncoder().encode(text);
+const T = "IFCBOOLEAN(.T.)";
+const F = "IFCBOOLEAN(.F.)";
+
+// The 3-4-5 triangle of shared/reference/check-values.md Example 1 written as an IFC4 structural analysis model in
+// millimetres and newtons (IFC's SI defaults for force and pressure), with case 1a (10 kN down at C) and a
+// combination 1.2 x 1a.
+function triangleAnalysisFile() {
+  const s = new StepText("IFC4");
+  const ctx = s.project("MILLI");
+  const vertexAt = (x: number, y: number, z: number) => s.add(`IFCVERTEXPOINT(${s.point(x, y, z)})`);
+  const shape = (kind: string, item: string) => s.add(`IFCPRODUCTDEFINITIONSHAPE($,$,(${s.add(`IFCTOPOLOGYREPRESENTATION(${ctx},'Reference','${kind}',(${item}))`)}))`);
+  const connection = (guid: string, name: string, at: [number, number, number], fixed: [string, string, string]) => {
+    const condition = s.add(`IFCBOUNDARYNODECONDITION('${name}',${fixed.join(",")},${F},${F},${F})`);
+    return s.add(`IFCSTRUCTURALPOINTCONNECTION('${guid}',$,'${name}',$,$,$,${shape("Vertex", vertexAt(...at))},${condition},$)`);
+  };
+  const A = connection("4ConnA000000000000000A", "A", [0, 0, 0], [T, T, T]);
+  connection("4ConnB000000000000000B", "B", [4000, 0, 0], [F, T, T]);
+  const C = connection("4ConnC000000000000000C", "C", [2000, 0, 1500], [F, T, F]);
+  const member = (guid: string, name: string, a: [number, number, number], b: [number, number, number]) =>
+    s.add(`IFCSTRUCTURALCURVEMEMBER('${guid}',$,'${name}',$,$,$,${shape("Edge", s.add(`IFCEDGE(${vertexAt(...a)},${vertexAt(...b)})`))},.RIGID_JOINED_MEMBER.,${s.direction(0, 1, 0)})`);
+  const ab = member("4MembAB00000000000000A", "AB", [0, 0, 0], [4000, 0, 0]);
+  const ac = member("4MembAC00000000000000A", "AC", [0, 0, 0], [2000, 0, 1500]);
+  const bc = member("4MembBC00000000000000B", "BC", [4000, 0, 0], [2000, 0, 1500]);
+  const steel = s.add("IFCMATERIAL('S355',$,'Steel')");
+  const single = (name: string, value: string) => s.add(`IFCPROPERTYSINGLEVALUE('${name}',$,${value},$)`);
+  s.add(`IFCMATERIALPROPERTIES('Pset_MaterialMechanical',$,(${single("YoungModulus", "IFCMODULUSOFELASTICITYMEASURE(2.1E11)")}),${steel})`);
+  s.add(`IFCMATERIALPROPERTIES('Pset_MaterialSteel',$,(${single("YieldStress", "IFCPRESSUREMEASURE(3.55E8)")}),${steel})`);
+  s.add(`IFCMATERIALPROPERTIES('Pset_MaterialCommon',$,(${single("MassDensity", "IFCMASSDENSITYMEASURE(7850.)")}),${steel})`);
+  const tube = s.add("IFCCIRCLEHOLLOWPROFILEDEF(.AREA.,'CHS 88.9x4',$,44.45,4.)");
+  const profileSet = s.add(`IFCMATERIALPROFILESET('CHS',$,(${s.add(`IFCMATERIALPROFILE('CHS',$,${steel},${tube},$,$)`)}),$)`);
+  s.add(`IFCRELASSOCIATESMATERIAL('4AssocAssocAssocAsso1',$,$,$,(${ab},${ac},${bc}),${profileSet})`);
+  const analysis = s.add(`IFCSTRUCTURALANALYSISMODEL('4AnalysisAnalysisAnal1',$,'Triangle',$,$,.LOADING_3D.,$,$,$,$)`);
+  s.add(`IFCRELASSIGNSTOGROUP('4AssignAssignAssignAs1',$,$,$,(${ab},${ac},${bc},${A},${C}),$,${analysis})`);
+  const gravity = s.add(`IFCSTRUCTURALLOADGROUP('4Case1aCase1aCase1aCa1',$,'1a',$,$,.LOAD_CASE.,.PERMANENT_G.,.DEAD_LOAD_G.,$,$)`);
+  const force = s.add("IFCSTRUCTURALLOADSINGLEFORCE('P',0.,0.,-10000.,$,$,$)");
+  const action = s.add(`IFCSTRUCTURALPOINTACTION('4ActionActionActionAc1',$,'P at C',$,$,$,$,${force},.GLOBAL_COORDS.,$)`);
+  s.add(`IFCRELCONNECTSSTRUCTURALACTIVITY('4ActsActsActsActsActs1',$,$,$,${C},${action})`);
+  s.add(`IFCRELASSIGNSTOGROUP('4LoadsLoadsLoadsLoads1',$,$,$,(${action}),$,${gravity})`);
+  const combination = s.add(`IFCSTRUCTURALLOADGROUP('4CombCombCombCombComb1',$,'ULS',$,$,.LOAD_COMBINATION.,.PERMANENT_G.,.DEAD_LOAD_G.,$,$)`);
+  s.add(`IFCRELASSIGNSTOGROUPBYFACTOR('4FactorFactorFactorFa1',$,$,$,(${gravity}),$,${combination},1.2)`);
+  return s.text();
+}
+
+describe("IFC roof import", () => {
+  it("reads an IFC4 analysis model (mm, N, Pa) into our model; its analysis matches check-values Example 1a", async () => {
+    const result = await readIfcRoof(encode(triangleAnalysisFile()));
+    if ("message" in result) throw new Error(result.message);
+    expect(result.problems).toEqual([]);
+    expect(result.source).toBe("analysis model");
+    const model = result.model!;
+    expect(model.nodes).toEqual([
+      { id: "A", x: 0, y: 0, z: 0 },
+      { id: "B", x: 4, y: 0, z: 0 },
+      { id: "C", x: 2, y: 0, z: 1.5 },
+    ]);
+    expect(model.members.map((m) => [m.id, m.i, m.j])).toEqual([
+      ["AB", "A", "B"],
+      ["AC", "A", "C"],
+      ["BC", "B", "C"],
+    ]);
+    expect(model.supports).toEqual([
+      { node: "A", ux: true, uy: true, uz: true },
+      { node: "B", ux: false, uy: true, uz: true },
+      { node: "C", ux: false, uy: true, uz: false },
+    ]);
+    // 2.1e11 Pa = 2.1e8 kPa; 7850 kg/m3 x 9.80665 m/s2 = 76.98 kN/m3; tube area pi(D^2 - d^2)/4 for D 88.9, d 80.9 mm.
+    expect(model.materials).toEqual([{ id: "S355", E: 2.1e8, fy: 3.55e5, unitWeight: expect.closeTo(76.982, 3) }]);
+    expect(model.sections[0]).toMatchObject({ id: "CHS 88.9x4", outerDiameter: 0.0889, wallThickness: 0.004, area: expect.closeTo((Math.PI * (0.0889 ** 2 - 0.0809 ** 2)) / 4, 9) });
+    expect(model.loadCases).toEqual([{ id: "1a", name: "1a", category: "dead", selfWeight: false, nodalLoads: [{ node: "C", fx: 0, fy: 0, fz: -10 }] }]);
+    expect(model.combinations).toEqual([{ id: "ULS", name: "ULS", factors: { "1a": 1.2 } }]);
+    const analysis = analyzeModel(model);
+    expect(analysis.status).toBe("ok");
+    // check-values.md Example 1a (method of joints): AB +6.667, AC = BC -8.333 kN.
+    expect(analysis.results["1a"].memberForces.AB).toBeCloseTo(6.667, 3);
+    expect(analysis.results["1a"].memberForces.AC).toBeCloseTo(-8.333, 3);
+    expect(analysis.results.ULS.memberForces.BC).toBeCloseTo(-10, 6);
+  });
+
+  it("lists every problem with the element's GlobalId and stores no model", async () => {
+    const broken = triangleAnalysisFile()
+      .replace("IFCCIRCLEHOLLOWPROFILEDEF(.AREA.,'CHS 88.9x4',$,44.45,4.)", "IFCRECTANGLEPROFILEDEF(.AREA.,$,$,100.,50.)")
+      .replace("IFCSTRUCTURALLOADSINGLEFORCE('P',0.,0.,-10000.,$,$,$)", "IFCSTRUCTURALLOADLINEARFORCE('q',0.,0.,-1.,$,$,$)");
+    const result = await readIfcRoof(encode(broken));
+    if ("message" in result) throw new Error(result.message);
+    expect(result.model).toBeUndefined();
+    expect(result.problems).toEqual([
+      { where: "4MembAB00000000000000A", message: "profile IfcRectangleProfileDef is not a circular hollow section" },
+      { where: "4MembAC00000000000000A", message: "profile IfcRectangleProfileDef is not a circular hollow section" },
+      { where: "4MembBC00000000000000B", message: "profile IfcRectangleProfileDef is not a circular hollow section" },
+      { where: "4ActionActionActionAc1", message: expect.stringContaining("point action not read") },
+    ]);
+  });
+
+  it("says so when the file holds neither an analysis model nor members", async () => {
+    const s = new StepText("IFC4");
+    s.project(undefined);
+    const result = await readIfcRoof(encode(s.text()));
+    if ("message" in result) throw new Error(result.message);
+    expect(result.problems).toEqual([{ where: "file", message: expect.stringContaining("no structural analysis model") }]);
+  });
+});
