@@ -3,6 +3,7 @@
 import type { Socket } from "socket.io";
 import type { z } from "zod";
 import { errorBody, issuesFrom } from "@/lib/http/errors";
+import { findUnstorableText } from "@/lib/text";
 import type { Ack, ClientToServerEvents, ServerToClientEvents } from "@/lib/realtime/events";
 import type { SocketData } from "./context";
 
@@ -27,6 +28,12 @@ export function onEvent<S extends z.ZodType, T>(
 ) {
   // socket.io's typed `on` cannot express one generic listener for several events; the payload is unknown anyway.
   (socket.on as (event: string, listener: (payload: unknown, ack?: unknown) => void) => void)(event, (payload, ack) => {
+    const unstorable = findUnstorableText(payload);
+    if (unstorable.length) {
+      const issues = unstorable.map((p) => ({ path: p.path.map(String).join("."), message: p.message }));
+      reply(socket, event, ack, { ok: false, error: unstorable[0].message, issues });
+      return;
+    }
     const parsed = schema.safeParse(payload);
     if (!parsed.success) {
       reply(socket, event, ack, { ok: false, error: "The message was not understood.", issues: issuesFrom(parsed.error) });

@@ -89,3 +89,53 @@ describe("validateModel after a wrong type", () => {
     expect(!result.ok && result.problems).toHaveLength(1);
   });
 });
+
+describe("bounds (lib/limits.ts) and hostile values", () => {
+  it("refuses coordinates of 1e308 and E = 1e308 instead of analysing them", () => {
+    const lines = problemsOf((m) => {
+      m.nodes[0].x = 1e308;
+      m.materials[0].E = 1e308;
+    });
+    expect(lines.some((l) => /coordinates must be within/.test(l))).toBe(true);
+    expect(lines.some((l) => /modulus E must be from/.test(l))).toBe(true);
+    expect(lines.some((l) => /members are at most/.test(l))).toBe(true);
+  });
+
+  it("refuses an empty model", () => {
+    const lines = problemsOf((m) => {
+      m.nodes = [];
+      m.members = [];
+      m.supports = [];
+      m.loadCases = [];
+      m.combinations = [];
+    });
+    expect(lines).toContain("model: the model needs at least one node and one member");
+  });
+
+  it("refuses two nodes at the same point, also when they are not joined", () => {
+    const lines = problemsOf((m) => m.nodes.push({ ...m.nodes[2], id: "C2", x: m.nodes[2].x + 1e-6 }));
+    expect(lines.some((l) => /node "C2" is at the same point as node "C"/.test(l))).toBe(true);
+  });
+
+  it("refuses constructor as an id and never loses a __proto__ factor silently", () => {
+    expect(problemsOf((m) => (m.loadCases[0].id = "constructor"))).toContain('loadCases[0] "constructor" id: "constructor" is a reserved name: choose another.');
+    const lines = problemsOf((m) => (m.combinations[0].factors = JSON.parse('{"G": 1.35, "__proto__": 1.5}')));
+    expect(lines).toContain('combinations[0] "U1" factors __proto__: "__proto__" is a reserved name: choose another.');
+  });
+
+  it("refuses a null character in an id and an unpaired surrogate in a name (PostgreSQL cannot store them)", () => {
+    const lines = problemsOf((m) => {
+      m.nodes[0].id = "A\u0000";
+      m.name = "roof \ud800";
+    });
+    expect(lines.filter((l) => /null characters/.test(l)).length).toBeGreaterThanOrEqual(2);
+  });
+
+  it("counts tables before checking rows: 100,000 load cases are refused at once", () => {
+    const model = valid();
+    const many = Array.from({ length: 100_000 }, (_, k) => ({ ...model.loadCases[0], id: `G${k}` }));
+    const result = validateModel({ ...model, loadCases: many });
+    expect(result.ok).toBe(false);
+    expect(!result.ok && result.problems).toEqual([{ where: "loadCases", message: "100,000 loadCases: a model may have at most 200" }]);
+  });
+});

@@ -1,12 +1,20 @@
 import { z } from "zod";
+import { ids, modelCounts, physical, text as limitText } from "../limits";
+import { findUnstorableText, isStorableText, RESERVED_NAMES, reservedNameMessage, UNSTORABLE_TEXT_MESSAGE } from "../text";
 
 /** Load case categories of the model format (ours, version 1). */
 export const loadCategories = ["dead", "live", "roof_live", "snow", "wind", "services", "other"] as const;
 export type LoadCategory = (typeof loadCategories)[number];
 
 // zod 4's z.number() already refuses NaN and +-Infinity, so "non-finite number" problems come from here.
-const id = z.string().min(1, "id must not be empty");
+const id = z
+  .string()
+  .min(1, "id must not be empty")
+  .max(ids.elementIdChars, `ids are at most ${ids.elementIdChars} characters`)
+  .refine(isStorableText, UNSTORABLE_TEXT_MESSAGE)
+  .refine((value) => !RESERVED_NAMES.has(value), { error: (issue) => reservedNameMessage(String(issue.input)) });
 const num = z.number();
+const name = z.string().max(limitText.name, `names are at most ${limitText.name} characters`).refine(isStorableText, UNSTORABLE_TEXT_MESSAGE);
 
 export const materialSchema = z.object({ id, E: num, fy: num, unitWeight: num });
 export const sectionSchema = z.object({
@@ -30,17 +38,17 @@ export const supportSchema = z.object({ node: id, ux: z.boolean(), uy: z.boolean
 export const nodalLoadSchema = z.object({ node: id, fx: num, fy: num, fz: num });
 export const loadCaseSchema = z.object({
   id,
-  name: z.string(),
+  name,
   category: z.enum(loadCategories),
   selfWeight: z.boolean(),
   nodalLoads: z.array(nodalLoadSchema),
 });
-export const combinationSchema = z.object({ id, name: z.string(), factors: z.record(z.string(), num) });
+export const combinationSchema = z.object({ id, name, factors: z.record(z.string(), num) });
 
 /** The truss model format, version 1 (units m, kN, kPa, kN/m3; z up). */
 export const trussModelSchema = z.object({
   format: z.literal("truss-model/1"),
-  name: z.string(),
+  name,
   materials: z.array(materialSchema),
   sections: z.array(sectionSchema),
   nodes: z.array(nodeSchema),
@@ -117,6 +125,12 @@ const tables = new Set<string>(["materials", "sections", "nodes", "members", "su
 
 /** Validates raw input against the model format and its cross-references; lists every problem found. */
 export function validateModel(input: unknown, locate: Locator = jsonLocator(input)): ValidationResult {
+  // Counted first: a model beyond the limits is refused without checking (or analysing) any of its rows.
+  const tooMany = countProblems(input);
+  if (tooMany.length) return { ok: false, problems: tooMany };
+  // zod drops "__proto__" keys without a word (a factor would vanish): refused here with null characters and the like.
+  const unstorable = findUnstorableText(input);
+  if (unstorable.length) return { ok: false, problems: unstorable.map((p) => ({ where: describePath(p.path, locate), message: p.message })) };
   const parsed = trussModelSchema.safeParse(input);
   if (!parsed.success) {
     const problems = parsed.error.issues.map((issue) => ({
@@ -136,6 +150,52 @@ export function validateModel(input: unknown, locate: Locator = jsonLocator(inpu
   }
   const problems = checkReferences(parsed.data, locate);
   return problems.length === 0 ? { ok: true, model: parsed.data } : { ok: false, problems };
+}
+
+function countProblems(input: unknown): ModelProblem[] {
+  if (input === null || typeof input !== "object") return [];
+  const problems: ModelProblem[] = [];
+  const record = input as Record<string, unknown>;
+  const limit = (table: Table, max: number) => {
+    const rows = record[table];
+    if (Array.isArray(rows) && rows.length > max) {
+      problems.push({ where: table, message: `${rows.length.toLocaleString("en")} ${table}: a model may have at most ${max.toLocaleString("en")}` });
+    }
+  };
+  limit("nodes", modelCounts.nodes);
+  limit("members", modelCounts.members);
+  limit("materials", modelCounts.materials);
+  limit("sections", modelCounts.sections);
+  limit("supports", modelCounts.supports);
+  limit("loadCases", modelCounts.loadCases);
+  limit("combinations", modelCounts.combinations);
+  const cases = record.loadCases;
+  if (Array.isArray(cases)) {
+    let loads = 0;
+    for (const c of cases) {
+      const rows = (c as { nodalLoads?: unknown } | null)?.nodalLoads;
+      if (Array.isArray(rows)) loads += rows.length;
+    }
+    if (loads > modelCounts.nodalLoads) {
+      problems.push({ where: "loadCases", message: `${loads.toLocaleString("en")} nodal loads: a model may have at most ${modelCounts.nodalLoads.toLocaleString("en")}` });
+    }
+  }
+  const combinations = record.combinations;
+  if (Array.isArray(combinations)) {
+    combinations.forEach((c, k) => {
+      const factors = (c as { factors?: unknown } | null)?.factors;
+      const count = factors !== null && typeof factors === "object" ? Object.keys(factors).length : 0;
+      if (count > modelCounts.factorsPerCombination) {
+        problems.push({ where: `combinations[${k}]`, message: `${count} factors: a combination may have at most ${modelCounts.factorsPerCombination}` });
+      }
+    });
+  }
+  return problems;
+}
+
+/** A problem when |value| is beyond the limit, or outside [min, max]. */
+function outside(value: number, range: number | { min: number; max: number }): boolean {
+  return typeof range === "number" ? Math.abs(value) > range : value < range.min || value > range.max;
 }
 
 function describePath(path: PropertyKey[], locate: Locator): string {
@@ -177,6 +237,10 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
     if (m.E <= 0) add(locate("materials", k), `modulus E must be positive (got ${m.E})`);
     if (m.fy < 0) add(locate("materials", k), `yield strength fy must not be negative (got ${m.fy})`);
     if (m.unitWeight < 0) add(locate("materials", k), `unit weight must not be negative (got ${m.unitWeight})`);
+    const { youngsModulus: E, yieldStrength: fy, unitWeight } = physical;
+    if (m.E > 0 && outside(m.E, E)) add(locate("materials", k), `modulus E must be from ${E.min} to ${E.max} kPa (got ${m.E})`);
+    if (m.fy > 0 && outside(m.fy, fy)) add(locate("materials", k), `yield strength fy must be from ${fy.min} to ${fy.max} kPa (got ${m.fy})`);
+    if (m.unitWeight > unitWeight.max) add(locate("materials", k), `unit weight must be at most ${unitWeight.max} kN/m3 (got ${m.unitWeight})`);
   });
 
   const sections = duplicates(model.sections, "sections", "section", locate, problems);
@@ -184,10 +248,24 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
     if (s.area <= 0) add(locate("sections", k), `area must be positive (got ${s.area})`);
     if (s.radiusOfGyration < 0) add(locate("sections", k), `radius of gyration must not be negative (got ${s.radiusOfGyration})`);
     if (s.outerDiameter < 0 || s.wallThickness < 0) add(locate("sections", k), "outer diameter and wall thickness must not be negative");
+    const { area, sectionLength } = physical;
+    if (s.area > 0 && outside(s.area, area)) add(locate("sections", k), `area must be from ${area.min} to ${area.max} m2 (got ${s.area})`);
+    if ([s.radiusOfGyration, s.outerDiameter, s.wallThickness].some((v) => v > sectionLength.max)) {
+      add(locate("sections", k), `radius of gyration, outer diameter and wall thickness are at most ${sectionLength.max} m`);
+    }
     if (!materials.has(s.material)) add(locate("sections", k), `section "${s.id}" names a missing material "${s.material}"`);
   });
 
   const nodes = duplicates(model.nodes, "nodes", "node", locate, problems);
+  if (model.nodes.length === 0 || model.members.length === 0) add("model", "the model needs at least one node and one member");
+  model.nodes.forEach((n, k) => {
+    if ([n.x, n.y, n.z].some((v) => outside(v, physical.coordinate))) {
+      add(locate("nodes", k), `coordinates must be within ±${physical.coordinate} m (got ${n.x}, ${n.y}, ${n.z})`);
+    }
+  });
+  for (const [k, first] of coincidentNodes(model.nodes)) {
+    add(locate("nodes", k), `node "${model.nodes[k].id}" is at the same point as node "${model.nodes[first].id}" (closer than ${physical.nodeSpacing * 1000} mm)`);
+  }
   duplicates(model.members, "members", "member", locate, problems);
   const pairs = new Map<string, number>();
   model.members.forEach((m, k) => {
@@ -199,6 +277,8 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
     if (!sections.has(m.section)) add(where, `member "${m.id}" names a missing section "${m.section}"`);
     if (m.effectiveLengthFactor !== undefined && m.effectiveLengthFactor <= 0) {
       add(where, `member "${m.id}" effective length factor must be positive (got ${m.effectiveLengthFactor})`);
+    } else if (m.effectiveLengthFactor !== undefined && outside(m.effectiveLengthFactor, physical.effectiveLengthFactor)) {
+      add(where, `member "${m.id}" effective length factor must be from ${physical.effectiveLengthFactor.min} to ${physical.effectiveLengthFactor.max}`);
     }
     if (ni === undefined || nj === undefined) return;
     if (m.i === m.j) {
@@ -209,6 +289,7 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
     const b = model.nodes[nj];
     const length = Math.hypot(b.x - a.x, b.y - a.y, b.z - a.z);
     if (length <= 1e-9) add(where, `member "${m.id}" has zero length (nodes "${m.i}" and "${m.j}" coincide)`);
+    if (length > physical.memberLength) add(where, `member "${m.id}" is ${Math.round(length)} m long: members are at most ${physical.memberLength} m`);
     const key = m.i < m.j ? `${m.i}\u0000${m.j}` : `${m.j}\u0000${m.i}`;
     const first = pairs.get(key);
     if (first !== undefined) {
@@ -230,15 +311,46 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
   model.loadCases.forEach((c, k) => {
     c.nodalLoads.forEach((load, l) => {
       if (!nodes.has(load.node)) add(locate("loadCases", k, l), `load case "${c.id}" has a load on a missing node "${load.node}"`);
+      if ([load.fx, load.fy, load.fz].some((v) => outside(v, physical.nodalLoad))) {
+        add(locate("loadCases", k, l), `nodal loads must be within ±${physical.nodalLoad} kN`);
+      }
     });
   });
 
   duplicates(model.combinations, "combinations", "combination", locate, problems);
   model.combinations.forEach((c, k) => {
     if (cases.has(c.id)) add(locate("combinations", k), `combination id "${c.id}" is also a load case id`);
-    for (const caseId of Object.keys(c.factors)) {
+    for (const [caseId, factor] of Object.entries(c.factors)) {
       if (!cases.has(caseId)) add(locate("combinations", k), `combination "${c.id}" names a missing load case "${caseId}"`);
+      if (outside(factor, physical.combinationFactor)) add(locate("combinations", k), `factors must be within ±${physical.combinationFactor} (got ${factor} on "${caseId}")`);
     }
   });
   return problems;
+}
+
+/**
+ * Pairs [later, earlier] of node indexes closer than physical.nodeSpacing, found through a hash of grid cells of
+ * that size (each node looks at its 27 neighbouring cells), so it stays linear however the nodes are laid out.
+ */
+function coincidentNodes(nodes: TrussNode[]): [number, number][] {
+  const size = physical.nodeSpacing;
+  const cells = new Map<string, number[]>();
+  const found: [number, number][] = [];
+  nodes.forEach((n, k) => {
+    const [cx, cy, cz] = [n.x, n.y, n.z].map((v) => Math.floor(v / size));
+    let match: number | undefined;
+    for (let dx = -1; dx <= 1 && match === undefined; dx++) {
+      for (let dy = -1; dy <= 1 && match === undefined; dy++) {
+        for (let dz = -1; dz <= 1 && match === undefined; dz++) {
+          match = cells.get(`${cx + dx},${cy + dy},${cz + dz}`)?.find((o) => Math.hypot(nodes[o].x - n.x, nodes[o].y - n.y, nodes[o].z - n.z) < size);
+        }
+      }
+    }
+    if (match !== undefined) found.push([k, match]);
+    const key = `${cx},${cy},${cz}`;
+    const cell = cells.get(key);
+    if (cell) cell.push(k);
+    else cells.set(key, [k]);
+  });
+  return found;
 }

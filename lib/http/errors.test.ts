@@ -32,4 +32,12 @@ describe("error module", () => {
     expect(errorBody(new ValidationError([{ path: "x", message: "bad" }])).status).toBe(400);
     log.mockRestore();
   });
+
+  it("lists the first 200 problems of a huge bad file and counts the rest in one more line", () => {
+    const issues = Array.from({ length: 3_900 }, (_, k) => ({ path: `row ${k}`, message: "bad" }));
+    const error = new ValidationError(issues);
+    expect(error.issues).toHaveLength(201);
+    expect(error.issues?.[200].message).toBe("…and 3,700 more problems not listed.");
+    expect(new ValidationError(issues.slice(0, 200)).issues).toHaveLength(200);
+  });
 });

@@ -1,5 +1,6 @@
 // The one error module: error kinds → HTTP status and the message users see. Nothing else is echoed.
 import type { ZodError } from "zod";
+import { reportedProblems } from "@/lib/limits";
 
 export type Issue = { path: string; message: string };
 
@@ -35,8 +36,15 @@ export class NotFoundError extends HttpError {
 
 export class ValidationError extends HttpError {
   constructor(issues: Issue[], message = "Some fields need attention.") {
-    super(400, message, issues);
+    super(400, message, capIssues(issues));
   }
+}
+
+/** The first `reportedProblems` issues and one more line counting the rest, so a huge bad file gets a small answer. */
+export function capIssues(issues: Issue[]): Issue[] {
+  if (issues.length <= reportedProblems) return issues;
+  const rest = issues.length - reportedProblems;
+  return [...issues.slice(0, reportedProblems), { path: "", message: `…and ${rest.toLocaleString("en")} more problem${rest === 1 ? "" : "s"} not listed.` }];
 }
 
 /** A request that conflicts with what is stored (duplicate e-mail, last owner, …). */

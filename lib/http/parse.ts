@@ -1,9 +1,17 @@
 // zod parsing at the boundary: a failed parse throws a ValidationError (400 with issues).
 import type { z } from "zod";
+import { findUnstorableText } from "@/lib/text";
 import { NotFoundError, ValidationError, issuesFrom } from "./errors";
 
-/** Parses a value with the schema or throws a ValidationError carrying each field's message. */
+/**
+ * Parses a value with the schema or throws a ValidationError carrying each field's message. Text PostgreSQL cannot
+ * store (null characters, unpaired surrogates) and "__proto__" keys are refused first, wherever they are.
+ */
 export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
+  const unstorable = findUnstorableText(value);
+  if (unstorable.length) {
+    throw new ValidationError(unstorable.map((p) => ({ path: p.path.map(String).join("."), message: p.message })));
+  }
   const result = schema.safeParse(value);
   if (!result.success) throw new ValidationError(issuesFrom(result.error));
   return result.data;

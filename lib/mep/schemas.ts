@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { revisionNumber, revisionNumberText } from "@/lib/fields";
+import { fileName, revisionNumber, revisionNumberText } from "@/lib/fields";
 import { formatBytes, runsFileChars } from "@/lib/limits";
 
 // Units follow the model format (design.md): metres, kN. Rotation is in degrees about the run's own axis.
@@ -93,7 +93,7 @@ export const revisionQuerySchema = z.object({ revision: revisionNumberText });
 /** Import request: the file's text and name (CSV or JSON), and whether to replace the revision's runs. */
 export const importRunsSchema = z.object({
   revision: revisionNumber,
-  fileName: z.string().trim().min(1).max(200),
+  fileName,
   text: z.string().min(1, "The file is empty.").max(runsFileChars, `Keep run files under ${formatBytes(runsFileChars)}.`),
   mode: z.enum(["replace", "upsert"]).default("upsert"),
 });

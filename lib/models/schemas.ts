@@ -1,6 +1,6 @@
 // Request bodies for creating a model revision, shared by the models page forms and the route handler.
 import { z } from "zod";
-import { revisionNumberText } from "@/lib/fields";
+import { fileName, revisionNumberText } from "@/lib/fields";
 import { modelUploadChars } from "@/lib/limits";
 import { roofParamsSchema } from "@/lib/analysis/generator";
 
@@ -12,7 +12,7 @@ export const createRevisionSchema = z.discriminatedUnion("kind", [
     kind: z.literal("uploadJson"),
     name: revisionName.optional(),
     // The uploaded file's name, kept with the stored original.
-    fileName: z.string().trim().min(1).max(200).optional(),
+    fileName: fileName.optional(),
     model: z.unknown(),
   }),
   z.object({

@@ -79,7 +79,13 @@ export type CommentCreateInput = z.infer<typeof commentCreateSchema>;
 export const pinSetStateSchema = z.object({ pinId: z.uuid(), state: z.enum(PIN_STATES) });
 
 /** Catch-up after a reconnect: everything changed after `since` (ISO time the client last heard from us). */
-export const syncSinceSchema = z.object({ since: z.iso.datetime({ offset: true }) });
+// PostgreSQL timestamps cannot hold year 0000; anything before 1970 or after 9999 is refused here, not by the database.
+export const syncSinceSchema = z.object({
+  since: z.iso.datetime({ offset: true }).refine((value) => {
+    const time = Date.parse(value);
+    return time >= 0 && time < Date.UTC(10_000, 0, 1);
+  }, "Give a time between 1970 and 9999."),
+});
 
 /** Pin list filters, shared by the socket catch-up and GET /api/projects/[projectId]/pins. */
 export const pinFilterSchema = z.object({

@@ -1,8 +1,16 @@
 // Query schemas of the report and export routes: shared by the report form and the route handlers.
 import { z } from "zod";
 import { revisionNumberText } from "@/lib/fields";
+import { text } from "@/lib/limits";
+import { RESERVED_NAMES, reservedNameMessage } from "@/lib/text";
 
-const resultId = z.string().trim().min(1).max(120);
+// Result ids index stored results: a name of Object.prototype ("__proto__", "constructor") would read inherited values.
+const resultId = z
+  .string()
+  .trim()
+  .min(1)
+  .max(text.resultId)
+  .refine((id) => !RESERVED_NAMES.has(id), { error: (issue) => reservedNameMessage(String(issue.input)) });
 const idList = z
   .string()
   .transform((value) => value.split(",").map((id) => id.trim()).filter(Boolean))

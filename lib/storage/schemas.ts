@@ -1,19 +1,13 @@
 // Input schemas for file uploads: shared by the upload form and the route handlers.
 import { z } from "zod";
+import { fileName } from "@/lib/fields";
 import { FILE_PURPOSES } from "./content-check";
-
-const filename = z
-  .string()
-  .trim()
-  .min(1, "The file needs a name.")
-  .max(200, "Keep the file name under 200 characters.")
-  .refine((name) => !/[\\/\u0000-\u001f]/.test(name), "The file name may not contain slashes or control characters.");
 
 /** A request for a presigned upload: what the browser says about the file (checked again against the bytes). */
 export const uploadRequestSchema = z
   .object({
     purpose: z.enum(FILE_PURPOSES),
-    filename,
+    filename: fileName,
     contentType: z.string().trim().min(1).max(100),
     sizeBytes: z.number().int().positive("The file is empty."),
     commentId: z.uuid().optional(),
