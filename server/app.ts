@@ -22,7 +22,7 @@ export function createRealtimeServer({ appUrl }: { appUrl: string }) {
     path: SOCKET_PATH,
     cors: { origin: new URL(appUrl).origin, credentials: true },
     // CORS does not cover websockets: browsers from other sites are turned away here.
-    allowRequest: (request, callback) => callback(null, isAllowedOrigin(request.headers.origin, appUrl)),
+    allowRequest: (request, callback) => callback(null, isAllowedOrigin(request.headers, appUrl)),
     // socket.io attaches its own upgrade listener; the Yjs paths are routed below instead.
     destroyUpgrade: false,
   });

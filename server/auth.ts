@@ -1,7 +1,9 @@
 // Who is connecting: the next-auth session cookie (the web app's sign-in) and the member's role in the project.
 // Both the socket.io handshake and the Yjs upgrade go through authenticate().
+import type { IncomingHttpHeaders } from "node:http";
 import { z } from "zod";
 import { getMembership } from "@/db/queries/memberships";
+import { isSameSite } from "@/lib/http/same-origin";
 import { verifySessionCookie, type SessionUser } from "@/lib/auth/session-cookie";
 import { authorize, type Asker, type Role } from "@/lib/permissions";
 
@@ -33,7 +35,8 @@ export async function currentMember({ projectId, userId }: { projectId: string; 
   return (await getMembership({ projectId, userId })) ?? null;
 }
 
-/** Browsers must come from the web app; clients without an Origin header (Node, tests) are not browsers. */
-export function isAllowedOrigin(origin: string | undefined, appUrl: string): boolean {
-  return origin === undefined || origin === new URL(appUrl).origin;
+/** Browsers must come from the web app (lib/http/same-origin.ts); clients without Origin (Node, tests) are not browsers. */
+export function isAllowedOrigin(headers: IncomingHttpHeaders, appUrl: string): boolean {
+  const secFetchSite = headers["sec-fetch-site"];
+  return isSameSite({ origin: headers.origin, secFetchSite: Array.isArray(secFetchSite) ? secFetchSite[0] : secFetchSite }, [new URL(appUrl).origin]);
 }

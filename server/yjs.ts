@@ -143,7 +143,7 @@ export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
   compaction.unref();
 
   async function handleUpgrade(request: IncomingMessage, socket: Duplex, head: Buffer) {
-    if (!isAllowedOrigin(request.headers.origin, appUrl)) return refuse(socket, 403, "Forbidden");
+    if (!isAllowedOrigin(request.headers, appUrl)) return refuse(socket, 403, "Forbidden");
     const projectId = new URL(request.url ?? "/", "http://localhost").pathname.slice(YJS_PATH_PREFIX.length);
     const who = await authenticate(request.headers.cookie, projectId);
     if (isRefusal(who)) return refuse(socket, who.status, who.message);

@@ -1,6 +1,6 @@
 import "server-only";
 // The only way to write a route handler under app/api (tests/integration/route-wrappers.test.ts checks it): the
-// preamble every handler needs — params, signed-in user, membership read once, the rule book, query and body
+// preamble every handler needs — cross-site writes refused, params, signed-in user, membership read once, the rule book, query and body
 // parsed with their zod schemas — then the handler, with every thrown error answered as `{ error, issues? }`.
 import { z } from "zod";
 import type { Membership } from "@/db/schema";
@@ -9,6 +9,12 @@ import { getRequestUser, type SessionUser } from "@/lib/auth/session";
 import { authorize, type Action } from "@/lib/permissions";
 import { ForbiddenError, handleRoute } from "./errors";
 import { parseJson, parseParams, parseWith } from "./parse";
+import { mayChangeFrom } from "./same-origin";
+
+/** Cross-site writes are refused before anything else (CSRF); server actions keep Next's own origin check. */
+function refuseCrossSite(request: Request) {
+  if (!mayChangeFrom(request)) throw new ForbiddenError("This request came from another site and was refused.");
+}
 
 /** What Next passes as the second argument of a route handler (typed routes narrow the params). */
 type NextContext = { params: Promise<unknown> };
@@ -49,6 +55,7 @@ export function projectRoute<
   handler: (input: Handled<P, Q, B> & { user: SessionUser; membership: Membership }) => Promise<Response>,
 ) {
   return handleRoute(async (request: Request, context?: NextContext) => {
+    refuseCrossSite(request);
     const params = parseParams(spec.params, await context?.params) as Parsed<P>;
     const user = requireUser(await getRequestUser(request));
     const membership = await requireMembership(user, params.projectId);
@@ -69,6 +76,7 @@ export function accountRoute<P extends z.ZodType | undefined = undefined, Q exte
   handler: (input: Handled<P, Q, B> & { user: SessionUser }) => Promise<Response>,
 ) {
   return handleRoute(async (request: Request, context?: NextContext) => {
+    refuseCrossSite(request);
     const params = (spec.params ? parseParams(spec.params, await context?.params) : undefined) as Parsed<P>;
     const user = requireUser(await getRequestUser(request));
     const { query, body } = await parseInputs(spec, request);
@@ -85,6 +93,7 @@ export function publicRoute<P extends z.ZodType | undefined = undefined, Q exten
   handler: (input: Handled<P, Q, B> & { user: SessionUser | null }) => Promise<Response>,
 ) {
   return handleRoute(async (request: Request, context?: NextContext) => {
+    refuseCrossSite(request);
     const params = (spec.params ? parseParams(spec.params, await context?.params) : undefined) as Parsed<P>;
     const user = await getRequestUser(request);
     const { query, body } = await parseInputs(spec, request);
