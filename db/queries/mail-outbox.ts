@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray, lte, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, isNotNull, lte, sql } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { mailOutbox, type NewOutboxMail, type OutboxMail } from "../schema";
 
@@ -63,4 +63,13 @@ export async function getOutboxMail({ id }: { id: string }): Promise<OutboxMail 
 /** Queued mails to an address, newest first (tests and the dev page). */
 export function listOutboxMailTo({ toAddress }: { toAddress: string }): Promise<OutboxMail[]> {
   return getDb().select().from(mailOutbox).where(eq(mailOutbox.toAddress, toAddress)).orderBy(sql`${mailOutbox.createdAt} desc`);
+}
+
+/** The Message-IDs of the project's mails the SMTP server accepted (the captured-mail page matches on them). */
+export async function listSentMessageIds({ projectId }: { projectId: string }): Promise<string[]> {
+  const rows = await getDb()
+    .select({ messageId: mailOutbox.messageId })
+    .from(mailOutbox)
+    .where(and(eq(mailOutbox.projectId, projectId), eq(mailOutbox.state, "sent"), isNotNull(mailOutbox.messageId)));
+  return rows.flatMap((row) => (row.messageId ? [row.messageId] : []));
 }

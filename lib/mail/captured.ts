@@ -4,15 +4,16 @@ import "server-only";
 import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
 import { simpleParser, type AddressObject } from "mailparser";
+import { listSentMessageIds } from "../../db/queries/mail-outbox";
 
 export type CapturedMail = { id: string; receivedAt: string; from: string; to: string[]; subject: string; text: string; html: string | null };
 
 /**
- * The captured-mail page is for development: on in `next dev`, and in a production build only when the
- * environment says the SMTP server is the local capturing fake (MAIL_CAPTURE_LOCAL=1, set by the stack scripts).
+ * The captured-mail page is for local running only: on when the environment says the SMTP server is the local
+ * capturing fake (MAIL_CAPTURE_LOCAL=1, set by the stack scripts), whatever the build; off everywhere else.
  */
 export function capturedMailPageEnabled(): boolean {
-  return process.env.NODE_ENV !== "production" || process.env.MAIL_CAPTURE_LOCAL === "1";
+  return process.env.MAIL_CAPTURE_LOCAL === "1";
 }
 
 function captureDir(): string {
@@ -26,9 +27,9 @@ function addresses(field: AddressObject | AddressObject[] | undefined): string[]
   return list.flatMap((entry) => entry.value.map((address) => address.address ?? "")).filter(Boolean);
 }
 
-/** The newest captured mails first (at most `limit`), optionally only those sent to `to` or to any of `toAny`. */
-export async function listCapturedMail({ limit = 50, to, toAny }: { limit?: number; to?: string; toAny?: string[] } = {}): Promise<CapturedMail[]> {
-  const wanted = new Set([...(to ? [to] : []), ...(toAny ?? [])].map((address) => address.toLowerCase()));
+/** The newest captured mails first (at most `limit`), optionally only those sent to `to` or with one of `messageIds`. */
+export async function listCapturedMail({ limit = 50, to, messageIds }: { limit?: number; to?: string; messageIds?: string[] } = {}): Promise<CapturedMail[]> {
+  const wantedIds = messageIds ? new Set(messageIds) : null;
   let names: string[];
   try {
     names = (await readdir(captureDir())).filter((name) => name.endsWith(".eml") && !name.startsWith("."));
@@ -43,7 +44,8 @@ export async function listCapturedMail({ limit = 50, to, toAny }: { limit?: numb
     if (mails.length >= limit) break;
     const parsed = await simpleParser(await readFile(path.join(captureDir(), name)));
     const recipients = addresses(parsed.to);
-    if ((to || toAny) && !recipients.some((address) => wanted.has(address.toLowerCase()))) continue;
+    if (to && !recipients.some((address) => address.toLowerCase() === to.toLowerCase())) continue;
+    if (wantedIds && !(parsed.messageId && wantedIds.has(parsed.messageId))) continue;
     mails.push({
       id: name.replace(/\.eml$/, ""),
       receivedAt: (parsed.date ?? new Date(0)).toISOString(),
@@ -55,4 +57,14 @@ export async function listCapturedMail({ limit = 50, to, toAny }: { limit?: numb
     });
   }
   return mails;
+}
+
+/**
+ * The captured mail written for this project: matched by Message-ID to the project's sent outbox rows, never by
+ * recipient (a person on two teams would otherwise show one project's join links to the other's owners).
+ */
+export async function capturedMailForProject({ projectId, limit = 100 }: { projectId: string; limit?: number }): Promise<CapturedMail[]> {
+  const messageIds = await listSentMessageIds({ projectId });
+  if (messageIds.length === 0) return [];
+  return listCapturedMail({ limit, messageIds });
 }

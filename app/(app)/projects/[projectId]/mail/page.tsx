@@ -2,10 +2,8 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { ProjectHeader } from "@/components/project/project-header";
 import { ProjectNav } from "@/components/project/project-nav";
-import { listPendingInvitations } from "@/db/queries/invitations";
-import { listMembersByProject } from "@/db/queries/memberships";
 import { requirePageProject } from "@/lib/auth/page";
-import { capturedMailPageEnabled, listCapturedMail } from "@/lib/mail/captured";
+import { capturedMailForProject, capturedMailPageEnabled } from "@/lib/mail/captured";
 
 export const metadata: Metadata = { title: "Captured mail" };
 export const dynamic = "force-dynamic";
@@ -29,13 +27,12 @@ function Linkified({ text }: { text: string }) {
   );
 }
 
-/** Development only: the mail the local SMTP fake caught for this project's team and invitees (owners). */
+/** Local running only: the mail written for this project, as the local SMTP fake caught it (owners). */
 export default async function CapturedMailPage({ params }: PageProps<"/projects/[projectId]/mail">) {
   if (!capturedMailPageEnabled()) notFound();
   const { projectId } = await params;
   const { project } = await requirePageProject(projectId, "mail.viewCaptured");
-  const [members, invitations] = await Promise.all([listMembersByProject({ projectId }), listPendingInvitations({ projectId })]);
-  const mails = await listCapturedMail({ limit: 100, toAny: [...members.map((m) => m.email), ...invitations.map((i) => i.email)] });
+  const mails = await capturedMailForProject({ projectId: project.id });
   return (
     <div className="flex flex-col gap-6">
       <ProjectHeader project={project} />
@@ -44,7 +41,7 @@ export default async function CapturedMailPage({ params }: PageProps<"/projects/
         <div>
           <h2 className="text-lg font-semibold">Captured mail (development)</h2>
           <p className="text-sm text-board-700">
-            Mail sent to this project&apos;s team and invitees, as caught by the local SMTP server. Nothing here left this machine.
+            Mail this project sent (invitations, mentions, decisions, digests), as caught by the local SMTP server. Nothing here left this machine.
           </p>
         </div>
         {mails.length === 0 ? <p className="text-board-700">No mail captured yet.</p> : null}
