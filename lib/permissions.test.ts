@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ACTIONS, ROLES, abilitiesOf, can, canCloseThread, isRole, type Action, type Role } from "./permissions";
+import { ACTIONS, ROLES, abilitiesOf, can, authorize, canCloseThread, clashDecisionRefusal, isRole, type Action, type Role } from "./permissions";
 
 // The full role × action matrix, written out cell by cell from the team rules (the product owner's table), so a
 // change to lib/permissions.ts that is not also a deliberate change here fails.
@@ -12,7 +12,9 @@ const MATRIX: Record<Action, [boolean, boolean, boolean, boolean, boolean]> = {
   "model.edit":          [false, true,  false, false, false],
   "analysis.run":        [false, true,  false, false, false],
   "review.decide":       [false, true,  false, false, false],
-  "clash.acceptOpening": [false, true,  false, false, false],
+  "clash.decide":        [false, true,  false, false, false],
+  "clash.assign":        [false, true,  false, true,  false],
+  "revision.markCurrent":[false, true,  false, false, false],
   "session.present":     [true,  true,  false, false, false],
   "pin.create":          [true,  true,  true,  true,  false],
   "comment.create":      [true,  true,  true,  true,  false],
@@ -50,6 +52,18 @@ describe("permission table", () => {
     expect(canCloseThread("architect", "u1", "u2")).toBe(false);
     expect(canCloseThread("owner", "u1", "u2")).toBe(true);
     expect(canCloseThread(null, "u1", "u1")).toBe(false);
+  });
+
+  it("keeps proposer and decider of an opening two different people", () => {
+    const opening = { kind: "proposal", outcome: "opening_proposed", proposerId: "se1" } as const;
+    expect(authorize({ role: "structural_engineer", userId: "se1" }, "clash.decide", opening)).toBe(false);
+    expect(clashDecisionRefusal({ role: "structural_engineer", userId: "se1" }, { outcome: opening.outcome, proposerId: opening.proposerId })).toMatch(/two people/);
+    expect(authorize({ role: "structural_engineer", userId: "se2" }, "clash.decide", opening)).toBe(true);
+    expect(clashDecisionRefusal({ role: "structural_engineer", userId: "se2" }, { outcome: opening.outcome, proposerId: opening.proposerId })).toBeNull();
+    expect(authorize({ role: "mep_engineer", userId: "mep1" }, "clash.decide", opening)).toBe(false);
+    expect(clashDecisionRefusal({ role: "mep_engineer", userId: "se1" }, { outcome: opening.outcome, proposerId: opening.proposerId })).toMatch(/Only the structural engineer/);
+    // The rule is about openings: the structural engineer may confirm a reroute they proposed themselves.
+    expect(authorize({ role: "structural_engineer", userId: "se1" }, "clash.decide", { kind: "proposal", outcome: "reroute_run", proposerId: "se1" })).toBe(true);
   });
 
   it("recognises role strings", () => {

@@ -17,7 +17,9 @@ export const ACTIONS = [
   "comment.create",
   "thread.close",
   "clash.propose",
-  "clash.acceptOpening",
+  "clash.decide",
+  "clash.assign",
+  "revision.markCurrent",
   "runs.edit",
   "report.export",
   "mail.viewCaptured",
@@ -43,7 +45,11 @@ const TABLE: Record<Action, readonly Role[]> = {
   "model.edit": ["structural_engineer"],
   "analysis.run": ["structural_engineer"],
   "review.decide": ["structural_engineer"],
-  "clash.acceptOpening": ["structural_engineer"],
+  // Decide a proposal (accept or refuse an opening, confirm another outcome) and supersede a decision. For an
+  // opening, the proposer may not decide it too (see canDecideClash).
+  "clash.decide": ["structural_engineer"],
+  "clash.assign": ["mep_engineer", "structural_engineer"],
+  "revision.markCurrent": ["structural_engineer"],
   "session.present": ["owner", "structural_engineer"],
   "pin.create": ["owner", "structural_engineer", "architect", "mep_engineer"],
   "comment.create": ["owner", "structural_engineer", "architect", "mep_engineer"],
@@ -62,6 +68,13 @@ export function can(role: Role | null | undefined, action: Action): boolean {
 /** thread.close: owners and structural engineers, plus the author of the pin whatever their role. */
 export function canCloseThread(role: Role | null | undefined, userId: string, pinAuthorId: string): boolean {
   return authorize(role ? { role, userId } : null, "thread.close", { kind: "pin", authorId: pinAuthorId });
+}
+
+/** Why a member may not decide a clash's open proposal, or null when they may (the two-person rule for openings). */
+export function clashDecisionRefusal(asker: Asker, proposal: { outcome: string | null; proposerId: string | null }): string | null {
+  if (authorize(asker, "clash.decide", { kind: "proposal", ...proposal })) return null;
+  if (!authorize(asker, "clash.decide")) return "Only the structural engineer decides clashes.";
+  return "You proposed this opening; another structural engineer must decide it (proposer and decider of an opening are two people).";
 }
 
 /** Every action the role may perform, for the UI to enable buttons from the server's answer. */
@@ -83,11 +96,14 @@ export type Resource =
   /** The live review session: its presenter (null when none is live). */
   | { kind: "session"; presenterId: string | null }
   /** A comment: only its author attaches files to it. */
-  | { kind: "comment"; authorId: string };
+  | { kind: "comment"; authorId: string }
+  /** The open proposal on a clash: whoever proposed an opening may not decide it. */
+  | { kind: "proposal"; outcome: string | null; proposerId: string | null };
 
 function ownsResource(asker: NonNullable<Asker>, resource: Resource | undefined, kind: Resource["kind"]): boolean {
   if (!resource || resource.kind !== kind) return false;
-  return (resource.kind === "session" ? resource.presenterId : resource.authorId) === asker.userId;
+  const owner = resource.kind === "session" ? resource.presenterId : resource.kind === "proposal" ? resource.proposerId : resource.authorId;
+  return owner === asker.userId;
 }
 
 /**
@@ -97,7 +113,8 @@ function ownsResource(asker: NonNullable<Asker>, resource: Resource | undefined,
  * - `session.steer` (hand over, end): the presenter or an owner;
  * - `session.drive` (move everyone's view): the presenter only;
  * - `notes.edit` (the shared session notes): whoever may comment;
- * - `comment.attach`: the comment's author, while they may comment.
+ * - `comment.attach`: the comment's author, while they may comment;
+ * - `clash.decide` on a proposal: the structural engineer, but never the one who proposed that opening.
  */
 export function authorize(asker: Asker, action: Action | ResourceAction, resource?: Resource): boolean {
   if (!asker) return false;
@@ -113,6 +130,8 @@ export function authorize(asker: Asker, action: Action | ResourceAction, resourc
       return can(asker.role, "comment.create");
     case "comment.attach":
       return can(asker.role, "comment.create") && ownsResource(asker, resource, "comment");
+    case "clash.decide":
+      return can(asker.role, "clash.decide") && !(resource?.kind === "proposal" && resource.outcome === "opening_proposed" && ownsResource(asker, resource, "proposal"));
     default:
       return can(asker.role, action);
   }

@@ -1,14 +1,19 @@
 import type { ClashView } from "@/db/queries/clashes";
 import type { RunView } from "@/db/queries/mep";
 import type { ClashTableRow } from "@/lib/clash/rows";
+import type { Role } from "@/lib/permissions";
 
 /** One row of GET /api/projects/[projectId]/clashes. */
 export type ClashRowData = ClashTableRow<ClashView>;
 
 export interface ClashListResponse {
   revision: { id: string; number: number };
+  /** The caller (for the two-person rule on openings) and their role. */
+  userId: string;
+  role: Role;
+  team: { userId: string; name: string; role: Role }[];
   clashes: ClashRowData[];
-  abilities: { propose: boolean; acceptOpening: boolean; editRuns: boolean; hangServices: boolean };
+  abilities: { propose: boolean; decide: boolean; assign: boolean; editRuns: boolean; hangServices: boolean };
   caution: string;
 }
 

@@ -1,15 +1,11 @@
 import "server-only";
-import { and, asc, eq, inArray, notInArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, notInArray, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import { getDb, withTransaction, type Executor } from "@/db/client";
-import { clashDecisions, clashes, users, type ClashRow } from "@/db/schema";
+import { getDb, type Executor } from "@/db/client";
+import { clashDecisions, clashes, modelRevisions, users, type ClashRow } from "@/db/schema";
 import { detectClashes, type ClashModel } from "@/lib/clash/detect";
-import type { ClashOutcome, ProposeOutcomeInput } from "@/lib/clash/outcomes";
-import { ConflictError, NotFoundError } from "@/lib/http/errors";
 import type { Run } from "@/lib/mep/schemas";
 import { STANDING_CAUTION } from "@/lib/review/caution";
-import { recordAuditEvent } from "./audit";
-import { notifyClashDecision } from "@/lib/mail/notify";
 
 const UPSERT_BATCH = 500;
 
@@ -69,9 +65,13 @@ export async function syncClashes({ db, projectId, revisionId, model, runs }: { 
 }
 
 /** A clash as the API presents it (who proposed and decided, by name). */
-export type ClashView = Omit<ClashRow, "createdAt" | "updatedAt" | "proposedAt" | "decidedAt" | "pointX" | "pointY" | "pointZ" | "proposedBy" | "decidedBy"> & {
+export type ClashView = Omit<ClashRow, "createdAt" | "updatedAt" | "proposedAt" | "decidedAt" | "pointX" | "pointY" | "pointZ" | "proposedBy" | "decidedBy" | "assigneeId"> & {
   point: { x: number; y: number; z: number };
+  /** The proposer's user id, for the two-person rule on openings (lib/permissions.ts canDecideClash). */
+  proposerId: string | null;
   proposedBy: string | null;
+  assigneeId: string | null;
+  assignee: string | null;
   proposedAt: string | null;
   decidedBy: string | null;
   decidedAt: string | null;
@@ -80,13 +80,16 @@ export type ClashView = Omit<ClashRow, "createdAt" | "updatedAt" | "proposedAt" 
 
 const proposer = alias(users, "proposer");
 const decider = alias(users, "decider");
+const assignee = alias(users, "assignee");
 
-function present(row: { clash: ClashRow; proposedBy: string | null; decidedBy: string | null }): ClashView {
-  const { pointX, pointY, pointZ, createdAt, updatedAt, proposedAt, decidedAt, ...rest } = row.clash;
+function present(row: { clash: ClashRow; proposedBy: string | null; decidedBy: string | null; assignee: string | null }): ClashView {
+  const { pointX, pointY, pointZ, createdAt, updatedAt, proposedAt, decidedAt, proposedBy, ...rest } = row.clash;
   return {
     ...rest,
     point: { x: pointX, y: pointY, z: pointZ },
+    proposerId: proposedBy,
     proposedBy: row.proposedBy,
+    assignee: row.assignee,
     proposedAt: proposedAt?.toISOString() ?? null,
     decidedBy: row.decidedBy,
     decidedAt: decidedAt?.toISOString() ?? null,
@@ -96,10 +99,11 @@ function present(row: { clash: ClashRow; proposedBy: string | null; decidedBy: s
 
 function selectClashes(db: Executor) {
   return db
-    .select({ clash: clashes, proposedBy: proposer.name, decidedBy: decider.name })
+    .select({ clash: clashes, proposedBy: proposer.name, decidedBy: decider.name, assignee: assignee.name })
     .from(clashes)
     .leftJoin(proposer, eq(proposer.id, clashes.proposedBy))
-    .leftJoin(decider, eq(decider.id, clashes.decidedBy));
+    .leftJoin(decider, eq(decider.id, clashes.decidedBy))
+    .leftJoin(assignee, eq(assignee.id, clashes.assigneeId));
 }
 
 /** Every clash of a revision (active first), by run, segment and member. */
@@ -116,66 +120,76 @@ export async function getClashById({ projectId, clashId, db = getDb() }: { proje
   return row ? present(row) : null;
 }
 
-/** The decision history of a clash, oldest first. */
-export async function listClashDecisions({ clashIds, db = getDb() }: { clashIds: string[]; db?: Executor }) {
-  if (clashIds.length === 0) return [];
-  return db
+/** The row of a clash, locked until the transaction ends, so two decisions on it are taken one after the other. */
+export async function lockClash(tx: Executor, { projectId, clashId }: { projectId: string; clashId: string }): Promise<ClashRow | null> {
+  const [row] = await tx.select().from(clashes).where(and(eq(clashes.projectId, projectId), eq(clashes.id, clashId))).for("update");
+  return row ?? null;
+}
+
+export type ClashEntryInput = Omit<typeof clashDecisions.$inferInsert, "id" | "createdAt" | "updatedAt" | "caution"> & { caution?: string };
+
+/** Appends one step to a clash's history (never updated afterwards); the caution shown defaults to the standing one. */
+export async function appendClashEntry(tx: Executor, entry: ClashEntryInput): Promise<string> {
+  const [row] = await tx
+    .insert(clashDecisions)
+    .values({ ...entry, caution: entry.caution ?? STANDING_CAUTION })
+    .returning({ id: clashDecisions.id });
+  return row.id;
+}
+
+export type ClashSummaryPatch = Partial<Pick<ClashRow, "outcome" | "note" | "conditions" | "proposedBy" | "proposedAt" | "decidedBy" | "decidedAt" | "recheckReason" | "closedReason" | "status" | "assigneeId" | "dueOn">>;
+
+/** Updates the summary columns of a clash (its history is appended separately, in the same transaction). */
+export async function updateClashSummary(tx: Executor, clashId: string, patch: ClashSummaryPatch): Promise<void> {
+  await tx.update(clashes).set(patch).where(eq(clashes.id, clashId));
+}
+
+/** The newest decision entry of a clash across its revisions (same project and stable key), or null. */
+export async function latestDecisionEntry(tx: Executor, { projectId, clashKey }: { projectId: string; clashKey: string }): Promise<{ id: string } | null> {
+  const [row] = await tx
+    .select({ id: clashDecisions.id })
+    .from(clashDecisions)
+    .innerJoin(clashes, eq(clashes.id, clashDecisions.clashId))
+    .where(and(eq(clashes.projectId, projectId), eq(clashes.clashKey, clashKey), eq(clashDecisions.kind, "decision")))
+    .orderBy(desc(clashDecisions.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * The history of clashes, oldest first: every entry recorded on any revision's row of the same stable key, so a
+ * clash carried to a newer revision shows what was proposed and decided on the earlier ones.
+ */
+export async function listClashHistory({ projectId, clashKeys, db = getDb() }: { projectId: string; clashKeys: string[]; db?: Executor }) {
+  if (clashKeys.length === 0) return [];
+  const rows = await db
     .select({
       id: clashDecisions.id,
       clashId: clashDecisions.clashId,
+      clashKey: clashes.clashKey,
+      kind: clashDecisions.kind,
       outcome: clashDecisions.outcome,
       note: clashDecisions.note,
       conditions: clashDecisions.conditions,
+      reason: clashDecisions.reason,
       caution: clashDecisions.caution,
       decidedBy: users.name,
+      role: clashDecisions.role,
+      revision: modelRevisions.number,
+      supersedesId: clashDecisions.supersedesId,
       createdAt: clashDecisions.createdAt,
     })
     .from(clashDecisions)
+    .innerJoin(clashes, eq(clashes.id, clashDecisions.clashId))
     .leftJoin(users, eq(users.id, clashDecisions.decidedBy))
-    .where(inArray(clashDecisions.clashId, clashIds))
-    .orderBy(asc(clashDecisions.createdAt));
+    .leftJoin(modelRevisions, eq(modelRevisions.id, clashDecisions.revisionId))
+    .where(and(eq(clashes.projectId, projectId), inArray(clashes.clashKey, clashKeys)))
+    .orderBy(asc(clashDecisions.createdAt), asc(clashDecisions.id));
+  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
+export type ClashHistoryEntry = Awaited<ReturnType<typeof listClashHistory>>[number];
 
-async function recordDecision(tx: Executor, input: { projectId: string; clashId: string; outcome: ClashOutcome; note: string; conditions: string | null; actorId: string }) {
-  await tx.insert(clashDecisions).values({ clashId: input.clashId, outcome: input.outcome, note: input.note, conditions: input.conditions, caution: STANDING_CAUTION, decidedBy: input.actorId });
-  await notifyClashDecision({ db: tx, ...input });
-  await recordAuditEvent({
-    db: tx,
-    projectId: input.projectId,
-    actorId: input.actorId,
-    action: input.outcome === "opening_accepted" ? "clash.acceptOpening" : "clash.propose",
-    subjectType: "clash",
-    subjectId: input.clashId,
-    details: { outcome: input.outcome, note: input.note, conditions: input.conditions, caution: STANDING_CAUTION },
-  });
-}
-
-/** Records a proposed outcome (who and when, with the standing caution) in one transaction. */
-export async function proposeClashOutcome({ projectId, clashId, actorId, outcome, note }: { projectId: string; clashId: string; actorId: string } & ProposeOutcomeInput): Promise<ClashView> {
-  await withTransaction(async (tx) => {
-    const [row] = await tx
-      .update(clashes)
-      .set({ outcome, note, conditions: null, proposedBy: actorId, proposedAt: new Date(), decidedBy: null, decidedAt: null })
-      .where(and(eq(clashes.projectId, projectId), eq(clashes.id, clashId)))
-      .returning({ id: clashes.id });
-    if (!row) throw new NotFoundError("No such clash on this project.");
-    await recordDecision(tx, { projectId, clashId, outcome, note, conditions: null, actorId });
-  });
-  return (await getClashById({ projectId, clashId }))!;
-}
-
-/** Accepts a proposed opening with written conditions (structural engineer; checked by the caller). */
-export async function acceptClashOpening({ projectId, clashId, actorId, conditions }: { projectId: string; clashId: string; actorId: string; conditions: string }): Promise<ClashView> {
-  await withTransaction(async (tx) => {
-    const [current] = await tx
-      .select({ outcome: clashes.outcome })
-      .from(clashes)
-      .where(and(eq(clashes.projectId, projectId), eq(clashes.id, clashId)))
-      .for("update");
-    if (!current) throw new NotFoundError("No such clash on this project.");
-    if (current.outcome !== "opening_proposed") throw new ConflictError("Only a proposed opening can be accepted; propose the opening first.");
-    await tx.update(clashes).set({ outcome: "opening_accepted", conditions, decidedBy: actorId, decidedAt: new Date() }).where(eq(clashes.id, clashId));
-    await recordDecision(tx, { projectId, clashId, outcome: "opening_accepted", note: "", conditions, actorId });
-  });
-  return (await getClashById({ projectId, clashId }))!;
+/** Sets (or clears) who a clash is assigned to and by when. */
+export async function setClashAssignment(tx: Executor, { clashId, assigneeId, dueOn }: { clashId: string; assigneeId: string | null; dueOn: string | null }): Promise<void> {
+  await tx.update(clashes).set({ assigneeId, dueOn }).where(eq(clashes.id, clashId));
 }

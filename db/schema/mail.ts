@@ -3,7 +3,7 @@
 import { index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { projects, timestamps } from "./core";
 
-export const MAIL_KINDS = ["invitation", "mention", "decision", "digest"] as const;
+export const MAIL_KINDS = ["invitation", "mention", "proposal", "decision", "recheck", "digest"] as const;
 export const mailKind = pgEnum("mail_kind", MAIL_KINDS);
 /** pending: waiting to be sent (again); sent: the SMTP server accepted it; failed: gave up after the last retry. */
 export const MAIL_STATES = ["pending", "sent", "failed"] as const;

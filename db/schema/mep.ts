@@ -1,14 +1,15 @@
 // MEP area: duct and pipe runs stored per model revision, the clashes found between them and the members, and the
 // history of every decision on a clash (design.md, "Data").
-import { doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
-import { CLASH_KINDS, CLASH_OUTCOMES, CLASH_STATUSES } from "../../lib/clash/outcomes";
+import { date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { CLASH_ENTRY_KINDS, CLASH_KINDS, CLASH_OUTCOMES, CLASH_STATUSES } from "../../lib/clash/outcomes";
 import type { RunPoint, RunProfile } from "../../lib/mep/schemas";
-import { projects, timestamps, users } from "./core";
-import { modelRevisions } from "./models";
+import { projectRole, projects, timestamps, users } from "./core";
+import { analysisRuns, modelRevisions } from "./models";
 
 export const clashKind = pgEnum("clash_kind", CLASH_KINDS);
 export const clashOutcome = pgEnum("clash_outcome", CLASH_OUTCOMES);
 export const clashStatus = pgEnum("clash_status", CLASH_STATUSES);
+export const clashEntryKind = pgEnum("clash_entry_kind", CLASH_ENTRY_KINDS);
 
 export const mepRuns = pgTable(
   "mep_runs",
@@ -56,6 +57,7 @@ export const clashes = pgTable(
     pointX: doublePrecision().notNull(),
     pointY: doublePrecision().notNull(),
     pointZ: doublePrecision().notNull(),
+    /** Summary of the history (clash_decisions holds every step): the standing decision, else the open proposal. */
     outcome: clashOutcome(),
     note: text().notNull().default(""),
     conditions: text(),
@@ -63,12 +65,22 @@ export const clashes = pgTable(
     proposedAt: timestamp({ withTimezone: true }),
     decidedBy: uuid().references(() => users.id, { onDelete: "set null" }),
     decidedAt: timestamp({ withTimezone: true }),
+    /** Set when a newer revision's results changed what the decision relied on ("needs another look"), in words. */
+    recheckReason: text(),
+    /** Why the clash was closed (its member or run changed or vanished in a newer revision). */
+    closedReason: text(),
+    assigneeId: uuid().references(() => users.id, { onDelete: "set null" }),
+    dueOn: date({ mode: "string" }),
     ...timestamps,
   },
   (t) => [uniqueIndex("clashes_revision_key_idx").on(t.revisionId, t.clashKey), index("clashes_project_key_idx").on(t.projectId, t.clashKey)],
 );
 
-/** Every proposal and acceptance, never updated: the clash's audit trail, with the caution shown at the time. */
+/**
+ * The history of a clash, append-only (a database trigger refuses updates): every proposal, decision,
+ * supersession, re-check and closure, with who (and their role then), the revision and result set it was judged on,
+ * and the caution shown at the time.
+ */
 export const clashDecisions = pgTable(
   "clash_decisions",
   {
@@ -76,11 +88,21 @@ export const clashDecisions = pgTable(
     clashId: uuid()
       .notNull()
       .references(() => clashes.id, { onDelete: "cascade" }),
-    outcome: clashOutcome().notNull(),
+    kind: clashEntryKind().notNull().default("proposal"),
+    /** The outcome proposed or decided; for a supersession, re-check or closure, the outcome it concerned. */
+    outcome: clashOutcome(),
     note: text().notNull().default(""),
     conditions: text(),
+    /** Why: a refusal, a supersession, a re-check or a closure, in words. */
+    reason: text(),
     caution: text().notNull(),
+    /** Who acted (null for the system's re-checks and closures, or an account since deleted). */
     decidedBy: uuid().references(() => users.id, { onDelete: "set null" }),
+    role: projectRole(),
+    revisionId: uuid().references(() => modelRevisions.id, { onDelete: "set null" }),
+    analysisRunId: uuid().references(() => analysisRuns.id, { onDelete: "set null" }),
+    /** For a supersession: the decision it supersedes. */
+    supersedesId: uuid(),
     ...timestamps,
   },
   (t) => [index("clash_decisions_clash_idx").on(t.clashId, t.createdAt)],

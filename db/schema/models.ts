@@ -1,6 +1,7 @@
 // Models area: immutable model revisions (the model JSON of our format) and the analysis run stored with each
 // (results and member review as jsonb), so opening the viewer never waits for a solve (design.md, "Data").
-import { integer, jsonb, pgEnum, pgTable, text, uniqueIndex, uuid, index } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { boolean, integer, jsonb, pgEnum, pgTable, text, uniqueIndex, uuid, index } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "../../lib/analysis/analyze";
 import type { TrussModel } from "../../lib/analysis/model";
 import type { StoredReview } from "../../lib/models/analyse";
@@ -25,9 +26,15 @@ export const modelRevisions = pgTable(
     model: jsonb().$type<TrussModel>().notNull(),
     source: revisionSource().notNull(),
     createdBy: uuid().references(() => users.id, { onDelete: "set null" }),
+    /** The revision the structural engineer marked current (for review); pages open it by default. */
+    isCurrent: boolean().notNull().default(false),
     ...timestamps,
   },
-  (t) => [uniqueIndex("model_revisions_project_number_idx").on(t.projectId, t.number)],
+  (t) => [
+    uniqueIndex("model_revisions_project_number_idx").on(t.projectId, t.number),
+    // At most one current revision per project.
+    uniqueIndex("model_revisions_current_idx").on(t.projectId).where(sql`is_current`),
+  ],
 );
 
 export const analysisRuns = pgTable(

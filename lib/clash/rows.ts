@@ -10,7 +10,7 @@ export interface StoredClash {
   runId: string;
   segmentIndex: number;
   kind: "hard" | "clearance";
-  status: "active" | "cleared";
+  status: "active" | "cleared" | "closed";
   gap: number;
   depth: number;
   requiredClearance: number;
@@ -22,6 +22,12 @@ export interface StoredClash {
   proposedAt: string | null;
   decidedBy: string | null;
   decidedAt: string | null;
+  proposerId: string | null;
+  assigneeId: string | null;
+  assignee: string | null;
+  dueOn: string | null;
+  recheckReason: string | null;
+  closedReason: string | null;
 }
 
 /** One row of the clash table: the clash plus the run's system and the member's forces, state and verdict. */

@@ -2,12 +2,12 @@ import "server-only";
 // The mails other areas ask for. Each one renders its template and queues it in the outbox, inside the caller's
 // transaction when one is passed, so the mail commits with (and only with) what it announces; the jobs process
 // sends it with retries (lib/mail/outbox.ts).
-import { and, eq, inArray, ne } from "drizzle-orm";
+import { and, eq, inArray } from "drizzle-orm";
 import { getDb, type Executor } from "../../db/client";
 import { clashes, comments, invitations, memberships, pins, projects, users } from "../../db/schema";
 import { enqueueMail } from "../../db/queries/mail-outbox";
 import { CLASH_OUTCOME_LABELS, type ClashOutcome } from "../clash/outcomes";
-import { decisionMail, invitationMail, mentionMail } from "./templates";
+import { clashStepMail, decisionMail, invitationMail, mentionMail, type ClashStep } from "./templates";
 
 /** The web app's public base URL, for links in mails. */
 export function appUrl(path: string): string {
@@ -81,41 +81,6 @@ export async function notifyMention({
       mail: { projectId, kind: "mention", toAddress: recipient.email, ...bodies(mail), dedupeKey: `mention:${commentId}:${recipient.userId}` },
     });
   }
-}
-
-/**
- * Queues a decision mail to every member of the project but the one who decided: the outcome of a clash or a
- * decision on an opening. Call it inside the transaction that records the decision.
- * `decisionId`, when given, identifies the decision so a call repeated outside a transaction queues once.
- */
-export async function notifyDecision({
-  db = getDb(),
-  projectId,
-  decisionId,
-  deciderId,
-  subject,
-  outcome,
-  note = null,
-  path,
-}: {
-  db?: Executor;
-  projectId: string;
-  decisionId?: string;
-  deciderId: string;
-  /** What was decided on, as readers say it: "clash C-12", "the opening in member B-41". */
-  subject: string;
-  /** The outcome in our words (glossary.md), e.g. "opening accepted with conditions". */
-  outcome: string;
-  note?: string | null;
-  /** Where to look at it in the app, e.g. `/projects/<id>?clash=C-12`. */
-  path: string;
-}): Promise<void> {
-  const team = await db
-    .select({ userId: users.id, email: users.email })
-    .from(memberships)
-    .innerJoin(users, eq(users.id, memberships.userId))
-    .where(and(eq(memberships.projectId, projectId), ne(memberships.userId, deciderId)));
-  await queueDecisionMail({ db, projectId, decisionId, deciderId, subject, outcome, note, path, recipients: team });
 }
 
 async function queueDecisionMail({
@@ -195,38 +160,65 @@ export async function notifyThreadDecision({
 }
 
 /**
- * Queues the decision mail for a clash outcome (proposed, or an opening accepted with conditions). Call it inside
- * the transaction that records the decision (db/queries/clashes.ts recordDecision).
+ * Queues the mail for one step on a clash to the given members (those still on the team, never the actor): a
+ * proposal to the assignee and the structural engineers who decide it, a decision to the proposer and assignee, a
+ * re-check to the decider. Call it inside the transaction that records the step; `entryId` makes it queue once.
  */
-export async function notifyClashDecision({
+export async function notifyClashStep({
   db = getDb(),
   projectId,
   clashId,
+  entryId,
+  step,
   outcome,
-  note,
-  conditions,
+  details,
   actorId,
+  recipientIds,
 }: {
   db?: Executor;
   projectId: string;
   clashId: string;
-  outcome: ClashOutcome;
-  note: string;
-  conditions: string | null;
-  actorId: string;
+  entryId: string;
+  step: ClashStep;
+  outcome: ClashOutcome | null;
+  details: string[];
+  actorId: string | null;
+  recipientIds: (string | null)[];
 }): Promise<void> {
+  const wanted = [...new Set(recipientIds.filter((id): id is string => id !== null && id !== actorId))];
+  if (wanted.length === 0) return;
+  const recipients = await db
+    .select({ userId: users.id, email: users.email })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.projectId, projectId), inArray(memberships.userId, wanted)));
+  if (recipients.length === 0) return;
   const [clash] = await db.select({ clashKey: clashes.clashKey, memberId: clashes.memberId, runId: clashes.runId }).from(clashes).where(eq(clashes.id, clashId));
   if (!clash) throw new Error(`Clash ${clashId} does not exist.`);
-  const label = CLASH_OUTCOME_LABELS[outcome];
-  await notifyDecision({
-    db,
-    projectId,
-    deciderId: actorId,
+  const [actor] = actorId ? await db.select({ name: users.name }).from(users).where(eq(users.id, actorId)) : [];
+  const label = outcome ? CLASH_OUTCOME_LABELS[outcome] : null;
+  const mail = clashStepMail({
+    projectName: await projectName(db, projectId),
+    actorName: actor?.name ?? null,
+    step,
     subject: `clash ${clash.clashKey} (member ${clash.memberId}, run ${clash.runId})`,
-    outcome: label.charAt(0).toLowerCase() + label.slice(1),
-    note: [note, conditions ? `Conditions: ${conditions}` : ""].filter(Boolean).join(" ") || null,
-    path: `/projects/${projectId}/clashes?clash=${encodeURIComponent(clash.clashKey)}`,
+    outcome: label ? label.charAt(0).toLowerCase() + label.slice(1) : null,
+    details,
+    url: appUrl(`/projects/${projectId}/clashes?clash=${encodeURIComponent(clash.clashKey)}`),
   });
+  const kind = step === "proposal" ? "proposal" : step === "recheck" ? "recheck" : "decision";
+  for (const recipient of recipients) {
+    await enqueueMail({ db, mail: { projectId, kind, toAddress: recipient.email, ...bodies(mail), dedupeKey: `clash:${entryId}:${recipient.userId}` } });
+  }
+}
+
+/** The structural engineers of a project: who decides clash proposals. */
+export async function structuralEngineerIds({ db = getDb(), projectId }: { db?: Executor; projectId: string }): Promise<string[]> {
+  const rows = await db
+    .select({ userId: memberships.userId })
+    .from(memberships)
+    .where(and(eq(memberships.projectId, projectId), eq(memberships.role, "structural_engineer")));
+  return rows.map((r) => r.userId);
 }
 
 function bodies(mail: { subject: string; text: string; html: string }) {

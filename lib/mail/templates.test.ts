@@ -1,7 +1,7 @@
 import { simpleParser } from "mailparser";
 import nodemailer from "nodemailer";
 import { describe, expect, it } from "vitest";
-import { decisionMail, digestMail, invitationMail, mentionMail, STANDING_CAUTION } from "./templates";
+import { clashStepMail, decisionMail, digestMail, invitationMail, mentionMail, STANDING_CAUTION } from "./templates";
 
 // Round trip through nodemailer's own MIME builder and mailparser (general-purpose npm libraries), so the check is
 // what a mail client would show, not our string.
@@ -34,6 +34,20 @@ describe("mail templates", () => {
     expect(mail.subject).toBe("Decision on clash C-12: opening accepted with conditions (P)");
     expect(mail.text).toContain(STANDING_CAUTION);
     expect(mail.html).toContain("engineer of record");
+  });
+
+  it("clash mails say a proposal is a proposal and a decision is a decision (issue 16)", () => {
+    const base = { projectName: "P", actorName: "Ines Marlow", subject: "clash K1 (member D-1, run SA-01)", url: "http://h" };
+    const proposal = clashStepMail({ ...base, step: "proposal", outcome: "opening proposed", details: [] });
+    expect(proposal.subject).toBe("Proposed on clash K1 (member D-1, run SA-01): opening proposed (P)");
+    expect(proposal.text).toContain("This is a proposal, not a decision");
+    expect(proposal.subject).not.toMatch(/decision/i);
+    const decision = clashStepMail({ ...base, actorName: "Tomasz Reiner", step: "decision", outcome: "opening refused", details: ["Reason: works under wind uplift."] });
+    expect(decision.subject).toBe("Decided on clash K1 (member D-1, run SA-01): opening refused (P)");
+    expect(decision.text).not.toContain("This is a proposal");
+    expect(decision.text).toContain(STANDING_CAUTION);
+    const recheck = clashStepMail({ ...base, actorName: null, step: "recheck", outcome: null, details: ["D-1 now carries 12.4 kN."] });
+    expect(recheck.text).toContain("needs another look");
   });
 
   it("digest lists each thread with its state and age", () => {

@@ -46,14 +46,14 @@ describe("clash review on the demo roof", () => {
     await mep.select("CHW-01");
     await mep.propose("opening_proposed", "The pipe cannot drop: the air handler connection is fixed.");
     await mep.outcome().filter({ hasText: "Opening proposed" }).waitFor({ timeout: 60_000 });
-    expect(await mep.acceptForm().count()).toBe(0);
+    expect(await mep.decideForm().count()).toBe(0);
     await screenshot(mep.page, "clashes-proposed");
 
     const structural = await clashesAs("structural_engineer");
     await structural.select("CHW-01");
-    await structural.acceptForm().waitFor();
+    await structural.decideForm().waitFor();
     await structural.accept("");
-    await structural.page.getByTestId("accept-conditions-error").waitFor();
+    await structural.page.getByTestId("decide-text-error").waitFor();
     await structural.accept("Pipe sleeve through a 100 mm hole at mid-length only; stiffening collar; re-check of the chord by the engineer of record.");
     await structural.outcome().filter({ hasText: "Opening accepted with conditions" }).waitFor({ timeout: 60_000 });
     await structural.page.getByTestId("clash-conditions").waitFor();
@@ -65,7 +65,7 @@ describe("clash review on the demo roof", () => {
     const viewer = await clashesAs("viewer");
     await viewer.select("SA-01");
     expect(await viewer.proposeForm().count()).toBe(0);
-    expect(await viewer.acceptForm().count()).toBe(0);
+    expect(await viewer.decideForm().count()).toBe(0);
     expect(await viewer.page.getByTestId("clash-caution").textContent()).toBe(CAUTION);
   });
 });

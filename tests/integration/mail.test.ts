@@ -8,16 +8,16 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as invite } from "@/app/api/projects/[projectId]/invitations/route";
 import { POST as accept } from "@/app/api/invitations/[token]/route";
 import { clashes, comments, mailOutbox, memberships, pins, projects, users } from "@/db/schema";
-import { listOutboxMailTo } from "@/db/queries/mail-outbox";
 import { withTransaction } from "@/db/client";
-import { acceptClashOpening, proposeClashOutcome } from "@/db/queries/clashes";
+import { decideClash } from "@/lib/commands/decide-clash";
+import { proposeClashOutcome } from "@/lib/commands/propose-clash-outcome";
 import { createComment } from "@/db/queries/comments";
 import { createRevisionWithAnalysis } from "@/db/queries/models";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import { TRIPOD } from "@/lib/report/test-report";
 import { listCapturedMail } from "@/lib/mail/captured";
 import { queueDailyDigests } from "@/lib/mail/digest";
-import { notifyDecision, notifyMention } from "@/lib/mail/notify";
+import { notifyMention } from "@/lib/mail/notify";
 import { processOutbox } from "@/lib/mail/outbox";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
@@ -100,22 +100,6 @@ describe("mention, decision and digest mails", () => {
     expect(mail.text).toContain(`/projects/${fx.projectId}/viewer?pin=${pinId}`);
   });
 
-  it("decision: every member but the decider is told, with the standing caution", async () => {
-    await notifyDecision({
-      projectId: fx.projectId,
-      decisionId: `C-7:${randomUUID()}`,
-      deciderId: fx.users.structural_engineer.id,
-      subject: "clash C-7",
-      outcome: "opening accepted with conditions",
-      note: "Sleeve of 150 mm at mid-length only.",
-      path: `/projects/${fx.projectId}?clash=C-7`,
-    });
-    const mail = await deliveredTo(fx.users.mep_engineer.email, /Decision on clash C-7/);
-    expect(mail.text).toContain("Advisory results for coordination.");
-    expect(mail.text).toContain("Sleeve of 150 mm");
-    expect(await listOutboxMailTo({ toAddress: fx.users.structural_engineer.email })).not.toContainEqual(expect.objectContaining({ kind: "decision" }));
-  });
-
   it("decision in a thread: one mail per pin author and thread writer, never the decider; plain comments queue none", async () => {
     const threadPin = randomUUID();
     await getDb().insert(pins).values({ id: threadPin, projectId: fx.projectId, anchorKind: "member", anchorId: "B-41", title: "Opening in chord B-41", discipline: "mep", authorId: fx.users.architect.id });
@@ -184,12 +168,20 @@ describe("mention, decision and digest mails", () => {
       .insert(clashes)
       .values({ projectId: fx.projectId, revisionId: revision.id, clashKey: "c-mail1", memberId: "AB", runId: "SA-01", segmentIndex: 0, kind: "hard", gap: -0.01, depth: 0.01, requiredClearance: 0.05, pointX: 0, pointY: 0, pointZ: 0 })
       .returning();
-    await proposeClashOutcome({ projectId: fx.projectId, clashId: clash.id, actorId: fx.users.mep_engineer.id, outcome: "opening_proposed", note: "Sleeve near mid-length" });
-    await acceptClashOpening({ projectId: fx.projectId, clashId: clash.id, actorId: fx.users.structural_engineer.id, conditions: "Sleeve 100 mm, stiffened, at mid-length only" });
-    const accepted = await deliveredTo(fx.users.architect.email, /opening accepted with conditions/);
-    expect(accepted.subject).toContain("clash c-mail1 (member AB, run SA-01)");
+    await proposeClashOutcome({ projectId: fx.projectId, clashId: clash.id, actor: { userId: fx.users.mep_engineer.id, role: "mep_engineer" }, input: { outcome: "opening_proposed", note: "Sleeve near mid-length" } });
+    await decideClash({ projectId: fx.projectId, clashId: clash.id, actor: { userId: fx.users.structural_engineer.id, role: "structural_engineer" }, input: { outcome: "opening_accepted", conditions: "Sleeve 100 mm, stiffened, at mid-length only" } });
+    // Issue 16: a proposal is mailed as a proposal to the structural engineer who decides it; the decision as a
+    // decision to the proposer; nobody else on the team (architect, owner, viewer) is mailed about this clash.
+    const proposed = await deliveredTo(fx.users.structural_engineer.email, /^Proposed on clash c-mail1/);
+    expect(proposed.text).toContain("Sleeve near mid-length");
+    expect(proposed.text).toContain("This is a proposal, not a decision");
+    const accepted = await deliveredTo(fx.users.mep_engineer.email, /^Decided on clash c-mail1/);
+    expect(accepted.subject).toContain("clash c-mail1 (member AB, run SA-01): opening accepted with conditions");
     expect(accepted.text).toContain("Conditions: Sleeve 100 mm, stiffened, at mid-length only");
     expect(accepted.text).toContain("Advisory results for coordination.");
-    expect((await deliveredTo(fx.users.structural_engineer.email, /opening proposed/)).text).toContain("Sleeve near mid-length");
+    for (const bystander of [fx.users.architect, fx.users.owner, fx.users.viewer]) {
+      const theirs = await getDb().select().from(mailOutbox).where(and(eq(mailOutbox.toAddress, bystander.email), like(mailOutbox.subject, "%c-mail1%")));
+      expect(theirs, bystander.email).toEqual([]);
+    }
   });
 });

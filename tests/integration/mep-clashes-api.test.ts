@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { POST as ACCEPT } from "@/app/api/projects/[projectId]/clashes/[clashId]/acceptance/route";
+import { POST as DECIDE } from "@/app/api/projects/[projectId]/clashes/[clashId]/decision/route";
 import { POST as PROPOSE } from "@/app/api/projects/[projectId]/clashes/[clashId]/proposal/route";
 import { GET as GET_CLASH } from "@/app/api/projects/[projectId]/clashes/[clashId]/route";
 import { GET as LIST_CLASHES, POST as DETECT } from "@/app/api/projects/[projectId]/clashes/route";
@@ -92,14 +92,14 @@ describe("clashes", () => {
     expect((await LIST_CLASHES(await buildRequest(listPath()), ctx())).status).toBe(401);
     const body = await list();
     expect(body.caution).toBe(CAUTION);
-    expect(body.abilities).toEqual({ propose: false, acceptOpening: false, editRuns: false, hangServices: false });
+    expect(body.abilities).toEqual({ propose: false, decide: false, assign: false, editRuns: false, hangServices: false });
     expect(body.clashes.map((c: { memberId: string }) => c.memberId).sort()).toEqual(["TCY-0-0", "TCY-1-0", "TCY-2-0", "TCY-3-0"]);
     for (const clash of body.clashes) {
       expect(clash).toMatchObject({ kind: "hard", status: "active", system: "supply air", runId: "SA-01", outcome: null });
       expect(["zero_in_all", "low_force", "load_bearing"]).toContain(clash.forceState);
       expect(["load-bearing", "stabilising", "bracing", "idle"]).toContain(clash.verdict);
     }
-    expect((await list(fx.users.structural_engineer)).abilities).toEqual({ propose: true, acceptOpening: true, editRuns: true, hangServices: true });
+    expect((await list(fx.users.structural_engineer)).abilities).toEqual({ propose: true, decide: true, assign: true, editRuns: true, hangServices: true });
   });
 
   it("a viewer and an architect cannot propose; bad outcomes are a 400", async () => {
@@ -121,7 +121,7 @@ describe("clashes", () => {
     const base = `/api/projects/${fx.projectId}/clashes/${clash.id}`;
 
     // Accepting before anything is proposed is a conflict.
-    const early = await ACCEPT(await buildRequest(`${base}/acceptance`, { method: "POST", body: { conditions: "Sleeve and stiffening ring, see sketch S-12." }, user: fx.users.structural_engineer }), cctx);
+    const early = await DECIDE(await buildRequest(`${base}/decision`, { method: "POST", body: { outcome: "opening_accepted", conditions: "Sleeve and stiffening ring, see sketch S-12." }, user: fx.users.structural_engineer }), cctx);
     expect(early.status).toBe(409);
 
     const proposed = await PROPOSE(await buildRequest(`${base}/proposal`, { method: "POST", body: { outcome: "opening_proposed", note: "Duct cannot drop: ceiling height." }, user: fx.users.mep_engineer }), cctx);
@@ -131,24 +131,24 @@ describe("clashes", () => {
     expect(proposedBody.clash).toMatchObject({ outcome: "opening_proposed", proposedBy: fx.users.mep_engineer.name, decidedBy: null });
 
     for (const role of ["mep_engineer", "viewer", "owner", "architect"] as const) {
-      const refused = await ACCEPT(await buildRequest(`${base}/acceptance`, { method: "POST", body: { conditions: "Sleeve and stiffening ring." }, user: fx.users[role] }), cctx);
+      const refused = await DECIDE(await buildRequest(`${base}/decision`, { method: "POST", body: { outcome: "opening_accepted", conditions: "Sleeve and stiffening ring." }, user: fx.users[role] }), cctx);
       expect(refused.status).toBe(403);
     }
-    const noConditions = await ACCEPT(await buildRequest(`${base}/acceptance`, { method: "POST", body: { conditions: "" }, user: fx.users.structural_engineer }), cctx);
+    const noConditions = await DECIDE(await buildRequest(`${base}/decision`, { method: "POST", body: { outcome: "opening_accepted", conditions: "" }, user: fx.users.structural_engineer }), cctx);
     expect(noConditions.status).toBe(400);
     expect((await noConditions.json()).issues[0].path).toBe("conditions");
 
-    const accepted = await ACCEPT(await buildRequest(`${base}/acceptance`, { method: "POST", body: { conditions: "Sleeve and stiffening ring, see sketch S-12." }, user: fx.users.structural_engineer }), cctx);
+    const accepted = await DECIDE(await buildRequest(`${base}/decision`, { method: "POST", body: { outcome: "opening_accepted", conditions: "Sleeve and stiffening ring, see sketch S-12." }, user: fx.users.structural_engineer }), cctx);
     expect(accepted.status).toBe(200);
     expect((await accepted.json()).clash).toMatchObject({ outcome: "opening_accepted", conditions: "Sleeve and stiffening ring, see sketch S-12.", decidedBy: fx.users.structural_engineer.name, decidedAt: expect.any(String) });
 
     const history = await (await GET_CLASH(await buildRequest(base, { user: fx.users.viewer }), cctx)).json();
-    expect(history.decisions.map((d: { outcome: string; decidedBy: string; caution: string }) => [d.outcome, d.decidedBy, d.caution])).toEqual([
-      ["opening_proposed", fx.users.mep_engineer.name, CAUTION],
-      ["opening_accepted", fx.users.structural_engineer.name, CAUTION],
+    expect(history.history.map((d: { kind: string; outcome: string; decidedBy: string; role: string; revision: number; caution: string }) => [d.kind, d.outcome, d.decidedBy, d.role, d.revision, d.caution])).toEqual([
+      ["proposal", "opening_proposed", fx.users.mep_engineer.name, "mep_engineer", 1, CAUTION],
+      ["decision", "opening_accepted", fx.users.structural_engineer.name, "structural_engineer", 1, CAUTION],
     ]);
     const audits = await getDb().select().from(auditEvents).where(eq(auditEvents.subjectId, clash.id));
-    expect(audits.map((a) => a.action).sort()).toEqual(["clash.acceptOpening", "clash.propose"]);
+    expect(audits.map((a) => a.action).sort()).toEqual(["clash.decide", "clash.propose"]);
   });
 
   it("keeps clash ids and decisions when the run moves a little, and clears clashes when it moves away", async () => {

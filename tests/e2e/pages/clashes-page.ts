@@ -46,13 +46,20 @@ export class ClashesPage {
     return this.page.getByTestId("propose-form");
   }
 
-  acceptForm() {
-    return this.page.getByTestId("accept-form");
+  decideForm() {
+    return this.page.getByTestId("decide-form");
   }
 
   async accept(conditions: string) {
-    await this.page.getByTestId("accept-conditions").fill(conditions);
-    await this.page.getByTestId("accept-submit").click();
+    await this.page.getByTestId("decide-accept").check();
+    await this.page.getByTestId("decide-text").fill(conditions);
+    await this.page.getByTestId("decide-submit").click();
+  }
+
+  async refuse(reason: string) {
+    await this.page.getByTestId("decide-refuse").check();
+    await this.page.getByTestId("decide-text").fill(reason);
+    await this.page.getByTestId("decide-submit").click();
   }
 
   history() {

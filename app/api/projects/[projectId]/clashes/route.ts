@@ -1,4 +1,5 @@
 import { listClashesByRevision } from "@/db/queries/clashes";
+import { listMembersByProject } from "@/db/queries/memberships";
 import { copyRunsToRevision, getMemberStatesForRevision, listRunsByRevision, redetectClashes } from "@/db/queries/mep";
 import { clashListQuerySchema, detectRequestSchema } from "@/lib/clash/outcomes";
 import { clashTableRows } from "@/lib/clash/rows";
@@ -15,18 +16,23 @@ import { STANDING_CAUTION } from "@/lib/review/caution";
  */
 export const GET = projectRoute({ params: projectParamsSchema, query: clashListQuerySchema, action: "project.read" }, async ({ params, query, membership }) => {
   const revision = await requireRevision(params.projectId, query.revision);
-  const [clashes, runs, states] = await Promise.all([
+  const [clashes, runs, states, team] = await Promise.all([
     listClashesByRevision({ revisionId: revision.id }),
     listRunsByRevision({ revisionId: revision.id }),
     getMemberStatesForRevision({ revisionId: revision.id }),
+    listMembersByProject({ projectId: params.projectId }),
   ]);
   const rows = clashTableRows({ clashes, runs, envelope: states.envelope, verdicts: memberVerdicts(states.verdicts), lowForceThreshold: query.lowForce });
   return Response.json({
     revision: { id: revision.id, number: revision.number },
+    userId: membership.userId,
+    role: membership.role,
+    team: team.map((m) => ({ userId: m.userId, name: m.name, role: m.role })),
     clashes: rows,
     abilities: {
       propose: authorize(membership, "clash.propose"),
-      acceptOpening: authorize(membership, "clash.acceptOpening"),
+      decide: authorize(membership, "clash.decide"),
+      assign: authorize(membership, "clash.assign"),
       editRuns: authorize(membership, "runs.edit"),
       hangServices: authorize(membership, "model.edit") && authorize(membership, "analysis.run"),
     },
