@@ -125,6 +125,7 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
   const caseVectors = new Map<string, { u: Float64Array; f: Float64Array }>();
   const loadVectors = model.loadCases.map((c) => loadVectorForCase(model, c.id, structure.topology));
   const displacementVectors = structure.solveMany(loadVectors);
+  structure.release(); // every solve is done: the results below need the memory more than the factor
   for (const [k, loadCase] of model.loadCases.entries()) {
     const f = loadVectors[k];
     const u = displacementVectors[k];

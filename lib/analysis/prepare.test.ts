@@ -35,6 +35,14 @@ describe("prepareStructure (used by the review engine for what-ifs and influence
     });
   });
 
+  it("refuses solves once the factor is released, but still gives member forces", () => {
+    const once = prepareStructure(model);
+    once.release();
+    expect(() => once.solve(f)).toThrow(/released/);
+    expect(() => once.solveMany([f])).toThrow(/released/);
+    expect(once.memberForces(u)).toEqual(s.memberForces(u));
+  });
+
   it("reactions balance the applied loads", () => {
     const r = s.reactions(u, f);
     for (let d = 0; d < 3; d++) {

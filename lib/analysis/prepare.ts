@@ -2,7 +2,7 @@ import { assembleStiffness } from "./assemble";
 import type { TrussModel } from "./model";
 import { symbolicLdl } from "./sparse/ldl";
 import { fillReducingOrder } from "./sparse/ordering";
-import { factorSupernodal, solveSupernodal, solveSupernodalMany, supernodes } from "./sparse/supernodal";
+import { factorSupernodal, solveSupernodal, solveSupernodalMany, supernodes, type SupernodalFactor } from "./sparse/supernodal";
 import { buildTopology, type Topology } from "./topology";
 
 export type Direction = "ux" | "uy" | "uz";
@@ -36,6 +36,11 @@ export type PreparedStructure = {
   reactions(u: Float64Array, f: Float64Array): Float64Array;
   /** Internal nodal forces K u (full 3n), summed member by member from the member forces. */
   internalForces(u: Float64Array): Float64Array;
+  /**
+   * Drops the factor (the largest allocation, ~100 MB on a 120 x 120 grid) once no more solves are needed, so
+   * that building results does not hold it; solves afterwards throw.
+   */
+  release(): void;
   stats: { dofs: number; equations: number; nonzerosK: number; nonzerosL: number };
   /** Milliseconds spent in each step. */
   timings: { assembly: number; ordering: number; factorisation: number };
@@ -62,7 +67,7 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
   const assembled = assembleStiffness(topology, nodeOrder);
   const t3 = now();
   const symbolic = symbolicLdl(assembled.matrix);
-  const factor = factorSupernodal(assembled.matrix, supernodes(assembled.matrix, symbolic), assembled.pivotScale, PIVOT_TOLERANCE);
+  let factor: SupernodalFactor | undefined = factorSupernodal(assembled.matrix, supernodes(assembled.matrix, symbolic), assembled.pivotScale, PIVOT_TOLERANCE);
   const t4 = now();
 
   const { dofOfEquation } = assembled;
@@ -77,6 +82,11 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
   const instability = [...byNode.entries()]
     .sort((a, b) => a[0] - b[0])
     .map(([node, dirs]) => ({ node: topology.nodeIds[node], directions: dirs.sort() }));
+
+  const factored = () => {
+    if (!factor) throw new Error("the factor of this structure was released");
+    return factor;
+  };
 
   const { memberI, memberJ, direction: c, axialStiffness: ks } = topology;
   const m = topology.memberIds.length;
@@ -116,7 +126,7 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
     solve(f) {
       const x = new Float64Array(neq);
       for (let q = 0; q < neq; q++) x[q] = f[dofOfEquation[q]];
-      solveSupernodal(factor, x);
+      solveSupernodal(factored(), x);
       const u = new Float64Array(3 * n);
       for (let q = 0; q < neq; q++) u[dofOfEquation[q]] = x[q];
       return u;
@@ -125,7 +135,7 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
       const count = fs.length;
       const x = new Float64Array(neq * count);
       for (let q = 0; q < neq; q++) for (let c = 0; c < count; c++) x[q * count + c] = fs[c][dofOfEquation[q]];
-      solveSupernodalMany(factor, x, count);
+      solveSupernodalMany(factored(), x, count);
       return fs.map((_, c) => {
         const u = new Float64Array(3 * n);
         for (let q = 0; q < neq; q++) u[dofOfEquation[q]] = x[q * count + c];
@@ -148,6 +158,9 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
       return r;
     },
     internalForces,
+    release() {
+      factor = undefined;
+    },
     stats: { dofs: 3 * n, equations: neq, nonzerosK: assembled.matrix.colPtr[neq], nonzerosL: symbolic.nnzL },
     timings: { assembly: t1 - t0 + (t3 - t2), ordering: t2 - t1, factorisation: t4 - t3 },
   };
