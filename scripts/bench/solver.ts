@@ -1,26 +1,53 @@
 /**
- * Solver benchmark: `npm run bench:solver [-- --sizes 10,20,40,60 --repeat 3]`.
+ * Solver benchmark: `npm run bench:solver [-- --sizes 10,20,40,60,120 --repeat 3]`.
  * Square double-layer grids (N bays: (N+1)^2 top nodes, N^2 bottom nodes at the bay centres, 3 m module,
  * 2 m deep) with the generator's 4 load cases and 4 combinations, analysed as numbered and again with the
  * nodes and members shuffled and renamed: the fill-reducing ordering must make the cost independent of the
  * numbering. Each step is timed in CPU seconds (best of --repeat runs), because on a shared machine wall time
- * mostly measures the other processes; the wall-clock total of the same steps is shown beside it. Peak memory
- * is the process's peak resident set so far.
+ * mostly measures the other processes; the wall-clock total of the same steps is shown beside it. Each grid
+ * runs in its own child process, so its peak resident set is its own.
+ *
+ * Grids wider than the generator's span limit (100 bays of 3 m) are generated at half the module and
+ * stretched to 3 m in plan, with the nodal loads scaled by the 4 x larger tributary areas: the same roof,
+ * by a path only this benchmark uses.
+ *
+ * When libsuitesparse-dev is installed, CHOLMOD factors the same K_ff (cholmod.ts) and its figures are
+ * printed beside ours.
  */
+import { spawnSync } from "node:child_process";
 import { parseArgs } from "node:util";
 import { analyzeModel, generateRoof, loadVectorForCase, PIVOT_TOLERANCE, validateModel, type TrussModel } from "@/lib/analysis";
 import { assembleStiffness } from "@/lib/analysis/assemble";
+import { freeDofsPerNode } from "@/lib/analysis/prepare";
 import { seededRandom } from "@/lib/analysis/test-fixtures";
-import { approximateMinimumDegree } from "@/lib/analysis/sparse/amd";
 import { symbolicLdl } from "@/lib/analysis/sparse/ldl";
+import { fillReducingOrder } from "@/lib/analysis/sparse/ordering";
 import { factorSupernodal, solveSupernodalMany, supernodes } from "@/lib/analysis/sparse/supernodal";
 import { buildTopology } from "@/lib/analysis/topology";
+import { buildCholmodTimer, type CholmodFigures } from "./cholmod";
 
 const { values } = parseArgs({
-  options: { sizes: { type: "string", default: "10,20,40,60" }, repeat: { type: "string", default: "3" } },
+  options: {
+    sizes: { type: "string", default: "10,20,40,60,120" },
+    repeat: { type: "string", default: "3" },
+    grid: { type: "string" }, // internal: measure one grid in this (child) process and print its rows as JSON
+  },
 });
 const sizes = values.sizes.split(",").map(Number);
 const repeat = Math.max(1, Number(values.repeat));
+const SPAN_LIMIT = 300;
+
+/** The N x N bay roof on a 3 m module, past the generator's span limit by the stretched half-module path. */
+function squareGrid(n: number): TrussModel {
+  const name = `${n} x ${n} grid`;
+  if (3 * n <= SPAN_LIMIT) return generateRoof({ name, spanX: 3 * n, spanY: 3 * n, module: 3, depth: 2 });
+  const half = generateRoof({ name, spanX: 1.5 * n, spanY: 1.5 * n, module: 1.5, depth: 2 });
+  return {
+    ...half,
+    nodes: half.nodes.map((node) => ({ ...node, x: 2 * node.x, y: 2 * node.y })),
+    loadCases: half.loadCases.map((c) => ({ ...c, nodalLoads: c.nodalLoads.map((l) => ({ ...l, fx: 4 * l.fx, fy: 4 * l.fy, fz: 4 * l.fz })) })),
+  };
+}
 
 function shuffled<T>(items: T[], random: () => number): T[] {
   const out = items.slice();
@@ -61,6 +88,7 @@ type Row = {
   wallTotal: number;
   analyze: number;
   peakMb: number;
+  cholmod?: CholmodFigures;
 };
 
 /** CPU seconds (user + system) since `from`; on a shared machine this, not wall time, is the work done. */
@@ -70,7 +98,7 @@ const cpuSince = (from: NodeJS.CpuUsage) => {
 };
 
 /** Runs the solver's steps one by one (what prepareStructure and analyzeModel do), timing each in CPU seconds. */
-function measure(label: string, model: TrussModel): Row {
+function measure(label: string, model: TrussModel, cholmod?: ReturnType<typeof buildCholmodTimer>): Row {
   const text = JSON.stringify(model);
   let best: Row | undefined;
   for (let run = 0; run < repeat; run++) {
@@ -86,7 +114,7 @@ function measure(label: string, model: TrussModel): Row {
     const wall0 = performance.now();
     const topology = buildTopology(checked.model);
     const assembly1 = lap();
-    const order = approximateMinimumDegree(topology.nodeIds.length, topology.adjStart, topology.adj);
+    const order = fillReducingOrder(topology.nodeIds.length, topology.adjStart, topology.adj, topology.coords, freeDofsPerNode(topology)).order;
     const ordering = lap();
     const assembled = assembleStiffness(topology, order);
     const assembly2 = lap();
@@ -124,24 +152,58 @@ function measure(label: string, model: TrussModel): Row {
     };
     if (!best || row.cpuTotal < best.cpuTotal) best = row;
   }
+  if (cholmod) {
+    const topology = buildTopology(model);
+    const order = fillReducingOrder(topology.nodeIds.length, topology.adjStart, topology.adj, topology.coords, freeDofsPerNode(topology)).order;
+    best!.cholmod = cholmod(assembleStiffness(topology, order).matrix, model.loadCases.length);
+  }
   return best!;
 }
 
-const rows: Row[] = [];
-measure("warm-up", generateRoof({ spanX: 30, spanY: 30, module: 3, depth: 2 }));
-for (const n of sizes) {
-  const model = generateRoof({ name: `${n} x ${n} grid`, spanX: 3 * n, spanY: 3 * n, module: 3, depth: 2 });
-  rows.push(measure(`${n}x${n}`, model));
-  rows.push(measure(`${n}x${n} shuffled`, shuffle(model, n)));
+if (values.grid) {
+  const n = Number(values.grid);
+  const cholmod = buildCholmodTimer();
+  measure("warm-up", generateRoof({ spanX: 30, spanY: 30, module: 3, depth: 2 }));
+  const model = squareGrid(n);
+  const rows = [measure(`${n}x${n}`, model, cholmod), measure(`${n}x${n} shuffled`, shuffle(model, n), cholmod)];
+  process.stdout.write(`${JSON.stringify(rows)}\n`);
+} else {
+  const rows: Row[] = [];
+  for (const n of sizes) {
+    const child = spawnSync(process.execPath, [...process.execArgv, process.argv[1], "--grid", String(n), "--repeat", String(repeat)], {
+      encoding: "utf8",
+      stdio: ["ignore", "pipe", "inherit"],
+      maxBuffer: 1 << 24,
+    });
+    if (child.status !== 0) throw new Error(`grid ${n}: child process failed`);
+    rows.push(...(JSON.parse(child.stdout) as Row[]));
+  }
+  const s = (v: number) => v.toFixed(3);
+  const withCholmod = rows.some((r) => r.cholmod);
+  const lines = [
+    "| grid | DOFs | equations | nnz K (upper) | nnz L | fill L/K | parse | assembly | ordering | factorisation | 4 solves | assembly+ordering+factor+solves | same, wall clock | full analyzeModel | peak RSS MB |",
+    "| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |",
+    ...rows.map(
+      (r) =>
+        `| ${r.grid} | ${r.dofs} | ${r.equations} | ${r.nnzK} | ${r.nnzL} | ${(r.nnzL / r.nnzK).toFixed(2)} | ${s(r.parse)} | ${s(r.assembly)} | ${s(r.ordering)} | ${s(r.factor)} | ${s(r.solves)} | ${s(r.cpuTotal)} | ${s(r.wallTotal)} | ${s(r.analyze)} | ${r.peakMb.toFixed(0)} |`,
+    ),
+  ];
+  if (withCholmod) {
+    lines.push(
+      "",
+      "Beside CHOLMOD on the same K_ff (best of its AMD, METIS and NESDIS orderings, timed with that ordering only; CPU seconds; ours: ordering + factorisation + solves, without assembly):",
+      "",
+      "| grid | CHOLMOD ordering | CHOLMOD nnz L | ours nnz L | fill ratio ours / CHOLMOD | CHOLMOD analyse + factor + 4 solves | ours | time ratio ours / CHOLMOD |",
+      "| --- | --- | ---: | ---: | ---: | ---: | ---: | ---: |",
+      ...rows
+        .filter((r) => r.cholmod)
+        .map((r) => {
+          const c = r.cholmod!;
+          const theirs = c.analyze + c.factor + c.solve;
+          const ours = r.ordering + r.factor + r.solves;
+          return `| ${r.grid} | ${c.ordering} | ${c.nnzL} | ${r.nnzL} | ${(r.nnzL / c.nnzL).toFixed(2)} | ${s(theirs)} | ${s(ours)} | ${(ours / theirs).toFixed(2)} |`;
+        }),
+    );
+  }
+  process.stdout.write(`Seconds of CPU time (user + system), best of ${repeat} runs, except the wall-clock column.\n${lines.join("\n")}\n`);
 }
-
-const s = (v: number) => v.toFixed(3);
-const lines = [
-  "| grid | DOFs | equations | nnz K (upper) | nnz L | fill L/K | parse | assembly | ordering | factorisation | 4 solves | assembly+ordering+factor+solves | same, wall clock | full analyzeModel | peak RSS MB |",
-  "| --- | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: | ---: |",
-  ...rows.map(
-    (r) =>
-      `| ${r.grid} | ${r.dofs} | ${r.equations} | ${r.nnzK} | ${r.nnzL} | ${(r.nnzL / r.nnzK).toFixed(2)} | ${s(r.parse)} | ${s(r.assembly)} | ${s(r.ordering)} | ${s(r.factor)} | ${s(r.solves)} | ${s(r.cpuTotal)} | ${s(r.wallTotal)} | ${s(r.analyze)} | ${r.peakMb.toFixed(0)} |`,
-  ),
-];
-process.stdout.write(`Seconds of CPU time (user + system), best of ${repeat} runs, except the wall-clock column.\n${lines.join("\n")}\n`);
