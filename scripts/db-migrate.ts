@@ -3,12 +3,14 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { migrate } from "drizzle-orm/node-postgres/migrator";
 import { closeDb, getDb } from "../db/client";
+import { installQueues } from "../lib/jobs/queue";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 
 async function main() {
   await migrate(getDb(), { migrationsFolder: path.join(root, "drizzle") });
-  console.log("[migrate] database schema is up to date");
+  await installQueues(process.env.DATABASE_URL!);
+  console.log("[migrate] database schema and job queues are up to date");
 }
 
 main()

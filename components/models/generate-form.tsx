@@ -62,7 +62,7 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
       </div>
       <FormMessage message={errors.root?.message} />
       <Button type="submit" disabled={save.isPending} data-testid="generate-submit">
-        {save.isPending ? "Generating and analysing…" : "Generate, analyse and save"}
+        {save.isPending ? "Generating…" : "Generate, save and analyse"}
       </Button>
     </form>
   );

@@ -17,13 +17,13 @@ export function ModelsWorkspace({ projectId, canEdit }: { projectId: string; can
         </h2>
         {saved !== null ? (
           <p role="status" className="mb-3 text-sm text-tension" data-testid="revision-saved">
-            Revision {saved} saved and analysed.{" "}
+            Revision {saved} saved; its analysis runs as a job (progress in the list).{" "}
             <Link className="underline" href={`/projects/${projectId}/viewer?revision=${saved}`}>
               Open it in 3D
             </Link>
           </p>
         ) : null}
-        <RevisionList projectId={projectId} />
+        <RevisionList projectId={projectId} canRetry={canEdit} />
       </section>
       {canEdit ? (
         <div className="grid gap-6 lg:grid-cols-2">

@@ -1,14 +1,16 @@
 "use client";
 
-import { useQuery } from "@tanstack/react-query";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import type { RevisionSummary } from "@/db/queries/models";
+import { LiveJob } from "@/components/jobs/job-progress";
 import { apiFetch } from "@/lib/http/fetcher";
 
 export const revisionsKey = (projectId: string) => ["projects", projectId, "models"] as const;
 
-/** The project's revisions, newest first, each opening in the viewer. */
-export function RevisionList({ projectId }: { projectId: string }) {
+/** The project's revisions, newest first, each opening in the viewer; an analysis still running shows its progress. */
+export function RevisionList({ projectId, canRetry }: { projectId: string; canRetry: boolean }) {
+  const queryClient = useQueryClient();
   const query = useQuery({
     queryKey: revisionsKey(projectId),
     queryFn: () => apiFetch<{ revisions: RevisionSummary[] }>(`/api/projects/${projectId}/models`),
@@ -37,7 +39,17 @@ export function RevisionList({ projectId }: { projectId: string }) {
             <td>{r.name}</td>
             <td>{r.source}</td>
             <td className="font-mono">{r.memberCount}</td>
-            <td className={r.analysisStatus === "ok" ? "text-tension" : "text-compression"}>{r.analysisStatus === "ok" ? "analysed" : r.analysisStatus === "unstable" ? "unstable" : "not analysed"}</td>
+            <td className={r.analysisStatus === "ok" ? "text-tension" : "text-compression"} data-testid="revision-analysis">
+              {r.analysisStatus === "ok" ? (
+                "analysed"
+              ) : r.analysisStatus === "unstable" ? (
+                "unstable"
+              ) : r.job ? (
+                <LiveJob projectId={projectId} job={r.job} canRetry={canRetry} onSettled={() => void queryClient.invalidateQueries({ queryKey: revisionsKey(projectId) })} />
+              ) : (
+                "not analysed"
+              )}
+            </td>
             <td className="text-xs">
               {new Date(r.createdAt).toLocaleString()} {r.createdBy ? `by ${r.createdBy}` : ""}
             </td>

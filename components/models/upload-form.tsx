@@ -73,7 +73,7 @@ export function UploadForm({ projectId, onSaved }: { projectId: string; onSaved:
         </ul>
       ) : null}
       <Button type="submit" disabled={upload.isPending || files.length === 0} data-testid="upload-submit">
-        {upload.isPending ? "Checking and analysing…" : "Upload, analyse and save"}
+        {upload.isPending ? "Checking…" : "Upload, save and analyse"}
       </Button>
     </form>
   );

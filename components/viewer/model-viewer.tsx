@@ -6,6 +6,7 @@ import dynamic from "next/dynamic";
 import { useEffect, useMemo, type ReactNode } from "react";
 import type { RevisionWithResults } from "@/db/queries/models";
 import { classifyMembers } from "@/lib/analysis/classify";
+import { LiveJob } from "@/components/jobs/job-progress";
 import { apiFetch } from "@/lib/http/fetcher";
 import { HoverTooltip } from "./hover-tooltip";
 import { InfluenceLayer } from "./layers/influence-layer";
@@ -63,6 +64,14 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
   if (query.isPending) return <div className="h-[75vh]"><CanvasPlaceholder message="Loading the revision and its results…" /></div>;
   if (query.isError) return <p role="alert" className="p-4 text-clash">{query.error.message}</p>;
   if (!prepared || !revision) return null;
+  if (!revision.analysis && revision.job) {
+    return (
+      <div className="flex flex-col gap-2 p-4" data-testid="viewer-analysing">
+        <p className="font-semibold">This revision is being analysed; the roof appears here when the results are stored.</p>
+        <LiveJob projectId={projectId} job={revision.job} canRetry={false} onSettled={() => void query.refetch()} />
+      </div>
+    );
+  }
   if (!analysis || analysis.status !== "ok") {
     return (
       <div className="p-4" role="alert" data-testid="viewer-unstable">

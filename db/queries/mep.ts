@@ -7,7 +7,6 @@ import type { TrussModel } from "@/lib/analysis/model";
 import { ConflictError, NotFoundError, ValidationError, issuesFrom } from "@/lib/http/errors";
 import { runSchema, type Run, type RunEdit } from "@/lib/mep/schemas";
 import { recordAuditEvent } from "./audit";
-import { insertRevisionWithAnalysis, type CreateRevisionInput } from "./models";
 import { syncClashes, type DetectionSummary } from "./clashes";
 
 /** A stored run in the shape of the run schema (plus when it last changed). */
@@ -188,16 +187,4 @@ export async function carryPreviousRunsForward({ projectId, revision, model, act
   const previous = await getRevisionForMep({ projectId, number: revision.number - 1, db });
   if (!previous) return null;
   return carryRunsForward({ projectId, fromRevisionId: previous.id, toRevision: { id: revision.id, model }, actorId, db });
-}
-
-/**
- * Stores a revision derived from another (e.g. with the services hung) with its analysis, copies the runs onto it
- * and detects its clashes, all in one transaction.
- */
-export async function createDerivedRevision({ projectId, fromRevisionId, revision, actorId }: { projectId: string; fromRevisionId: string; revision: Omit<CreateRevisionInput, "projectId" | "createdBy">; actorId: string }): Promise<{ id: string; number: number; detection: DetectionSummary }> {
-  return withTransaction(async (tx) => {
-    const created = await insertRevisionWithAnalysis(tx, { ...revision, projectId, createdBy: actorId });
-    const detection = await carryRunsForward({ projectId, fromRevisionId, toRevision: { id: created.id, model: revision.model }, actorId, db: tx });
-    return { ...created, detection };
-  });
 }

@@ -1,11 +1,12 @@
 import "server-only";
 import { and, asc, desc, eq, max } from "drizzle-orm";
 import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
-import { analysisRuns, attachments, modelRevisions, users, type ModelRevision } from "@/db/schema";
+import { analysisRuns, attachments, modelRevisions, projects, users, type ModelRevision, type Project } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
 import type { StoredReview } from "@/lib/models/analyse";
 import { recordAuditEvent } from "./audit";
+import { latestJobsOfRevisions, type JobView } from "./jobs";
 
 /** A revision as listed (no model body). */
 export type RevisionSummary = {
@@ -17,6 +18,8 @@ export type RevisionSummary = {
   createdBy: string | null;
   memberCount: number;
   analysisStatus: "ok" | "unstable" | null;
+  /** The newest job working on the revision (its analysis), for the progress bar; null for a seeded revision. */
+  job: JobView | null;
   /** The uploaded original file(s) kept in object storage, downloadable through the attachments route. */
   originals: { id: string; filename: string }[];
 };
@@ -37,7 +40,7 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
       source: modelRevisions.source,
       createdAt: modelRevisions.createdAt,
       createdBy: users.name,
-      model: modelRevisions.model,
+      memberCount: modelRevisions.memberCount,
       status: analysisRuns.status,
     })
     .from(modelRevisions)
@@ -50,6 +53,7 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
     .from(attachments)
     .where(and(eq(attachments.projectId, projectId), eq(attachments.purpose, "model"), eq(attachments.state, "ready")))
     .orderBy(asc(attachments.filename));
+  const latestJobs = await latestJobsOfRevisions({ revisionIds: rows.map((row) => row.id), db });
   const seen = new Set<string>();
   return rows
     .filter((row) => !seen.has(row.id) && seen.add(row.id))
@@ -60,10 +64,22 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
       source: row.source,
       createdAt: row.createdAt.toISOString(),
       createdBy: row.createdBy,
-      memberCount: row.model.members.length,
+      memberCount: row.memberCount,
       analysisStatus: row.status,
+      job: latestJobs.get(row.id) ?? null,
       originals: originals.filter((file) => file.revisionId === row.id).map(({ id, filename }) => ({ id, filename })),
     }));
+}
+
+/** What an analysis job needs of a revision: its model and the project's design standard. */
+export async function getRevisionForAnalysis({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ model: TrussModel; standard: Project["designStandard"] } | null> {
+  const [row] = await db
+    .select({ model: modelRevisions.model, standard: projects.designStandard })
+    .from(modelRevisions)
+    .innerJoin(projects, eq(projects.id, modelRevisions.projectId))
+    .where(eq(modelRevisions.id, revisionId))
+    .limit(1);
+  return row ?? null;
 }
 
 /** The number of the newest revision of a project, or null when it has none. */
@@ -88,6 +104,7 @@ export async function getRevisionWithResults({ projectId, number, db = getDb() }
     .orderBy(desc(analysisRuns.createdAt))
     .limit(1);
   const r = revision.revision;
+  const jobs = await latestJobsOfRevisions({ revisionIds: [r.id], db });
   return {
     id: r.id,
     number: r.number,
@@ -95,31 +112,31 @@ export async function getRevisionWithResults({ projectId, number, db = getDb() }
     source: r.source,
     createdAt: r.createdAt.toISOString(),
     createdBy: revision.createdBy,
-    memberCount: r.model.members.length,
+    memberCount: r.memberCount,
+    job: jobs.get(r.id) ?? null,
     model: r.model,
     analysis: run ? { id: run.id, status: run.status, result: run.result, review: run.review, createdAt: run.createdAt.toISOString() } : null,
   };
 }
 
-export type CreateRevisionInput = {
+export type NewRevisionInput = {
   projectId: string;
   name: string;
   model: TrussModel;
   source: ModelRevision["source"];
   createdBy: string | null;
-  result: AnalysisResult;
-  review: StoredReview | null;
 };
 
-/** Inserts the next revision of the project with its analysis run and an audit event, inside the given transaction. */
-export async function insertRevisionWithAnalysis(tx: Executor, input: CreateRevisionInput): Promise<{ id: string; number: number }> {
+export type CreateRevisionInput = NewRevisionInput & { result: AnalysisResult; review: StoredReview | null };
+
+/** Inserts the next revision of the project (no analysis yet) with an audit event, inside the given transaction. */
+export async function insertRevision(tx: Executor, input: NewRevisionInput): Promise<{ id: string; number: number }> {
   const [row] = await tx.select({ latest: max(modelRevisions.number) }).from(modelRevisions).where(eq(modelRevisions.projectId, input.projectId));
   const number = (row?.latest ?? 0) + 1;
   const [revision] = await tx
     .insert(modelRevisions)
-    .values({ projectId: input.projectId, number, name: input.name, model: input.model, source: input.source, createdBy: input.createdBy })
+    .values({ projectId: input.projectId, number, name: input.name, model: input.model, memberCount: input.model.members.length, source: input.source, createdBy: input.createdBy })
     .returning({ id: modelRevisions.id, number: modelRevisions.number });
-  await tx.insert(analysisRuns).values({ revisionId: revision.id, status: input.result.status, result: input.result, review: input.review });
   await recordAuditEvent({
     db: tx,
     projectId: input.projectId,
@@ -127,26 +144,30 @@ export async function insertRevisionWithAnalysis(tx: Executor, input: CreateRevi
     action: "model.revision.create",
     subjectType: "model_revision",
     subjectId: revision.id,
-    details: { number, name: input.name, source: input.source, status: input.result.status },
+    details: { number, name: input.name, source: input.source },
   });
   return revision;
 }
 
+/** Stores an analysis run (results and review) of a revision. */
+export async function insertAnalysisRun(tx: Executor, input: { revisionId: string; result: AnalysisResult; review: StoredReview | null }): Promise<{ id: string }> {
+  const [run] = await tx.insert(analysisRuns).values({ revisionId: input.revisionId, status: input.result.status, result: input.result, review: input.review }).returning({ id: analysisRuns.id });
+  return run;
+}
+
+/** Inserts the next revision of the project with an analysis already computed (the demo seed, tests). */
+export async function insertRevisionWithAnalysis(tx: Executor, input: CreateRevisionInput): Promise<{ id: string; number: number }> {
+  const revision = await insertRevision(tx, input);
+  await insertAnalysisRun(tx, { revisionId: revision.id, result: input.result, review: input.review });
+  return revision;
+}
+
 /**
- * Stores a new revision (next number of the project) with its analysis run and an audit event, in one
- * transaction; `alsoWrite` adds rows that belong to the new revision in the same transaction (the records of its
- * uploaded original files). A concurrent save that takes the same number fails the unique index and is retried once.
+ * Runs `write` (which inserts the next revision of a project) in one transaction. A concurrent save that takes the
+ * same number fails the unique index and is retried once.
  */
-export async function createRevisionWithAnalysis(
-  input: CreateRevisionInput,
-  alsoWrite?: (tx: Transaction, revision: { id: string; number: number }) => Promise<unknown>,
-): Promise<{ id: string; number: number }> {
-  const attempt = () =>
-    withTransaction(async (tx) => {
-      const revision = await insertRevisionWithAnalysis(tx, input);
-      await alsoWrite?.(tx, revision);
-      return revision;
-    });
+export async function withNextRevision<T>(write: (tx: Transaction) => Promise<T>): Promise<T> {
+  const attempt = () => withTransaction(write);
   try {
     return await attempt();
   } catch (error) {
@@ -155,4 +176,9 @@ export async function createRevisionWithAnalysis(
     if ((pgError.cause?.code ?? pgError.code) === "23505") return attempt();
     throw error;
   }
+}
+
+/** Stores a new revision with an analysis already computed, in one transaction (tests). */
+export function createRevisionWithAnalysis(input: CreateRevisionInput): Promise<{ id: string; number: number }> {
+  return withNextRevision((tx) => insertRevisionWithAnalysis(tx, input));
 }

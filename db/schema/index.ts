@@ -5,3 +5,4 @@ export * from "./files";
 export * from "./mail";
 export * from "./models";
 export * from "./mep";
+export * from "./jobs";

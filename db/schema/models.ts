@@ -25,6 +25,8 @@ export const modelRevisions = pgTable(
     /** The validated model; never updated after insert. */
     model: jsonb().$type<TrussModel>().notNull(),
     source: revisionSource().notNull(),
+    /** members.length of the model, so listing revisions never loads a model. */
+    memberCount: integer().notNull().default(0),
     createdBy: uuid().references(() => users.id, { onDelete: "set null" }),
     /** The revision the structural engineer marked current (for review); pages open it by default. */
     isCurrent: boolean().notNull().default(false),

@@ -24,7 +24,12 @@ export type StoredReview = { standard: DesignStandard; caution: string; members:
 /** Analyses a validated model and, when it is stable, reviews every member against the design standard. */
 export function analyseForStorage(model: TrussModel, standard: DesignStandard): { result: AnalysisResult; review: StoredReview | null } {
   const result = analyzeModel(model);
-  if (result.status !== "ok") return { result, review: null };
+  return { result, review: reviewForStorage(model, result, standard) };
+}
+
+/** The member review of an analysed model; null when the model is unstable. */
+export function reviewForStorage(model: TrussModel, result: AnalysisResult, standard: DesignStandard): StoredReview | null {
+  if (result.status !== "ok") return null;
   const verdicts = memberVerdicts(createReviewContext(model, result, { standard }));
   const design = designMembers(model, result, { standard });
   const members: Record<string, StoredMemberReview> = {};
@@ -41,5 +46,5 @@ export function analyseForStorage(model: TrussModel, standard: DesignStandard): 
       warnings: d.warnings,
     };
   });
-  return { result, review: { standard, caution: STANDING_CAUTION, members } };
+  return { standard, caution: STANDING_CAUTION, members };
 }

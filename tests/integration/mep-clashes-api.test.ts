@@ -9,10 +9,11 @@ import { DELETE as DELETE_RUN, PATCH as EDIT_RUN } from "@/app/api/projects/[pro
 import { GET as LIST_RUNS, POST as IMPORT } from "@/app/api/projects/[projectId]/runs/route";
 import { POST as HANG } from "@/app/api/projects/[projectId]/services/route";
 import { createRevisionWithAnalysis } from "@/db/queries/models";
-import { auditEvents, clashDecisions } from "@/db/schema";
+import { auditEvents, clashDecisions, jobs } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
 import { analyseForStorage } from "@/lib/models/analyse";
 import { ROLES } from "@/lib/permissions";
+import { runAnalysisJob } from "@/server/jobs/analysis";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
@@ -206,16 +207,19 @@ describe("hang the services", () => {
     expect((await HANG(await buildRequest(path(), { method: "POST", body: { revision: 1 }, user: fx.users.structural_engineer }), ctx())).status).toBe(400);
   });
 
-  it("creates an analysed revision with the runs' weight, carrying the runs and their clashes over", async () => {
+  it("creates a revision with the runs' weight, carrying the runs and their clashes over, and a job that analyses it", async () => {
     await IMPORT(await buildRequest(`/api/projects/${fx.projectId}/runs`, { method: "POST", body: importBody(), user: fx.users.mep_engineer }), ctx());
     const response = await HANG(await buildRequest(path(), { method: "POST", body: { revision: 1, hangerSpacing: 2.5 }, user: fx.users.structural_engineer }), ctx());
-    expect(response.status).toBe(201);
+    expect(response.status).toBe(202);
     const body = await response.json();
     // The run is 11 m long at 0.35 kN/m: 3.85 kN hung in all (hand arithmetic).
     expect(body.totalLoad).toBeCloseTo(3.85, 9);
-    expect(body.revision).toEqual({ number: 2, status: "ok" });
+    expect(body.revision).toMatchObject({ number: 2 });
     expect(body.detection).toMatchObject({ found: 4 });
-    expect(body.zeroForce).toEqual({ noLongerZero: expect.any(Array), newlyZero: expect.any(Array) });
+    expect(body.job).toMatchObject({ state: "queued", kind: "analysis" });
+    expect(await runAnalysisJob(body.job.id)).toBe("done");
+    const [job] = await getDb().select().from(jobs).where(eq(jobs.id, body.job.id));
+    expect(job.outcome).toEqual({ status: "ok", zeroForce: { noLongerZero: expect.any(Array), newlyZero: expect.any(Array) } });
     const list = await (await LIST_CLASHES(await buildRequest(`/api/projects/${fx.projectId}/clashes?revision=2`, { user: fx.users.viewer }), ctx())).json();
     const first = await (await LIST_CLASHES(await buildRequest(`/api/projects/${fx.projectId}/clashes?revision=1`, { user: fx.users.viewer }), ctx())).json();
     // Same member, run and segment: the same stable clash keys on the new revision, so threads follow.
@@ -246,7 +250,7 @@ describe("a model change through the models route", () => {
     // The same 9 m × 9 m roof as revision 1 (unchanged geometry), sent as generator parameters.
     const body = { kind: "generate", params: { name: "Test roof, reissued", spanX: 9, spanY: 9, module: 3, depth: 2 } };
     const response = await CREATE_REVISION(await buildRequest(`/api/projects/${fx.projectId}/models`, { method: "POST", body, user: fx.users.structural_engineer }), ctx());
-    expect(response.status).toBe(201);
+    expect(response.status).toBe(202);
     const { revision } = await response.json();
     expect(revision.number).toBe(4);
     const runs = await (await LIST_RUNS(await buildRequest(`/api/projects/${fx.projectId}/runs?revision=4`, { user: fx.users.viewer }), ctx())).json();

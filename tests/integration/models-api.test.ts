@@ -6,6 +6,8 @@ import { auditEvents, modelRevisions } from "@/db/schema";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
+import { generateRoof } from "@/lib/analysis/generator";
+import { runAnalysisJob } from "@/server/jobs/analysis";
 
 let fx: ProjectFixture;
 const listPath = () => `/api/projects/${fx.projectId}/models`;
@@ -81,11 +83,13 @@ describe("POST /api/projects/[projectId]/models", () => {
     expect((await bad.json()).issues).toEqual([{ path: "params.spanX", message: expect.stringMatching(/whole number/) }]);
   });
 
-  it("lets the structural engineer generate a roof: stored with its analysis and an audit event", async () => {
+  it("lets the structural engineer generate a roof: stored with an audit event and its analysis queued, then analysed by the job", async () => {
     const response = await createRevision(await buildRequest(listPath(), { method: "POST", body: smallRoof, user: fx.users.structural_engineer }), listCtx());
-    expect(response.status).toBe(201);
-    const { revision } = await response.json();
-    expect(revision).toMatchObject({ number: 1, status: "ok" });
+    expect(response.status).toBe(202);
+    const { revision, job } = await response.json();
+    expect(revision).toMatchObject({ number: 1 });
+    expect(job).toMatchObject({ kind: "analysis", state: "queued", percent: 0 });
+    expect(await runAnalysisJob(job.id)).toBe("done");
     const events = await getDb().select().from(auditEvents).where(eq(auditEvents.projectId, fx.projectId));
     expect(events.map((e) => e.action)).toContain("model.revision.create");
   });
@@ -101,7 +105,9 @@ describe("GET /api/projects/[projectId]/models and /models/[number]", () => {
     const response = await listRevisions(await buildRequest(listPath(), { user: fx.users.viewer }), listCtx());
     expect(response.status).toBe(200);
     const { revisions } = await response.json();
-    expect(revisions).toEqual([expect.objectContaining({ number: 1, name: "Test grid", source: "generated", analysisStatus: "ok" })]);
+    expect(revisions).toEqual([expect.objectContaining({ number: 1, name: "Test grid", source: "generated", analysisStatus: "ok", job: expect.objectContaining({ state: "done", percent: 100 }) })]);
+    // Counted when stored, so the list never loads a model.
+    expect(revisions[0].memberCount).toBe(generateRoof(smallRoof.params).members.length);
   });
 
   it("returns the revision with results for every case and combination, in equilibrium, with cache headers", async () => {
@@ -140,7 +146,7 @@ describe("GET /api/projects/[projectId]/models and /models/[number]", () => {
     const { revision } = await (await getRevision(await buildRequest(`${listPath()}/1`, { user: fx.users.structural_engineer }), revCtx(1))).json();
     const body = { kind: "uploadJson", name: "Re-uploaded", model: revision.model };
     const response = await createRevision(await buildRequest(listPath(), { method: "POST", body, user: fx.users.structural_engineer }), listCtx());
-    expect(response.status).toBe(201);
+    expect(response.status).toBe(202);
     expect((await response.json()).revision).toMatchObject({ number: 2 });
     const { revisions } = await (await listRevisions(await buildRequest(listPath(), { user: fx.users.viewer }), listCtx())).json();
     expect(revisions.map((r: { number: number; source: string }) => [r.number, r.source])).toEqual([

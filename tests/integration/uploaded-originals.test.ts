@@ -68,7 +68,7 @@ describe("model upload originals", () => {
   it("stores the uploaded JSON model with the new revision, readable byte for byte, and lists it for download", async () => {
     const body = { kind: "uploadJson", fileName: "northfield-hall.json", model: roof };
     const response = await createRevision(await buildRequest(modelsPath(), { method: "POST", body, user: fx.users.structural_engineer }), ctx());
-    expect(response.status).toBe(201);
+    expect(response.status).toBe(202);
     const { revision } = await response.json();
     const [saved] = await getDb().select().from(modelRevisions).where(eq(modelRevisions.id, revision.id));
     expect(saved.number).toBe(1);
@@ -96,7 +96,7 @@ describe("model upload originals", () => {
     };
     const body = { kind: "uploadCsv", name: "Triangle", tables };
     const response = await createRevision(await buildRequest(modelsPath(), { method: "POST", body, user: fx.users.structural_engineer }), ctx());
-    expect(response.status).toBe(201);
+    expect(response.status).toBe(202);
     const { revision } = await response.json();
     const files = (await rows("model")).filter((row) => row.revisionId === revision.id);
     expect(files.map((row) => row.filename).sort()).toEqual(Object.keys(tables).sort());
@@ -109,7 +109,7 @@ describe("model upload originals", () => {
   it("stores nothing for a generated roof (no uploaded file)", async () => {
     const body = { kind: "generate", params: { name: "Generated", spanX: 6, spanY: 6, module: 3, depth: 1.5 } };
     const response = await createRevision(await buildRequest(modelsPath(), { method: "POST", body, user: fx.users.structural_engineer }), ctx());
-    expect(response.status).toBe(201);
+    expect(response.status).toBe(202);
     expect(await rows("model")).toHaveLength(6);
   });
 });

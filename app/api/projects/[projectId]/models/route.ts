@@ -1,13 +1,11 @@
-import { createRevisionWithAnalysis, listRevisionsByProject } from "@/db/queries/models";
-import { carryPreviousRunsForward } from "@/db/queries/mep";
-import { getProjectById } from "@/db/queries/projects";
-import { NotFoundError, ValidationError } from "@/lib/http/errors";
+import { listRevisionsByProject } from "@/db/queries/models";
+import { createRevision } from "@/lib/commands/create-revision";
+import { ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { analyseForStorage } from "@/lib/models/analyse";
 import { buildRevision } from "@/lib/models/build-revision";
 import { createRevisionSchema, type CreateRevisionRequest } from "@/lib/models/schemas";
-import { withStoredFiles, type ReceivedFile } from "@/lib/storage/attachments";
+import type { ReceivedFile } from "@/lib/storage/attachments";
 
 const encoder = new TextEncoder();
 
@@ -25,7 +23,8 @@ export const GET = projectRoute({ params: projectParamsSchema, action: "project.
 
 /**
  * Creates a revision from generator parameters or an uploaded JSON / CSV model. Bad input is a 400 listing every
- * problem and nothing is stored; otherwise the analysis and review run now and are stored with the revision.
+ * problem and nothing is stored; otherwise the revision is stored and its analysis and review queued: 202 with the
+ * job, whose progress the browser follows at /jobs/<id>.
  */
 export const POST = projectRoute(
   // Saving a revision also runs its analysis, so both permissions are needed.
@@ -39,21 +38,7 @@ export const POST = projectRoute(
         `The model has ${count} problem${count === 1 ? "" : "s"}; nothing was saved.`,
       );
     }
-    const project = await getProjectById({ projectId });
-    if (!project) throw new NotFoundError();
-    const { result, review } = analyseForStorage(built.model, project.designStandard);
-    // The uploaded original (the JSON model as received, or each CSV table) is stored and recorded with the revision,
-    // and the previous revision's MEP runs come along with their clashes detected on the new model, in the same
-    // transaction (stable clash keys keep threads attached where the same member and segment still clash).
-    const revision = await withStoredFiles({ projectId, userId: user.id, purpose: "model", files: originalFiles(input) }, (record) =>
-      createRevisionWithAnalysis(
-        { projectId, name: built.name, model: built.model, source: built.source, createdBy: user.id, result, review },
-        async (tx, saved) => {
-          await record(tx, { revisionId: saved.id });
-          await carryPreviousRunsForward({ projectId, revision: saved, model: built.model, actorId: user.id, db: tx });
-        },
-      ),
-    );
-    return Response.json({ revision: { ...revision, status: result.status } }, { status: 201 });
+    const { revision, job } = await createRevision({ projectId, userId: user.id, name: built.name, model: built.model, source: built.source, originals: originalFiles(input) });
+    return Response.json({ revision, job }, { status: 202 });
   },
 );

@@ -1,0 +1,78 @@
+"use client";
+// What the browser shows of a queued job: a progress bar with the phase while it runs (polling the job's
+// endpoint once a second), the reason and a retry button when it failed.
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useEffect } from "react";
+import type { JobView } from "@/db/queries/jobs";
+import { Button, FormMessage } from "@/components/ui/form";
+import { apiFetch } from "@/lib/http/fetcher";
+
+const PHASE_LABELS: Record<string, string> = {
+  queued: "Waiting for the job runner",
+  starting: "Starting",
+  analysis: "Solving every load case and combination",
+  review: "Reviewing members (checks, verdicts)",
+  storing: "Storing the results",
+  done: "Analysed",
+  failed: "Failed",
+};
+
+export const jobKey = (projectId: string, jobId: string) => ["projects", projectId, "jobs", jobId] as const;
+const isActive = (job: JobView | undefined) => job?.state === "queued" || job?.state === "running";
+
+/** Follows a job until it is done or failed; `onSettled` runs once when it gets there. */
+export function useJob(projectId: string, initial: JobView, onSettled?: (job: JobView) => void) {
+  const query = useQuery({
+    queryKey: jobKey(projectId, initial.id),
+    queryFn: async () => (await apiFetch<{ job: JobView }>(`/api/projects/${projectId}/jobs/${initial.id}`)).job,
+    initialData: initial,
+    refetchInterval: (q) => (isActive(q.state.data) ? 1000 : false),
+  });
+  const job = query.data;
+  useEffect(() => {
+    if (!isActive(job)) onSettled?.(job);
+    // Only the state change matters; onSettled is a fresh closure each render.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [job.state]);
+  return job;
+}
+
+/** The job's progress bar, or its failure with a retry button for those who may run analyses. */
+export function JobProgress({ projectId, job, canRetry }: { projectId: string; job: JobView; canRetry: boolean }) {
+  const queryClient = useQueryClient();
+  const retry = useMutation({
+    mutationFn: () => apiFetch<{ job: JobView }>(`/api/projects/${projectId}/jobs/${job.id}/retry`, { method: "POST" }),
+    onSuccess: ({ job: queued }) => queryClient.setQueryData(jobKey(projectId, job.id), queued),
+  });
+  const label = PHASE_LABELS[job.phase] ?? job.phase;
+  if (job.state === "failed") {
+    return (
+      <div className="flex flex-col gap-1" data-testid="job-failed">
+        <p role="alert" className="text-sm text-clash">
+          {job.error ?? "The job failed."}
+        </p>
+        {canRetry ? (
+          <Button type="button" variant="quiet" onClick={() => retry.mutate()} disabled={retry.isPending} data-testid="job-retry">
+            {retry.isPending ? "Queuing again…" : "Retry the analysis"}
+          </Button>
+        ) : null}
+        <FormMessage message={retry.error?.message} />
+      </div>
+    );
+  }
+  if (job.state === "done") return <span className="text-tension" data-testid="job-done">{label}</span>;
+  return (
+    <div className="flex min-w-40 flex-col gap-0.5" data-testid="job-progress">
+      <progress className="h-2 w-full accent-tension" max={100} value={job.percent} aria-label={`${label}: ${job.percent} %`} />
+      <span className="text-xs text-board-700" role="status">
+        {label} · {job.percent} %
+      </span>
+    </div>
+  );
+}
+
+/** A job followed live: progress while it runs, then `onSettled` (e.g. refetch what it produced). */
+export function LiveJob({ projectId, job, canRetry, onSettled }: { projectId: string; job: JobView; canRetry: boolean; onSettled?: (job: JobView) => void }) {
+  const current = useJob(projectId, job, onSettled);
+  return <JobProgress projectId={projectId} job={current} canRetry={canRetry} />;
+}

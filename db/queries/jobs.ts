@@ -1,0 +1,84 @@
+import "server-only";
+import { and, desc, eq, inArray, sql } from "drizzle-orm";
+import { getDb, type Executor } from "@/db/client";
+import { jobs, type Job } from "@/db/schema";
+
+/** What the browser sees of a job. */
+export type JobView = Pick<Job, "id" | "kind" | "state" | "phase" | "percent" | "error" | "outcome"> & { revisionId: string; updatedAt: string };
+
+const view = (job: Job): JobView => ({
+  id: job.id,
+  kind: job.kind,
+  revisionId: job.revisionId,
+  state: job.state,
+  phase: job.phase,
+  percent: job.percent,
+  error: job.error,
+  outcome: job.outcome,
+  updatedAt: job.updatedAt.toISOString(),
+});
+
+/** Inserts a queued job row (the caller sends the pg-boss job in the same transaction). */
+export async function insertJob(
+  tx: Executor,
+  values: { projectId: string; kind: Job["kind"]; revisionId: string; input?: Record<string, unknown>; requestedBy: string | null },
+): Promise<JobView> {
+  const [row] = await tx.insert(jobs).values(values).returning();
+  return view(row);
+}
+
+/** One job of the project, or null (a job of another project is null too). */
+export async function getProjectJob({ projectId, jobId, db = getDb() }: { projectId: string; jobId: string; db?: Executor }): Promise<JobView | null> {
+  const [row] = await db.select().from(jobs).where(and(eq(jobs.id, jobId), eq(jobs.projectId, projectId))).limit(1);
+  return row ? view(row) : null;
+}
+
+/** The newest job of each of the given revisions. */
+export async function latestJobsOfRevisions({ revisionIds, db = getDb() }: { revisionIds: string[]; db?: Executor }): Promise<Map<string, JobView>> {
+  if (revisionIds.length === 0) return new Map();
+  const rows = await db.selectDistinctOn([jobs.revisionId]).from(jobs).where(inArray(jobs.revisionId, revisionIds)).orderBy(jobs.revisionId, desc(jobs.createdAt));
+  return new Map(rows.map((row) => [row.revisionId, view(row)]));
+}
+
+/**
+ * Marks a queued (or, after a crash, still running) job as running and returns it; null when it is done, failed or
+ * gone, so a delivery that comes twice does no work twice.
+ */
+export async function claimJob({ jobId, db = getDb() }: { jobId: string; db?: Executor }): Promise<Job | null> {
+  const [row] = await db
+    .update(jobs)
+    .set({ state: "running", phase: "starting", percent: 0, error: null, updatedAt: sql`now()` })
+    .where(and(eq(jobs.id, jobId), inArray(jobs.state, ["queued", "running"])))
+    .returning();
+  return row ?? null;
+}
+
+/** Records how far a running job is. */
+export async function setJobProgress({ jobId, phase, percent, db = getDb() }: { jobId: string; phase: string; percent: number; db?: Executor }): Promise<void> {
+  await db.update(jobs).set({ phase, percent, updatedAt: sql`now()` }).where(and(eq(jobs.id, jobId), eq(jobs.state, "running")));
+}
+
+/** Marks a running job done with its outcome; false when it was not running (then the caller rolls back). */
+export async function finishJob(tx: Executor, { jobId, outcome }: { jobId: string; outcome: Record<string, unknown> | null }): Promise<boolean> {
+  const rows = await tx
+    .update(jobs)
+    .set({ state: "done", phase: "done", percent: 100, outcome, updatedAt: sql`now()` })
+    .where(and(eq(jobs.id, jobId), eq(jobs.state, "running")))
+    .returning({ id: jobs.id });
+  return rows.length === 1;
+}
+
+/** Marks a running job failed with the reason shown to the team. */
+export async function failJob({ jobId, error, db = getDb() }: { jobId: string; error: string; db?: Executor }): Promise<void> {
+  await db.update(jobs).set({ state: "failed", phase: "failed", error, updatedAt: sql`now()` }).where(and(eq(jobs.id, jobId), eq(jobs.state, "running")));
+}
+
+/** Puts a failed job of the project back in the queue; null unless it was failed. */
+export async function requeueFailedJob(tx: Executor, { projectId, jobId }: { projectId: string; jobId: string }): Promise<JobView | null> {
+  const [row] = await tx
+    .update(jobs)
+    .set({ state: "queued", phase: "queued", percent: 0, error: null, updatedAt: sql`now()` })
+    .where(and(eq(jobs.id, jobId), eq(jobs.projectId, projectId), eq(jobs.state, "failed")))
+    .returning();
+  return row ? view(row) : null;
+}

@@ -1,0 +1,32 @@
+import "server-only";
+import { carryPreviousRunsForward } from "@/db/queries/mep";
+import { insertRevision, withNextRevision } from "@/db/queries/models";
+import type { JobView } from "@/db/queries/jobs";
+import type { TrussModel } from "@/lib/analysis/model";
+import { withStoredFiles, type ReceivedFile } from "@/lib/storage/attachments";
+import { enqueueAnalysis } from "./enqueue-analysis";
+
+/**
+ * Stores a validated model as the project's next revision and queues its analysis, in one transaction with: the
+ * records of the uploaded original file(s), the audit event, the previous revision's MEP runs carried forward with
+ * their clashes detected on the new model. The analysis itself runs in the jobs process.
+ */
+export async function createRevision(input: {
+  projectId: string;
+  userId: string;
+  name: string;
+  model: TrussModel;
+  source: "generated" | "uploaded";
+  originals: ReceivedFile[];
+}): Promise<{ revision: { id: string; number: number }; job: JobView }> {
+  const { projectId, userId, model } = input;
+  return withStoredFiles({ projectId, userId, purpose: "model", files: input.originals }, (record) =>
+    withNextRevision(async (tx) => {
+      const revision = await insertRevision(tx, { projectId, name: input.name, model, source: input.source, createdBy: userId });
+      await record(tx, { revisionId: revision.id });
+      await carryPreviousRunsForward({ projectId, revision, model, actorId: userId, db: tx });
+      const job = await enqueueAnalysis(tx, { projectId, revisionId: revision.id, requestedBy: userId });
+      return { revision, job };
+    }),
+  );
+}

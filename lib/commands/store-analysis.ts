@@ -1,0 +1,38 @@
+import "server-only";
+import { TransactionRollbackError } from "drizzle-orm";
+import { withTransaction } from "@/db/client";
+import { recordAuditEvent } from "@/db/queries/audit";
+import { finishJob } from "@/db/queries/jobs";
+import { insertAnalysisRun } from "@/db/queries/models";
+import type { AnalysisResult } from "@/lib/analysis/analyze";
+import type { StoredReview } from "@/lib/models/analyse";
+
+/**
+ * Stores a finished analysis with its job marked done and an audit event, in one transaction. A job that is no
+ * longer running (retried elsewhere, or its project removed) stores nothing.
+ */
+export async function storeAnalysis(input: {
+  job: { id: string; projectId: string; revisionId: string };
+  result: AnalysisResult;
+  review: StoredReview | null;
+  outcome: Record<string, unknown> | null;
+}): Promise<boolean> {
+  const { job } = input;
+  return withTransaction(async (tx) => {
+    const run = await insertAnalysisRun(tx, { revisionId: job.revisionId, result: input.result, review: input.review });
+    if (!(await finishJob(tx, { jobId: job.id, outcome: input.outcome }))) tx.rollback();
+    await recordAuditEvent({
+      db: tx,
+      projectId: job.projectId,
+      actorId: null,
+      action: "analysis.store",
+      subjectType: "model_revision",
+      subjectId: job.revisionId,
+      details: { jobId: job.id, analysisRunId: run.id, status: input.result.status },
+    });
+    return true;
+  }).catch((error: unknown) => {
+    if (error instanceof TransactionRollbackError) return false;
+    throw error;
+  });
+}
