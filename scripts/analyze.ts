@@ -7,7 +7,7 @@ import { readdirSync, readFileSync } from "node:fs";
 import { basename, join } from "node:path";
 import { parseArgs } from "node:util";
 import { analyzeModel, modelFromCsv, validateModel, type ValidationResult } from "@/lib/analysis";
-import { reviewModel, type DesignStandard } from "@/lib/review";
+import { reviewModel, type DesignMethod, type DesignStandard } from "@/lib/review";
 
 // Further flags (e.g. --review) are added to this table; values arrive typed in `args.values`.
 const options = {
@@ -16,6 +16,7 @@ const options = {
   pretty: { type: "boolean", description: "indent the JSON output" },
   review: { type: "boolean", description: "add design checks, member verdicts and why-zero explanations under \"review\"" },
   standard: { type: "string", description: "design standard for --review: EN1993-1-1 (default) or AISC360-22" },
+  method: { type: "string", description: "AISC360-22 design basis for --review: LRFD (default) or ASD" },
   help: { type: "boolean", short: "h", description: "show this help" },
 } as const;
 
@@ -67,6 +68,11 @@ function main(argv: string[]): number {
     process.stderr.write(`--standard must be one of ${standards.join(", ")} (got "${args.values.standard}")\n`);
     return 1;
   }
+  const method = (args.values.method ?? "LRFD") as DesignMethod;
+  if (method !== "LRFD" && method !== "ASD") {
+    process.stderr.write(`--method must be LRFD or ASD (got "${args.values.method}")\n`);
+    return 1;
+  }
   let checked: ValidationResult;
   try {
     checked = readModel(args.positionals[0], args.values.csv);
@@ -79,7 +85,7 @@ function main(argv: string[]): number {
     return 2;
   }
   const result = analyzeModel(checked.model, { lowForceThreshold: threshold });
-  const review = args.values.review && result.status === "ok" ? reviewModel(checked.model, result, { standard, lowForceThreshold: threshold }) : undefined;
+  const review = args.values.review && result.status === "ok" ? reviewModel(checked.model, result, { standard, method, lowForceThreshold: threshold }) : undefined;
   process.stdout.write(`${JSON.stringify(review ? { ...result, review } : result, null, args.values.pretty ? 2 : undefined)}\n`);
   if (result.status === "unstable") {
     for (const line of result.info.instabilityText ?? []) process.stderr.write(`${line}\n`);

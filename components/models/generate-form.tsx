@@ -28,7 +28,7 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
   const queryClient = useQueryClient();
   const form = useForm<RoofInput, unknown, RoofValues>({
     resolver: zodResolver(roofParamsSchema),
-    defaultValues: { name: "Sports hall roof", pattern: "square_on_square_offset", spanX: 48, spanY: 36, module: 3, depth: 1.8, roofing: 0.6, snow: 0.8, windUplift: 0.7, services: 0.25 },
+    defaultValues: { name: "Sports hall roof", pattern: "square_on_square_offset", spanX: 48, spanY: 36, module: 3, depth: 1.8, roofing: 0.6, snow: 0.8, windUplift: 0.7, services: 0.25, fabrication: "hot-finished" },
   });
   const { errors } = form.formState;
   const save = useMutation({
@@ -53,6 +53,15 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
         <select id="roof-pattern" className="rounded-md border border-board-200 bg-white px-3 py-2" {...form.register("pattern")}>
           <option value="square_on_square_offset">Square on square, offset half a module</option>
           <option value="square_on_diagonal">Square on diagonal</option>
+        </select>
+      </div>
+      <div className="flex flex-col gap-1">
+        <label htmlFor="roof-fabrication" className="text-sm font-medium text-board-800">
+          Tubes
+        </label>
+        <select id="roof-fabrication" className="rounded-md border border-board-200 bg-white px-3 py-2" {...form.register("fabrication")}>
+          <option value="hot-finished">Hot finished (EN 10210): buckling curve a</option>
+          <option value="cold-formed">Cold formed (EN 10219, ERW): buckling curve c, AISC wall 0.93·t</option>
         </select>
       </div>
       <div className="grid grid-cols-2 gap-3">

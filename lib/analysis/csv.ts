@@ -1,6 +1,8 @@
 import Papa from "papaparse";
 import {
+  fabrications,
   loadCategories,
+  type Fabrication,
   validateModel,
   type Combination,
   type LoadCase,
@@ -14,10 +16,11 @@ import {
  * CSV tables accepted by `modelFromCsv` (keys case-insensitive, ".csv" optional; first line is the header):
  *   nodes        id,x,y,z                                           (required)
  *   members      id,i,j,section[,effectiveLengthFactor]             (required)
- *   sections     id,material,area,radiusOfGyration,outerDiameter,wallThickness   (required)
+ *   sections     id,material,area,radiusOfGyration,outerDiameter,wallThickness[,fabrication]   (required;
+ *                fabrication hot-finished or cold-formed, cold-formed when absent or empty)
  *   supports     node,ux,uy,uz   (true/false, yes/no, 1/0)          (required)
  *   loads        loadCase,node,fx,fy,fz                              (nodal loads)
- *   materials    id,E,fy,unitWeight          (optional: S355 steel "S355" when absent)
+ *   materials    id,E,fy,unitWeight[,fu]     (optional: S355 steel "S355" when absent; fu from the grade when empty)
  *   loadCases    id,name,category,selfWeight (optional: one "other" case per loadCase named in loads)
  *   combinations id,name,loadCase,factor     (optional: one line per factor)
  */
@@ -106,6 +109,13 @@ export function modelFromCsv(tables: Record<string, string>, options: { name?: s
     return rows.map(make);
   };
 
+  const fabrication = (r: Row): Fabrication => {
+    const raw = r.cells.fabrication;
+    if ((fabrications as readonly string[]).includes(raw)) return raw as Fabrication;
+    problems.push({ where: at("sections", r, r.cells.id), message: `fabrication must be ${fabrications.join(" or ")} (got "${raw}")` });
+    return "cold-formed";
+  };
+
   const model: TrussModel = {
     format: "truss-model/1",
     name: options.name ?? "CSV import",
@@ -115,6 +125,7 @@ export function modelFromCsv(tables: Record<string, string>, options: { name?: s
           E: number("materials", r, "E"),
           fy: number("materials", r, "fy"),
           unitWeight: number("materials", r, "unitWeight"),
+          ...((r.cells.fu ?? "") === "" ? {} : { fu: number("materials", r, "fu") }),
         }))
       : [defaultMaterial],
     sections: record("sections", sectionRows, (r) => r.cells.id, (r) => ({
@@ -124,6 +135,7 @@ export function modelFromCsv(tables: Record<string, string>, options: { name?: s
       radiusOfGyration: number("sections", r, "radiusOfGyration"),
       outerDiameter: number("sections", r, "outerDiameter"),
       wallThickness: number("sections", r, "wallThickness"),
+      ...((r.cells.fabrication ?? "") === "" ? {} : { fabrication: fabrication(r) }),
     })),
     nodes: record("nodes", nodeRows, (r) => r.cells.id, (r) => ({
       id: r.cells.id ?? "",

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { generator, physical, text } from "../limits";
-import type { Combination, LoadCase, TrussMember, TrussModel, TrussNode, TrussSection, TrussSupport } from "./model";
+import { fabrications, type Combination, type Fabrication, type LoadCase, type TrussMember, type TrussModel, type TrussNode, type TrussSection, type TrussSupport } from "./model";
 
 /** Inputs of the double-layer grid roof generator (m, kN/m2); shared by the web form and the server. */
 const pressure = z.number().nonnegative().max(physical.pressure, `Use at most ${physical.pressure} kN/m2.`);
@@ -29,6 +29,8 @@ export const roofParamsSchema = z
     services: pressure.default(0.25),
     /** Which published strength combinations to generate. */
     standard: z.enum(["EN 1990", "ASCE 7-22"]).default("EN 1990"),
+    /** How the tubes are made: hot finished (EN 10210) unless told; cold formed (EN 10219, ERW) lowers the checks. */
+    fabrication: z.enum(fabrications).default("hot-finished"),
   })
   .superRefine((p, ctx) => {
     for (const key of ["spanX", "spanY"] as const) {
@@ -50,12 +52,12 @@ export const roofParamsSchema = z
 
 export type RoofParams = z.input<typeof roofParamsSchema>;
 
-// Steel S355: E 210 GPa (EN 1993-1-1 §3.2.6), fy 355 MPa for t <= 16 mm (EN 10210-1), unit weight 78.5 kN/m3
-// (density 7850 kg/m3). Values as listed in our reference notes; E and 78.5 are common practice.
-const steel = { id: "S355", E: 210e6, fy: 355e3, unitWeight: 78.5 };
+// Steel S355: E 210 GPa (EN 1993-1-1 §3.2.6), fy 355 MPa for t <= 16 mm (EN 10210-1), fu 510 MPa (EN 1993-1-1
+// Table 3.1, from memory), unit weight 78.5 kN/m3 (density 7850 kg/m3). E and 78.5 are common practice.
+const steel = { id: "S355", E: 210e6, fy: 355e3, fu: 510e3, unitWeight: 78.5 };
 
 /**
- * Hot-finished CHS sizes of EN 10210-2. 88.9x4.0, 114.3x5.0, 139.7x5.0 and 168.3x6.3 match the SCI P202
+ * CHS sizes of EN 10210-2 (hot finished; the same sizes exist cold formed in EN 10219-2). 88.9x4.0, 114.3x5.0, 139.7x5.0 and 168.3x6.3 match the SCI P202
  * handbook table; 76.1x3.2 and 193.7x8.0 are standard sizes listed from memory. Properties from the section
  * formulas A = pi t (D - t), i = sqrt(D^2 + d^2) / 4 (standard geometry).
  */
@@ -188,7 +190,9 @@ export function generateRoof(input: RoofParams): TrussModel {
     format: "truss-model/1",
     name: p.name,
     materials: [steel],
-    sections: Object.values(sizes).filter((s, k, all) => usedSections.has(s.id) && all.findIndex((o) => o.id === s.id) === k),
+    sections: Object.values(sizes)
+      .filter((s, k, all) => usedSections.has(s.id) && all.findIndex((o) => o.id === s.id) === k)
+      .map((s): TrussSection => ({ ...s, fabrication: p.fabrication satisfies Fabrication })),
     nodes,
     members,
     supports,

@@ -6,6 +6,10 @@ export {
   trussModelSchema,
   validateModel,
   loadCategories,
+  fabrications,
+  combinationKinds,
+  DEFAULT_FABRICATION,
+  type Fabrication,
   type TrussModel,
   type TrussMaterial,
   type TrussSection,
@@ -20,6 +24,7 @@ export {
   type ValidationResult,
 } from "./model";
 export { modelFromCsv, csvColumns } from "./csv";
+export { steelGrades, ultimateStrength, MIN_FU_OVER_FY, type SteelGrade, type UltimateStrength } from "./grades";
 export {
   analyzeModel,
   zeroForceMask,

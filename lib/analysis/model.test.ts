@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { validateModel, type TrussModel } from "./model";
+import { ultimateStrength } from "./grades";
+import { DEFAULT_FABRICATION, validateModel, type TrussModel } from "./model";
 import { pointLoads, triangleModel } from "./test-fixtures";
 
 const valid = (): TrussModel =>
@@ -30,6 +31,19 @@ describe("validateModel", () => {
     expect(result.ok && result.model.members[0].effectiveLengthFactor).toBe(0.9);
   });
 
+  it("keeps truss-model/1 files without fu or fabrication valid; the stated defaults apply (grade table, cold-formed)", () => {
+    const model = valid();
+    const result = validateModel(model);
+    expect(result.ok && result.model.materials[0].fu).toBeUndefined();
+    expect(result.ok && result.model.sections[0].fabrication).toBeUndefined();
+    expect(DEFAULT_FABRICATION).toBe("cold-formed");
+    // S355: fu 510 MPa, EN 1993-1-1 Table 3.1 (from memory); an unknown grade falls to 1.10·fy (3.2.2(1), from memory)
+    expect(ultimateStrength({ id: "S355", fy: 355e3 }).fu).toBe(510e3);
+    expect(ultimateStrength({ id: "A500 Gr C", fy: 46 * 6894.757 }).fu).toBeCloseTo(62 * 6894.757, 6);
+    expect(ultimateStrength({ id: "own", fy: 300e3 }).fu).toBeCloseTo(330e3, 6);
+    expect(ultimateStrength({ id: "own", fy: 300e3, fu: 420e3 })).toEqual({ fu: 420e3, source: "model material" });
+  });
+
   it.each<[string, (m: TrussModel) => void, RegExp]>([
     ["zero-length member", (m) => (m.nodes[2] = { id: "C", x: 4, y: 0, z: 0 }), /members\[2\] "BC": member "BC" has zero length/],
     ["member joining a node to itself", (m) => (m.members[0].j = "A"), /members\[0\] "AB": .*joins node "A" to itself/],
@@ -37,6 +51,8 @@ describe("validateModel", () => {
     ["duplicate member id", (m) => m.members.push({ id: "AB", i: "A", j: "C", section: "T" }), /members\[3\] "AB": duplicate member id/],
     ["missing id", (m) => (m.nodes[0].id = ""), /nodes\[0\] id: id must not be empty/],
     ["member to a missing node", (m) => (m.members[1].j = "Z"), /members\[1\] "AC": member "AC" ends at a missing node "Z"/],
+    ["fu below fy", (m) => (m.materials[0].fu = 300e3), /materials\[0\] "S": ultimate strength fu must not be below fy/],
+    ["unknown fabrication", (m) => ((m.sections[0] as { fabrication?: string }).fabrication = "welded"), /sections\[0\] "T" fabrication/],
     ["duplicate member between the same nodes", (m) => m.members.push({ id: "BA", i: "B", j: "A", section: "T" }), /members\[3\] "BA": member "BA" duplicates member "AB"/],
     ["load on a missing node", (m) => m.loadCases[0].nodalLoads.push({ node: "Q", fx: 0, fy: 0, fz: 1 }), /loadCases\[0\] "G" nodalLoads\[1\]: .*missing node "Q"/],
     ["non-finite number", (m) => (m.nodes[1].x = Number.POSITIVE_INFINITY), /nodes\[1\] "B" x: .*finite/],

@@ -16,7 +16,20 @@ const id = z
 const num = z.number();
 const name = z.string().max(limitText.name, `names are at most ${limitText.name} characters`).refine(isStorableText, UNSTORABLE_TEXT_MESSAGE);
 
-export const materialSchema = z.object({ id, E: num, fy: num, unitWeight: num });
+/** How a hollow section was made: hot finished (EN 10210) or cold formed (EN 10219, ERW HSS). */
+export const fabrications = ["hot-finished", "cold-formed"] as const;
+export type Fabrication = (typeof fabrications)[number];
+/** Stated default when a section gives none: cold formed, the conservative choice for both standards. */
+export const DEFAULT_FABRICATION: Fabrication = "cold-formed";
+
+export const materialSchema = z.object({
+  id,
+  E: num,
+  fy: num,
+  unitWeight: num,
+  /** Ultimate tensile strength, kPa. Optional: when absent the usual value of the grade is used (grades.ts). */
+  fu: num.optional(),
+});
 export const sectionSchema = z.object({
   id,
   material: id,
@@ -24,6 +37,8 @@ export const sectionSchema = z.object({
   radiusOfGyration: num,
   outerDiameter: num,
   wallThickness: num,
+  /** Optional; cold-formed when absent (DEFAULT_FABRICATION). */
+  fabrication: z.enum(fabrications).optional(),
 });
 export const nodeSchema = z.object({ id, x: num, y: num, z: num });
 export const memberSchema = z.object({
@@ -43,7 +58,15 @@ export const loadCaseSchema = z.object({
   selfWeight: z.boolean(),
   nodalLoads: z.array(nodalLoadSchema),
 });
-export const combinationSchema = z.object({ id, name, factors: z.record(z.string(), num) });
+/** Ultimate combinations are checked for resistance, serviceability ones for deflection only. */
+export const combinationKinds = ["ultimate", "serviceability"] as const;
+export const combinationSchema = z.object({
+  id,
+  name,
+  factors: z.record(z.string(), num),
+  /** Optional; ultimate when absent. */
+  kind: z.enum(combinationKinds).optional(),
+});
 
 /** The truss model format, version 1 (units m, kN, kPa, kN/m3; z up). */
 export const trussModelSchema = z.object({
@@ -69,9 +92,19 @@ const salvageRow = <T extends z.ZodObject>(row: T) => row.catch(row.parse({}));
 const salvageSchema = z.object({
   format: z.literal("truss-model/1").catch("truss-model/1"),
   name: z.string().catch(""),
-  materials: z.array(salvageRow(z.object({ id: anyId, E: z.number().catch(1), fy: anyNum, unitWeight: anyNum }))),
+  materials: z.array(salvageRow(z.object({ id: anyId, E: z.number().catch(1), fy: anyNum, unitWeight: anyNum, fu: z.number().optional().catch(undefined) }))),
   sections: z.array(
-    salvageRow(z.object({ id: anyId, material: anyId, area: z.number().catch(1), radiusOfGyration: anyNum, outerDiameter: anyNum, wallThickness: anyNum })),
+    salvageRow(
+      z.object({
+        id: anyId,
+        material: anyId,
+        area: z.number().catch(1),
+        radiusOfGyration: anyNum,
+        outerDiameter: anyNum,
+        wallThickness: anyNum,
+        fabrication: z.enum(fabrications).optional().catch(undefined),
+      }),
+    ),
   ),
   nodes: z.array(salvageRow(z.object({ id: anyId, x: anyNum, y: anyNum, z: anyNum }))),
   members: z.array(salvageRow(z.object({ id: anyId, i: anyId, j: anyId, section: anyId, effectiveLengthFactor: z.number().optional().catch(undefined) }))),
@@ -87,7 +120,9 @@ const salvageSchema = z.object({
       }),
     ),
   ),
-  combinations: z.array(salvageRow(z.object({ id: anyId, name: z.string().catch(""), factors: z.record(z.string(), anyNum).catch({}) }))),
+  combinations: z.array(
+    salvageRow(z.object({ id: anyId, name: z.string().catch(""), factors: z.record(z.string(), anyNum).catch({}), kind: z.enum(combinationKinds).optional().catch(undefined) })),
+  ),
 });
 
 export type TrussMaterial = z.infer<typeof materialSchema>;
@@ -241,6 +276,7 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
     if (m.E > 0 && outside(m.E, E)) add(locate("materials", k), `modulus E must be from ${E.min} to ${E.max} kPa (got ${m.E})`);
     if (m.fy > 0 && outside(m.fy, fy)) add(locate("materials", k), `yield strength fy must be from ${fy.min} to ${fy.max} kPa (got ${m.fy})`);
     if (m.unitWeight > unitWeight.max) add(locate("materials", k), `unit weight must be at most ${unitWeight.max} kN/m3 (got ${m.unitWeight})`);
+    if (m.fu !== undefined && m.fu < m.fy) add(locate("materials", k), `ultimate strength fu must not be below fy (got fu ${m.fu}, fy ${m.fy})`);
   });
 
   const sections = duplicates(model.sections, "sections", "section", locate, problems);

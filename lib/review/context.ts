@@ -1,14 +1,16 @@
 // The state a review keeps between questions: the model, its analysis, one factored structure, design inputs.
 import { prepareStructure, type AnalysisResult, type PreparedStructure, type TrussModel } from "@/lib/analysis";
 import { resistanceTable, type ResistanceTable } from "./design-checks/member-check";
-import type { ChsFabrication, DesignStandard, MemberDesignInput } from "./design-checks/types";
+import type { ChsFabrication, DesignMethod, DesignStandard, MemberDesignInput } from "./design-checks/types";
 import { designResultIds, governingUtilisations, memberDesignInputs } from "./member-design";
 
 export type ReviewOptions = {
   standard: DesignStandard;
   /** Members under this |N| (kN) are low-force (passed through from the analysis; glossary "low-force"). */
   lowForceThreshold?: number;
-  /** How the tubes were made (EN buckling curve); hot finished unless told. */
+  /** AISC only: LRFD (default) or ASD. */
+  method?: DesignMethod;
+  /** Fabrication of sections that state none; the model format's default (cold-formed) unless told. */
   fabrication?: ChsFabrication;
 };
 
@@ -42,7 +44,7 @@ export function createReviewContext(model: TrussModel, result: AnalysisResult, o
     const d = result.results[loadCase.id].displacements;
     displacements.set(loadCase.id, Float64Array.from(structure.nodeIds.flatMap((id) => [d[id].ux, d[id].uy, d[id].uz])));
   }
-  const inputs = memberDesignInputs(model, options.fabrication);
+  const inputs = memberDesignInputs(model, options);
   const resistances = resistanceTable(options.standard, inputs);
   const designResults = designResultIds(model).filter((id) => forces.has(id));
   return {

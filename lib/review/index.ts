@@ -19,13 +19,10 @@ export { servicesLoadCase, compareServicesLoad, type ServiceRun, type Hanger, ty
 export { chsNetArea, OPENING_NOT_CHECKED, type OpeningSpec, type OpeningAssessment, type OpeningVerdict } from "./opening";
 export { chsProperties, type ChsProperties } from "./design-checks/chs";
 export { checkAxialForce, axialResistance, axialUtilisation } from "./design-checks/member-check";
-export type { AxialCheck, CalcStep, ChsFabrication, DesignStandard, MemberDesignInput } from "./design-checks/types";
+export type { AxialCheck, CalcStep, ChsFabrication, DesignMethod, DesignStandard, MemberDesignInput } from "./design-checks/types";
 
-/**
- * Opening what-if for one member of the model: net-section checks across the design results.
- * `fu` (kPa) adds the net-section rupture check; the model format carries no fu.
- */
-export function openingWhatIf(context: ReviewContext, memberId: string, opening: OpeningSpec, options: { fu?: number } = {}): OpeningAssessment {
+/** Opening what-if for one member of the model: gross yielding and net-section checks across the design results. */
+export function openingWhatIf(context: ReviewContext, memberId: string, opening: OpeningSpec): OpeningAssessment {
   const e = context.memberIndex.get(memberId);
   if (e === undefined) throw new Error(`no member "${memberId}"`);
   const input = context.inputs[e];
@@ -36,6 +33,5 @@ export function openingWhatIf(context: ReviewContext, memberId: string, opening:
     member: { ...input, outerDiameter: input.outerDiameter, wallThickness: input.wallThickness },
     opening,
     forces: context.designResults.map((id, k) => ({ combination: id, force: zero[k].has(memberId) ? 0 : context.forces.get(id)![e] })),
-    fu: options.fu,
   });
 }

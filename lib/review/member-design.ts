@@ -1,9 +1,15 @@
 // Per-member design checks across results: the inputs from the model and the governing check per member.
-import type { AnalysisResult, TrussModel } from "@/lib/analysis";
+import { DEFAULT_FABRICATION, ultimateStrength, type AnalysisResult, type TrussModel } from "@/lib/analysis";
 import { checkAxialForce, resistanceTable, tableResistance, tableUtilisation, type ResistanceTable } from "./design-checks/member-check";
-import type { AxialCheck, ChsFabrication, DesignStandard, MemberDesignInput } from "./design-checks/types";
+import type { AxialCheck, ChsFabrication, DesignMethod, DesignStandard, MemberDesignInput } from "./design-checks/types";
 
-export type DesignOptions = { standard: DesignStandard; fabrication?: ChsFabrication };
+export type DesignOptions = {
+  standard: DesignStandard;
+  /** AISC only: LRFD (default) or ASD. */
+  method?: DesignMethod;
+  /** Fabrication of sections that state none; the model format's default (cold-formed) unless told. */
+  fabrication?: ChsFabrication;
+};
 
 /** One member's check under one result: compact, so whole-model reviews stay small. */
 export type ResultCheck = { result: string; force: number; mode: AxialCheck["mode"]; resistance: number; utilisation: number };
@@ -17,31 +23,38 @@ export type MemberDesign = {
 };
 
 /**
- * The results a design check ranges over: the combinations, or the load cases (unfactored) when the model
- * has no combinations. Every combination is checked, serviceability ones included; the largest governs.
+ * The results a resistance check ranges over: the ultimate combinations, or the load cases (unfactored) when
+ * the model has none. Serviceability combinations are checked for deflection only (deflection.ts).
  */
 export function designResultIds(model: TrussModel): string[] {
-  return model.combinations.length > 0 ? model.combinations.map((c) => c.id) : model.loadCases.map((c) => c.id);
+  const ultimate = model.combinations.filter((c) => (c.kind ?? "ultimate") === "ultimate");
+  return ultimate.length > 0 ? ultimate.map((c) => c.id) : model.combinations.length > 0 ? [] : model.loadCases.map((c) => c.id);
 }
 
 /** Design inputs (model units) per member, in model member order. Length from the node coordinates. */
-export function memberDesignInputs(model: TrussModel, fabrication: ChsFabrication = "hot-finished"): MemberDesignInput[] {
+export function memberDesignInputs(model: TrussModel, options: Omit<DesignOptions, "standard"> = {}): MemberDesignInput[] {
   const nodes = new Map(model.nodes.map((n) => [n.id, n]));
   const materials = new Map(model.materials.map((m) => [m.id, m]));
   const sections = new Map(model.sections.map((s) => [s.id, s]));
+  const strengths = new Map(model.materials.map((m) => [m.id, ultimateStrength(m)]));
   return model.members.map((member) => {
     const a = nodes.get(member.i)!;
     const b = nodes.get(member.j)!;
     const section = sections.get(member.section)!;
     const material = materials.get(section.material)!;
+    const { fu, source } = strengths.get(material.id)!;
     return {
       length: Math.hypot(b.x - a.x, b.y - a.y, b.z - a.z),
       area: section.area,
       radiusOfGyration: section.radiusOfGyration,
       E: material.E,
       fy: material.fy,
+      fu,
+      fuSource: source,
       effectiveLengthFactor: member.effectiveLengthFactor ?? 1,
-      fabrication,
+      fabrication: section.fabrication ?? options.fabrication ?? DEFAULT_FABRICATION,
+      fabricationDefaulted: section.fabrication === undefined,
+      method: options.method,
       outerDiameter: section.outerDiameter > 0 ? section.outerDiameter : undefined,
       wallThickness: section.wallThickness > 0 ? section.wallThickness : undefined,
     };
@@ -50,7 +63,7 @@ export function memberDesignInputs(model: TrussModel, fabrication: ChsFabricatio
 
 /** Checks every member under every design result; keeps the governing check's arithmetic. */
 export function designMembers(model: TrussModel, result: AnalysisResult, options: DesignOptions): MemberDesign[] {
-  const inputs = memberDesignInputs(model, options.fabrication);
+  const inputs = memberDesignInputs(model, options);
   const table = resistanceTable(options.standard, inputs);
   const ids = designResultIds(model).filter((id) => result.results[id]);
   const zero = ids.map((id) => new Set(result.results[id].zeroForceMembers));

@@ -29,6 +29,7 @@ const member = {
   radiusOfGyration: props.radiusOfGyration,
   E: 210e6,
   fy: 355_000,
+  fu: 510_000, // S355, EN 1993-1-1 Table 3.1 (t ≤ 40 mm; from memory)
   effectiveLengthFactor: 1,
   fabrication: "hot-finished" as const,
   outerDiameter: D,
@@ -61,13 +62,15 @@ describe("assessOpening", () => {
     { combination: "C2", force: -150 },
   ];
 
-  it("checks tension and compression on the net area and names what it does not check", () => {
+  it("checks tension as the smaller of gross yielding and net rupture (EN 1993-1-1 6.2.3(2)), compression on the net area", () => {
     const a = assessOpening({ standard: "EN1993-1-1", member, opening: { shape: "round", diameter: 0.05, position: 1.5 }, forces });
     const net = chsNetArea(D, t, 0.05)!;
     expect(a.netArea).toBeCloseTo(net, 12);
     const tension = a.combinations[0];
-    // Net-area yielding: utilisation scales by A/Anet.
-    expect(tension.utilisationWith).toBeCloseTo(tension.utilisationWithout * (props.area / net), 10);
+    // 6.2.3(2): Nt,Rd = min(A·fy/γM0, 0.9·Anet·fu/γM2), γM0 = 1.0, γM2 = 1.25 (recommended values)
+    const expected = Math.min(props.area * 355_000, (0.9 * net * 510_000) / 1.25);
+    expect(tension.check.resistance).toBeCloseTo(expected, 8);
+    expect(tension.check.steps.some((s) => s.label.startsWith("Plastic resistance") && String(s.expression).includes("gross"))).toBe(true);
     expect(a.combinations[1].check.mode).toBe("compression");
     expect(a.combinations[1].utilisationWith).toBeGreaterThan(a.combinations[1].utilisationWithout);
     expect(a.verdict).toBe("within capacity on the checks made");
@@ -75,10 +78,21 @@ describe("assessOpening", () => {
     expect(a.caution).toBe(STANDING_CAUTION);
   });
 
-  it("uses net-section rupture when fu is given and it governs (EN 1993-1-1 6.2.3(2)b)", () => {
-    const a = assessOpening({ standard: "EN1993-1-1", member: { ...member, fy: 460_000 }, opening: { shape: "round", diameter: 0.05, position: 1.5 }, forces, fu: 540_000 });
-    const net = chsNetArea(D, t, 0.05)!;
+  it("S460 CHS 88.9 × 4 with a 30 mm hole: rupture governs, net-area yielding would be 18 % unconservative (EN 1993-1-1 6.2.3(2)b)", () => {
+    // fy 460, fu 540 MPa: S460N, EN 1993-1-1 Table 3.1 (from memory). Closed form: Nu,Rd / (Anet·fy) = 0.9·fu/(1.25·fy) = 0.7235.
+    const small = chsProperties(0.0889, 0.004);
+    const tube = { ...member, area: small.area, radiusOfGyration: small.radiusOfGyration, outerDiameter: 0.0889, wallThickness: 0.004, fy: 460_000, fu: 540_000 };
+    const a = assessOpening({ standard: "EN1993-1-1", member: tube, opening: { shape: "round", diameter: 0.03, position: 1.5 }, forces: [{ combination: "C1", force: 100 }] });
+    const net = chsNetArea(0.0889, 0.004, 0.03)!;
     expect(a.combinations[0].check.resistance).toBeCloseTo((0.9 * net * 540_000) / 1.25, 8);
+    expect((net * 460_000) / a.combinations[0].check.resistance).toBeCloseTo(1.183, 3);
+    expect(a.combinations[0].check.clause).toMatch(/6\.2\.3\(2\)b/);
+  });
+
+  it("AISC D2: yielding on Ag, rupture on Ae = An (U = 1), LRFD φ 0.90 / 0.75", () => {
+    const a = assessOpening({ standard: "AISC360-22", member, opening: { shape: "round", diameter: 0.05, position: 1.5 }, forces });
+    const net = chsNetArea(D, t, 0.05)!;
+    expect(a.combinations[0].check.resistance).toBeCloseTo(Math.min(0.9 * 355_000 * props.area, 0.75 * 510_000 * net), 8);
   });
 
   it("says over capacity when the net section is overloaded", () => {

@@ -69,12 +69,10 @@ type OpeningInput = {
   opening: OpeningSpec;
   /** Axial force per combination (kN, tension positive). */
   forces: { combination: string; force: number }[];
-  /** Ultimate tensile strength, kPa: enables the net-section rupture check. */
-  fu?: number;
 };
 
 /** Checks a member with an opening in it across every given combination and gives a verdict. */
-export function assessOpening({ standard, member, opening, forces, fu }: OpeningInput): OpeningAssessment {
+export function assessOpening({ standard, member, opening, forces }: OpeningInput): OpeningAssessment {
   const D = member.outerDiameter;
   const t = member.wallThickness;
   const across = opening.shape === "round" ? opening.diameter : opening.widthAcross;
@@ -86,7 +84,7 @@ export function assessOpening({ standard, member, opening, forces, fu }: Opening
   const assumptions = [
     "The opening passes through both walls, its axis crossing the tube axis at right angles.",
     "Net area = gross area − the part of the ring inside the strip |y| ≤ w/2 (w = width across); for small w this is ≈ 2·t·w, and slightly more because the cut follows the curved wall.",
-    "Tension: yielding on the net area; rupture on the net area when fu is given (AISC: φt = 0.75, Ae = An with U = 1 away from connections; EN 1993-1-1 6.2.3(2)b: 0.9·Anet·fu/γM2, γM2 = 1.25).",
+    "Tension: yielding of the gross area and rupture of the net area, the smaller governing (EN 1993-1-1 6.2.3(2): Npl,Rd = A·fy/γM0, Nu,Rd = 0.9·Anet·fu/γM2, γM2 = 1.25; AISC 360-22 D2: φt = 0.90 on Ag, 0.75 on Ae = An with U = 1 away from connections).",
     "Compression: member buckling with the gross slenderness, resisted by the net area (conservative for a short opening).",
   ];
   const steps: CalcStep[] = [
@@ -113,15 +111,15 @@ export function assessOpening({ standard, member, opening, forces, fu }: Opening
     { label: "Net area Anet", expression: "A − ring area inside |y| ≤ w/2", value: sig(toMm2(netArea)), unit: "mm²" },
     { label: "Area lost", value: sig((100 * (member.area - netArea)) / member.area, 3), unit: "%" },
   );
-  const netMember = { ...member, area: netArea };
+  // Tension: gross yielding and net rupture (6.2.3(2), D2); compression: the net area resists, gross slenderness.
+  const inTension = { ...member, netArea };
+  const inCompression = { ...member, area: netArea };
   const combinations = forces.map(({ combination, force }) => {
     const gross = checkAxialForce(standard, member, force);
-    let check = checkAxialForce(standard, netMember, force);
-    if (force > 0 && fu !== undefined) check = withRupture(standard, check, netArea, fu, force);
+    const check = checkAxialForce(standard, force > 0 ? inTension : inCompression, force);
     return { combination, force, utilisationWithout: gross.utilisation, utilisationWith: check.utilisation, check };
   });
   const governing = combinations.reduce<OpeningCombinationCheck | null>((g, c) => (g === null || c.utilisationWith > g.utilisationWith ? c : g), null);
-  if (fu === undefined) warnings.push("fu not given: net-section rupture in tension not checked.");
   const over = governing !== null && governing.utilisationWith > 1;
   if (over) reasons.push(`Utilisation with the opening is ${sig(governing.utilisationWith, 3)} under ${governing.combination}.`);
   return {
@@ -134,27 +132,9 @@ export function assessOpening({ standard, member, opening, forces, fu }: Opening
     combinations,
     governing,
     warnings,
-    notChecked: fu === undefined ? [...OPENING_NOT_CHECKED, "net-section rupture (no fu given)"] : OPENING_NOT_CHECKED,
+    notChecked: OPENING_NOT_CHECKED,
     verdict: over ? "over capacity" : "within capacity on the checks made",
     reasons,
     caution: STANDING_CAUTION,
-  };
-}
-
-/** Adds the net-section rupture check and keeps the governing (smaller) tension resistance. */
-function withRupture(standard: DesignStandard, yieldCheck: AxialCheck, netArea: number, fu: number, force: number): AxialCheck {
-  const rupture = standard === "AISC360-22" ? 0.75 * fu * netArea : (0.9 * netArea * fu) / 1.25;
-  const step: CalcStep =
-    standard === "AISC360-22"
-      ? { label: "Net-section rupture φt·Fu·Ae", expression: "0.75·Fu·An (D2(b), U = 1)", value: sig(rupture), unit: "kN" }
-      : { label: "Net-section resistance Nu,Rd", expression: "0.9·Anet·fu/γM2 (6.7), γM2 = 1.25", value: sig(rupture), unit: "kN" };
-  if (rupture >= yieldCheck.resistance) return { ...yieldCheck, steps: [...yieldCheck.steps, step] };
-  const utilisation = Math.abs(force) / rupture;
-  return {
-    ...yieldCheck,
-    resistance: rupture,
-    utilisation,
-    clause: standard === "AISC360-22" ? "AISC 360-22 D2(b) tension rupture" : "EN 1993-1-1 6.2.3(2)b net section",
-    steps: [...yieldCheck.steps, step, { label: "Utilisation (rupture governs)", value: sig(utilisation, 4), unit: "–" }],
   };
 }

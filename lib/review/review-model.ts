@@ -1,5 +1,5 @@
 // The whole-model review: design checks, verdicts, low-force flags and why-zero explanations per member.
-import type { AnalysisResult, TrussModel } from "@/lib/analysis";
+import { DEFAULT_FABRICATION, type AnalysisResult, type TrussModel } from "@/lib/analysis";
 import { STANDING_CAUTION } from "./caution";
 import { createReviewContext, type ReviewContext, type ReviewOptions } from "./context";
 import { EN_COMPRESSION_SLENDERNESS_LIMIT, EN_TENSION_SLENDERNESS_LIMIT } from "./design-checks/en1993";
@@ -17,7 +17,9 @@ export type MemberReview = MemberDesign & {
 
 export type ModelReview = {
   standard: ReviewOptions["standard"];
+  /** Fabrication of sections that state none. */
   fabrication: NonNullable<ReviewOptions["fabrication"]>;
+  method: NonNullable<ReviewOptions["method"]>;
   designResults: string[];
   assumptions: string[];
   members: MemberReview[];
@@ -28,20 +30,26 @@ export type ModelReview = {
 function assumptions(options: ReviewOptions, model: TrussModel): string[] {
   const list = [
     model.combinations.length > 0
-      ? "Every combination is checked (serviceability ones included); the largest utilisation governs."
+      ? "Every ultimate combination is checked for resistance (the largest utilisation governs); serviceability combinations only for deflection."
       : "The model has no combinations: load cases are checked unfactored.",
-    "Axial checks only (pin-jointed truss): tension yielding of the gross section and flexural buckling; connections, joints and net-section rupture are not checked.",
+    "Axial checks only (pin-jointed truss): tension yielding of the gross section (and rupture of the net section where there is a hole or opening; AISC also on Ae = Ag, U = 1) and flexural buckling. Connections and joints (nodes) are not checked.",
+    `fu per material from the model, else the usual value of its grade (product standards), else 1.10·fy; fabrication per section, ${options.fabrication ?? DEFAULT_FABRICATION} where a section states none (the conservative default).`,
     "Buckling length = effective length factor × member length (factor 1.0 unless the member gives one).",
     "E and fy are the model material's values; area and radius of gyration the model section's.",
     "Lost-brace screening doubles the buckling length of a compression member whose end joint lost a member not in line with it.",
   ];
   if (options.standard === "EN1993-1-1") {
     list.push(
-      `Tubes taken as ${options.fabrication ?? "hot-finished"} for the buckling curve (Table 6.2); γM0 = γM1 = 1.0 (recommended values).`,
+      "Buckling curve per section from Table 6.2: hot finished a (a0 for S460), cold formed c; γM0 = γM1 = 1.0, γM2 = 1.25 (recommended values).",
       `Slenderness warnings at λ > ${EN_COMPRESSION_SLENDERNESS_LIMIT} (compression) and > ${EN_TENSION_SLENDERNESS_LIMIT} (tension): common practice, not an EN 1993-1-1 rule.`,
     );
   } else {
-    list.push("LRFD: φt = 0.90 (D2 yielding), φc = 0.90 (E3); slenderness warnings at the D1/E2 user-note limits 300 and 200.");
+    list.push(
+      options.method === "ASD"
+        ? "ASD: Ωt = 1.67 (D2 yielding), 2.00 (D2 rupture), Ωc = 1.67 (E3); the combinations must be ASD ones; slenderness warnings at the D1/E2 user-note limits 300 and 200."
+        : "LRFD: φt = 0.90 (D2 yielding), 0.75 (D2 rupture), φc = 0.90 (E3); slenderness warnings at the D1/E2 user-note limits 300 and 200.",
+      "ERW (cold-formed) tubes use the design wall thickness 0.93·t (B4.2).",
+    );
   }
   return list;
 }
@@ -86,7 +94,8 @@ export function reviewModel(model: TrussModel, result: AnalysisResult, options: 
   }
   return {
     standard: options.standard,
-    fabrication: options.fabrication ?? "hot-finished",
+    fabrication: options.fabrication ?? DEFAULT_FABRICATION,
+    method: options.method ?? "LRFD",
     designResults: context.designResults,
     assumptions: assumptions(options, model),
     members,

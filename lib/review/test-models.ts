@@ -22,7 +22,7 @@ export function prattTruss(): TrussModel {
     name: "Pratt truss, check-values Example 4",
     materials: [{ id: "S355", E: 210e6, fy: 355e3, unitWeight: 78.5 }],
     // CHS 88.9 x 4.0 in model units (check-values §4.2).
-    sections: [{ id: "T1", material: "S355", area: 0.00106688, radiusOfGyration: 0.03005, outerDiameter: 0.0889, wallThickness: 0.004 }],
+    sections: [{ id: "T1", material: "S355", area: 0.00106688, radiusOfGyration: 0.03005, outerDiameter: 0.0889, wallThickness: 0.004, fabrication: "hot-finished" }],
     nodes,
     members: pairs.map(([i, j]) => ({ id: `${i}${j}`, i, j, section: "T1" })),
     supports: nodes.map((n) => ({ node: n.id, ux: n.id === "L0", uy: true, uz: n.id === "L0" || n.id === "L4" })),

@@ -61,6 +61,7 @@ describe("AISC 360-22 member checks in model units", () => {
     radiusOfGyration: r,
     E: 29000 * KSI,
     fy: 50 * KSI,
+    fu: 65 * KSI, // A1085 (from memory); only the rupture check reads it
     effectiveLengthFactor: 1,
     fabrication: "hot-finished",
   };
@@ -77,6 +78,32 @@ describe("AISC 360-22 member checks in model units", () => {
     expect(check.resistance / input.area / KSI).toBeCloseTo(5.648, 2);
     expect(check.warnings).toHaveLength(0); // exactly 200 is within the preferred limit
     expect(aiscCompression({ ...input, effectiveLengthFactor: 2.1 }, -10).warnings[0]).toMatch(/exceeds 200/);
+  });
+
+  it("ASD: Fcr/Ωc with Ωc = 1.67 matches the ASD column of Manual Table 4-22 (Lc/r 10 → 29.7 ksi)", () => {
+    const check = aiscCompression({ ...input, length: 10 * r, method: "ASD" }, -10);
+    expect(check.resistance / input.area / KSI).toBeCloseTo(29.7, 1);
+    expect(check.clause).toContain("ASD");
+  });
+
+  it("ERW (cold-formed) tubes use the design wall 0.93·t (B4.2, from memory): HSS 88.9 × 4.0", () => {
+    // Closed form: t_des = 3.72 mm, A = π·t_des·(D − t_des) = π·3.72·85.18 = 995.5 mm², r = √(D² + (D − 2t_des)²)/4.
+    const tube = { ...input, outerDiameter: 0.0889, wallThickness: 0.004, area: Math.PI * 0.004 * (0.0889 - 0.004), fabrication: "cold-formed" as const };
+    const td = 0.93 * 0.004;
+    const area = Math.PI * td * (0.0889 - td);
+    expect(area * 1e6).toBeCloseTo(995.5, 1);
+    expect(aiscTension(tube, 10).resistance).toBeCloseTo(0.9 * 50 * KSI * area, 9);
+    const rDes = Math.sqrt(0.0889 ** 2 + (0.0889 - 2 * td) ** 2) / 4;
+    const check = aiscCompression(tube, -10);
+    expect(check.resistance).toBeCloseTo(0.9 * aiscCriticalStress(50 * KSI, 29000 * KSI, tube.length / rDes).Fcr * area, 9);
+    expect(check.steps.find((s) => s.label.startsWith("Design wall"))?.value).toBeCloseTo(3.72, 6);
+  });
+
+  it("D2(b) rupture governs when 0.75·Fu < 0.90·Fy (Fu = 55, Fy = 50 ksi: 41.25 < 45 ksi)", () => {
+    const check = aiscTension({ ...input, fu: 55 * KSI }, 10);
+    expect(check.resistance).toBeCloseTo(0.75 * 55 * KSI * input.area, 9);
+    expect(check.clause).toContain("D2(b)");
+    expect(aiscTension({ ...input, fu: 55 * KSI, method: "ASD" }, 10).resistance).toBeCloseTo(Math.min(50 / 1.67, 55 / 2) * KSI * input.area, 9);
   });
 
   it("checks tension yielding as 0.90·Fy·Ag", () => {

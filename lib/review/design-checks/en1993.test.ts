@@ -41,6 +41,7 @@ describe("EN 1993-1-1 member checks in model units", () => {
     radiusOfGyration: Math.sqrt(25170e-8 / area),
     E: 210e6,
     fy: 235_000,
+    fu: 360_000,
     effectiveLengthFactor: 1,
     fabrication: "hot-finished",
   };
@@ -66,5 +67,23 @@ describe("EN 1993-1-1 member checks in model units", () => {
     expect(check.utilisation).toBeCloseTo(100 / (area * 235_000), 12);
     const long = enTension({ ...input, length: 351 * input.radiusOfGyration }, 1);
     expect(long.warnings[0]).toMatch(/350/);
+  });
+
+  it("cold-formed (EN 10219) tubes take curve c, hot-finished curve a: at λ̄ = 1.0, χ 0.5399 against 0.6656 (check-values §3.2), 23 % apart", () => {
+    // λ̄ = 1 when Lcr = π·i·√(E/fy) (6.50 with Ncr = π²EI/Lcr²); S355, E 210 GPa, CHS 88.9 × 4.0 (i = 30.05 mm).
+    const tube = { ...input, area: 0.00106688, radiusOfGyration: 0.03005, fy: 355_000, fu: 510_000 };
+    const length = Math.PI * tube.radiusOfGyration * Math.sqrt(tube.E / tube.fy);
+    const cold = enCompression({ ...tube, length, fabrication: "cold-formed" }, -100);
+    const hot = enCompression({ ...tube, length, fabrication: "hot-finished" }, -100);
+    expect(cold.resistance).toBeCloseTo(0.5399 * tube.area * 355_000, 1);
+    expect(hot.resistance).toBeCloseTo(0.6656 * tube.area * 355_000, 1);
+    expect(hot.resistance / cold.resistance).toBeCloseTo(1.233, 3);
+    expect(cold.steps.find((s) => s.label === "Fabrication")?.value).toBe("cold-formed");
+  });
+
+  it("a member without holes is checked in tension on the gross area only; with a net area also 0.9·Anet·fu/γM2 (6.2.3(2))", () => {
+    expect(enTension(input, 10).steps.some((s) => s.label.startsWith("Net-section"))).toBe(false);
+    const holed = enTension({ ...input, netArea: 0.9 * area }, 10);
+    expect(holed.resistance).toBeCloseTo(Math.min(area * 235_000, (0.9 * 0.9 * area * 360_000) / 1.25), 6);
   });
 });

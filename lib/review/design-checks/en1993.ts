@@ -1,4 +1,5 @@
-// EN 1993-1-1 axial checks for tube truss members: 6.2.3 tension and 6.3.1 flexural buckling.
+// EN 1993-1-1 axial checks for tube truss members: 6.2.3 tension (gross yielding, net-section rupture at holes)
+// and 6.3.1 flexural buckling with the Table 6.2 curve of the section's fabrication.
 import { finish } from "./aisc360";
 import type { AxialCheck, CalcStep, ChsFabrication, MemberDesignInput } from "./types";
 import { sig, toMm, toMm2, toMPa } from "./units";
@@ -6,6 +7,8 @@ import { sig, toMm, toMm2, toMPa } from "./units";
 /** Recommended partial factors (EN 1993-1-1 6.1 NOTE 2B). */
 export const EN_GAMMA_M0 = 1.0;
 export const EN_GAMMA_M1 = 1.0;
+/** γM2 for the net section in tension (6.1 NOTE 2B recommended value, from memory: 1.25). */
+export const EN_GAMMA_M2 = 1.25;
 /**
  * EN 1993-1-1 sets no slenderness limit. Common practice (not a Eurocode rule; the BS 5950-1 4.7.3.2 limits,
  * quoted from memory): λ ≤ 180 for members carrying compression from loads other than wind, 350 for ties.
@@ -32,22 +35,51 @@ export function reductionFactor(lambdaBar: number, curve: BucklingCurve) {
   return { alpha, phi, chi };
 }
 
-/** 6.2.3 tension: Npl,Rd = A·fy/γM0, in kN. */
+function fabricationStep(input: MemberDesignInput): CalcStep {
+  return {
+    label: "Fabrication",
+    expression: input.fabricationDefaulted ? "not stated by the section: model default" : "stated by the section",
+    value: input.fabrication,
+    unit: "–",
+  };
+}
+
+/**
+ * 6.2.3 tension strength (kN): Npl,Rd = A·fy/γM0 on the gross area (6.6); at a hole or opening also
+ * Nu,Rd = 0.9·Anet·fu/γM2 on the net area (6.7), the smaller governing (6.2.3(2)).
+ */
+export function enTensionStrength(input: MemberDesignInput) {
+  const plastic = (input.area * input.fy) / EN_GAMMA_M0;
+  const ultimate = input.netArea === undefined ? Infinity : (0.9 * input.netArea * input.fu) / EN_GAMMA_M2;
+  return { plastic, ultimate, resistance: Math.min(plastic, ultimate), ultimateGoverns: ultimate < plastic };
+}
+
+/** 6.2.3 tension: Nt,Rd = min(Npl,Rd, Nu,Rd), in kN. */
 export function enTension(input: MemberDesignInput, force: number): AxialCheck {
-  const resistance = (input.area * input.fy) / EN_GAMMA_M0;
+  const { plastic, ultimate, resistance, ultimateGoverns } = enTensionStrength(input);
   const slenderness = input.length / input.radiusOfGyration;
   const steps: CalcStep[] = [
-    { label: "Area A", value: sig(toMm2(input.area)), unit: "mm²" },
+    fabricationStep(input),
+    { label: "Gross area A", value: sig(toMm2(input.area)), unit: "mm²" },
     { label: "Yield strength fy", value: sig(toMPa(input.fy)), unit: "MPa" },
     { label: "γM0 (recommended)", value: EN_GAMMA_M0, unit: "–" },
-    { label: "Plastic resistance Npl,Rd", expression: "A·fy/γM0 (6.6)", value: sig(resistance), unit: "kN" },
-    { label: "Slenderness L/i", value: sig(slenderness, 4), unit: "–" },
+    { label: "Plastic resistance Npl,Rd", expression: "A·fy/γM0 (6.6), gross area", value: sig(plastic), unit: "kN" },
   ];
+  if (input.netArea !== undefined) {
+    steps.push(
+      { label: "Net area Anet", value: sig(toMm2(input.netArea)), unit: "mm²" },
+      { label: "Ultimate strength fu", expression: input.fuSource, value: sig(toMPa(input.fu)), unit: "MPa" },
+      { label: "γM2 (recommended)", value: EN_GAMMA_M2, unit: "–" },
+      { label: "Net-section resistance Nu,Rd", expression: "0.9·Anet·fu/γM2 (6.7)", value: sig(ultimate), unit: "kN" },
+      { label: "Tension resistance Nt,Rd", expression: `smaller of Npl,Rd and Nu,Rd (6.2.3(2)): ${ultimateGoverns ? "net section" : "gross yielding"} governs`, value: sig(resistance), unit: "kN" },
+    );
+  }
+  steps.push({ label: "Slenderness L/i", value: sig(slenderness, 4), unit: "–" });
   const warnings: string[] = [];
   if (slenderness > EN_TENSION_SLENDERNESS_LIMIT) {
     warnings.push(`L/i = ${sig(slenderness, 4)} exceeds 350 (common-practice limit for ties; EN 1993-1-1 sets none).`);
   }
-  return finish("tension", force, resistance, "EN 1993-1-1 6.2.3 tension", steps, warnings);
+  return finish("tension", force, resistance, ultimateGoverns ? "EN 1993-1-1 6.2.3(2)b net section" : "EN 1993-1-1 6.2.3(2)a tension yielding", steps, warnings);
 }
 
 /** 6.3.1 compression resistance (kN) under force NEd, and the values behind it. */
@@ -67,6 +99,7 @@ export function enCompressionStrength(input: MemberDesignInput, force: number, c
 export function enCompression(input: MemberDesignInput, force: number, curve = chsBucklingCurve(input.fabrication, input.fy)): AxialCheck {
   const { Lcr, slenderness, Ncr, lambdaBar, alpha, phi, chi, ignoreBuckling, resistance } = enCompressionStrength(input, force, curve);
   const steps: CalcStep[] = [
+    fabricationStep(input),
     { label: "Area A", value: sig(toMm2(input.area)), unit: "mm²" },
     { label: "Yield strength fy", value: sig(toMPa(input.fy)), unit: "MPa" },
     { label: "Modulus E", value: sig(toMPa(input.E)), unit: "MPa" },

@@ -1,5 +1,5 @@
-import { AISC_PHI_T, aiscCompression, aiscCompressionStrength, aiscTension } from "./aisc360";
-import { chsBucklingCurve, EN_GAMMA_M0, enCompression, enCompressionStrength, enTension } from "./en1993";
+import { aiscCompression, aiscCompressionStrength, aiscTension, aiscTensionStrength } from "./aisc360";
+import { chsBucklingCurve, EN_GAMMA_M0, enCompression, enCompressionStrength, enTension, enTensionStrength } from "./en1993";
 import type { AxialCheck, DesignStandard, MemberDesignInput } from "./types";
 
 /** Checks one member under one axial force (tension positive, kN) to the chosen standard. */
@@ -11,7 +11,7 @@ export function checkAxialForce(standard: DesignStandard, input: MemberDesignInp
 
 /** The design resistance (kN) alone, for the sign of `force`: the fast path for whole-model sweeps. */
 export function axialResistance(standard: DesignStandard, input: MemberDesignInput, force: number): number {
-  if (force > 0) return standard === "AISC360-22" ? AISC_PHI_T * input.fy * input.area : (input.area * input.fy) / EN_GAMMA_M0;
+  if (force > 0) return standard === "AISC360-22" ? aiscTensionStrength(input).resistance : enTensionStrength(input).resistance;
   if (standard === "AISC360-22") return aiscCompressionStrength(input).resistance;
   return enCompressionStrength(input, force, chsBucklingCurve(input.fabrication, input.fy)).resistance;
 }
