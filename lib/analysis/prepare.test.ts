@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { generateRoof } from "./generator";
 import { loadVectorForCase } from "./loads";
-import { prepareStructure } from "./prepare";
+import { prepareStructure, SOLVE_BLOCK } from "./prepare";
 
 describe("prepareStructure (used by the review engine for what-ifs and influence maps)", () => {
   const model = generateRoof({ spanX: 12, spanY: 9, module: 3, depth: 1.2 });
@@ -33,6 +33,24 @@ describe("prepareStructure (used by the review engine for what-ifs and influence
       const single = s.solve(v);
       single.forEach((value, q) => expect(many[k][q]).toBeCloseTo(value, 14));
     });
+  });
+
+  it("solveColumns gives the same displacements as one solve per vector, across several blocks", () => {
+    const dofs = 3 * model.nodes.length;
+    const count = 2 * SOLVE_BLOCK + 3; // two full blocks and a short one
+    const fs = new Float64Array(dofs * count);
+    for (let c = 0; c < count; c++) {
+      // unit loads at free dofs in elimination order, and one column of the snow case
+      if (c === 0) fs.set(f, 0);
+      else fs[c * dofs + ((3 * s.eliminationOrder[c % s.eliminationOrder.length] + (c % 3)) % dofs)] = 1;
+    }
+    const xs = s.solveColumns(fs, count);
+    for (const c of [0, 1, SOLVE_BLOCK, count - 1]) {
+      const one = s.solve(fs.slice(c * dofs, (c + 1) * dofs));
+      const scale = Math.max(...one.map(Math.abs));
+      one.forEach((v, q) => expect(Math.abs(xs[c * dofs + q] - v)).toBeLessThanOrEqual(1e-12 * scale));
+    }
+    expect(() => s.solveColumns(fs, count + 1)).toThrow(/expected/);
   });
 
   it("refuses solves once the factor is released, but still gives member forces", () => {

@@ -17,6 +17,12 @@ export const PIVOT_TOLERANCE = 1e-10;
 
 export const directions: readonly Direction[] = ["ux", "uy", "uz"];
 
+/**
+ * Right-hand sides solved together by solveColumns: enough to load each entry of L once for many columns,
+ * few enough that the block of X (equations x 32 doubles, 22 MB on a 120 x 120 grid) stays modest.
+ */
+export const SOLVE_BLOCK = 32;
+
 /** One assembled and factored structure: every load vector is solved against the same factor. */
 export type PreparedStructure = {
   status: "ok" | "unstable";
@@ -28,6 +34,15 @@ export type PreparedStructure = {
   solve(f: Float64Array): Float64Array;
   /** Several load vectors at once (one pass over the factor; use it for influence or what-if batches). */
   solveMany(fs: Float64Array[]): Float64Array[];
+  /**
+   * Many load vectors at once for influence and certificate work: `count` full 3n vectors stored one after
+   * another in `fs` (column c is fs[c * 3n .. (c + 1) * 3n)); returns the displacements in the same layout.
+   * Columns are solved SOLVE_BLOCK at a time through one pass over the factor. Unit loads batched by nearby
+   * `eliminationOrder` positions share most of their forward solve, which then skips untouched supernodes.
+   */
+  solveColumns(fs: Float64Array, count: number): Float64Array;
+  /** Node indices in elimination order (the fill-reducing order the factor uses). */
+  eliminationOrder: Int32Array;
   /** Axial forces N (kN, tension positive) from a full displacement vector. */
   memberForces(u: Float64Array): Float64Array;
   /** b_e (full 3n) with N_e = b_e . u; for adjoint solves K z = b_e (influence of loads on member e). */
@@ -142,6 +157,27 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
         return u;
       });
     },
+    solveColumns(fs, count) {
+      const dofs = 3 * n;
+      if (fs.length !== dofs * count) throw new Error(`solveColumns: expected ${count} vectors of ${dofs} values`);
+      const out = new Float64Array(dofs * count);
+      const block = Math.min(SOLVE_BLOCK, count);
+      const x = new Float64Array(neq * block);
+      for (let first = 0; first < count; first += block) {
+        const width = Math.min(block, count - first);
+        for (let q = 0; q < neq; q++) {
+          const dof = dofOfEquation[q];
+          for (let c = 0; c < width; c++) x[q * width + c] = fs[(first + c) * dofs + dof];
+        }
+        solveSupernodalMany(factored(), x, width);
+        for (let q = 0; q < neq; q++) {
+          const dof = dofOfEquation[q];
+          for (let c = 0; c < width; c++) out[(first + c) * dofs + dof] = x[q * width + c];
+        }
+      }
+      return out;
+    },
+    eliminationOrder: nodeOrder,
     memberForces,
     memberForceVector(e) {
       const b = new Float64Array(3 * n);

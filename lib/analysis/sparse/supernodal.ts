@@ -293,7 +293,10 @@ export function solveSupernodal(fct: SupernodalFactor, x: Float64Array): void {
 
 /**
  * Solves L D L^T X = B in place for several right-hand sides stored interleaved (x[j * count + c] is row j of
- * column c): each entry of L is loaded once for all of them.
+ * column c): each entry of L is loaded once for all of them, and the rows of X a supernode touches are
+ * updated four columns of L at a time, so each is loaded and stored once per four multiply-adds. A
+ * supernode whose rows of X are still all zero in the forward pass is skipped (unit loads: the forward
+ * solve then follows only the elimination-tree paths of the loaded equations).
  */
 export function solveSupernodalMany(fct: SupernodalFactor, x: Float64Array, count: number): void {
   const { superStart, rowStart, rows, valueStart, values, inversePivot } = fct;
@@ -303,29 +306,101 @@ export function solveSupernodalMany(fct: SupernodalFactor, x: Float64Array, coun
     const w = superStart[s + 1] - f;
     const r0 = rowStart[s];
     const m = rowStart[s + 1] - r0;
+    const x0 = valueStart[s];
+    const own = f * count;
+    let zero = true;
+    for (let q = own; q < own + w * count; q++) {
+      if (x[q] !== 0) {
+        zero = false;
+        break;
+      }
+    }
+    if (zero) continue;
+    // Diagonal block: unit lower triangular solve on the supernode's own rows.
     for (let k = 0; k < w; k++) {
-      const base = (f + k) * count;
-      const col = valueStart[s] + k * m;
-      for (let r = k + 1; r < m; r++) {
+      const bk = own + k * count;
+      const col = x0 + k * m;
+      for (let r = k + 1; r < w; r++) {
         const v = values[col + r];
-        const target = rows[r0 + r] * count;
-        for (let c = 0; c < count; c++) x[target + c] -= v * x[base + c];
+        if (v === 0) continue;
+        const br = own + r * count;
+        for (let c = 0; c < count; c++) x[br + c] -= v * x[bk + c];
+      }
+    }
+    // Rows below: x[row] -= L(row, own columns) X(own rows), four columns of L per sweep.
+    for (let r = w; r < m; r++) {
+      const target = rows[r0 + r] * count;
+      let k = 0;
+      for (; k + 3 < w; k += 4) {
+        const o = x0 + k * m + r;
+        const a0 = values[o];
+        const a1 = values[o + m];
+        const a2 = values[o + 2 * m];
+        const a3 = values[o + 3 * m];
+        const b0 = own + k * count;
+        const b1 = b0 + count;
+        const b2 = b1 + count;
+        const b3 = b2 + count;
+        for (let c = 0; c < count; c++) x[target + c] -= a0 * x[b0 + c] + a1 * x[b1 + c] + a2 * x[b2 + c] + a3 * x[b3 + c];
+      }
+      for (; k < w; k++) {
+        const a = values[x0 + k * m + r];
+        const b = own + k * count;
+        for (let c = 0; c < count; c++) x[target + c] -= a * x[b + c];
       }
     }
   }
-  for (let j = 0; j < fct.n; j++) for (let c = 0; c < count; c++) x[j * count + c] *= inversePivot[j];
+  for (let j = 0; j < fct.n; j++) {
+    const d = inversePivot[j];
+    for (let c = 0; c < count; c++) x[j * count + c] *= d;
+  }
   for (let s = ns - 1; s >= 0; s--) {
     const f = superStart[s];
     const w = superStart[s + 1] - f;
     const r0 = rowStart[s];
     const m = rowStart[s + 1] - r0;
-    for (let k = w - 1; k >= 0; k--) {
-      const base = (f + k) * count;
-      const col = valueStart[s] + k * m;
-      for (let r = k + 1; r < m; r++) {
-        const v = values[col + r];
+    const x0 = valueStart[s];
+    const own = f * count;
+    // Own rows -= L(below, own columns)^T x(below rows), four columns of L per sweep.
+    let k = 0;
+    for (; k + 3 < w; k += 4) {
+      const b0 = own + k * count;
+      const b1 = b0 + count;
+      const b2 = b1 + count;
+      const b3 = b2 + count;
+      for (let r = w; r < m; r++) {
+        const o = x0 + k * m + r;
+        const a0 = values[o];
+        const a1 = values[o + m];
+        const a2 = values[o + 2 * m];
+        const a3 = values[o + 3 * m];
         const source = rows[r0 + r] * count;
-        for (let c = 0; c < count; c++) x[base + c] -= v * x[source + c];
+        for (let c = 0; c < count; c++) {
+          const v = x[source + c];
+          x[b0 + c] -= a0 * v;
+          x[b1 + c] -= a1 * v;
+          x[b2 + c] -= a2 * v;
+          x[b3 + c] -= a3 * v;
+        }
+      }
+    }
+    for (; k < w; k++) {
+      const b = own + k * count;
+      for (let r = w; r < m; r++) {
+        const a = values[x0 + k * m + r];
+        const source = rows[r0 + r] * count;
+        for (let c = 0; c < count; c++) x[b + c] -= a * x[source + c];
+      }
+    }
+    // Diagonal block: unit upper triangular solve (L^T) on the own rows.
+    for (let k = w - 1; k >= 0; k--) {
+      const bk = own + k * count;
+      const col = x0 + k * m;
+      for (let r = k + 1; r < w; r++) {
+        const v = values[col + r];
+        if (v === 0) continue;
+        const br = own + r * count;
+        for (let c = 0; c < count; c++) x[bk + c] -= v * x[br + c];
       }
     }
   }
