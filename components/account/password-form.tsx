@@ -23,7 +23,7 @@ export function PasswordForm() {
     try {
       await apiFetch("/api/account/password", { method: "POST", body: values });
       form.reset();
-      setSaved("Your password is changed.");
+      setSaved("Your password is changed. Every other session is signed out.");
     } catch (error) {
       showServerError(form, error);
     }

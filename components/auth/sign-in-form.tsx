@@ -20,7 +20,9 @@ export function SignInForm({ callbackUrl, defaultEmail = "" }: { callbackUrl: st
   async function handleSubmit(values: z.output<typeof signInSchema>) {
     const result = await signIn("credentials", { ...values, redirect: false });
     if (!result || result.error) {
-      const message = result?.error === "CredentialsSignin" ? "E-mail or password is incorrect." : "Signing in failed. Please try again.";
+      const error = result?.error;
+      const message =
+        error === "CredentialsSignin" ? "E-mail or password is incorrect." : error?.startsWith("Too many") ? error : "Signing in failed. Please try again.";
       form.setError("password", { message });
       return;
     }

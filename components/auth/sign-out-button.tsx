@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/form";
 
 export function SignOutButton() {
   return (
-    <Button variant="quiet" onClick={() => signOut({ callbackUrl: "/sign-in" })} data-testid="sign-out">
+    <Button variant="quiet" onClick={() => signOut({ callbackUrl: "/sign-in" })} data-testid="sign-out" title="Signs you out on every device">
       Sign out
     </Button>
   );

@@ -1,5 +1,6 @@
 import "server-only";
-import { eq } from "drizzle-orm";
+import { randomBytes } from "node:crypto";
+import { eq, sql } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
 import { users, type User } from "@/db/schema";
 import { hashPassword, verifyPassword } from "@/lib/auth/password";
@@ -33,11 +34,32 @@ export async function createUser({ email, name, password, db = getDb() }: { emai
   return row;
 }
 
+// A bcrypt hash (same cost) of a random password nobody knows: an unknown e-mail is checked against it, so it costs
+// the same time as a known one and the answer time does not tell which e-mails have accounts.
+let noAccountHash: Promise<string> | undefined;
+
 /** The user when e-mail and password match, otherwise null (the caller cannot tell which was wrong). */
-export async function verifyCredentials({ email, password }: { email: string; password: string }): Promise<PresentedUser | null> {
+export async function verifyCredentials({ email, password }: { email: string; password: string }): Promise<(PresentedUser & { sessionVersion: number }) | null> {
   const user = await getUserByEmail({ email });
-  if (!user) return null;
-  return (await verifyPassword(password, user.passwordHash)) ? presentUser(user) : null;
+  noAccountHash ??= hashPassword(randomBytes(16).toString("hex"));
+  const matches = await verifyPassword(password, user?.passwordHash ?? (await noAccountHash));
+  return user && matches ? { ...presentUser(user), sessionVersion: user.sessionVersion } : null;
+}
+
+/** The user's current session version, or null when the user no longer exists. */
+export async function getSessionVersion({ userId }: { userId: string }): Promise<number | null> {
+  const [row] = await getDb().select({ sessionVersion: users.sessionVersion }).from(users).where(eq(users.id, userId)).limit(1);
+  return row?.sessionVersion ?? null;
+}
+
+/** Raises the user's session version, ending every session issued before; returns the new version. */
+export async function raiseSessionVersion({ userId, db = getDb() }: { userId: string; db?: Executor }): Promise<number | null> {
+  const [row] = await db
+    .update(users)
+    .set({ sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, userId))
+    .returning({ sessionVersion: users.sessionVersion });
+  return row?.sessionVersion ?? null;
 }
 
 /** Renames the user. */
@@ -46,10 +68,17 @@ export async function updateUserName({ userId, name, db = getDb() }: { userId: s
   return row ? presentUser(row) : null;
 }
 
-/** Replaces the password when the current one matches; false when it does not. */
-export async function changePassword({ userId, currentPassword, newPassword }: { userId: string; currentPassword: string; newPassword: string }): Promise<boolean> {
+/**
+ * Replaces the password when the current one matches and raises the session version in the same write (every
+ * session issued before ends); returns the new session version, or null when the current password is wrong.
+ */
+export async function changePassword({ userId, currentPassword, newPassword }: { userId: string; currentPassword: string; newPassword: string }): Promise<number | null> {
   const user = await getUserById({ id: userId });
-  if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) return false;
-  await getDb().update(users).set({ passwordHash: await hashPassword(newPassword) }).where(eq(users.id, userId));
-  return true;
+  if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) return null;
+  const [row] = await getDb()
+    .update(users)
+    .set({ passwordHash: await hashPassword(newPassword), sessionVersion: sql`${users.sessionVersion} + 1` })
+    .where(eq(users.id, userId))
+    .returning({ sessionVersion: users.sessionVersion });
+  return row?.sessionVersion ?? null;
 }

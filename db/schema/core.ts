@@ -1,4 +1,4 @@
-import { index, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { bigint, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, varchar } from "drizzle-orm/pg-core";
 import { ROLES } from "../../lib/permissions";
 
 /** createdAt/updatedAt columns shared by every table. */
@@ -22,7 +22,20 @@ export const users = pgTable("users", {
   email: text().notNull().unique(),
   name: text().notNull(),
   passwordHash: text().notNull(),
+  // Every session carries the version it was issued under; a password change, "sign out everywhere" or signing
+  // out raises it, and older sessions stop working on their next request (lib/auth/session.ts).
+  sessionVersion: integer().notNull().default(0),
   ...timestamps,
+});
+
+/**
+ * rate-limiter-flexible's PostgreSQL store for the sign-in limits (lib/auth/sign-in-limits.ts), in the library's
+ * own layout (RateLimiterPostgres), so the limits hold across every web process.
+ */
+export const signInLimits = pgTable("sign_in_limits", {
+  key: varchar({ length: 255 }).primaryKey(),
+  points: integer().notNull().default(0),
+  expire: bigint({ mode: "number" }),
 });
 
 export const organizations = pgTable("organizations", {

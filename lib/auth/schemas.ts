@@ -1,5 +1,6 @@
 // Input schemas for sign-in, joining and the account: shared by the forms (react-hook-form) and the server.
 import { z } from "zod";
+import { passwordWeakness } from "./password-strength";
 
 export const emailSchema = z
   .string()
@@ -12,7 +13,13 @@ export const emailSchema = z
 export const newPasswordSchema = z
   .string()
   .min(10, "Use at least 10 characters.")
-  .max(200, "Use at most 200 characters.");
+  .max(200, "Use at most 200 characters.")
+  .superRefine((password, context) => {
+    // One problem at a time: a too-short or too-long password has already been told so.
+    if (password.length < 10 || password.length > 200) return;
+    const weakness = passwordWeakness(password);
+    if (weakness) context.addIssue({ code: "custom", message: weakness });
+  });
 
 export const personNameSchema = z.string().trim().min(1, "Enter your name.").max(120, "Use at most 120 characters.");
 

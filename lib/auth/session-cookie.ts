@@ -1,13 +1,17 @@
-// Reading the next-auth session from a request or a raw Cookie header. No database access, no "server-only"
-// marker: the realtime server imports this to authenticate sockets with the same session as the web app.
+// Reading the next-auth session from a request or a raw Cookie header, for route handlers and the realtime server
+// (which authenticates sockets with the same session as the web app). A session issued under an older session
+// version of its user (raised by a password change, "sign out everywhere else" or signing out) is no session.
 import { getToken, type JWT } from "next-auth/jwt";
 import { NextRequest } from "next/server";
+import { getSessionVersion } from "@/db/queries/users";
 
 /** The signed-in person, as every entry point sees them. */
 export type SessionUser = { id: string; email: string; name: string };
 
-function userFrom(token: JWT | null): SessionUser | null {
+async function userFrom(token: JWT | null): Promise<SessionUser | null> {
   if (!token?.userId) return null;
+  // Sessions issued before versions existed carry none: they count as version 0, the column's default.
+  if ((await getSessionVersion({ userId: token.userId })) !== (token.sessionVersion ?? 0)) return null;
   return { id: token.userId, email: token.email ?? "", name: token.name ?? "" };
 }
 

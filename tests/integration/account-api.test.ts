@@ -51,6 +51,6 @@ describe("/api/account", () => {
     const response = await changePassword(await buildRequest("/api/account/password", { method: "POST", body: { currentPassword: FIXTURE_PASSWORD, newPassword: "a-brand-new-password" }, user }), undefined);
     expect(response.status).toBe(200);
     expect(await verifyCredentials({ email: user.email, password: FIXTURE_PASSWORD })).toBeNull();
-    expect(await verifyCredentials({ email: user.email.toUpperCase(), password: "a-brand-new-password" })).toEqual({ id: user.id, email: user.email, name: "Renamed Person" });
+    expect(await verifyCredentials({ email: user.email.toUpperCase(), password: "a-brand-new-password" })).toEqual({ id: user.id, email: user.email, name: "Renamed Person", sessionVersion: 1 });
   });
 });

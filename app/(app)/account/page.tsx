@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { NameForm } from "@/components/account/name-form";
 import { PasswordForm } from "@/components/account/password-form";
+import { SessionsForm } from "@/components/account/sessions-form";
 import { getUserById } from "@/db/queries/users";
 import { requirePageUser } from "@/lib/auth/session";
 import { redirect } from "next/navigation";
@@ -21,6 +22,7 @@ export default async function AccountPage() {
       </div>
       <NameForm name={user.name} />
       <PasswordForm />
+      <SessionsForm />
     </div>
   );
 }
