@@ -26,9 +26,9 @@ export async function getAttachment({ projectId, attachmentId, db = getDb() }: {
   return row ?? null;
 }
 
-/** Marks a pending attachment ready with the type detected from its bytes and its stored size. */
-export async function markAttachmentReady({ id, contentType, sizeBytes }: { id: string; contentType: string; sizeBytes: number }): Promise<Attachment> {
-  const [row] = await getDb().update(attachments).set({ state: "ready", contentType, sizeBytes }).where(eq(attachments.id, id)).returning();
+/** Marks a pending attachment ready with the type detected from its bytes, its size and its final object key. */
+export async function markAttachmentReady({ id, contentType, sizeBytes, objectKey }: { id: string; contentType: string; sizeBytes: number; objectKey: string }): Promise<Attachment> {
+  const [row] = await getDb().update(attachments).set({ state: "ready", contentType, sizeBytes, objectKey }).where(eq(attachments.id, id)).returning();
   return row;
 }
 

@@ -11,7 +11,7 @@ export { getRequestUser, verifySessionCookie, type SessionUser } from "./session
 export async function getSessionUser(): Promise<SessionUser | null> {
   const session = await getServerSession(authOptions);
   const user = session?.user;
-  if (!user?.id || (await getSessionVersion({ userId: user.id })) !== session.sessionVersion) return null;
+  if (!user?.id || (await getSessionVersion({ userId: user.id })) !== session?.sessionVersion) return null;
   return { id: user.id, email: user.email, name: user.name };
 }
 

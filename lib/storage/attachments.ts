@@ -1,7 +1,7 @@
 import "server-only";
-// The life of a stored file. Browser uploads go straight to object storage through a presigned URL and are
-// recorded as pending; confirming reads the stored bytes back, checks them, and only then marks the record ready
-// (or deletes both object and record). Server-side uploads check the bytes first, store them, and write the record
+// The life of a stored file. Browser uploads go straight to object storage through a presigned URL (to a staging
+// key) and are recorded as pending; confirming reads the stored bytes back, checks them, writes those bytes to the
+// final key and only then marks the record ready (or deletes both object and record). Server-side uploads check the bytes first, store them, and write the record
 // last. Pending records nobody confirmed are swept by the jobs process. So no ready record ever points at missing
 // or unchecked bytes, and a failed upload leaves nothing behind.
 import { randomUUID } from "node:crypto";
@@ -16,7 +16,7 @@ import { withTransaction, type Executor } from "../../db/client";
 import type { Attachment } from "../../db/schema";
 import { HttpError, NotFoundError, ValidationError } from "../http/errors";
 import { checkContent, checkSize, HEAD_BYTES, needsWholeFile, type ContentVerdict, type FilePurpose } from "./content-check";
-import { deleteObject, getObject, getObjectHead, objectSize, PRESIGN_SECONDS, presignDownload, presignUpload, putObject } from "./s3";
+import { deleteObject, getObject, objectSize, PRESIGN_SECONDS, presignDownload, presignUpload, putObject } from "./s3";
 
 /** An upload that is refused; 413 when too large, 400 otherwise, with the reason beside the "file" field. */
 export class FileRefusedError extends HttpError {
@@ -35,6 +35,14 @@ function objectKey(projectId: string, purpose: FilePurpose, id: string): string 
   return `projects/${projectId}/${purpose}/${id}`;
 }
 
+/**
+ * Where a browser uploads through its presigned URL. The URL stays valid for a while after confirming, so the
+ * checked bytes are written elsewhere (objectKey), to a key no URL is ever signed for.
+ */
+function stagingKey(projectId: string, purpose: FilePurpose, id: string): string {
+  return `staging/${objectKey(projectId, purpose, id)}`;
+}
+
 /** Records a pending upload and hands out a presigned PUT URL; a declared size over the limit is refused at once. */
 export async function requestUpload(input: {
   projectId: string;
@@ -48,7 +56,7 @@ export async function requestUpload(input: {
   const refusal = checkSize(input.purpose, input.sizeBytes);
   if (refusal && !refusal.ok) throw new FileRefusedError(refusal);
   const id = randomUUID();
-  const key = objectKey(input.projectId, input.purpose, id);
+  const key = stagingKey(input.projectId, input.purpose, id);
   await insertAttachment({
     values: {
       id,
@@ -73,29 +81,37 @@ async function removeEverywhere(attachment: Attachment): Promise<void> {
 }
 
 /**
- * Checks what was uploaded for a pending attachment (stored size, then the bytes), and marks it ready. A refused
- * file is deleted from storage and its record removed. Only the uploader may confirm; confirming twice is harmless.
+ * Checks what was uploaded for a pending attachment (stored size, then the bytes), copies exactly the bytes it
+ * checked from the staging key to the final key, and marks it ready. The bytes are read once and those bytes are
+ * both checked and stored, so a write through the upload URL meanwhile changes nothing. A refused file is deleted
+ * from storage and its record removed. Only the uploader may confirm; confirming twice is harmless.
  */
 export async function confirmUpload({ projectId, attachmentId, userId }: { projectId: string; attachmentId: string; userId: string }): Promise<Attachment> {
   const attachment = await getAttachment({ projectId, attachmentId });
   if (!attachment || attachment.uploadedBy !== userId) throw new NotFoundError("No such upload.");
   if (attachment.state === "ready") return attachment;
-  const size = await objectSize(attachment.objectKey);
-  if (size === null) {
+  const declared = await objectSize(attachment.objectKey);
+  if (declared === null) {
     throw new ValidationError([{ path: "file", message: "Nothing has been uploaded for this file yet." }], "Nothing has been uploaded for this file yet.");
   }
+  // The stored size first, so an oversized file is refused without reading it; then the size of what was read.
+  const bytes = checkSize(attachment.purpose, declared)?.ok === false ? null : await getObject(attachment.objectKey);
+  const size = bytes?.byteLength ?? declared;
   const sizeRefusal = checkSize(attachment.purpose, size);
   if (sizeRefusal && !sizeRefusal.ok) {
     await removeEverywhere(attachment);
     throw new FileRefusedError(sizeRefusal);
   }
-  const bytes = needsWholeFile(attachment.purpose) ? await getObject(attachment.objectKey) : await getObjectHead(attachment.objectKey, HEAD_BYTES);
-  const verdict = await checkContent(attachment.purpose, bytes ?? new Uint8Array(), size);
+  const checked = bytes ?? new Uint8Array();
+  const verdict = await checkContent(attachment.purpose, needsWholeFile(attachment.purpose) ? checked : checked.subarray(0, HEAD_BYTES), size);
   if (!verdict.ok) {
     await removeEverywhere(attachment);
     throw new FileRefusedError(verdict);
   }
-  return markAttachmentReady({ id: attachment.id, contentType: verdict.contentType, sizeBytes: size });
+  const finalKey = objectKey(projectId, attachment.purpose, attachment.id);
+  await putObject(finalKey, checked, verdict.contentType);
+  await deleteObject(attachment.objectKey);
+  return markAttachmentReady({ id: attachment.id, contentType: verdict.contentType, sizeBytes: size, objectKey: finalKey });
 }
 
 /** A file the server received itself, before it is stored. */

@@ -59,17 +59,6 @@ export async function getObject(key: string): Promise<Uint8Array | null> {
   }
 }
 
-/** The first `length` bytes of an object (fewer when it is shorter), or null when there is none. */
-export async function getObjectHead(key: string, length: number): Promise<Uint8Array | null> {
-  try {
-    const result = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key, Range: `bytes=0-${length - 1}` }));
-    return result.Body ? await result.Body.transformToByteArray() : new Uint8Array();
-  } catch (error) {
-    if (error instanceof NoSuchKey || error instanceof NotFound) return null;
-    throw error;
-  }
-}
-
 /** The stored size of an object in bytes, or null when there is none. */
 export async function objectSize(key: string): Promise<number | null> {
   try {
