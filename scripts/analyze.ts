@@ -16,6 +16,7 @@ const options = {
   pretty: { type: "boolean", description: "indent the JSON output" },
   review: { type: "boolean", description: "add design checks, member verdicts and why-zero explanations under \"review\"" },
   standard: { type: "string", description: "design standard for --review: EN1993-1-1 (default) or AISC360-22" },
+  "deflection-limit": { type: "string", description: "serviceability deflection limit for --review: span / VALUE (default 250)" },
   method: { type: "string", description: "AISC360-22 design basis for --review: LRFD (default) or ASD" },
   help: { type: "boolean", short: "h", description: "show this help" },
 } as const;
@@ -73,6 +74,11 @@ function main(argv: string[]): number {
     process.stderr.write(`--method must be LRFD or ASD (got "${args.values.method}")\n`);
     return 1;
   }
+  const deflectionLimit = args.values["deflection-limit"] === undefined ? undefined : Number(args.values["deflection-limit"]);
+  if (deflectionLimit !== undefined && !(deflectionLimit > 0)) {
+    process.stderr.write(`--deflection-limit must be a positive number (got "${args.values["deflection-limit"]}")\n`);
+    return 1;
+  }
   let checked: ValidationResult;
   try {
     checked = readModel(args.positionals[0], args.values.csv);
@@ -85,7 +91,7 @@ function main(argv: string[]): number {
     return 2;
   }
   const result = analyzeModel(checked.model, { lowForceThreshold: threshold });
-  const review = args.values.review && result.status === "ok" ? reviewModel(checked.model, result, { standard, method, lowForceThreshold: threshold }) : undefined;
+  const review = args.values.review && result.status === "ok" ? reviewModel(checked.model, result, { standard, method, deflectionLimit, lowForceThreshold: threshold }) : undefined;
   process.stdout.write(`${JSON.stringify(review ? { ...result, review } : result, null, args.values.pretty ? 2 : undefined)}\n`);
   if (result.status === "unstable") {
     for (const line of result.info.instabilityText ?? []) process.stderr.write(`${line}\n`);

@@ -16,8 +16,13 @@ export type EnvelopeEntry = { maxTension: number; maxCompression: number; zeroIn
 export type AnalysisInfo = {
   /** Maxwell count m + r against 3j: information only, the factorisation decides stability. */
   countCheck: { members: number; reactionComponents: number; joints: number; difference: number; reading: string };
-  /** What the envelope and zeroInAll range over: combinations, or load cases when the model has none. */
+  /**
+   * What the envelope's largest tension and compression range over: combinations, or load cases when the model
+   * has none. zeroInAll always ranges over every load case and every combination.
+   */
   envelopeOver: "combinations" | "loadCases";
+  /** Load cases that appear in no combination (only when the model has combinations): not in the envelope. */
+  loadCasesInNoCombination: string[];
   /** Result ids giving each member's largest tension and compression (null when it never has that sign). */
   governing: Record<string, { maxTension: string | null; maxCompression: string | null }>;
   /** Members below the threshold (kN) yet not zero-force, per result; only when a threshold was given. */
@@ -112,6 +117,8 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
   const info: AnalysisInfo = {
     countCheck: countCheck(model),
     envelopeOver: model.combinations.length > 0 ? "combinations" : "loadCases",
+    loadCasesInNoCombination:
+      model.combinations.length > 0 ? model.loadCases.filter((c) => !model.combinations.some((k) => (k.factors[c.id] ?? 0) !== 0)).map((c) => c.id) : [],
     governing: {},
     solver: structure.stats,
   };
@@ -155,6 +162,8 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
   const zeroInAll: string[] = [];
   const masks = envelopeIds.map((id) => zeroForceMask(forcesById.get(id)!));
   const envelopeForces = envelopeIds.map((id) => forcesById.get(id)!);
+  // zero in all: every load case and every combination (a member can work in a case and cancel in the combinations)
+  const allMasks = [...forcesById.values()].map((forces) => zeroForceMask(forces));
   structure.memberIds.forEach((memberId, e) => {
     let maxTension = 0;
     let maxCompression = 0;
@@ -163,7 +172,6 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
     let zeroEverywhere = true;
     envelopeIds.forEach((id, k) => {
       if (masks[k][e]) return; // rounding noise of a zero-force result must not count as tension or compression
-      zeroEverywhere = false;
       const value = envelopeForces[k][e];
       if (value > maxTension) {
         maxTension = value;
@@ -174,8 +182,9 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
         compressionId = id;
       }
     });
+    for (const mask of allMasks) if (!mask[e]) zeroEverywhere = false;
     // with no results at all nothing is known, so no member is called zero in all
-    if (envelopeIds.length === 0) zeroEverywhere = false;
+    if (allMasks.length === 0) zeroEverywhere = false;
     envelope[memberId] = { maxTension, maxCompression, zeroInAll: zeroEverywhere };
     info.governing[memberId] = { maxTension: tensionId, maxCompression: compressionId };
     if (zeroEverywhere) zeroInAll.push(memberId);

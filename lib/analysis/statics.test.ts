@@ -52,6 +52,40 @@ describe("statically determinate trusses against closed forms", () => {
     expect(r.info.governing.AC).toEqual({ maxTension: "lateral", maxCompression: "gravity" });
   });
 
+  it("zero in all covers every load case as well as every combination; a case in no combination is flagged", () => {
+    // Closed form: "down" (10 kN down at C) and "up" (10 kN up at C) give opposite forces, so the combination
+    // 1.0·down + 1.0·up is zero in every member, while each case loads all three (method of joints, Example 1).
+    const model = triangleModel({
+      loadCases: [pointLoads("down", [["C", 0, 0, -10]]), pointLoads("up", [["C", 0, 0, 10]]), pointLoads("lateral", [["C", 10, 0, 0]])],
+      combinations: [{ id: "cancel", name: "down + up", factors: { down: 1, up: 1 } }],
+    });
+    const r = analyzeModel(model);
+    expect(r.results.cancel.zeroForceMembers.sort()).toEqual(["AB", "AC", "BC"]);
+    expect(r.zeroInAll).toEqual([]);
+    expect(r.envelope.AC.zeroInAll).toBe(false);
+    // the envelope's extremes stay over the combinations and say so
+    expect(r.info.envelopeOver).toBe("combinations");
+    expect(r.envelope.AC.maxCompression).toBe(0);
+    expect(r.info.loadCasesInNoCombination).toEqual(["lateral"]);
+  });
+
+  it("reactions balance the applied load to 1e-9 relative in every result (global equilibrium, ΣF = 0)", () => {
+    const r = analyzeModel(triangle());
+    const applied: Record<string, [number, number, number]> = { gravity: [0, 0, -10], lateral: [10, 0, 0], C1: [10, 0, -12] };
+    for (const [id, [fx, fy, fz]] of Object.entries(applied)) {
+      const sum = [0, 0, 0];
+      for (const reaction of Object.values(r.results[id].reactions)) {
+        sum[0] += reaction.fx;
+        sum[1] += reaction.fy;
+        sum[2] += reaction.fz;
+      }
+      const scale = Math.hypot(fx, fy, fz);
+      expect(Math.abs(sum[0] + fx) / scale).toBeLessThan(1e-9);
+      expect(Math.abs(sum[1] + fy) / scale).toBeLessThan(1e-9);
+      expect(Math.abs(sum[2] + fz) / scale).toBeLessThan(1e-9);
+    }
+  });
+
   it("displacement of the triangle matches the unit-load method", () => {
     // Virtual work: uz_C = sum N n L / (E A) with n the forces for a unit downward load (derived by hand).
     const r = analyzeModel(triangle());

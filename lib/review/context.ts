@@ -8,6 +8,8 @@ export type ReviewOptions = {
   standard: DesignStandard;
   /** Members under this |N| (kN) are low-force (passed through from the analysis; glossary "low-force"). */
   lowForceThreshold?: number;
+  /** Serviceability deflection limit: span / this (250 unless told, deflection.ts). */
+  deflectionLimit?: number;
   /** AISC only: LRFD (default) or ASD. */
   method?: DesignMethod;
   /** Fabrication of sections that state none; the model format's default (cold-formed) unless told. */

@@ -3,6 +3,7 @@ import { DEFAULT_FABRICATION, type AnalysisResult, type TrussModel } from "@/lib
 import { STANDING_CAUTION } from "./caution";
 import { createReviewContext, type ReviewContext, type ReviewOptions } from "./context";
 import { EN_COMPRESSION_SLENDERNESS_LIMIT, EN_TENSION_SLENDERNESS_LIMIT } from "./design-checks/en1993";
+import { checkDeflections, DEFAULT_DEFLECTION_LIMIT, type DeflectionCheck } from "./deflection";
 import { designMembers, type MemberDesign } from "./member-design";
 import { memberVerdicts, type VerdictKind } from "./verdicts";
 import { explainZeroForces, type WhyZero } from "./why-zero";
@@ -23,6 +24,10 @@ export type ModelReview = {
   designResults: string[];
   assumptions: string[];
   members: MemberReview[];
+  /** Deflection of each serviceability combination against span / limit. */
+  deflections: DeflectionCheck[];
+  /** Load cases in no combination: analysed and counted for "zero in all", but not in the design envelope. */
+  loadCasesInNoCombination: string[];
   summary: { maxUtilisation: number; governingMember: string | null; overCapacity: string[]; verdicts: Record<VerdictKind, number> };
   caution: string;
 };
@@ -30,7 +35,7 @@ export type ModelReview = {
 function assumptions(options: ReviewOptions, model: TrussModel): string[] {
   const list = [
     model.combinations.length > 0
-      ? "Every ultimate combination is checked for resistance (the largest utilisation governs); serviceability combinations only for deflection."
+      ? `Every ultimate combination is checked for resistance (the largest utilisation governs); serviceability combinations only for deflection, against span/${options.deflectionLimit ?? DEFAULT_DEFLECTION_LIMIT} (default span/${DEFAULT_DEFLECTION_LIMIT}, common practice).`
       : "The model has no combinations: load cases are checked unfactored.",
     "Axial checks only (pin-jointed truss): tension yielding of the gross section (and rupture of the net section where there is a hole or opening; AISC also on Ae = Ag, U = 1) and flexural buckling. Connections and joints (nodes) are not checked.",
     `fu per material from the model, else the usual value of its grade (product standards), else 1.10·fy; fabrication per section, ${options.fabrication ?? DEFAULT_FABRICATION} where a section states none (the conservative default).`,
@@ -99,6 +104,8 @@ export function reviewModel(model: TrussModel, result: AnalysisResult, options: 
     designResults: context.designResults,
     assumptions: assumptions(options, model),
     members,
+    deflections: checkDeflections(model, result, options.deflectionLimit ?? DEFAULT_DEFLECTION_LIMIT),
+    loadCasesInNoCombination: result.info.loadCasesInNoCombination,
     summary: {
       maxUtilisation,
       governingMember,
