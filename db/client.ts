@@ -1,6 +1,7 @@
 // No "server-only" marker here: scripts (migrate, seed) and the realtime server run this outside Next.js.
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import { Pool } from "pg";
+import { database } from "../lib/limits";
 import * as schema from "./schema";
 
 export type Database = NodePgDatabase<typeof schema>;
@@ -17,7 +18,14 @@ export function getDb(): Database {
   if (!db) {
     const connectionString = process.env.DATABASE_URL;
     if (!connectionString) throw new Error("DATABASE_URL is not set.");
-    pool = new Pool({ connectionString, max: Number(process.env.DATABASE_POOL_MAX ?? 10) });
+    // No statement runs, and no transaction sits idle, past lib/limits.ts's bounds: one stuck request can never
+    // hold locks that every later request waits on.
+    const { statementTimeoutMs, idleInTransactionTimeoutMs } = database;
+    pool = new Pool({
+      connectionString,
+      max: Number(process.env.DATABASE_POOL_MAX ?? 10),
+      options: `-c statement_timeout=${statementTimeoutMs} -c idle_in_transaction_session_timeout=${idleInTransactionTimeoutMs}`,
+    });
     pool.on("error", (error) => console.error("[db] idle client error", error));
     db = drizzle(pool, { schema, casing: "snake_case" });
   }

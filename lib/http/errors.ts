@@ -47,6 +47,13 @@ export function capIssues(issues: Issue[]): Issue[] {
   return [...issues.slice(0, reportedProblems), { path: "", message: `…and ${rest.toLocaleString("en")} more problem${rest === 1 ? "" : "s"} not listed.` }];
 }
 
+/** A request body over its route's cap (lib/limits.ts, requestBytes). */
+export class PayloadTooLargeError extends HttpError {
+  constructor(message: string) {
+    super(413, message);
+  }
+}
+
 /** A request that conflicts with what is stored (duplicate e-mail, last owner, …). */
 export class ConflictError extends HttpError {
   constructor(message: string, issues?: Issue[]) {

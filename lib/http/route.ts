@@ -28,6 +28,8 @@ type Inputs<P, Q, B> = {
   readQuery?: (search: URLSearchParams) => unknown;
   /** The JSON body; a body that is not JSON, or does not match, is a 400 with issues. */
   body?: B;
+  /** The body's cap in bytes (413 beyond it); ordinary JSON routes get requestBytes.json. */
+  bodyBytes?: number;
 };
 
 type Handled<P, Q, B> = { request: Request; params: Parsed<P>; query: Parsed<Q>; body: Parsed<B> };
@@ -37,8 +39,15 @@ async function parseInputs<P extends z.ZodType | undefined, Q extends z.ZodType 
   request: Request,
 ) {
   const query = spec.query ? parseWith(spec.query, (spec.readQuery ?? Object.fromEntries)(new URL(request.url).searchParams)) : undefined;
-  const body = spec.body ? await parseJson(request, spec.body) : undefined;
+  const body = spec.body ? await parseJson(request, spec.body, spec.bodyBytes) : undefined;
   return { query: query as Parsed<Q>, body: body as Parsed<B> };
+}
+
+/** What a handler reads, kept on it so tests can aim hostile input at each route's params, query and body. */
+export type RouteInputs = { params?: z.ZodType; query?: z.ZodType; body?: z.ZodType; bodyBytes?: number };
+
+function described(spec: RouteInputs, handler: (request: Request, context?: NextContext) => Promise<Response>) {
+  return Object.assign(handleRoute(handler), { inputs: { params: spec.params, query: spec.query, body: spec.body, bodyBytes: spec.bodyBytes } as RouteInputs });
 }
 
 /**
@@ -54,7 +63,7 @@ export function projectRoute<
   spec: Inputs<P, Q, B> & { params: P; action: Action | readonly Action[] | ((body: Parsed<B>) => Action) },
   handler: (input: Handled<P, Q, B> & { user: SessionUser; membership: Membership }) => Promise<Response>,
 ) {
-  return handleRoute(async (request: Request, context?: NextContext) => {
+  return described(spec, async (request: Request, context?: NextContext) => {
     refuseCrossSite(request);
     const params = parseParams(spec.params, await context?.params) as Parsed<P>;
     const user = requireUser(await getRequestUser(request));
@@ -75,7 +84,7 @@ export function accountRoute<P extends z.ZodType | undefined = undefined, Q exte
   spec: Inputs<P, Q, B>,
   handler: (input: Handled<P, Q, B> & { user: SessionUser }) => Promise<Response>,
 ) {
-  return handleRoute(async (request: Request, context?: NextContext) => {
+  return described(spec, async (request: Request, context?: NextContext) => {
     refuseCrossSite(request);
     const params = (spec.params ? parseParams(spec.params, await context?.params) : undefined) as Parsed<P>;
     const user = requireUser(await getRequestUser(request));
@@ -92,7 +101,7 @@ export function publicRoute<P extends z.ZodType | undefined = undefined, Q exten
   spec: Inputs<P, Q, B>,
   handler: (input: Handled<P, Q, B> & { user: SessionUser | null }) => Promise<Response>,
 ) {
-  return handleRoute(async (request: Request, context?: NextContext) => {
+  return described(spec, async (request: Request, context?: NextContext) => {
     refuseCrossSite(request);
     const params = (spec.params ? parseParams(spec.params, await context?.params) : undefined) as Parsed<P>;
     const user = await getRequestUser(request);

@@ -3,6 +3,7 @@ import { createRevision } from "@/lib/commands/create-revision";
 import { ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
+import { requestBytes } from "@/lib/limits";
 import { buildRevision } from "@/lib/models/build-revision";
 import { createRevisionSchema, type CreateRevisionRequest } from "@/lib/models/schemas";
 import type { ReceivedFile } from "@/lib/storage/attachments";
@@ -28,7 +29,7 @@ export const GET = projectRoute({ params: projectParamsSchema, action: "project.
  */
 export const POST = projectRoute(
   // Saving a revision also runs its analysis, so both permissions are needed.
-  { params: projectParamsSchema, body: createRevisionSchema, action: ["model.edit", "analysis.run"] },
+  { params: projectParamsSchema, body: createRevisionSchema, bodyBytes: requestBytes.modelUpload, action: ["model.edit", "analysis.run"] },
   async ({ params: { projectId }, body: input, user }) => {
     const built = buildRevision(input);
     if (!built.ok) {

@@ -2,6 +2,7 @@ import { importRuns, listRunsByRevision } from "@/db/queries/mep";
 import { ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
+import { requestBytes } from "@/lib/limits";
 import { parseRunsFile } from "@/lib/mep/import";
 import { requireRevision } from "@/lib/mep/revision";
 import { importRunsSchema, revisionQuerySchema } from "@/lib/mep/schemas";
@@ -14,7 +15,7 @@ export const GET = projectRoute({ params: projectParamsSchema, query: revisionQu
 });
 
 /** Imports runs from a CSV or JSON file; any problem rejects the whole file and every problem is listed. */
-export const POST = projectRoute({ params: projectParamsSchema, body: importRunsSchema, action: "runs.edit" }, async ({ params: { projectId }, body: input, user }) => {
+export const POST = projectRoute({ params: projectParamsSchema, body: importRunsSchema, bodyBytes: requestBytes.runsImport, action: "runs.edit" }, async ({ params: { projectId }, body: input, user }) => {
   const revision = await requireRevision(projectId, input.revision);
   const { runs, problems } = parseRunsFile(input.text, input.fileName);
   if (problems.length > 0) {
