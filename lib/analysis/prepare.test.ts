@@ -72,6 +72,43 @@ describe("prepareStructure (used by the review engine for what-ifs and influence
   });
 });
 
+describe("reusing the symbolic analysis", () => {
+  const model = generateRoof({ spanX: 15, spanY: 12, module: 3, depth: 1.5 });
+  const intact = prepareStructure(model);
+  const compare = (a: Float64Array, b: Float64Array) => {
+    const scale = Math.max(...b.map(Math.abs));
+    a.forEach((v, q) => expect(Math.abs(v - b[q])).toBeLessThanOrEqual(1e-12 * scale));
+  };
+
+  it("reuses it for a removal what-if and gives the fresh analysis's displacements", () => {
+    const reduced = { ...model, members: model.members.filter((m) => m.id !== "BCX-1-1" && m.id !== "D-2-2-NE") };
+    const reused = prepareStructure(reduced, { symbolic: intact.symbolic });
+    const fresh = prepareStructure(reduced);
+    expect(reused.symbolicReused).toBe(true);
+    expect(fresh.symbolicReused).toBe(false);
+    const f = loadVectorForCase(reduced, "snow", fresh.topology);
+    compare(reused.solve(f), fresh.solve(f));
+  });
+
+  it("still finds the mechanism when the what-if frees a node", () => {
+    const loose = { ...model, members: model.members.filter((m) => !m.id.startsWith("D-2-2-")) };
+    const reused = prepareStructure(loose, { symbolic: intact.symbolic });
+    expect(reused.symbolicReused).toBe(true);
+    expect(reused.instability).toEqual(prepareStructure(loose).instability);
+    expect(reused.instability).toEqual([{ node: "B-2-2", directions: ["uz"] }]);
+  });
+
+  it("analyses afresh when a member joins two nodes not joined before, or the restraints differ", () => {
+    const braced = { ...model, members: [...model.members, { id: "EXTRA", i: "T-0-0", j: "T-2-2", section: model.members[0].section }] };
+    const withBrace = prepareStructure(braced, { symbolic: intact.symbolic });
+    expect(withBrace.symbolicReused).toBe(false);
+    const f = loadVectorForCase(braced, "snow", withBrace.topology);
+    compare(withBrace.solve(f), prepareStructure(braced).solve(f));
+    const heldMore = { ...model, supports: model.supports.map((s) => ({ ...s, ux: true })) };
+    expect(prepareStructure(heldMore, { symbolic: intact.symbolic }).symbolicReused).toBe(false);
+  });
+});
+
 describe("unusual shapes", () => {
   it("a hub joint with 80 members: each carries -P / (80 sin θ) by symmetry and vertical equilibrium", () => {
     const count = 80;

@@ -1,8 +1,7 @@
-import { assembleStiffness } from "./assemble";
+import { assembleStiffness, type AssembledStiffness } from "./assemble";
 import type { TrussModel } from "./model";
-import { symbolicLdl } from "./sparse/ldl";
-import { fillReducingOrder } from "./sparse/ordering";
-import { factorSupernodal, solveSupernodal, solveSupernodalMany, supernodes, type SupernodalFactor } from "./sparse/supernodal";
+import { factorSupernodal, solveSupernodal, solveSupernodalMany, type SupernodalFactor } from "./sparse/supernodal";
+import { analyzePattern, canReuse, type SymbolicAnalysis } from "./symbolic";
 import { buildTopology, type Topology } from "./topology";
 
 export type Direction = "ux" | "uy" | "uz";
@@ -57,32 +56,39 @@ export type PreparedStructure = {
    */
   release(): void;
   stats: { dofs: number; equations: number; nonzerosK: number; nonzerosL: number };
-  /** Milliseconds spent in each step. */
+  /** The ordering and supernode structure, to pass to prepareStructure for a structure of the same pattern. */
+  symbolic: SymbolicAnalysis;
+  /** Whether this structure reused the symbolic analysis it was given. */
+  symbolicReused: boolean;
+  /** Milliseconds spent in each step (assembly includes the symbolic analysis). */
   timings: { assembly: number; ordering: number; factorisation: number };
 };
 
 const now = () => globalThis.performance.now();
 
-/** Equations per node (its unrestrained translations): the block size the ordering weighs fill by. */
-export function freeDofsPerNode(topology: Topology): Uint8Array {
-  const { restrained } = topology;
-  const weight = new Uint8Array(topology.nodeIds.length);
-  for (let a = 0; a < weight.length; a++) weight[a] = 3 - restrained[3 * a] - restrained[3 * a + 1] - restrained[3 * a + 2];
-  return weight;
-}
-
-/** Orders, assembles and factors the stiffness matrix of a validated model. */
-export function prepareStructure(model: TrussModel): PreparedStructure {
+/**
+ * Orders, assembles and factors the stiffness matrix of a validated model. With `options.symbolic` from an
+ * earlier structure whose pattern contains this one's (same nodes and restraints, no new node pairs), the
+ * ordering and symbolic analysis are reused and only assembly and numeric factorisation run.
+ */
+export function prepareStructure(model: TrussModel, options: { symbolic?: SymbolicAnalysis } = {}): PreparedStructure {
   const t0 = now();
   const topology = buildTopology(model);
   const t1 = now();
   const n = topology.nodeIds.length;
-  const nodeOrder = fillReducingOrder(n, topology.adjStart, topology.adj, topology.coords, freeDofsPerNode(topology)).order;
-  const t2 = now();
-  const assembled = assembleStiffness(topology, nodeOrder);
+  const reused = options.symbolic !== undefined && canReuse(options.symbolic, topology);
+  let symbolic: SymbolicAnalysis;
+  let assembled: AssembledStiffness;
+  let orderingMs = 0;
+  if (reused) {
+    symbolic = options.symbolic!;
+    assembled = assembleStiffness(topology, symbolic.nodeOrder);
+  } else {
+    ({ symbolic, assembled, orderingMs } = analyzePattern(topology));
+  }
+  const nodeOrder = symbolic.nodeOrder;
   const t3 = now();
-  const symbolic = symbolicLdl(assembled.matrix);
-  let factor: SupernodalFactor | undefined = factorSupernodal(assembled.matrix, supernodes(assembled.matrix, symbolic), assembled.pivotScale, PIVOT_TOLERANCE);
+  let factor: SupernodalFactor | undefined = factorSupernodal(assembled.matrix, symbolic.structure, assembled.pivotScale, PIVOT_TOLERANCE);
   const t4 = now();
 
   const { dofOfEquation } = assembled;
@@ -194,10 +200,12 @@ export function prepareStructure(model: TrussModel): PreparedStructure {
       return r;
     },
     internalForces,
+    symbolic,
+    symbolicReused: reused,
     release() {
       factor = undefined;
     },
     stats: { dofs: 3 * n, equations: neq, nonzerosK: assembled.matrix.colPtr[neq], nonzerosL: symbolic.nnzL },
-    timings: { assembly: t1 - t0 + (t3 - t2), ordering: t2 - t1, factorisation: t4 - t3 },
+    timings: { assembly: t3 - t1 - orderingMs + (t1 - t0), ordering: orderingMs, factorisation: t4 - t3 },
   };
 }

@@ -18,7 +18,7 @@ import { spawnSync } from "node:child_process";
 import { parseArgs } from "node:util";
 import { analyzeModel, generateRoof, loadVectorForCase, PIVOT_TOLERANCE, validateModel, type TrussModel } from "@/lib/analysis";
 import { assembleStiffness } from "@/lib/analysis/assemble";
-import { freeDofsPerNode } from "@/lib/analysis/prepare";
+import { freeDofsPerNode } from "@/lib/analysis/symbolic";
 import { seededRandom } from "@/lib/analysis/test-fixtures";
 import { symbolicLdl } from "@/lib/analysis/sparse/ldl";
 import { fillReducingOrder } from "@/lib/analysis/sparse/ordering";

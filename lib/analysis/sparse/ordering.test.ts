@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { assembleStiffness } from "../assemble";
 import { generateRoof } from "../generator";
-import { freeDofsPerNode } from "../prepare";
+import { freeDofsPerNode } from "../symbolic";
 import { seededRandom } from "../test-fixtures";
 import { buildTopology } from "../topology";
 import { approximateMinimumDegree } from "./amd";

@@ -25,7 +25,7 @@ export type SupernodalFactor = {
   nnzL: number;
 };
 
-type SupernodeStructure = Omit<SupernodalFactor, "values" | "inversePivot" | "tinyPivots" | "nnzL"> & { superOf: Int32Array };
+export type SupernodeStructure = Omit<SupernodalFactor, "values" | "inversePivot" | "tinyPivots" | "nnzL"> & { superOf: Int32Array };
 
 /** Finds the supernodes and the row structure of each from the elimination tree and column counts. */
 export function supernodes(a: UpperCsc, s: Symbolic): SupernodeStructure {
