@@ -16,8 +16,9 @@
  */
 import { spawnSync } from "node:child_process";
 import { parseArgs } from "node:util";
-import { analyzeModel, generateRoof, loadVectorForCase, PIVOT_TOLERANCE, validateModel, type TrussModel } from "@/lib/analysis";
+import { analyzeModel, generateRoof, loadVectorForCase, PIVOT_TOLERANCE, prepareStructure, validateModel, type TrussModel } from "@/lib/analysis";
 import { assembleStiffness } from "@/lib/analysis/assemble";
+import { SOLVE_BLOCK } from "@/lib/analysis/prepare";
 import { freeDofsPerNode } from "@/lib/analysis/symbolic";
 import { seededRandom } from "@/lib/analysis/test-fixtures";
 import { symbolicLdl } from "@/lib/analysis/sparse/ldl";
@@ -31,6 +32,8 @@ const { values } = parseArgs({
     sizes: { type: "string", default: "10,20,40,60,120" },
     repeat: { type: "string", default: "3" },
     grid: { type: "string" }, // internal: measure one grid in this (child) process and print its rows as JSON
+    certificate: { type: "string", default: "60" }, // grid whose certificate workload is measured
+    "certificate-batches": { type: "string", default: "40" },
   },
 });
 const sizes = values.sizes.split(",").map(Number);
@@ -71,6 +74,41 @@ function shuffle(model: TrussModel, seed: number): TrussModel {
     supports: model.supports.map((s) => ({ ...s, node: id(s.node) })),
     loadCases: model.loadCases.map((c) => ({ ...c, nodalLoads: c.nodalLoads.map((l) => ({ ...l, node: id(l.node) })) })),
   };
+}
+
+type Certificate = { grid: string; members: number; loadedDofs: number; batches: number; measured: number; seconds: number; projected: number };
+
+/**
+ * The "idle for any roof load" certificate workload: the force in every member under a unit load at every
+ * free top-node dof, one solve per dof (fewer than members). Dofs are taken in elimination order, SOLVE_BLOCK
+ * per solveColumns call, member forces from each displacement; `batches` evenly spread batches are timed
+ * (CPU seconds) and the whole is projected from them.
+ */
+function certificate(label: string, model: TrussModel, batches: number): Certificate {
+  const structure = prepareStructure(model);
+  const { topology } = structure;
+  const top = Math.max(...model.nodes.map((node) => node.z));
+  const dofs = 3 * topology.nodeIds.length;
+  const loaded: number[] = [];
+  for (const node of structure.eliminationOrder) {
+    if (topology.coords[3 * node + 2] !== top) continue;
+    for (let r = 0; r < 3; r++) if (!topology.restrained[3 * node + r]) loaded.push(3 * node + r);
+  }
+  const total = Math.ceil(loaded.length / SOLVE_BLOCK);
+  const picked = Math.min(batches, total);
+  const mark = process.cpuUsage();
+  let columns = 0;
+  for (let b = 0; b < picked; b++) {
+    const first = Math.floor((b * total) / picked) * SOLVE_BLOCK;
+    const width = Math.min(SOLVE_BLOCK, loaded.length - first);
+    const fs = new Float64Array(dofs * width);
+    for (let c = 0; c < width; c++) fs[c * dofs + loaded[first + c]] = 1;
+    const u = structure.solveColumns(fs, width);
+    for (let c = 0; c < width; c++) structure.memberForces(u.subarray(c * dofs, (c + 1) * dofs));
+    columns += width;
+  }
+  const seconds = cpuSince(mark);
+  return { grid: label, members: topology.memberIds.length, loadedDofs: loaded.length, batches: picked, measured: columns, seconds, projected: (seconds * loaded.length) / columns };
 }
 
 type Row = {
@@ -166,17 +204,21 @@ if (values.grid) {
   measure("warm-up", generateRoof({ spanX: 30, spanY: 30, module: 3, depth: 2 }));
   const model = squareGrid(n);
   const rows = [measure(`${n}x${n}`, model, cholmod), measure(`${n}x${n} shuffled`, shuffle(model, n), cholmod)];
-  process.stdout.write(`${JSON.stringify(rows)}\n`);
+  const work = values.certificate.split(",").map(Number).includes(n) ? certificate(`${n}x${n}`, model, Number(values["certificate-batches"])) : undefined;
+  process.stdout.write(`${JSON.stringify({ rows, certificate: work })}\n`);
 } else {
   const rows: Row[] = [];
+  const certificates: Certificate[] = [];
   for (const n of sizes) {
-    const child = spawnSync(process.execPath, [...process.execArgv, process.argv[1], "--grid", String(n), "--repeat", String(repeat)], {
+    const child = spawnSync(process.execPath, [...process.execArgv, process.argv[1], "--grid", String(n), "--repeat", String(repeat), "--certificate", values.certificate, "--certificate-batches", values["certificate-batches"]], {
       encoding: "utf8",
       stdio: ["ignore", "pipe", "inherit"],
       maxBuffer: 1 << 24,
     });
     if (child.status !== 0) throw new Error(`grid ${n}: child process failed`);
-    rows.push(...(JSON.parse(child.stdout) as Row[]));
+    const measured = JSON.parse(child.stdout) as { rows: Row[]; certificate?: Certificate };
+    rows.push(...measured.rows);
+    if (measured.certificate) certificates.push(measured.certificate);
   }
   const s = (v: number) => v.toFixed(3);
   const withCholmod = rows.some((r) => r.cholmod);
@@ -203,6 +245,16 @@ if (values.grid) {
           const ours = r.ordering + r.factor + r.solves;
           return `| ${r.grid} | ${c.ordering} | ${c.nnzL} | ${r.nnzL} | ${(r.nnzL / c.nnzL).toFixed(2)} | ${s(theirs)} | ${s(ours)} | ${(ours / theirs).toFixed(2)} |`;
         }),
+    );
+  }
+  if (certificates.length > 0) {
+    lines.push(
+      "",
+      `Certificate workload (unit load at every free top-node dof, ${SOLVE_BLOCK} per multi-RHS solve, member forces of each; CPU seconds):`,
+      "",
+      "| grid | members | loaded dofs | columns timed | their time | whole certificate, projected |",
+      "| --- | ---: | ---: | ---: | ---: | ---: |",
+      ...certificates.map((c) => `| ${c.grid} | ${c.members} | ${c.loadedDofs} | ${c.measured} | ${s(c.seconds)} | ${c.projected.toFixed(1)} |`),
     );
   }
   process.stdout.write(`Seconds of CPU time (user + system), best of ${repeat} runs, except the wall-clock column.\n${lines.join("\n")}\n`);
