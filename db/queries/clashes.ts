@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, notInArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, ne, notInArray, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb, type Executor } from "@/db/client";
 import { clashDecisions, clashes, modelRevisions, users, type ClashRow } from "@/db/schema";
@@ -192,4 +192,24 @@ export type ClashHistoryEntry = Awaited<ReturnType<typeof listClashHistory>>[num
 /** Sets (or clears) who a clash is assigned to and by when. */
 export async function setClashAssignment(tx: Executor, { clashId, assigneeId, dueOn }: { clashId: string; assigneeId: string | null; dueOn: string | null }): Promise<void> {
   await tx.update(clashes).set({ assigneeId, dueOn }).where(eq(clashes.id, clashId));
+}
+
+/** The clashes of a revision that carry a proposal or decision and are not closed. */
+export async function listDecidedClashes(db: Executor, { revisionId }: { revisionId: string }): Promise<ClashRow[]> {
+  return db
+    .select()
+    .from(clashes)
+    .where(and(eq(clashes.revisionId, revisionId), isNotNull(clashes.outcome), ne(clashes.status, "closed")));
+}
+
+/** For each stable clash key, the revision its newest proposal or decision was judged on. */
+export async function judgedOnRevisions(db: Executor, { projectId, clashKeys }: { projectId: string; clashKeys: string[] }): Promise<Map<string, string>> {
+  if (clashKeys.length === 0) return new Map();
+  const rows = await db
+    .selectDistinctOn([clashes.clashKey], { clashKey: clashes.clashKey, revisionId: clashDecisions.revisionId })
+    .from(clashDecisions)
+    .innerJoin(clashes, eq(clashes.id, clashDecisions.clashId))
+    .where(and(eq(clashes.projectId, projectId), inArray(clashes.clashKey, clashKeys), inArray(clashDecisions.kind, ["proposal", "decision"])))
+    .orderBy(clashes.clashKey, desc(clashDecisions.createdAt));
+  return new Map(rows.filter((r) => r.revisionId).map((r) => [r.clashKey, r.revisionId!]));
 }

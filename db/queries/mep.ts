@@ -8,6 +8,7 @@ import { ConflictError, NotFoundError, ValidationError, issuesFrom } from "@/lib
 import { runSchema, type Run, type RunEdit } from "@/lib/mep/schemas";
 import { recordAuditEvent } from "./audit";
 import { syncClashes, type DetectionSummary } from "./clashes";
+import { carryClashDecisions } from "@/lib/commands/carry-clash-decisions";
 
 /** A stored run in the shape of the run schema (plus when it last changed). */
 export type RunView = Run & { updatedAt: string };
@@ -176,7 +177,9 @@ export async function copyRunsToRevision({ projectId, fromRevisionId, toRevision
 export async function carryRunsForward({ projectId, fromRevisionId, toRevision, actorId, db }: { projectId: string; fromRevisionId: string; toRevision: { id: string; model: TrussModel }; actorId: string | null; db: Transaction }): Promise<DetectionSummary> {
   const runs = await db.select().from(mepRuns).where(eq(mepRuns.revisionId, fromRevisionId));
   if (runs.length > 0) await db.insert(mepRuns).values(runs.map((row) => runRow(toRevision.id, toRun(row), actorId)));
-  return redetect(db, projectId, toRevision);
+  const detection = await redetect(db, projectId, toRevision);
+  await carryClashDecisions(db, { projectId, fromRevisionId, toRevision, actorId });
+  return detection;
 }
 
 /**

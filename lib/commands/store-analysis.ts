@@ -6,6 +6,7 @@ import { finishJob } from "@/db/queries/jobs";
 import { insertAnalysisRun } from "@/db/queries/models";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { StoredReview } from "@/lib/models/analyse";
+import { recheckCarriedDecisions } from "./recheck-carried-decisions";
 
 /**
  * Stores a finished analysis with its job marked done and an audit event, in one transaction. A job that is no
@@ -21,6 +22,7 @@ export async function storeAnalysis(input: {
   return withTransaction(async (tx) => {
     const run = await insertAnalysisRun(tx, { revisionId: job.revisionId, result: input.result, review: input.review });
     if (!(await finishJob(tx, { jobId: job.id, outcome: input.outcome }))) tx.rollback();
+    await recheckCarriedDecisions(tx, { projectId: job.projectId, revisionId: job.revisionId });
     await recordAuditEvent({
       db: tx,
       projectId: job.projectId,

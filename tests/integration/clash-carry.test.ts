@@ -1,0 +1,98 @@
+// Issue 16, item 2: a new revision carries each proposed or decided clash. Unchanged member, run and results: the
+// decision is kept. Changed results: "needs another look" with the reason in words, and the decider is mailed.
+// Changed member: the decision is closed with the reason. Uses the generated 9 m × 9 m roof and one duct along x at
+// y = 1.5 m through the y-direction top chords (the geometry of tests/integration/mep-clashes-api.test.ts).
+import { and, eq, like } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { listClashesByRevision, listClashHistory } from "@/db/queries/clashes";
+import { claimJob } from "@/db/queries/jobs";
+import { importRuns } from "@/db/queries/mep";
+import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { mailOutbox } from "@/db/schema";
+import { generateRoof } from "@/lib/analysis/generator";
+import type { TrussModel } from "@/lib/analysis/model";
+import { decideClash } from "@/lib/commands/decide-clash";
+import { hangServicesRevision } from "@/lib/commands/hang-services";
+import { storeAnalysis } from "@/lib/commands/store-analysis";
+import { proposeClashOutcome } from "@/lib/commands/propose-clash-outcome";
+import type { Run } from "@/lib/mep/schemas";
+import { analyseForStorage } from "@/lib/models/analyse";
+import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
+import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
+
+let fx: ProjectFixture;
+let base: TrussModel;
+let first: { id: string; number: number };
+const MEMBER = "TCY-1-0";
+const duct: Run = { id: "SA-01", system: "supply air", profile: { shape: "round", diameter: 0.5 }, insulation: 0.05, clearance: 0.1, weightPerMetre: 0.35, points: [{ x: -1, y: 1.5, z: 2 }, { x: 10, y: 1.5, z: 2 }] } as Run;
+
+// The product's path: the revision is stored with the runs carried (decisions copied or closed), then the jobs
+// process stores its analysis, which re-checks the carried decisions.
+async function derive(name: string, model: TrussModel) {
+  const { revision, job } = await hangServicesRevision({ projectId: fx.projectId, userId: fx.users.structural_engineer.id, fromRevisionId: first.id, name, model });
+  expect(await claimJob({ jobId: job.id })).not.toBeNull();
+  const { result, review } = analyseForStorage(model, "EN1993-1-1");
+  expect(await storeAnalysis({ job: { id: job.id, projectId: fx.projectId, revisionId: revision.id }, result, review, outcome: null })).toBe(true);
+  return revision;
+}
+const clashOn = async (revisionId: string) => (await listClashesByRevision({ revisionId })).find((c) => c.memberId === MEMBER)!;
+
+beforeAll(async () => {
+  requireIntegrationEnv();
+  fx = await createProjectFixture("clash-carry");
+  base = generateRoof({ name: "Carry roof", spanX: 9, spanY: 9, module: 3, depth: 2 });
+  const { result, review } = analyseForStorage(base, "EN1993-1-1");
+  first = await createRevisionWithAnalysis({ projectId: fx.projectId, name: "r1", model: base, source: "generated", createdBy: fx.users.structural_engineer.id, result, review });
+  await importRuns({ projectId: fx.projectId, revision: { id: first.id, model: base }, runs: [duct], mode: "replace", actorId: fx.users.mep_engineer.id });
+  const clash = await clashOn(first.id);
+  await proposeClashOutcome({ projectId: fx.projectId, clashId: clash.id, actor: { userId: fx.users.mep_engineer.id, role: "mep_engineer" }, input: { outcome: "opening_proposed", note: "" } });
+  await decideClash({ projectId: fx.projectId, clashId: clash.id, actor: { userId: fx.users.structural_engineer.id, role: "structural_engineer" }, input: { outcome: "opening_accepted", conditions: "Sleeved opening at mid-length, 250 mm." } });
+});
+afterAll(closeDb);
+
+describe("carrying decisions to a new revision", () => {
+  it("keeps the decision, without another look, when member, run and results are unchanged", async () => {
+    const same = await derive("r2 same", structuredClone(base));
+    const clash = await clashOn(same.id);
+    expect(clash).toMatchObject({ outcome: "opening_accepted", conditions: "Sleeved opening at mid-length, 250 mm.", decidedBy: fx.users.structural_engineer.name, recheckReason: null, status: "active" });
+    const history = await listClashHistory({ projectId: fx.projectId, clashKeys: [clash.clashKey] });
+    expect(history.map((h) => h.kind)).toEqual(["proposal", "decision"]);
+  });
+
+  it("marks it 'needs another look', with the reason in words, when the member's forces change; the decider is mailed", async () => {
+    const loaded = structuredClone(base);
+    const member = loaded.members.find((m) => m.id === MEMBER)!;
+    // A 200 kN pull along the chord at its far joint, as a new load case and combination: the chord must work.
+    loaded.loadCases.push({ id: "PULL", name: "Test pull", category: "live", selfWeight: false, nodalLoads: [{ node: member.j, fx: 0, fy: 200, fz: 0 }] } as TrussModel["loadCases"][number]);
+    loaded.combinations.push({ id: "C-PULL", name: "Pull only", factors: { PULL: 1 } });
+    const revision = await derive("r3 pulled", loaded);
+    const clash = await clashOn(revision.id);
+    expect(clash.outcome).toBe("opening_accepted");
+    expect(clash.recheckReason).toMatch(new RegExp(`^${MEMBER} `));
+    expect(clash.recheckReason).toMatch(/kN/);
+    const history = await listClashHistory({ projectId: fx.projectId, clashKeys: [clash.clashKey] });
+    const recheck = history.filter((h) => h.kind === "recheck" && h.revision === revision.number);
+    expect(recheck).toHaveLength(1);
+    expect(recheck[0].reason).toBe(clash.recheckReason);
+    const mails = await getDb()
+      .select()
+      .from(mailOutbox)
+      .where(and(eq(mailOutbox.kind, "recheck"), like(mailOutbox.subject, `%${clash.clashKey}%`)));
+    expect(mails.map((m) => m.toAddress)).toEqual([fx.users.structural_engineer.email]);
+    expect(mails[0].textBody).toContain(clash.recheckReason!);
+  });
+
+  it("closes the decision, with the reason, when the member changed section", async () => {
+    const resized = structuredClone(base);
+    const member = resized.members.find((m) => m.id === MEMBER)!;
+    const section = resized.sections.find((s) => s.id === member.section)!;
+    resized.sections.push({ ...section, id: "CHS-TEST-BIGGER", area: section.area * 2 });
+    member.section = "CHS-TEST-BIGGER";
+    const revision = await derive("r4 resized", resized);
+    const clash = await clashOn(revision.id);
+    expect(clash).toMatchObject({ outcome: null, decidedBy: null });
+    const history = await listClashHistory({ projectId: fx.projectId, clashKeys: [clash.clashKey] });
+    const closure = history.find((h) => h.kind === "closure" && h.revision === revision.number);
+    expect(closure?.reason).toBe(`The decision does not carry: member ${MEMBER} changed section in revision ${revision.number} (${section.id} → CHS-TEST-BIGGER).`);
+  });
+});
