@@ -121,6 +121,15 @@ export const requestBytes = {
   modelUpload: 48 * 1024 * 1024,
 } as const;
 
+/**
+ * Largest model file uploaded through the presigned path (the upload form), bytes: refused from its declared size
+ * before any byte moves, and again from the stored size. A 120 × 120 bay grid in our JSON format is about 6 MB.
+ */
+export const modelFileBytes = 20 * 1024 * 1024;
+
+/** Files in one model upload (one JSON model, or the CSV tables). */
+export const modelUploadFiles = 12;
+
 /** Largest model upload file in characters (one JSON model or one CSV table). */
 export const modelUploadChars = 40_000_000;
 

@@ -6,19 +6,11 @@ import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useId, useState, type ChangeEvent } from "react";
 import type { PresentedAttachment } from "@/db/queries/attachments";
 import { apiFetch } from "@/lib/http/fetcher";
-
-type UploadTicket = { attachmentId: string; uploadUrl: string; method: "PUT"; headers: Record<string, string> };
+import { uploadToStorage } from "@/lib/storage/upload-client";
 
 /** Sends one file for a comment: ticket, direct upload, confirmation by the server's content check. */
 async function uploadFile(projectId: string, commentId: string, file: File): Promise<PresentedAttachment> {
-  const base = `/api/projects/${projectId}/attachments`;
-  const ticket = await apiFetch<UploadTicket>(base, {
-    method: "POST",
-    body: { purpose: "comment", commentId, filename: file.name, contentType: file.type || "application/octet-stream", sizeBytes: file.size },
-  });
-  const put = await fetch(ticket.uploadUrl, { method: ticket.method, headers: ticket.headers, body: file });
-  if (!put.ok) throw new Error(`The file store refused the upload (${put.status}). Try again.`);
-  const { attachment } = await apiFetch<{ attachment: PresentedAttachment }>(`${base}/${ticket.attachmentId}/confirm`, { method: "POST", body: {} });
+  const { attachment } = await uploadToStorage<{ attachment: PresentedAttachment }>(projectId, file, { purpose: "comment", commentId, contentType: file.type || "application/octet-stream" });
   return attachment;
 }
 

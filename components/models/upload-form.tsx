@@ -5,27 +5,26 @@ import { useState, type FormEvent } from "react";
 import { Button, FormMessage } from "@/components/ui/form";
 import type { Issue } from "@/lib/http/errors";
 import { ApiError, apiFetch } from "@/lib/http/fetcher";
+import { formatBytes, modelCounts, modelFileBytes } from "@/lib/limits";
 import type { CreateRevisionInput } from "@/lib/models/schemas";
+import { uploadToStorage } from "@/lib/storage/upload-client";
 import { revisionsKey } from "./revision-list";
 
-/** Reads the chosen files into a request: one .json model, or CSV tables named by their file names. */
-async function requestFromFiles(files: File[], name: string): Promise<CreateRevisionInput> {
+const contentTypeOf = (file: File) => (file.name.toLowerCase().endsWith(".json") ? "application/json" : "text/csv");
+
+/**
+ * Puts the chosen files (one .json model, or .csv tables) into object storage through presigned uploads, each
+ * refused at once when too large, and returns the request naming them; the server keeps them byte for byte.
+ */
+async function requestFromFiles(projectId: string, files: File[], name: string): Promise<CreateRevisionInput> {
   const json = files.filter((f) => f.name.toLowerCase().endsWith(".json"));
   const csv = files.filter((f) => f.name.toLowerCase().endsWith(".csv"));
-  if (json.length === 1 && csv.length === 0) {
-    let model: unknown;
-    try {
-      model = JSON.parse(await json[0].text());
-    } catch {
-      throw new ApiError(400, `${json[0].name} is not valid JSON.`, [{ path: json[0].name, message: "not valid JSON" }]);
-    }
-    return { kind: "uploadJson", name: name || undefined, fileName: json[0].name, model };
+  if (!((json.length === 1 && csv.length === 0) || (csv.length > 0 && json.length === 0))) {
+    throw new ApiError(400, "Choose one .json model file, or the .csv tables (nodes, members, sections, supports, loads…).");
   }
-  if (csv.length > 0 && json.length === 0) {
-    const tables = Object.fromEntries(await Promise.all(csv.map(async (f) => [f.name, await f.text()] as const)));
-    return { kind: "uploadCsv", name: name || "Uploaded model", tables };
-  }
-  throw new ApiError(400, "Choose one .json model file, or the .csv tables (nodes, members, sections, supports, loads…).");
+  const uploaded = [];
+  for (const file of files) uploaded.push(await uploadToStorage<{ attachment: { id: string } }>(projectId, file, { purpose: "model", contentType: contentTypeOf(file) }));
+  return { kind: "uploadFiles", name: name || (csv.length > 0 ? "Uploaded model" : undefined), attachmentIds: uploaded.map((u) => u.attachment.id) };
 }
 
 /** Upload a model file (our JSON format, or CSV tables); every validation problem is listed, nothing saved. */
@@ -35,7 +34,7 @@ export function UploadForm({ projectId, onSaved }: { projectId: string; onSaved:
   const [name, setName] = useState("");
   const upload = useMutation({
     mutationFn: async () => {
-      const body = await requestFromFiles(files, name.trim());
+      const body = await requestFromFiles(projectId, files, name.trim());
       return apiFetch<{ revision: { number: number } }>(`/api/projects/${projectId}/models`, { method: "POST", body });
     },
     onSuccess: async ({ revision }) => {
@@ -60,7 +59,11 @@ export function UploadForm({ projectId, onSaved }: { projectId: string; onSaved:
         <label htmlFor="upload-files" className="text-sm font-medium text-board-800">
           Model file (.json) or CSV tables (.csv, several at once)
         </label>
-        <input id="upload-files" type="file" multiple accept=".json,.csv,application/json,text/csv" onChange={(e) => setFiles(Array.from(e.target.files ?? []))} data-testid="upload-files" />
+        <input id="upload-files" type="file" multiple accept=".json,.csv,application/json,text/csv" onChange={(e) => setFiles(Array.from(e.target.files ?? []))} aria-describedby="upload-limits" data-testid="upload-files" />
+        <p id="upload-limits" className="text-xs text-board-700" data-testid="upload-limits">
+          Up to {formatBytes(modelFileBytes)} per file and at most {modelCounts.nodes.toLocaleString("en")} nodes, {modelCounts.members.toLocaleString("en")} members,{" "}
+          {modelCounts.loadCases} load cases and {modelCounts.combinations} combinations per model. The files are kept as uploaded.
+        </p>
       </div>
       <FormMessage message={upload.error?.message} />
       {issues.length > 0 ? (

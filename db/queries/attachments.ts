@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, lt } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, lt } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { attachments, comments, pins, users, type Attachment, type NewAttachment } from "../schema";
 
@@ -80,4 +80,18 @@ export function listStalePendingAttachments({ before, limit = 100 }: { before: D
     .where(and(eq(attachments.state, "pending"), lt(attachments.createdAt, before)))
     .orderBy(asc(attachments.createdAt))
     .limit(limit);
+}
+
+/**
+ * Links confirmed model files to the revision made from them; returns how many were linked (a file already used by
+ * another revision, or not ready, is not linked, and the caller rolls back).
+ */
+export async function linkModelFiles(tx: Executor, { projectId, attachmentIds, revisionId }: { projectId: string; attachmentIds: string[]; revisionId: string }): Promise<number> {
+  if (attachmentIds.length === 0) return 0;
+  const rows = await tx
+    .update(attachments)
+    .set({ revisionId })
+    .where(and(eq(attachments.projectId, projectId), inArray(attachments.id, attachmentIds), eq(attachments.purpose, "model"), eq(attachments.state, "ready"), isNull(attachments.revisionId)))
+    .returning({ id: attachments.id });
+  return rows.length;
 }

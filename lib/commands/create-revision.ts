@@ -1,14 +1,16 @@
 import "server-only";
+import { linkModelFiles } from "@/db/queries/attachments";
 import { carryPreviousRunsForward } from "@/db/queries/mep";
 import { insertRevision, withNextRevision } from "@/db/queries/models";
 import type { JobView } from "@/db/queries/jobs";
 import type { TrussModel } from "@/lib/analysis/model";
+import { ConflictError } from "@/lib/http/errors";
 import { withStoredFiles, type ReceivedFile } from "@/lib/storage/attachments";
 import { enqueueAnalysis } from "./enqueue-analysis";
 
 /**
  * Stores a validated model as the project's next revision and queues its analysis, in one transaction with: the
- * records of the uploaded original file(s), the audit event, the previous revision's MEP runs carried forward with
+ * records of the original file(s) (stored now, or already uploaded and linked), the audit event, the previous revision's MEP runs carried forward with
  * their clashes detected on the new model. The analysis itself runs in the jobs process.
  */
 export async function createRevision(input: {
@@ -17,13 +19,20 @@ export async function createRevision(input: {
   name: string;
   model: TrussModel;
   source: "generated" | "uploaded";
+  /** Files received in the request body, stored now. */
   originals: ReceivedFile[];
+  /** Model files already in object storage (presigned uploads), linked to the revision as they are. */
+  uploadedFiles?: string[];
 }): Promise<{ revision: { id: string; number: number }; job: JobView }> {
   const { projectId, userId, model } = input;
   return withStoredFiles({ projectId, userId, purpose: "model", files: input.originals }, (record) =>
     withNextRevision(async (tx) => {
       const revision = await insertRevision(tx, { projectId, name: input.name, model, source: input.source, createdBy: userId });
       await record(tx, { revisionId: revision.id });
+      const uploaded = input.uploadedFiles ?? [];
+      if ((await linkModelFiles(tx, { projectId, attachmentIds: uploaded, revisionId: revision.id })) !== new Set(uploaded).size) {
+        throw new ConflictError("An uploaded model file was used by another revision meanwhile; upload it again.");
+      }
       await carryPreviousRunsForward({ projectId, revision, model, actorId: userId, db: tx });
       const job = await enqueueAnalysis(tx, { projectId, revisionId: revision.id, requestedBy: userId });
       return { revision, job };

@@ -2,15 +2,14 @@
 import { generateRoof } from "@/lib/analysis/generator";
 import { modelFromCsv } from "@/lib/analysis/csv";
 import { validateModel, type ModelProblem, type TrussModel } from "@/lib/analysis/model";
-import type { createRevisionSchema } from "./schemas";
-import type { z } from "zod";
+import type { InlineRevisionRequest } from "./schemas";
 
 export type BuiltRevision =
   | { ok: true; model: TrussModel; name: string; source: "generated" | "uploaded" }
   | { ok: false; problems: ModelProblem[] };
 
 /** Generates, parses or validates the model named by the request; every validation problem is returned. */
-export function buildRevision(input: z.output<typeof createRevisionSchema>): BuiltRevision {
+export function buildRevision(input: InlineRevisionRequest): BuiltRevision {
   switch (input.kind) {
     case "generate": {
       const model = generateRoof(input.params);

@@ -1,6 +1,7 @@
 // What may be stored, judged by the bytes and never by the file name or the browser's declared type.
 import { fileTypeFromBuffer } from "file-type";
 import Papa from "papaparse";
+import { modelFileBytes } from "@/lib/limits";
 
 /** What a stored file is for; each purpose accepts its own content types and size. */
 export const FILE_PURPOSES = ["comment", "model", "run"] as const;
@@ -11,7 +12,7 @@ const MB = 1024 * 1024;
 /** Accepted content per purpose. Binary kinds are recognised by magic bytes (file-type); text kinds by parsing. */
 export const FILE_RULES = {
   comment: { maxBytes: 10 * MB, types: ["image/png", "image/jpeg", "image/webp", "application/pdf"] },
-  model: { maxBytes: 20 * MB, types: ["application/json", "text/csv"] },
+  model: { maxBytes: modelFileBytes, types: ["application/json", "text/csv"] },
   run: { maxBytes: 10 * MB, types: ["application/json", "text/csv"] },
 } as const satisfies Record<FilePurpose, { maxBytes: number; types: readonly string[] }>;
 

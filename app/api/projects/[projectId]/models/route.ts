@@ -5,13 +5,15 @@ import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { requestBytes } from "@/lib/limits";
 import { buildRevision } from "@/lib/models/build-revision";
-import { createRevisionSchema, type CreateRevisionRequest } from "@/lib/models/schemas";
+import { createRevisionSchema, type InlineRevisionRequest } from "@/lib/models/schemas";
+import { requestFromUploadedFiles } from "@/lib/models/uploaded-files";
+import { readModelFiles } from "@/lib/storage/model-files";
 import type { ReceivedFile } from "@/lib/storage/attachments";
 
 const encoder = new TextEncoder();
 
 /** The files an upload request carried; a generated roof has none. */
-function originalFiles(input: CreateRevisionRequest): ReceivedFile[] {
+function originalFiles(input: InlineRevisionRequest): ReceivedFile[] {
   if (input.kind === "uploadJson") return [{ filename: input.fileName ?? "model.json", bytes: encoder.encode(JSON.stringify(input.model)) }];
   if (input.kind === "uploadCsv") return Object.entries(input.tables).map(([filename, text]) => ({ filename, bytes: encoder.encode(text) }));
   return [];
@@ -31,7 +33,8 @@ export const POST = projectRoute(
   // Saving a revision also runs its analysis, so both permissions are needed.
   { params: projectParamsSchema, body: createRevisionSchema, bodyBytes: requestBytes.modelUpload, action: ["model.edit", "analysis.run"] },
   async ({ params: { projectId }, body: input, user }) => {
-    const built = buildRevision(input);
+    const inline = input.kind === "uploadFiles" ? requestFromUploadedFiles(await readModelFiles({ projectId, userId: user.id, attachmentIds: input.attachmentIds }), input.name) : input;
+    const built = buildRevision(inline);
     if (!built.ok) {
       const count = built.problems.length;
       throw new ValidationError(
@@ -39,7 +42,15 @@ export const POST = projectRoute(
         `The model has ${count} problem${count === 1 ? "" : "s"}; nothing was saved.`,
       );
     }
-    const { revision, job } = await createRevision({ projectId, userId: user.id, name: built.name, model: built.model, source: built.source, originals: originalFiles(input) });
+    const { revision, job } = await createRevision({
+      projectId,
+      userId: user.id,
+      name: built.name,
+      model: built.model,
+      source: built.source,
+      originals: input.kind === "uploadFiles" ? [] : originalFiles(input),
+      uploadedFiles: input.kind === "uploadFiles" ? input.attachmentIds : [],
+    });
     return Response.json({ revision, job }, { status: 202 });
   },
 );

@@ -1,0 +1,23 @@
+// Turns the text of uploaded model files into the request buildRevision reads: one JSON model, or CSV tables.
+import { ValidationError } from "@/lib/http/errors";
+import type { InlineRevisionRequest } from "./schemas";
+
+export type UploadedModelFile = { filename: string; contentType: string; text: string };
+
+/** One JSON model file, or only CSV tables; anything else is a 400 naming the files. */
+export function requestFromUploadedFiles(files: UploadedModelFile[], name: string | undefined): InlineRevisionRequest {
+  const json = files.filter((f) => f.contentType === "application/json");
+  const csv = files.filter((f) => f.contentType === "text/csv");
+  if (json.length === 1 && csv.length === 0) {
+    let model: unknown;
+    try {
+      model = JSON.parse(json[0].text);
+    } catch {
+      throw new ValidationError([{ path: json[0].filename, message: "not valid JSON" }], `${json[0].filename} is not valid JSON.`);
+    }
+    return { kind: "uploadJson", name, fileName: json[0].filename, model };
+  }
+  if (csv.length === files.length) return { kind: "uploadCsv", name: name ?? "Uploaded model", tables: Object.fromEntries(csv.map((f) => [f.filename, f.text])) };
+  const message = "Upload one .json model file, or the .csv tables (nodes, members, sections, supports, loads…).";
+  throw new ValidationError([{ path: "attachmentIds", message }], message);
+}
