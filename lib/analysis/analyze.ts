@@ -1,6 +1,8 @@
 import { loadVectorForCase } from "./loads";
 import type { TrussModel } from "./model";
-import { prepareStructure, type Instability, type PreparedStructure } from "./prepare";
+import { describeModes, mechanismModes, nearMechanism, type MechanismMode } from "./mechanism";
+import { planSpan } from "./plan-span";
+import { prepareStructure, type Direction, type Instability, type PreparedStructure } from "./prepare";
 
 export type CaseResult = {
   memberForces: Record<string, number>;
@@ -27,8 +29,14 @@ export type AnalysisInfo = {
   governing: Record<string, { maxTension: string | null; maxCompression: string | null }>;
   /** Members below the threshold (kN) yet not zero-force, per result; only when a threshold was given. */
   lowForce?: { threshold: number; members: Record<string, string[]>; lowInAll: string[] };
-  /** The mechanism in plain words, one line per free node. */
+  /** The mechanism in plain words, one line per mode. */
   instabilityText?: string[];
+  /** How the structure can move when unstable: every moving joint and its direction (mechanism.ts). */
+  mechanismModes?: MechanismMode[];
+  /** Nearly a mechanism (a joint held only by a nearly weightless member), or displacements beyond span/50. */
+  warnings: string[];
+  /** The near-mechanism motion behind the first warning, when there is one. */
+  nearMechanism?: MechanismMode;
   solver: { dofs: number; equations: number; nonzerosK: number; nonzerosL: number };
 };
 
@@ -66,6 +74,46 @@ export function describeInstability(instability: Instability[]): string[] {
       `Node ${node} is free to move along ${directions.map((d) => directionWords[d]).join(", ").replace(/, (?=[^,]*$)/, " and ")}: no member or support holds it in ` +
       `${directions.length > 1 ? "those directions" : "that direction"} (a mechanism). Add a member or a support there.`,
   );
+}
+
+/**
+ * The design.md instability list from the mechanism modes: every moving joint with the axes along which it moves
+ * (components of at least 10 % of its motion), not the one pivot that happened to be flagged.
+ */
+export function instabilityFromModes(modes: MechanismMode[]): Instability[] {
+  const byNode = new Map<string, Set<Direction>>();
+  for (const mode of modes) {
+    for (const joint of mode.joints) {
+      const set = byNode.get(joint.node) ?? new Set<Direction>();
+      joint.direction.forEach((v, s) => Math.abs(v) >= 0.1 && set.add((["ux", "uy", "uz"] as const)[s]));
+      byNode.set(joint.node, set);
+    }
+  }
+  return [...byNode.entries()].map(([node, set]) => ({ node, directions: [...set].sort() }));
+}
+
+/** Small-displacement theory: warn where a displacement exceeds span/50 (common practice, from memory). */
+export const LARGE_DISPLACEMENT_FRACTION = 1 / 50;
+
+function largeDisplacementWarnings(model: TrussModel, results: Record<string, CaseResult>): string[] {
+  const span = planSpan(model);
+  const limit = span * LARGE_DISPLACEMENT_FRACTION;
+  const out: string[] = [];
+  for (const [id, r] of Object.entries(results)) {
+    let worst = 0;
+    let where = "";
+    for (const [node, d] of Object.entries(r.displacements)) {
+      const size = Math.hypot(d.ux, d.uy, d.uz);
+      if (size > worst) {
+        worst = size;
+        where = node;
+      }
+    }
+    if (worst > limit) {
+      out.push(`${id}: node ${where} moves ${worst.toPrecision(3)} m, more than span/50 = ${limit.toPrecision(3)} m: small-displacement theory no longer holds, so these results are not reliable.`);
+    }
+  }
+  return out;
 }
 
 function countCheck(model: TrussModel): AnalysisInfo["countCheck"] {
@@ -120,11 +168,19 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
     loadCasesInNoCombination:
       model.combinations.length > 0 ? model.loadCases.filter((c) => !model.combinations.some((k) => (k.factors[c.id] ?? 0) !== 0)).map((c) => c.id) : [],
     governing: {},
+    warnings: [],
     solver: structure.stats,
   };
   if (structure.status === "unstable") {
-    info.instabilityText = describeInstability(structure.instability);
-    return { status: "unstable", instability: structure.instability, results: {}, envelope: {}, zeroInAll: [], info };
+    const modes = mechanismModes(structure);
+    info.mechanismModes = modes;
+    info.instabilityText = describeModes(modes);
+    return { status: "unstable", instability: instabilityFromModes(modes), results: {}, envelope: {}, zeroInAll: [], info };
+  }
+  const near = nearMechanism(structure);
+  if (near) {
+    info.nearMechanism = near;
+    info.warnings.push(...describeModes([near]));
   }
 
   const results: Record<string, CaseResult> = {};
@@ -203,5 +259,6 @@ export function analyzeModel(model: TrussModel, options: AnalyzeOptions = {}): A
     info.lowForce = { threshold, members, lowInAll };
   }
 
+  info.warnings.push(...largeDisplacementWarnings(model, results));
   return { status: "ok", results, envelope, zeroInAll, info };
 }

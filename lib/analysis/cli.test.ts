@@ -49,7 +49,7 @@ describe("npm run analyze (scripts/analyze.ts)", () => {
     const { code, stdout, stderr } = run(file);
     expect(code).toBe(3);
     expect(JSON.parse(stdout)).toMatchObject({ status: "unstable", instability: [{ node: "C", directions: ["uy"] }] });
-    expect(stderr).toMatch(/Node C is free to move along y/);
+    expect(stderr).toMatch(/Mechanism 1: these joints move together with nothing resisting: C \(\+1\.00 y\)/);
   }, 60_000);
 
   it("--csv reads a folder of tables; problems name the CSV line", () => {

@@ -37,6 +37,9 @@ export {
 } from "./analyze";
 export { prepareStructure, PIVOT_TOLERANCE, type PreparedStructure, type Instability, type Direction } from "./prepare";
 export { loadVectorForCase } from "./loads";
+export { mechanismModes, nearMechanism, describeModes, type MechanismMode, type MovingJoint } from "./mechanism";
+export { instabilityFromModes } from "./analyze";
+export { planSpan } from "./plan-span";
 export { generateRoof, roofParamsSchema, demoRoof, type RoofParams } from "./generator";
 export { classifyMembers, type MemberClass } from "./classify";
 export { handleAnalysisRequest, type AnalysisRequest, type AnalysisResponse } from "./worker-protocol";

@@ -55,6 +55,11 @@ export type PreparedStructure = {
    * that building results does not hold it; solves afterwards throw.
    */
   release(): void;
+  /**
+   * The smallest pivot kept (not flagged) against its node's diagonal stiffness, and its dof: near 1e-9 a joint
+   * is held only by a nearly weightless member (nearly a mechanism); null when no pivot was kept.
+   */
+  smallestPivot: { ratio: number; dof: number } | null;
   stats: { dofs: number; equations: number; nonzerosK: number; nonzerosL: number };
   /** The ordering and supernode structure, to pass to prepareStructure for a structure of the same pattern. */
   symbolic: SymbolicAnalysis;
@@ -103,6 +108,14 @@ export function prepareStructure(model: TrussModel, options: { symbolic?: Symbol
   const instability = [...byNode.entries()]
     .sort((a, b) => a[0] - b[0])
     .map(([node, dirs]) => ({ node: topology.nodeIds[node], directions: dirs.sort() }));
+
+  let smallestPivot: PreparedStructure["smallestPivot"] = null;
+  for (let q = 0; q < factor.inversePivot.length; q++) {
+    const inverse = factor.inversePivot[q];
+    if (inverse === 0) continue;
+    const ratio = 1 / inverse / assembled.pivotScale[q];
+    if (!smallestPivot || ratio < smallestPivot.ratio) smallestPivot = { ratio, dof: dofOfEquation[q] };
+  }
 
   const factored = () => {
     if (!factor) throw new Error("the factor of this structure was released");
@@ -205,6 +218,7 @@ export function prepareStructure(model: TrussModel, options: { symbolic?: Symbol
     release() {
       factor = undefined;
     },
+    smallestPivot,
     stats: { dofs: 3 * n, equations: neq, nonzerosK: assembled.matrix.colPtr[neq], nonzerosL: symbolic.nnzL },
     timings: { assembly: t3 - t1 - orderingMs + (t1 - t0), ordering: orderingMs, factorisation: t4 - t3 },
   };

@@ -1,5 +1,6 @@
 // Serviceability: the largest vertical deflection of each serviceability combination against span / limit.
 import type { AnalysisResult, TrussModel } from "@/lib/analysis";
+import { planSpan } from "@/lib/analysis/plan-span";
 
 /**
  * Default deflection limit: span/250 for a roof (common practice, from memory; EN 1990 A1.4 leaves the values to
@@ -19,22 +20,8 @@ export type DeflectionCheck = {
   steps: string[];
 };
 
-/**
- * The span a deflection is measured against: the shorter plan side of the rectangle around the supported nodes
- * (the short span of a perimeter-supported grid); every node's when the supports lie on a line.
- */
-export function deflectionSpan(model: TrussModel): number {
-  const supported = new Set(model.supports.map((s) => s.node));
-  const side = (nodes: TrussModel["nodes"]) => {
-    const xs = nodes.map((n) => n.x);
-    const ys = nodes.map((n) => n.y);
-    const dx = Math.max(...xs) - Math.min(...xs);
-    const dy = Math.max(...ys) - Math.min(...ys);
-    return Math.min(dx, dy) > 1e-9 ? Math.min(dx, dy) : Math.max(dx, dy);
-  };
-  const onSupports = side(model.nodes.filter((n) => supported.has(n.id)));
-  return onSupports > 1e-9 ? onSupports : side(model.nodes);
-}
+/** The span deflections are measured against (lib/analysis/plan-span.ts). */
+export const deflectionSpan = planSpan;
 
 /** Checks every serviceability combination (kind "serviceability") for vertical deflection ≤ span / limit. */
 export function checkDeflections(model: TrussModel, result: AnalysisResult, limit = DEFAULT_DEFLECTION_LIMIT): DeflectionCheck[] {

@@ -1,5 +1,6 @@
 // Removal what-if: take members out, optionally add a load case, and re-analyse with the intact factor.
-import { describeInstability, loadVectorForCase, prepareStructure, zeroForceMask, type Combination, type Instability, type LoadCase, type TrussModel } from "@/lib/analysis";
+import { describeModes, instabilityFromModes, mechanismModes, type MechanismMode } from "@/lib/analysis";
+import { loadVectorForCase, prepareStructure, zeroForceMask, type Combination, type Instability, type LoadCase, type TrussModel } from "@/lib/analysis";
 import { buildTopology } from "@/lib/analysis/topology";
 import { STANDING_CAUTION } from "./caution";
 import type { ReviewContext } from "./context";
@@ -47,6 +48,8 @@ export type RemovalOutcome =
       mechanism: true;
       instability: Instability[];
       instabilityText: string[];
+      /** How the roof would move without the removed members: every moving joint and its direction. */
+      modes: MechanismMode[];
       caution: string;
     }
   | {
@@ -76,9 +79,9 @@ export function removalWhatIf(context: ReviewContext, request: RemovalRequest): 
   };
   const update = lowRankRemoval(structure, removedIdx);
   if (update.mechanism) {
-    // Rare path: factor the reduced model to say which joints are free.
-    const instability = prepareStructure(reduced).instability;
-    return { removed: request.remove, mechanism: true, instability, instabilityText: describeInstability(instability), caution: STANDING_CAUTION };
+    // Rare path: factor the reduced model and find its mechanism modes (every joint that moves, and how).
+    const modes = mechanismModes(prepareStructure(reduced));
+    return { removed: request.remove, mechanism: true, instability: instabilityFromModes(modes), instabilityText: describeModes(modes), modes, caution: STANDING_CAUTION };
   }
 
   // The intact displacements come from the analysis; the removed members' self-weight no longer acts, so
