@@ -2,6 +2,7 @@
 // the Yjs websocket endpoint, told apart by path on the `upgrade` event.
 import { createServer } from "node:http";
 import { Server } from "socket.io";
+import { checkHealth } from "@/lib/health";
 import { abilitiesOf } from "@/lib/permissions";
 import { SOCKET_PATH, YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { getLiveSession } from "@/db/queries/review-sessions";
@@ -15,8 +16,13 @@ import { createYjsUpgradeHandler } from "./yjs";
 
 /** Builds the realtime server (not yet listening); close() stores everything pending and stops it. */
 export function createRealtimeServer({ appUrl }: { appUrl: string }) {
-  const httpServer = createServer((_request, response) => {
-    response.writeHead(404, { "content-type": "application/json" }).end(JSON.stringify({ error: "Not found." }));
+  const httpServer = createServer((request, response) => {
+    const json = (status: number, body: unknown) => response.writeHead(status, { "content-type": "application/json", "cache-control": "no-store" }).end(JSON.stringify(body));
+    if (request.method === "GET" && request.url === "/health") {
+      void checkHealth("realtime").then(({ status, body }) => json(status, body));
+      return;
+    }
+    json(404, { error: "Not found." });
   });
   const io: RealtimeServer = new Server(httpServer, {
     path: SOCKET_PATH,

@@ -1,5 +1,7 @@
 // The product's processes (design.md, "Processes"), started the same way by `npm start` and by the tests.
 // "backing" services are the local fakes of hosted services; "app" services are Strutroom's own processes.
+import { mkdirSync } from "node:fs";
+import path from "node:path";
 import { startProcess } from "./processes.mjs";
 import { waitForPort } from "./ports.mjs";
 
@@ -33,7 +35,7 @@ const SERVICES = [
   },
   {
     // Mail outbox, upload sweep and daily digest on croner schedules (server/jobs/main.ts). It serves nothing, so
-    // it has no port to wait for; a crash is reported by processes.mjs.
+    // it has no port to wait for; a crash is logged and restarted by processes.mjs.
     name: "jobs",
     kind: "app",
     port: null,
@@ -43,11 +45,15 @@ const SERVICES = [
 
 /** Starts the services of the given kinds on loopback; resolves when each one accepts connections. */
 export async function startServices({ env, ports, kinds = ["backing", "app"], quiet = false }) {
+  // Each service's current process id, for operators and for the test that kills web and realtime.
+  const pids = path.join(env.STRUTROOM_DATA_DIR, "pids");
+  mkdirSync(pids, { recursive: true });
   for (const kind of kinds) {
     const group = SERVICES.filter((service) => service.kind === kind);
     for (const service of group) {
       const [command, args] = service.command(ports);
-      startProcess(service.name, command, args, { env, quiet });
+      // A crash of one process never leaves the site down: every service is restarted with back-off.
+      startProcess(service.name, command, args, { env, quiet, restart: true, pidFile: path.join(pids, `${service.name}.pid`) });
     }
     const listening = group.filter((service) => service.port);
     await Promise.all(listening.map((service) => waitForPort(service.port(ports), `The ${service.name} service`, 120_000)));
