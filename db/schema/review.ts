@@ -15,6 +15,7 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import type { PinViewpoint } from "../../lib/bcf/viewpoint";
 import { ANCHOR_KINDS, COMMENT_KINDS, DISCIPLINES, PIN_STATES, type SessionView } from "../../lib/realtime/events";
 import { projects, timestamps, users } from "./core";
 
@@ -54,9 +55,21 @@ export const pins = pgTable(
     authorId: uuid()
       .notNull()
       .references(() => users.id, { onDelete: "restrict" }),
+    // The view the pin was made in (camera, selected member, result, colouring, section box); a BCF viewpoint.
+    viewpoint: jsonb().$type<PinViewpoint>(),
+    // The BCF topic GUID of a pin imported from BCF (exports use it, else the pin id): re-imports merge into it.
+    bcfGuid: text(),
+    // Carried from BCF topics and written back on export.
+    labels: text().array().notNull().default(sql`'{}'::text[]`),
+    assignedTo: text(),
+    dueAt: timestamp({ withTimezone: true }),
     ...timestamps,
   },
-  (t) => [index("pins_project_idx").on(t.projectId, t.updatedAt), index("pins_anchor_idx").on(t.projectId, t.anchorKind, t.anchorId)],
+  (t) => [
+    index("pins_project_idx").on(t.projectId, t.updatedAt),
+    index("pins_anchor_idx").on(t.projectId, t.anchorKind, t.anchorId),
+    uniqueIndex("pins_bcf_guid_idx").on(t.projectId, t.bcfGuid),
+  ],
 );
 
 export const comments = pgTable(
@@ -73,9 +86,12 @@ export const comments = pgTable(
     body: text().notNull(),
     // Users named with @ in the body (resolved against the project's members when the comment was written).
     mentions: uuid().array().notNull().default(sql`'{}'::uuid[]`),
+    // The BCF comment GUID of an imported comment (a re-import skips it), and its author when not on the team.
+    bcfGuid: text(),
+    externalAuthor: text(),
     ...timestamps,
   },
-  (t) => [index("comments_pin_idx").on(t.pinId, t.createdAt)],
+  (t) => [index("comments_pin_idx").on(t.pinId, t.createdAt), uniqueIndex("comments_bcf_guid_idx").on(t.pinId, t.bcfGuid)],
 );
 
 export const notifications = pgTable(

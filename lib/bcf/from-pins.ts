@@ -1,0 +1,57 @@
+import type { Discipline, PinState } from "@/lib/realtime/events";
+import { TOPIC_STATUSES, TOPIC_TYPES } from "./pins";
+import type { BcfFile, BcfTopic } from "./types";
+import { toBcfViewpoint, type PinViewpoint } from "./viewpoint";
+
+/** A pin as the BCF export needs it (plain data; the route reads it from the database). */
+export interface PinForBcf {
+  id: string;
+  bcfGuid: string | null;
+  title: string;
+  state: PinState;
+  discipline: Discipline;
+  authorEmail: string;
+  createdAt: Date;
+  updatedAt: Date;
+  labels: string[];
+  assignedTo: string | null;
+  dueAt: Date | null;
+  anchor: string;
+  viewpoint: PinViewpoint | null;
+  comments: { id: string; bcfGuid: string | null; body: string; authorEmail: string; externalAuthor: string | null; createdAt: Date }[];
+}
+
+/**
+ * The topics of a BCF export: one per pin (GUID = the pin's BCF GUID when it came from BCF, else its id), each
+ * comment a comment, the pin's saved view a viewpoint referenced by the first comment. The viewpoint GUID is the
+ * topic GUID with its first group changed, so a re-export keeps it.
+ */
+export function bcfFromPins(project: { id: string; name: string }, pins: PinForBcf[], globalIdOf: (memberId: string) => string): BcfFile {
+  const topics: BcfTopic[] = pins.map((pin) => {
+    const guid = pin.bcfGuid ?? pin.id;
+    const viewpointGuid = `${"f".repeat(8)}${guid.slice(8)}`;
+    const viewpoints = pin.viewpoint ? [toBcfViewpoint(viewpointGuid, pin.viewpoint, globalIdOf)] : [];
+    return {
+      guid,
+      title: pin.title,
+      status: TOPIC_STATUSES[pin.state],
+      type: TOPIC_TYPES[pin.discipline],
+      creationDate: pin.createdAt.toISOString(),
+      creationAuthor: pin.authorEmail,
+      modifiedDate: pin.updatedAt.toISOString(),
+      dueDate: pin.dueAt?.toISOString(),
+      assignedTo: pin.assignedTo ?? undefined,
+      description: `Anchored on ${pin.anchor}.`,
+      labels: pin.labels,
+      comments: pin.comments.map((c, k) => ({
+        guid: c.bcfGuid ?? c.id,
+        date: c.createdAt.toISOString(),
+        author: c.externalAuthor ?? c.authorEmail,
+        text: c.body,
+        viewpointGuid: k === 0 && viewpoints.length > 0 ? viewpointGuid : undefined,
+      })),
+      viewpoints,
+    };
+  });
+  return { version: "3.0", project: { id: project.id, name: project.name }, topics };
+}
