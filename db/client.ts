@@ -32,6 +32,13 @@ export function getDb(): Database {
   return db;
 }
 
+/** The pg pool behind getDb(), for libraries that keep their own table through a pg client (sign-in limits). */
+export function getPool(): Pool {
+  getDb();
+  if (!pool) throw new Error("The database pool is not open.");
+  return pool;
+}
+
 /** Runs fn in one transaction: everything it writes commits together or not at all. */
 export function withTransaction<T>(fn: (tx: Transaction) => Promise<T>): Promise<T> {
   return getDb().transaction(fn);

@@ -3,7 +3,7 @@ import "server-only";
 // rate-limiter-flexible keeps the counts in PostgreSQL (table sign_in_limits, created by our migrations in the
 // library's layout), so every web process shares them and a restart forgets nothing.
 import { RateLimiterPostgres, type RateLimiterRes } from "rate-limiter-flexible";
-import { getDb } from "@/db/client";
+import { getPool } from "@/db/client";
 import { verifyCredentials } from "@/db/queries/users";
 
 export const SIGN_IN_LIMITS = {
@@ -34,7 +34,7 @@ let limiters: Limiters | undefined;
 
 function getLimiters(): Limiters {
   if (!limiters) {
-    const store = { storeClient: getDb().$client, tableName: "sign_in_limits", tableCreated: true };
+    const store = { storeClient: getPool(), tableName: "sign_in_limits", tableCreated: true };
     limiters = {
       account: new RateLimiterPostgres({ ...store, keyPrefix: "account", points: SIGN_IN_LIMITS.account.failures, duration: SIGN_IN_LIMITS.account.windowSeconds }),
       address: new RateLimiterPostgres({ ...store, keyPrefix: "address", points: SIGN_IN_LIMITS.address.failures, duration: SIGN_IN_LIMITS.address.windowSeconds }),
