@@ -37,7 +37,7 @@ function needsBuild() {
   if (!existsSync(buildId)) return true;
   const built = statSync(buildId).mtimeMs;
   const sources = ["app", "components", "lib", "db", "public"].filter((d) => existsSync(d)).map((d) => newestSource(path.join(root, d)));
-  const configs = ["package-lock.json", "next.config.mjs", "tailwind.config.ts"].map((f) => statSync(f).mtimeMs);
+  const configs = ["package-lock.json", "next.config.ts", "tailwind.config.ts"].map((f) => statSync(f).mtimeMs);
   return Math.max(...sources, ...configs) > built;
 }
 
