@@ -3,6 +3,7 @@
 import { createServer } from "node:http";
 import { Server } from "socket.io";
 import { checkHealth } from "@/lib/health";
+import { realtime } from "@/lib/limits";
 import { abilitiesOf } from "@/lib/permissions";
 import { SOCKET_PATH, YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { getLiveSession } from "@/db/queries/review-sessions";
@@ -26,6 +27,9 @@ export function createRealtimeServer({ appUrl }: { appUrl: string }) {
   });
   const io: RealtimeServer = new Server(httpServer, {
     path: SOCKET_PATH,
+    // Room above the per-event cap (server/handle-event.ts answers oversized events with an error); beyond this
+    // socket.io closes the connection.
+    maxHttpBufferSize: 16 * realtime.socketPayloadBytes,
     cors: { origin: new URL(appUrl).origin, credentials: true },
     // CORS does not cover websockets: browsers from other sites are turned away here.
     allowRequest: (request, callback) => callback(null, isAllowedOrigin(request.headers, appUrl)),

@@ -3,6 +3,7 @@
 import type { Socket } from "socket.io";
 import type { z } from "zod";
 import { errorBody, issuesFrom } from "@/lib/http/errors";
+import { formatBytes, realtime } from "@/lib/limits";
 import { findUnstorableText } from "@/lib/text";
 import type { Ack, ClientToServerEvents, ServerToClientEvents } from "@/lib/realtime/events";
 import type { SocketData } from "./context";
@@ -28,6 +29,12 @@ export function onEvent<S extends z.ZodType, T>(
 ) {
   // socket.io's typed `on` cannot express one generic listener for several events; the payload is unknown anyway.
   (socket.on as (event: string, listener: (payload: unknown, ack?: unknown) => void) => void)(event, (payload, ack) => {
+    const size = JSON.stringify(payload ?? null).length;
+    if (size > realtime.socketPayloadBytes) {
+      const error = `The message is ${formatBytes(size)}; messages are at most ${formatBytes(realtime.socketPayloadBytes)}.`;
+      reply(socket, event, ack, { ok: false, error });
+      return;
+    }
     const unstorable = findUnstorableText(payload);
     if (unstorable.length) {
       const issues = unstorable.map((p) => ({ path: p.path.map(String).join("."), message: p.message }));

@@ -7,6 +7,7 @@ import { WebSocketServer, type WebSocket } from "ws";
 import * as Y from "yjs";
 import { docs, getYDoc, setPersistence, setupWSConnection, type WSSharedDoc } from "@y/websocket-server/utils";
 import { appendYjsUpdate, compactYjsUpdates, loadYjsUpdates } from "@/db/queries/live-documents";
+import { realtime } from "@/lib/limits";
 import { YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { authorize } from "@/lib/permissions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
@@ -136,7 +137,8 @@ function refuse(socket: Duplex, status: number, message: string) {
 /** Handles a websocket upgrade to /yjs/<projectId>: authenticate, load the document, then hand over to Yjs. */
 export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
   setPersistence({ provider: null, bindState, writeState });
-  const wss = new WebSocketServer({ noServer: true });
+  // A larger message closes the connection with 1009 "Message Too Big" (the reason the client sees).
+  const wss = new WebSocketServer({ noServer: true, maxPayload: realtime.yjsUpdateBytes });
   const compaction = setInterval(() => {
     for (const projectId of docs.keys()) void compactYjsUpdates({ projectId }).catch((error) => console.error("[realtime] compaction failed", error));
   }, COMPACT_EVERY_MS);

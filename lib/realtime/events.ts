@@ -198,6 +198,23 @@ export interface ClientToServerEvents {
   "sync:since": (payload: unknown, ack?: AckFn<CatchUp>) => void;
 }
 
+/** Every client event, as a value: the hostile-input suite sends bad payloads to each (completeness checked below). */
+export const CLIENT_EVENTS = [
+  "session:start",
+  "session:handover",
+  "session:end",
+  "session:view",
+  "presence:follow",
+  "cursor:move",
+  "pin:create",
+  "pin:set-state",
+  "comment:create",
+  "sync:since",
+] as const satisfies readonly (keyof ClientToServerEvents)[];
+// A compile error here means an event of ClientToServerEvents is missing from CLIENT_EVENTS.
+export type MissingClientEvents = Exclude<keyof ClientToServerEvents, (typeof CLIENT_EVENTS)[number]>;
+export const clientEventsComplete: [MissingClientEvents] extends [never] ? true : never = true;
+
 /** The socket.io path and the Yjs path prefix of the realtime server (one port for both). */
 export const SOCKET_PATH = "/socket.io";
 export const YJS_PATH_PREFIX = "/yjs/";
