@@ -29,7 +29,7 @@ describe("reviewModel", () => {
     expect(member("U2L2").governing).toBeNull();
     // U1L1 carries 0 in 4a (zero-force, not low-force), 10 kN in 4b (under 10.5 kN) and 15 kN in C1.
     expect(member("U1L1").lowForceIn).toEqual(["4b"]);
-    expect(review.summary.verdicts).toEqual({ "load-bearing": 12, stabilising: 1, bracing: 1, idle: 4 });
+    expect(review.summary.verdicts).toEqual({ "load-bearing": 12, stabilising: 1, bracing: 0, idle: 5 });
     expect(review.caution).toBe(STANDING_CAUTION);
   });
 

@@ -44,7 +44,7 @@ export function prattTruss(): TrussModel {
  * The Pratt truss with extras whose role is known by statics. Node X is held by four members to fully restrained
  * nodes, no three of them in a plane through X: they never carry force and any one can go (idle). U2W runs in
  * line with U2's own y restraint to a fixed node W: never any force, and it frames into the compressed top
- * chords at U2 (bracing by our definition).
+ * chords at U2, but U2's support holds it across them anyway, so by stability it braces nothing (idle).
  */
 export function prattWithExtras(): TrussModel {
   const model = prattTruss();

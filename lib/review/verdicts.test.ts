@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "@/lib/analysis";
+import { pointLoads, trussModel } from "@/lib/analysis/test-fixtures";
 import { STANDING_CAUTION } from "./caution";
 import { createReviewContext } from "./context";
 import { prattWithExtras } from "./test-models";
@@ -14,12 +15,54 @@ describe("memberVerdicts", () => {
     expect(verdicts.get("U2L2")?.verdict).toBe("stabilising");
     expect(verdicts.get("U1L1")?.verdict).toBe("load-bearing"); // +10 kN in 4b
     expect(verdicts.get("L0L1")?.verdict).toBe("load-bearing");
-    expect(verdicts.get("U2W")?.verdict).toBe("bracing");
-    expect(verdicts.get("U2W")?.braces?.sort()).toEqual(["U1U2", "U2U3"]);
+    // U2W frames into the compressed top chords at U2, but U2's own y support holds U2 across them: by stability
+    // it braces nothing (counting members called it bracing, a false alarm)
+    expect(verdicts.get("U2W")?.verdict).toBe("idle");
     for (const id of ["XL0", "XS1", "XS2", "XS3"]) expect(verdicts.get(id)?.verdict).toBe("idle");
   });
 
   it("carries the standing caution with every verdict", () => {
     for (const v of verdicts.values()) expect(v.caution).toBe(STANDING_CAUTION);
+  });
+});
+
+describe("bracing judged by stability (issue 15 item 3)", () => {
+  // A column A(0,0,0)–M(0,0,2)–T(0,0,4), 10 kN down at T; T held in x and y, A pinned. M is held across the column
+  // along x by MB (to a fixed B 2 m away, EA/L = 2e8·0.001/2 = 1e5 kN/m) and by MD (fixed D 3 m away, area 1e-8:
+  // EA/L = 2e8·1e-8/3 = 0.667 kN/m), along y by MY. Horizontal members at M never carry force (first order).
+  // A brace must give k ≥ 4P/L = 4·10/2 = 20 kN/m (restraint.ts: Winter's 2P/L doubled).
+  const model = trussModel({
+    nodes: [
+      ["A", 0, 0, 0],
+      ["M", 0, 0, 2],
+      ["T", 0, 0, 4],
+      ["B", 2, 0, 2],
+      ["D", -3, 0, 2],
+      ["Y", 0, 2, 2],
+    ],
+    members: ["A-M", "M-T", "M-B", "M-D", "M-Y"],
+    supports: [["A", true, true, true], ["T", true, true, false], ["B", true, true, true], ["D", true, true, true], ["Y", true, true, true]],
+    loadCases: [pointLoads("P", [["T", 0, 0, -10]])],
+  });
+  model.sections.push({ ...model.sections[0], id: "thin", area: 1e-8 });
+  model.members.find((m) => m.id === "MD")!.section = "thin";
+  const verdicts = new Map(memberVerdicts(createReviewContext(model, analyzeModel(model), { standard: "EN1993-1-1" })).map((v) => [v.member, v]));
+
+  it("the only adequate brace is bracing, and says which joint loses its hold and in which direction", () => {
+    const v = verdicts.get("MB")!;
+    expect(v.verdict).toBe("bracing");
+    expect(v.braces?.sort()).toEqual(["AM", "MT"]);
+    const lost = v.lostRestraints!.find((l) => l.member === "AM")!;
+    expect(lost.joint).toBe("M");
+    expect(Math.abs(lost.direction[0])).toBeCloseTo(1, 9);
+    expect(lost.stiffnessAfter).toBeCloseTo((2e8 * 1e-8) / 3, 6);
+    // before: the weakest direction across the column is y (MY alone, 1e5 kN/m; x has 1e5 + 0.667)
+    expect(lost.stiffnessBefore).toBeCloseTo(1e5, 3);
+    expect(lost.required).toBeCloseTo(20, 9);
+  });
+
+  it("a second brace that leaves the joint held is idle; the only hold along y is stabilising", () => {
+    expect(verdicts.get("MD")?.verdict).toBe("idle");
+    expect(verdicts.get("MY")?.verdict).toBe("stabilising");
   });
 });
