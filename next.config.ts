@@ -13,7 +13,7 @@ const nextConfig: NextConfig = {
   reactStrictMode: true,
   poweredByHeader: false,
   // Server-only packages with native or dynamic requires stay out of the bundle.
-  serverExternalPackages: ["pg", "pdfkit", "nodemailer", "@aws-sdk/client-s3"],
+  serverExternalPackages: ["pg", "pdfkit", "nodemailer", "@aws-sdk/client-s3", "web-ifc"],
   // forbidden() and app/forbidden.tsx: a project member whose role may not open a page sees "not allowed" (403).
   experimental: { authInterrupts: true },
   async headers() {
