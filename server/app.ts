@@ -10,13 +10,14 @@ import { getLiveSession } from "@/db/queries/review-sessions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
 import { createCursorBatcher } from "./cursor-batcher";
 import { projectRoom, userRoom, type RealtimeServer } from "./context";
+import { startLiveEventPublisher } from "./live-events";
 import { flushViews } from "./live-session-state";
 import { registerPinEvents } from "./pin-events";
 import { broadcastPresence, registerSessionEvents } from "./session-events";
 import { createYjsUpgradeHandler } from "./yjs";
 
 /** Builds the realtime server (not yet listening); close() stores everything pending and stops it. */
-export function createRealtimeServer({ appUrl }: { appUrl: string }) {
+export function createRealtimeServer({ appUrl, databaseUrl }: { appUrl: string; databaseUrl: string }) {
   const httpServer = createServer((request, response) => {
     const json = (status: number, body: unknown) => response.writeHead(status, { "content-type": "application/json", "cache-control": "no-store" }).end(JSON.stringify(body));
     if (request.method === "GET" && request.url === "/health") {
@@ -38,6 +39,7 @@ export function createRealtimeServer({ appUrl }: { appUrl: string }) {
   });
   const yjs = createYjsUpgradeHandler({ appUrl });
   const cursors = createCursorBatcher(io);
+  const liveEvents = startLiveEventPublisher({ io, yjs, connectionString: databaseUrl });
   httpServer.on("upgrade", (request, socket, head) => {
     const url = request.url ?? "";
     if (url.startsWith(YJS_PATH_PREFIX)) yjs.handleUpgrade(request, socket, head);
@@ -85,6 +87,7 @@ export function createRealtimeServer({ appUrl }: { appUrl: string }) {
     /** Stops accepting, closes every connection and writes what is pending (views, Yjs documents). */
     async close() {
       cursors.close();
+      await liveEvents.stop();
       await yjs.close();
       await new Promise<void>((resolve) => io.close(() => resolve()));
       await flushViews();

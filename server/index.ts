@@ -9,7 +9,7 @@ function required(name: string): string {
 }
 
 const port = Number(required("REALTIME_PORT"));
-const server = createRealtimeServer({ appUrl: required("APP_URL") });
+const server = createRealtimeServer({ appUrl: required("APP_URL"), databaseUrl: required("DATABASE_URL") });
 server.httpServer.listen(port, "127.0.0.1", () => console.log(`[realtime] listening on 127.0.0.1:${port}`));
 
 let stopping = false;

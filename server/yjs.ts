@@ -134,6 +134,13 @@ function refuse(socket: Duplex, status: number, message: string) {
   socket.end(`HTTP/1.1 ${status} ${message.replace(/[\r\n]/g, " ")}\r\nConnection: close\r\nContent-Length: 0\r\n\r\n`);
 }
 
+// Who holds each open connection, so a team change can close that person's connections on that project.
+const holders = new Map<WebSocket, { projectId: string; userId: string }>();
+function holdConnection(ws: WebSocket, projectId: string, userId: string) {
+  holders.set(ws, { projectId, userId });
+  ws.once("close", () => holders.delete(ws));
+}
+
 /** Handles a websocket upgrade to /yjs/<projectId>: authenticate, load the document, then hand over to Yjs. */
 export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
   setPersistence({ provider: null, bindState, writeState });
@@ -151,6 +158,7 @@ export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
     if (isRefusal(who)) return refuse(socket, who.status, who.message);
     await openDocument(who.projectId);
     wss.handleUpgrade(request, socket, head, (ws) => {
+      holdConnection(ws, who.projectId, who.user.id);
       gateMessages(ws, { projectId: who.projectId, mayEdit: authorize({ role: who.role, userId: who.user.id }, "notes.edit") });
       setupWSConnection(ws, request, { docName: who.projectId });
     });
@@ -162,6 +170,14 @@ export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
         console.error("[realtime] Yjs upgrade failed", error);
         refuse(socket, 500, "Internal Server Error");
       });
+    },
+    /**
+     * Closes the person's connections to the project's document. y-websocket clients treat 4400–4499 as final
+     * (removed from the team) and reconnect after any other code (a changed role: read or write is decided anew).
+     */
+    closeConnectionsOf(projectId: string, userId: string, { removed }: { removed: boolean }) {
+      const [code, reason] = removed ? [4403, "You are no longer on this project's team."] : [4000, "Your role on this project changed."];
+      for (const [ws, holder] of holders) if (holder.projectId === projectId && holder.userId === userId) ws.close(code, reason);
     },
     /** Closes every Yjs connection and stores every open document (shutdown). */
     async close() {

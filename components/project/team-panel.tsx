@@ -2,9 +2,8 @@
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import { changeMemberRole } from "@/app/(app)/projects/[projectId]/actions";
 import type { PresentedMember } from "@/db/queries/memberships";
-import { apiFetch } from "@/lib/http/fetcher";
+import { ApiError, apiFetch } from "@/lib/http/fetcher";
 import { ROLES, ROLE_LABELS, type Role } from "@/lib/permissions";
 import { Button, FormMessage } from "@/components/ui/form";
 import { RoleBadge } from "./role-badge";
@@ -21,9 +20,13 @@ export function TeamPanel({ projectId, canManage, currentUserId }: { projectId: 
   });
   const changeRole = useMutation({
     mutationFn: async (input: { userId: string; role: Role }) => {
-      const result = await changeMemberRole({ projectId, ...input });
-      if (!result.ok) throw new Error(result.issues?.[0]?.message ?? result.error);
-      return result.data;
+      try {
+        const { member } = await apiFetch<{ member: PresentedMember }>(`/api/projects/${projectId}/members`, { method: "PATCH", body: input });
+        return member;
+      } catch (error) {
+        // The field's own words ("A project needs at least one owner.") say more than the summary.
+        throw error instanceof ApiError && error.issues[0] ? new Error(error.issues[0].message) : error;
+      }
     },
     onSuccess: (member) => setMessage({ tone: "success", text: `${member.name} is now ${ROLE_LABELS[member.role]}.` }),
     onError: (error) => setMessage({ tone: "error", text: error.message }),

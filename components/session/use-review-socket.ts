@@ -3,7 +3,9 @@
 // exponential back-off (socket.io's own, 0.5 s doubling to 10 s, jittered), catching up on what was missed after
 // each reconnect. Writes made while offline wait in socket.io's send buffer and go out on reconnect; their
 // client-made ids make a resend harmless.
+import { useQueryClient } from "@tanstack/react-query";
 import { useEffect } from "react";
+import { staleQueryKeys } from "@/components/live/invalidation";
 import { io } from "socket.io-client";
 import { apiFetch } from "@/lib/http/fetcher";
 import type { Ack, CatchUp, ClientToServerEvents, PresentedPin } from "@/lib/realtime/events";
@@ -21,6 +23,7 @@ const RECONNECT = { reconnectionDelay: 500, reconnectionDelayMax: 10_000, random
 
 /** Connects to the project's room; returns the socket once created (null before the effect has run). */
 export function useReviewSocket(projectId: string, realtimeUrl: string): ReviewSocket | null {
+  const queryClient = useQueryClient();
   useEffect(() => {
     const store = useSessionStore.getState;
     const client: ReviewSocket = io(realtimeUrl, {
@@ -61,8 +64,17 @@ export function useReviewSocket(projectId: string, realtimeUrl: string): ReviewS
     client.on("pin:updated", (pin) => store().upsertPins([pin]));
     client.on("comment:created", (comment) => store().addComments([comment]));
     client.on("notification:created", (notification) => store().addNotifications([notification]));
+    // Changes made through the web app (a clash decided, runs imported, the team changed): refetch them.
+    client.on("live:invalidate", (invalidation) => {
+      for (const queryKey of staleQueryKeys(projectId, invalidation)) void queryClient.invalidateQueries({ queryKey });
+    });
+    client.on("access:changed", (access) => store().welcome({ ...access, session: store().session, serverTime: store().lastServerTime ?? new Date().toISOString() }));
+    client.on("access:revoked", ({ message }) => store().setConnection("refused", message));
     client.on("realtime:error", (error) => console.warn(`[review] ${error.event}: ${error.error}`));
-    client.on("disconnect", () => store().setConnection("reconnecting"));
+    client.on("disconnect", (reason) => {
+      // The server closed it (removed from the team): final, and the refusal message is already shown.
+      if (reason !== "io server disconnect") store().setConnection("reconnecting");
+    });
     client.io.on("reconnect_attempt", () => store().setConnection("reconnecting"));
     client.on("connect_error", (error) => {
       // A refused handshake is final (signed out, not on the team); a network error is retried by socket.io.
@@ -74,7 +86,7 @@ export function useReviewSocket(projectId: string, realtimeUrl: string): ReviewS
       client.disconnect();
       useSessionStore.getState().reset(null);
     };
-  }, [projectId, realtimeUrl]);
+  }, [projectId, realtimeUrl, queryClient]);
 
   return useSessionStore((s) => s.socket);
 }

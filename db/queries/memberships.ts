@@ -1,10 +1,8 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
-import { getDb, withTransaction, type Executor } from "@/db/client";
+import { getDb, type Executor } from "@/db/client";
 import { memberships, users, type Membership } from "@/db/schema";
 import { ROLES, type Role } from "@/lib/permissions";
-import { ConflictError, NotFoundError } from "@/lib/http/errors";
-import { recordAuditEvent } from "./audit";
 
 export type PresentedMember = { userId: string; name: string; email: string; role: Role; joinedAt: string };
 
@@ -37,46 +35,17 @@ export async function addMember({ projectId, userId, role, db = getDb() }: { pro
   return row;
 }
 
-/** Changes a member's role and records it; a project always keeps at least one owner. */
-export async function updateMemberRole({ projectId, userId, role, actorId }: { projectId: string; userId: string; role: Role; actorId: string }): Promise<PresentedMember> {
-  return withTransaction(async (tx) => {
-    // Lock the project's memberships so two concurrent demotions cannot both pass the last-owner check.
-    const team = await tx.select().from(memberships).where(eq(memberships.projectId, projectId)).for("update");
-    const current = team.find((m) => m.userId === userId);
-    if (!current) throw new NotFoundError("That person is not on this project.");
-    if (current.role === role) throw new ConflictError(`They already have this role.`, [{ path: "role", message: "This is already their role." }]);
-    const owners = team.filter((m) => m.role === "owner").length;
-    if (current.role === "owner" && owners <= 1) {
-      throw new ConflictError("A project needs at least one owner: make someone else owner first.", [
-        { path: "role", message: "A project needs at least one owner." },
-      ]);
-    }
-    await tx.update(memberships).set({ role }).where(eq(memberships.id, current.id));
-    await recordAuditEvent({
-      db: tx,
-      projectId,
-      actorId,
-      action: "member.role_changed",
-      subjectType: "user",
-      subjectId: userId,
-      details: { from: current.role, to: role },
-    });
-    const [member] = (await listMembersByProject({ projectId, db: tx })).filter((m) => m.userId === userId);
-    return member;
-  });
+/** The project's memberships, locked until the transaction ends (so two concurrent team changes see each other). */
+export function lockTeam({ projectId, db }: { projectId: string; db: Executor }): Promise<Membership[]> {
+  return db.select().from(memberships).where(eq(memberships.projectId, projectId)).for("update");
 }
 
-/** Removes a member from the project and records it; a project always keeps at least one owner. */
-export async function removeMember({ projectId, userId, actorId }: { projectId: string; userId: string; actorId: string }): Promise<void> {
-  await withTransaction(async (tx) => {
-    // Same lock as updateMemberRole: two concurrent removals cannot both pass the last-owner check.
-    const team = await tx.select().from(memberships).where(eq(memberships.projectId, projectId)).for("update");
-    const current = team.find((m) => m.userId === userId);
-    if (!current) throw new NotFoundError("That person is not on this project.");
-    if (current.role === "owner" && team.filter((m) => m.role === "owner").length <= 1) {
-      throw new ConflictError("A project needs at least one owner: make someone else owner first.");
-    }
-    await tx.delete(memberships).where(eq(memberships.id, current.id));
-    await recordAuditEvent({ db: tx, projectId, actorId, action: "member.removed", subjectType: "user", subjectId: userId, details: { role: current.role } });
-  });
+/** Sets one membership's role. */
+export async function setMembershipRole({ membershipId, role, db }: { membershipId: string; role: Role; db: Executor }): Promise<void> {
+  await db.update(memberships).set({ role }).where(eq(memberships.id, membershipId));
+}
+
+/** Deletes one membership. */
+export async function deleteMembership({ membershipId, db }: { membershipId: string; db: Executor }): Promise<void> {
+  await db.delete(memberships).where(eq(memberships.id, membershipId));
 }

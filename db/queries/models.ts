@@ -182,3 +182,9 @@ export async function withNextRevision<T>(write: (tx: Transaction) => Promise<T>
 export function createRevisionWithAnalysis(input: CreateRevisionInput): Promise<{ id: string; number: number }> {
   return withNextRevision((tx) => insertRevisionWithAnalysis(tx, input));
 }
+
+/** The number of a revision given its id (null when it does not exist). */
+export async function getRevisionNumber({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<number | null> {
+  const [row] = await db.select({ number: modelRevisions.number }).from(modelRevisions).where(eq(modelRevisions.id, revisionId)).limit(1);
+  return row?.number ?? null;
+}

@@ -6,3 +6,4 @@ export * from "./mail";
 export * from "./models";
 export * from "./mep";
 export * from "./jobs";
+export * from "./live";

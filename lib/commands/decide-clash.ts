@@ -1,11 +1,11 @@
 import "server-only";
-import { withTransaction } from "@/db/client";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, updateClashSummary } from "@/db/queries/clashes";
 import { CLASH_OUTCOME_LABELS, type DecideClashInput } from "@/lib/clash/outcomes";
 import { ConflictError, ForbiddenError } from "@/lib/http/errors";
 import { notifyClashStep } from "@/lib/mail/notify";
 import { clashDecisionRefusal } from "@/lib/permissions";
+import { runCommand } from "./command";
 import { lockClashForStep, type ClashActor } from "./clash-context";
 
 /**
@@ -14,8 +14,8 @@ import { lockClashForStep, type ClashActor } from "./clash-context";
  * Appended to the history; mailed as a decision to the proposer and the assignee.
  */
 export async function decideClash({ projectId, clashId, actor, input }: { projectId: string; clashId: string; actor: ClashActor; input: DecideClashInput }): Promise<{ entryId: string }> {
-  return withTransaction(async (tx) => {
-    const { clash, analysisRunId } = await lockClashForStep(tx, projectId, clashId);
+  return runCommand(async ({ tx, live }) => {
+    const { clash, analysisRunId, revision } = await lockClashForStep(tx, projectId, clashId);
     if (clash.status === "closed") throw new ConflictError(`This clash is closed: ${clash.closedReason ?? "its member or run changed"}.`);
     if (clash.decidedAt) throw new ConflictError("This clash is already decided; supersede the decision, with a reason, to decide it again.");
     if (!clash.outcome) throw new ConflictError("Nothing is proposed on this clash yet; a proposal comes first.");
@@ -33,6 +33,7 @@ export async function decideClash({ projectId, clashId, actor, input }: { projec
     await recordAuditEvent({ db: tx, projectId, actorId: actor.userId, action: "clash.decide", subjectType: "clash", subjectId: clashId, details: { entryId, outcome: input.outcome, conditions, reason, note } });
     const details = [conditions ? `Conditions: ${conditions}` : "", reason ? `Reason: ${reason}` : "", note ? `Note: ${note}` : ""].filter(Boolean);
     await notifyClashStep({ db: tx, projectId, clashId, entryId, step: "decision", outcome: input.outcome, details, actorId: actor.userId, recipientIds: [clash.proposedBy, clash.assigneeId] });
+    await live({ projectId, kind: "clash", subjectId: clashId, revision });
     return { entryId };
   });
 }

@@ -1,10 +1,10 @@
 import "server-only";
-import { withTransaction } from "@/db/client";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, updateClashSummary } from "@/db/queries/clashes";
 import { CLASH_OUTCOME_LABELS, type ProposeOutcomeInput } from "@/lib/clash/outcomes";
 import { ConflictError } from "@/lib/http/errors";
 import { notifyClashStep, structuralEngineerIds } from "@/lib/mail/notify";
+import { runCommand } from "./command";
 import { lockClashForStep, type ClashActor } from "./clash-context";
 
 /**
@@ -13,8 +13,8 @@ import { lockClashForStep, type ClashActor } from "./clash-context";
  * a proposal to the assignee and the structural engineers who decide it.
  */
 export async function proposeClashOutcome({ projectId, clashId, actor, input }: { projectId: string; clashId: string; actor: ClashActor; input: ProposeOutcomeInput }): Promise<{ entryId: string }> {
-  return withTransaction(async (tx) => {
-    const { clash, analysisRunId } = await lockClashForStep(tx, projectId, clashId);
+  return runCommand(async ({ tx, live }) => {
+    const { clash, analysisRunId, revision } = await lockClashForStep(tx, projectId, clashId);
     if (clash.status === "closed") throw new ConflictError(`This clash is closed: ${clash.closedReason ?? "its member or run changed"}.`);
     if (clash.decidedAt && clash.outcome) {
       throw new ConflictError(
@@ -36,6 +36,7 @@ export async function proposeClashOutcome({ projectId, clashId, actor, input }: 
       actorId: actor.userId,
       recipientIds: [clash.assigneeId, ...(await structuralEngineerIds({ db: tx, projectId }))],
     });
+    await live({ projectId, kind: "clash", subjectId: clashId, revision });
     return { entryId };
   });
 }

@@ -1,10 +1,10 @@
 import "server-only";
-import { withTransaction } from "@/db/client";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, latestDecisionEntry, updateClashSummary } from "@/db/queries/clashes";
 import type { SupersedeDecisionInput } from "@/lib/clash/outcomes";
 import { ConflictError } from "@/lib/http/errors";
 import { notifyClashStep } from "@/lib/mail/notify";
+import { runCommand } from "./command";
 import { lockClashForStep, type ClashActor } from "./clash-context";
 
 /**
@@ -13,8 +13,8 @@ import { lockClashForStep, type ClashActor } from "./clash-context";
  * decider, the proposer and the assignee.
  */
 export async function supersedeClashDecision({ projectId, clashId, actor, input }: { projectId: string; clashId: string; actor: ClashActor; input: SupersedeDecisionInput }): Promise<{ entryId: string }> {
-  return withTransaction(async (tx) => {
-    const { clash, analysisRunId } = await lockClashForStep(tx, projectId, clashId);
+  return runCommand(async ({ tx, live }) => {
+    const { clash, analysisRunId, revision } = await lockClashForStep(tx, projectId, clashId);
     if (!clash.decidedAt || !clash.outcome) throw new ConflictError("There is no standing decision on this clash to supersede.");
     const superseded = await latestDecisionEntry(tx, { projectId, clashKey: clash.clashKey });
     const entryId = await appendClashEntry(tx, {
@@ -31,6 +31,7 @@ export async function supersedeClashDecision({ projectId, clashId, actor, input 
     await updateClashSummary(tx, clashId, { outcome: null, note: "", conditions: null, proposedBy: null, proposedAt: null, decidedBy: null, decidedAt: null, recheckReason: null });
     await recordAuditEvent({ db: tx, projectId, actorId: actor.userId, action: "clash.supersede", subjectType: "clash", subjectId: clashId, details: { entryId, superseded: superseded?.id ?? null, outcome: clash.outcome, reason: input.reason } });
     await notifyClashStep({ db: tx, projectId, clashId, entryId, step: "supersession", outcome: clash.outcome, details: [`Reason: ${input.reason}`], actorId: actor.userId, recipientIds: [clash.decidedBy, clash.proposedBy, clash.assigneeId] });
+    await live({ projectId, kind: "clash", subjectId: clashId, revision });
     return { entryId };
   });
 }

@@ -2,6 +2,7 @@
 // payload in either direction has a zod schema here, so client and server share one definition.
 import { z } from "zod";
 import { ROLES } from "../permissions";
+import type { Invalidation } from "./live-events";
 
 export const PIN_STATES = ["open", "answered", "closed"] as const;
 export type PinState = (typeof PIN_STATES)[number];
@@ -181,6 +182,12 @@ export interface ServerToClientEvents {
   "comment:created": (comment: PresentedComment) => void;
   "notification:created": (notification: PresentedNotification) => void;
   "realtime:error": (error: RealtimeError) => void;
+  /** Something of the project changed through the web app: refetch it (lib/realtime/live-events.ts). */
+  "live:invalidate": (invalidation: Invalidation) => void;
+  /** The person's role on the project changed: what they may do now (the server already applies it). */
+  "access:changed": (access: Pick<Welcome, "user" | "abilities">) => void;
+  /** The person was removed from the project; the server closes the connection right after. */
+  "access:revoked": (notice: { message: string }) => void;
 }
 
 type AckFn<T> = (ack: Ack<T>) => void;

@@ -1,0 +1,20 @@
+import { describe, expect, it } from "vitest";
+import { staleQueryKeys } from "./invalidation";
+
+describe("staleQueryKeys", () => {
+  it("refetches the clash list and that clash's history after a decision", () => {
+    expect(staleQueryKeys("p1", { kind: "clash", id: "c1", revision: 2 })).toEqual([
+      ["projects", "p1", "clashes"],
+      ["projects", "p1", "clash", "c1"],
+    ]);
+  });
+
+  it("refetches runs and clashes after a runs change, revisions after a new revision, the team after a team change", () => {
+    expect(staleQueryKeys("p1", { kind: "runs", id: "r", revision: 1 })).toEqual([
+      ["projects", "p1", "runs"],
+      ["projects", "p1", "clashes"],
+    ]);
+    expect(staleQueryKeys("p1", { kind: "revision", id: "r", revision: 3 })).toEqual([["projects", "p1", "models"]]);
+    expect(staleQueryKeys("p1", { kind: "member", id: "u", revision: null })).toEqual([["projects", "p1", "members"]]);
+  });
+});
