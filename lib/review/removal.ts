@@ -6,6 +6,7 @@ import { STANDING_CAUTION } from "./caution";
 import type { ReviewContext } from "./context";
 import { axialUtilisation } from "./design-checks/member-check";
 import { lowRankRemoval } from "./low-rank";
+import { BRACE_STIFFNESS_FACTOR, flexibilityBlock, weakestAcross } from "./restraint";
 import { governingUtilisations } from "./member-design";
 
 export type RemovalRequest = {
@@ -28,13 +29,16 @@ export type ResultChanges = {
 };
 export type UtilisationChange = { member: string; before: number; after: number };
 /**
- * A compression member that lost a brace: a removed member, not in line with it, framed into one of its end
- * joints. It is re-checked with its buckling length doubled (Lc = 2·K·L), i.e. as if that joint were held only by
- * the next joint along the member's line. A screening assumption, not a stability analysis of the joint.
+ * A compression member that lost a brace, judged by stability: at one of its end joints, where a removed member
+ * framed in, the lateral stiffness across it from the reduced structure fell below the 4P/L a brace needs
+ * (restraint.ts) while the intact roof met it. It is re-checked with its buckling length doubled (Lc = 2·K·L), as
+ * if that joint were held only by the next joint along the member's line.
  */
 export type LostBrace = {
   member: string;
   joints: string[];
+  /** Per joint: the direction it loses its hold in and the stiffnesses (kN/m) before, after and needed. */
+  restraints: { joint: string; direction: [number, number, number]; stiffnessBefore: number; stiffnessAfter: number; required: number }[];
   removedMembers: string[];
   /** Governing compression utilisation after the removal, with the usual and with the doubled buckling length. */
   utilisationAfter: number;
@@ -138,7 +142,7 @@ export function removalWhatIf(context: ReviewContext, request: RemovalRequest): 
     mechanism: false,
     changes,
     utilisation: { maxBefore, maxAfter, changes: utilChanges.slice(0, maxListed), overCapacity },
-    lostBraces: lostBraces(context, removedIdx, removedMask, designIds, after),
+    lostBraces: lostBraces(context, removedIdx, removedMask, designIds, after, update.update),
     caution: STANDING_CAUTION,
   };
 }
@@ -191,26 +195,62 @@ function compareForces(result: string, before: Float64Array, after: Float64Array
   return { result, changedCount, changes, newlyZero, noLongerZero };
 }
 
-function lostBraces(context: ReviewContext, removedIdx: number[], removed: Uint8Array, designIds: string[], after: Map<string, Float64Array>): LostBrace[] {
+function lostBraces(
+  context: ReviewContext,
+  removedIdx: number[],
+  removed: Uint8Array,
+  designIds: string[],
+  after: Map<string, Float64Array>,
+  reduce: (u: Float64Array) => Float64Array,
+): LostBrace[] {
   const { structure, inputs, model, options } = context;
   const { adjStart, adjMember, direction, memberI, memberJ, nodeIds } = structure.topology;
-  const braced = new Map<number, { joints: Set<string>; removed: Set<string> }>();
+  const dofs = 3 * nodeIds.length;
+  const zeroAfter = new Map(designIds.map((id) => [id, zeroForceMask(after.get(id)!)]));
+  // largest compression after the removal over the design results (kN, positive)
+  const compressionAfter = (m: number) => {
+    let p = 0;
+    for (const id of designIds) if (!zeroAfter.get(id)![m]) p = Math.max(p, -after.get(id)![m]);
+    return p;
+  };
+  const braced = new Map<number, { joints: Set<string>; removed: Set<string>; restraints: LostBrace["restraints"] }>();
+  const seenJoint = new Set<number>();
   for (const r of removedIdx) {
     for (const a of [memberI[r], memberJ[r]]) {
-      if (fullyRestrained(structure.topology.restrained, a)) continue; // a support holds the joint itself
+      if (fullyRestrained(structure.topology.restrained, a) || seenJoint.has(a)) continue; // a support holds the joint itself
+      seenJoint.add(a);
+      const members: number[] = [];
       for (let p = adjStart[a]; p < adjStart[a + 1]; p++) {
         const m = adjMember[p];
-        if (removed[m]) continue;
+        if (removed[m] || compressionAfter(m) <= 0) continue;
         const cos = direction[3 * m] * direction[3 * r] + direction[3 * m + 1] * direction[3 * r + 1] + direction[3 * m + 2] * direction[3 * r + 2];
         if (Math.abs(cos) > 1 - 1e-9) continue; // in line: it never held the joint across the member
-        const entry = braced.get(m) ?? { joints: new Set(), removed: new Set() };
+        members.push(m);
+      }
+      if (members.length === 0) continue;
+      // the joint's flexibility, intact and reduced: three unit loads through the intact factor and the low-rank update
+      const units = [0, 1, 2].map((s) => {
+        const f = new Float64Array(dofs);
+        f[3 * a + s] = 1;
+        return f;
+      });
+      const intact = structure.solveMany(units);
+      const F = flexibilityBlock(intact, a);
+      const Fr = flexibilityBlock(intact.map(reduce), a);
+      for (const m of members) {
+        const c = direction.subarray(3 * m, 3 * m + 3);
+        const required = (BRACE_STIFFNESS_FACTOR * compressionAfter(m)) / inputs[m].length;
+        const before = weakestAcross(F, c);
+        const afterHold = weakestAcross(Fr, c);
+        if (!(before.stiffness >= required && afterHold.stiffness < required)) continue;
+        const entry = braced.get(m) ?? { joints: new Set(), removed: new Set(), restraints: [] };
         entry.joints.add(nodeIds[a]);
         entry.removed.add(model.members[r].id);
+        entry.restraints.push({ joint: nodeIds[a], direction: afterHold.direction, stiffnessBefore: before.stiffness, stiffnessAfter: afterHold.stiffness, required });
         braced.set(m, entry);
       }
     }
   }
-  const zeroAfter = new Map(designIds.map((id) => [id, zeroForceMask(after.get(id)!)]));
   const out: LostBrace[] = [];
   for (const [m, entry] of braced) {
     const input = inputs[m];
@@ -223,7 +263,15 @@ function lostBraces(context: ReviewContext, removedIdx: number[], removed: Uint8
       if (!worst || u2 > worst.doubled) worst = { result: id, usual: axialUtilisation(options.standard, input, force), doubled: u2 };
     }
     if (worst) {
-      out.push({ member: model.members[m].id, joints: [...entry.joints], removedMembers: [...entry.removed], utilisationAfter: worst.usual, utilisationWithoutBrace: worst.doubled, result: worst.result });
+      out.push({
+        member: model.members[m].id,
+        joints: [...entry.joints],
+        restraints: entry.restraints,
+        removedMembers: [...entry.removed],
+        utilisationAfter: worst.usual,
+        utilisationWithoutBrace: worst.doubled,
+        result: worst.result,
+      });
     }
   }
   return out.sort((p, q) => q.utilisationWithoutBrace - p.utilisationWithoutBrace);

@@ -41,7 +41,7 @@ function assumptions(options: ReviewOptions, model: TrussModel): string[] {
     `fu per material from the model, else the usual value of its grade (product standards), else 1.10·fy; fabrication per section, ${options.fabrication ?? DEFAULT_FABRICATION} where a section states none (the conservative default).`,
     "Buckling length = effective length factor × member length (factor 1.0 unless the member gives one).",
     "E and fy are the model material's values; area and radius of gyration the model section's.",
-    "Lost-brace screening doubles the buckling length of a compression member whose end joint lost a member not in line with it.",
+    "Bracing is judged by stability: a joint of a compression member counts as held when its lateral stiffness across the member, from the (reduced) structure, is at least 4P/L (Winter's ideal brace stiffness 2P/L doubled); a member that loses that hold at a joint is re-checked with its buckling length doubled.",
   ];
   if (options.standard === "EN1993-1-1") {
     list.push(

@@ -1,5 +1,6 @@
 // Small models for the review engine's unit tests (not used by product code).
 import type { TrussModel } from "@/lib/analysis";
+import { pointLoads, trussModel } from "@/lib/analysis/test-fixtures";
 
 /**
  * check-values §5.3 Example 4: 4-panel Pratt truss in x–z, panel 3 m, height 4 m. Supports L0 (ux, uy, uz),
@@ -58,5 +59,29 @@ export function prattWithExtras(): TrussModel {
   model.supports.push(...fixed.map((n) => ({ node: n.id, ux: true, uy: true, uz: true })));
   for (const end of ["L0", "S1", "S2", "S3"]) model.members.push({ id: `X${end}`, i: "X", j: end, section: "T1" });
   model.members.push({ id: "U2W", i: "U2", j: "W", section: "T1" });
+  return model;
+}
+
+/**
+ * A column A(0,0,0)–M(0,0,2)–T(0,0,4), 10 kN down at T; T held in x and y, A pinned. M is held across the column
+ * along x by MB (to a fixed B 2 m away, EA/L = 2e8·0.001/2 = 1e5 kN/m) and by MD (fixed D 3 m away, area 1e-8:
+ * EA/L = 2e8·1e-8/3 = 0.667 kN/m), along y by MY. Horizontal members at M never carry force (first order).
+ */
+export function bracedColumn(): TrussModel {
+  const model = trussModel({
+    nodes: [
+      ["A", 0, 0, 0],
+      ["M", 0, 0, 2],
+      ["T", 0, 0, 4],
+      ["B", 2, 0, 2],
+      ["D", -3, 0, 2],
+      ["Y", 0, 2, 2],
+    ],
+    members: ["A-M", "M-T", "M-B", "M-D", "M-Y"],
+    supports: [["A", true, true, true], ["T", true, true, false], ["B", true, true, true], ["D", true, true, true], ["Y", true, true, true]],
+    loadCases: [pointLoads("P", [["T", 0, 0, -10]])],
+  });
+  model.sections.push({ ...model.sections[0], id: "thin", area: 1e-8 });
+  model.members.find((m) => m.id === "MD")!.section = "thin";
   return model;
 }

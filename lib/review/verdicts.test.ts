@@ -1,9 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "@/lib/analysis";
-import { pointLoads, trussModel } from "@/lib/analysis/test-fixtures";
 import { STANDING_CAUTION } from "./caution";
 import { createReviewContext } from "./context";
-import { prattWithExtras } from "./test-models";
+import { bracedColumn, prattWithExtras } from "./test-models";
 import { memberVerdicts } from "./verdicts";
 
 describe("memberVerdicts", () => {
@@ -27,25 +26,8 @@ describe("memberVerdicts", () => {
 });
 
 describe("bracing judged by stability (issue 15 item 3)", () => {
-  // A column A(0,0,0)–M(0,0,2)–T(0,0,4), 10 kN down at T; T held in x and y, A pinned. M is held across the column
-  // along x by MB (to a fixed B 2 m away, EA/L = 2e8·0.001/2 = 1e5 kN/m) and by MD (fixed D 3 m away, area 1e-8:
-  // EA/L = 2e8·1e-8/3 = 0.667 kN/m), along y by MY. Horizontal members at M never carry force (first order).
-  // A brace must give k ≥ 4P/L = 4·10/2 = 20 kN/m (restraint.ts: Winter's 2P/L doubled).
-  const model = trussModel({
-    nodes: [
-      ["A", 0, 0, 0],
-      ["M", 0, 0, 2],
-      ["T", 0, 0, 4],
-      ["B", 2, 0, 2],
-      ["D", -3, 0, 2],
-      ["Y", 0, 2, 2],
-    ],
-    members: ["A-M", "M-T", "M-B", "M-D", "M-Y"],
-    supports: [["A", true, true, true], ["T", true, true, false], ["B", true, true, true], ["D", true, true, true], ["Y", true, true, true]],
-    loadCases: [pointLoads("P", [["T", 0, 0, -10]])],
-  });
-  model.sections.push({ ...model.sections[0], id: "thin", area: 1e-8 });
-  model.members.find((m) => m.id === "MD")!.section = "thin";
+  // bracedColumn (test-models.ts): a brace must give k ≥ 4P/L = 4·10/2 = 20 kN/m (restraint.ts: Winter's 2P/L doubled).
+  const model = bracedColumn();
   const verdicts = new Map(memberVerdicts(createReviewContext(model, analyzeModel(model), { standard: "EN1993-1-1" })).map((v) => [v.member, v]));
 
   it("the only adequate brace is bracing, and says which joint loses its hold and in which direction", () => {
