@@ -16,14 +16,14 @@ export function ModelsWorkspace({ projectId, canEdit }: { projectId: string; can
           Revisions
         </h2>
         {saved !== null ? (
-          <p role="status" className="mb-3 text-sm text-tension" data-testid="revision-saved">
-            Revision {saved} saved; its analysis runs as a job (progress in the list).{" "}
+          <p role="status" className="mb-3 text-sm text-board-800" data-testid="revision-saved">
+            Revision {saved} saved as a draft; its analysis runs as a job (progress in the list). It becomes the team’s revision once you mark it current.{" "}
             <Link className="underline" href={`/projects/${projectId}/viewer?revision=${saved}`}>
               Open it in 3D
             </Link>
           </p>
         ) : null}
-        <RevisionList projectId={projectId} canRetry={canEdit} />
+        <RevisionList projectId={projectId} canRetry={canEdit} canMarkCurrent={canEdit} />
       </section>
       {canEdit ? (
         <div className="grid gap-6 lg:grid-cols-2">

@@ -1,16 +1,24 @@
 "use client";
 
-import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import type { RevisionSummary } from "@/db/queries/models";
 import { LiveJob } from "@/components/jobs/job-progress";
+import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { apiFetch } from "@/lib/http/fetcher";
 
 export const revisionsKey = (projectId: string) => ["projects", projectId, "models"] as const;
 
-/** The project's revisions, newest first, each opening in the viewer; an analysis still running shows its progress. */
-export function RevisionList({ projectId, canRetry }: { projectId: string; canRetry: boolean }) {
+/**
+ * The project's revisions, newest first, each opening in the viewer and labelled current, draft or unstable; an
+ * analysis still running shows its progress; the structural engineer marks which one is current.
+ */
+export function RevisionList({ projectId, canRetry, canMarkCurrent }: { projectId: string; canRetry: boolean; canMarkCurrent: boolean }) {
   const queryClient = useQueryClient();
+  const markCurrent = useMutation({
+    mutationFn: (number: number) => apiFetch(`/api/projects/${projectId}/models/${number}/current`, { method: "PUT" }),
+    onSettled: () => void queryClient.invalidateQueries({ queryKey: revisionsKey(projectId) }),
+  });
   const query = useQuery({
     queryKey: revisionsKey(projectId),
     queryFn: () => apiFetch<{ revisions: RevisionSummary[] }>(`/api/projects/${projectId}/models`),
@@ -18,8 +26,11 @@ export function RevisionList({ projectId, canRetry }: { projectId: string; canRe
   if (query.isPending) return <p className="text-sm text-board-700">Loading revisions…</p>;
   if (query.isError) return <p role="alert" className="text-sm text-clash">{query.error.message}</p>;
   const revisions = query.data.revisions;
+  const markError = markCurrent.error ? <p role="alert" className="text-sm text-clash">{markCurrent.error.message}</p> : null;
   if (revisions.length === 0) return <p className="text-sm text-board-700" data-testid="revisions-empty">No model yet. A structural engineer can generate or upload one.</p>;
   return (
+    <>
+    {markError}
     <table className="w-full text-sm" data-testid="revision-list">
       <thead className="text-left text-xs uppercase text-board-700">
         <tr>
@@ -27,6 +38,7 @@ export function RevisionList({ projectId, canRetry }: { projectId: string; canRe
           <th>Name</th>
           <th>Source</th>
           <th>Members</th>
+          <th>Stage</th>
           <th>Analysis</th>
           <th>Saved</th>
           <th />
@@ -39,7 +51,15 @@ export function RevisionList({ projectId, canRetry }: { projectId: string; canRe
             <td>{r.name}</td>
             <td>{r.source}</td>
             <td className="font-mono">{r.memberCount}</td>
-            <td className={r.analysisStatus === "ok" ? "text-tension" : "text-compression"} data-testid="revision-analysis">
+            <td>
+              <RevisionStageBadge revision={r} />
+              {canMarkCurrent && !r.isCurrent && r.analysisStatus === "ok" && (
+                <button type="button" className="ml-2 text-xs underline" disabled={markCurrent.isPending} onClick={() => markCurrent.mutate(r.number)} data-testid="revision-mark-current">
+                  Mark current
+                </button>
+              )}
+            </td>
+            <td className={r.analysisStatus === "unstable" ? "font-medium text-compression" : "text-board-800"} data-testid="revision-analysis">
               {r.analysisStatus === "ok" ? (
                 "analysed"
               ) : r.analysisStatus === "unstable" ? (
@@ -68,5 +88,6 @@ export function RevisionList({ projectId, canRetry }: { projectId: string; canRe
         ))}
       </tbody>
     </table>
+    </>
   );
 }

@@ -1,6 +1,7 @@
 // The report page's forms: plain GET forms to the report and export route handlers, so the browser downloads
-// the PDF or CSV itself (no client JavaScript needed).
-import { RevisionSelect, type RevisionOption } from "@/components/revision/revision-select";
+// the PDF or CSV itself; the revision picker reloads the page for the revision chosen.
+import { RevisionPicker } from "@/components/revision/revision-picker";
+import type { RevisionOption } from "@/components/revision/revision-select";
 
 type ResultOption = { id: string; name: string; kind: "combination" | "load case" };
 
@@ -32,19 +33,10 @@ export function ReportForm({
   const api = `/api/projects/${projectId}`;
   return (
     <div className="flex flex-col gap-6">
-      <form method="get" className="flex flex-wrap items-end gap-3" data-testid="report-revision-form">
-        <RevisionSelect
-          revisions={revisions}
-          labelClassName="flex flex-col gap-1 text-sm font-medium text-board-800"
-          name="revision"
-          defaultValue={String(revision)}
-          className={selectClass}
-          data-testid="report-revision"
-        />
-        <button type="submit" className="rounded-md border border-board-200 bg-white px-4 py-2 text-sm">
-          Show this revision
-        </button>
-      </form>
+      {/* Choosing a revision reloads the page for it, so the PDF and exports below always use the revision picked. */}
+      <div data-testid="report-revision-form">
+        <RevisionPicker projectId={projectId} page="report" revisions={revisions} current={revision} testId="report-revision" />
+      </div>
 
       <form method="get" action={`${api}/report`} target="_blank" className="flex flex-col gap-4 rounded-lg border border-board-200 bg-white p-4" data-testid="report-form">
         <input type="hidden" name="revision" value={revision} />

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { RevisionSelect, type RevisionOption } from "./revision-select";
 
 /** Chooses which revision a project page shows by navigating to `/projects/<id>/<page>?revision=N`. */
-export function RevisionPicker({ projectId, page, revisions, current, testId }: { projectId: string; page: "viewer" | "clashes"; revisions: RevisionOption[]; current: number; testId: string }) {
+export function RevisionPicker({ projectId, page, revisions, current, testId }: { projectId: string; page: "viewer" | "clashes" | "report"; revisions: RevisionOption[]; current: number; testId: string }) {
   const router = useRouter();
   return (
     <RevisionSelect

@@ -1,6 +1,6 @@
 import type { ComponentProps } from "react";
 
-export type RevisionOption = { number: number; name: string };
+export type RevisionOption = { number: number; name: string; isCurrent?: boolean; analysisStatus?: "ok" | "unstable" | null };
 
 /**
  * A labelled <select> of a project's revisions ("3: Tender issue"), shared by the viewer, clashes and report
@@ -14,6 +14,7 @@ export function RevisionSelect({ revisions, labelClassName, ...select }: { revis
         {revisions.map((r) => (
           <option key={r.number} value={r.number}>
             {r.number}: {r.name}
+            {r.analysisStatus === "unstable" ? " (unstable)" : r.isCurrent ? " (current)" : r.isCurrent === false ? " (draft)" : ""}
           </option>
         ))}
       </select>

@@ -18,6 +18,8 @@ export type RevisionSummary = {
   createdBy: string | null;
   memberCount: number;
   analysisStatus: "ok" | "unstable" | null;
+  /** Marked current (for review) by the structural engineer; pages open it by default. */
+  isCurrent: boolean;
   /** The newest job working on the revision (its analysis), for the progress bar; null for a seeded revision. */
   job: JobView | null;
   /** The uploaded original file(s) kept in object storage, downloadable through the attachments route. */
@@ -25,7 +27,7 @@ export type RevisionSummary = {
 };
 
 /** A revision with its model and the stored analysis and review. */
-export type RevisionWithResults = Omit<RevisionSummary, "analysisStatus" | "originals"> & {
+export type RevisionWithResults = Omit<RevisionSummary, "analysisStatus" | "originals" | "isCurrent"> & {
   model: TrussModel;
   analysis: { id: string; status: "ok" | "unstable"; result: AnalysisResult; review: StoredReview | null; createdAt: string } | null;
 };
@@ -41,6 +43,7 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
       createdAt: modelRevisions.createdAt,
       createdBy: users.name,
       memberCount: modelRevisions.memberCount,
+      isCurrent: modelRevisions.isCurrent,
       status: analysisRuns.status,
     })
     .from(modelRevisions)
@@ -66,6 +69,7 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
       createdBy: row.createdBy,
       memberCount: row.memberCount,
       analysisStatus: row.status,
+      isCurrent: row.isCurrent,
       job: latestJobs.get(row.id) ?? null,
       originals: originals.filter((file) => file.revisionId === row.id).map(({ id, filename }) => ({ id, filename })),
     }));
@@ -80,12 +84,6 @@ export async function getRevisionForAnalysis({ revisionId, db = getDb() }: { rev
     .where(eq(modelRevisions.id, revisionId))
     .limit(1);
   return row ?? null;
-}
-
-/** The number of the newest revision of a project, or null when it has none. */
-export async function getLatestRevisionNumber({ projectId, db = getDb() }: { projectId: string; db?: Executor }): Promise<number | null> {
-  const [row] = await db.select({ latest: max(modelRevisions.number) }).from(modelRevisions).where(eq(modelRevisions.projectId, projectId));
-  return row?.latest ?? null;
 }
 
 /** One revision by number with its model and newest analysis run, or null. */
@@ -187,4 +185,38 @@ export function createRevisionWithAnalysis(input: CreateRevisionInput): Promise<
 export async function getRevisionNumber({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<number | null> {
   const [row] = await db.select({ number: modelRevisions.number }).from(modelRevisions).where(eq(modelRevisions.id, revisionId)).limit(1);
   return row?.number ?? null;
+}
+
+/** Marks one revision of a project current (for review) and unmarks the one before; returns the previous number. */
+export async function setCurrentRevision(tx: Executor, { projectId, revisionId }: { projectId: string; revisionId: string }): Promise<number | null> {
+  const [previous] = await tx
+    .update(modelRevisions)
+    .set({ isCurrent: false })
+    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.isCurrent, true)))
+    .returning({ number: modelRevisions.number });
+  await tx.update(modelRevisions).set({ isCurrent: true }).where(eq(modelRevisions.id, revisionId));
+  return previous?.number ?? null;
+}
+
+/** The number of the project's current revision, else its newest, else null. */
+export async function getDefaultRevisionNumber({ projectId, db = getDb() }: { projectId: string; db?: Executor }): Promise<number | null> {
+  const [row] = await db
+    .select({ number: modelRevisions.number })
+    .from(modelRevisions)
+    .where(eq(modelRevisions.projectId, projectId))
+    .orderBy(desc(modelRevisions.isCurrent), desc(modelRevisions.number))
+    .limit(1);
+  return row?.number ?? null;
+}
+
+/** A revision's id and the status of its newest analysis (null while none is stored), or null when it does not exist. */
+export async function getRevisionAnalysisStatus(db: Executor, { projectId, number }: { projectId: string; number: number }): Promise<{ id: string; status: "ok" | "unstable" | null } | null> {
+  const [row] = await db
+    .select({ id: modelRevisions.id, status: analysisRuns.status })
+    .from(modelRevisions)
+    .leftJoin(analysisRuns, eq(analysisRuns.revisionId, modelRevisions.id))
+    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, number)))
+    .orderBy(desc(analysisRuns.createdAt))
+    .limit(1);
+  return row ? { id: row.id, status: row.status ?? null } : null;
 }

@@ -1,11 +1,11 @@
 // The demo roof (lib/analysis demoRoof: the Northfield sports hall) as revision 1 of the demo project, with its
-// analysis and member review stored, so the viewer opens on real results. Idempotent: skipped once revision 1 exists.
+// analysis and member review stored and marked current, so the viewer opens on real results. Idempotent: skipped once revision 1 exists.
 import { and, eq } from "drizzle-orm";
 import type { Executor } from "../client";
 import { modelRevisions, projects } from "../schema";
 import { demoRoof } from "../../lib/analysis/generator";
 import { analyseForStorage } from "../../lib/models/analyse";
-import { insertRevisionWithAnalysis } from "../queries/models";
+import { insertRevisionWithAnalysis, setCurrentRevision } from "../queries/models";
 
 /** Stores the demo roof as revision 1 (with results) unless the project already has it. */
 export async function seedDemoModel(db: Executor, { projectId, createdBy }: { projectId: string; createdBy: string }): Promise<void> {
@@ -19,5 +19,7 @@ export async function seedDemoModel(db: Executor, { projectId, createdBy }: { pr
   const model = demoRoof();
   const { result, review } = analyseForStorage(model, project.designStandard);
   if (result.status !== "ok") throw new Error("the demo roof analysed as unstable");
-  await insertRevisionWithAnalysis(db, { projectId, name: model.name, model, source: "generated", createdBy, result, review });
+  const revision = await insertRevisionWithAnalysis(db, { projectId, name: model.name, model, source: "generated", createdBy, result, review });
+  // The structural engineer has put it up for review: pages open it by default.
+  await setCurrentRevision(db, { projectId, revisionId: revision.id });
 }

@@ -2,7 +2,7 @@ import "server-only";
 // Gathers what the review report and the CSV exports need from the stored data (other areas' query functions),
 // checking the chosen revision and result ids; the report itself is built from the plain data (lib/report/pdf.ts).
 import { listClashesByRevision } from "@/db/queries/clashes";
-import { getLatestRevisionNumber, getRevisionWithResults, type RevisionWithResults } from "@/db/queries/models";
+import { getDefaultRevisionNumber, getRevisionWithResults, type RevisionWithResults } from "@/db/queries/models";
 import { listPinsByProject } from "@/db/queries/pins";
 import { getProjectById } from "@/db/queries/projects";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
@@ -14,9 +14,9 @@ import type { ReportInput } from "./types";
 
 type Analysed = RevisionWithResults & { analysis: NonNullable<RevisionWithResults["analysis"]> };
 
-/** The revision (the newest when no number is given) with its stored analysis; 404 / 409 when there is none. */
+/** The revision (the current one, else the newest, when no number is given) with its stored analysis; 404 / 409 when there is none. */
 export async function loadAnalysedRevision({ projectId, revision }: { projectId: string; revision?: number }): Promise<Analysed> {
-  const number = revision ?? (await getLatestRevisionNumber({ projectId }));
+  const number = revision ?? (await getDefaultRevisionNumber({ projectId }));
   if (number === null) throw new NotFoundError("This project has no model revision yet.");
   const found = await getRevisionWithResults({ projectId, number });
   if (!found) throw new NotFoundError(`Revision ${number} does not exist in this project.`);

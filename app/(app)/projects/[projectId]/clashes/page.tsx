@@ -5,8 +5,10 @@ import { ClashBoard } from "@/components/clashes/clash-board";
 import { ClashRevisionPicker } from "@/components/clashes/clash-revision-picker";
 import { ProjectHeader } from "@/components/project/project-header";
 import { ProjectNav } from "@/components/project/project-nav";
+import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { listRevisionsByProject } from "@/db/queries/models";
 import { requirePageProject } from "@/lib/auth/page";
+import { defaultRevision } from "@/lib/models/revision-stage";
 
 export const metadata: Metadata = { title: "Clashes" };
 
@@ -17,7 +19,8 @@ export default async function ClashesPage({ params, searchParams }: PageProps<"/
   const revisions = await listRevisionsByProject({ projectId });
   const requested = typeof revision === "string" ? Number(revision) : null;
   if (requested !== null && !revisions.some((r) => r.number === requested)) notFound();
-  const number = requested ?? revisions[0]?.number ?? null;
+  const shown = revisions.find((r) => r.number === number);
+  const number = requested ?? defaultRevision(revisions)?.number ?? null;
   return (
     <div className="flex flex-col gap-4">
       <ProjectHeader project={project} />
@@ -32,7 +35,10 @@ export default async function ClashesPage({ params, searchParams }: PageProps<"/
         </p>
       ) : (
         <>
-          <ClashRevisionPicker projectId={project.id} revisions={revisions.map((r) => ({ number: r.number, name: r.name }))} current={number} />
+          <div className="flex items-center gap-2">
+            <ClashRevisionPicker projectId={project.id} revisions={revisions.map(({ number, name, isCurrent, analysisStatus }) => ({ number, name, isCurrent, analysisStatus }))} current={number} />
+            {shown && <RevisionStageBadge revision={shown} />}
+          </div>
           <ClashBoard key={number} projectId={project.id} revision={number} otherRevisions={revisions.map((r) => r.number).filter((n) => n !== number)} initialClash={typeof clash === "string" ? clash : null} />
         </>
       )}

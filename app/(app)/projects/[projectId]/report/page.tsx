@@ -4,6 +4,7 @@ import { ProjectNav } from "@/components/project/project-nav";
 import { ReportForm } from "@/components/report/report-form";
 import { getRevisionWithResults, listRevisionsByProject } from "@/db/queries/models";
 import { requirePageProject } from "@/lib/auth/page";
+import { defaultRevision } from "@/lib/models/revision-stage";
 import { capturedMailPageEnabled } from "@/lib/mail/captured";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 
@@ -14,7 +15,7 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
   const { project } = await requirePageProject(projectId, "report.export");
   const revisions = await listRevisionsByProject({ projectId });
   const asked = Number((await searchParams).revision);
-  const chosen = revisions.find((r) => r.number === asked) ?? revisions[0];
+  const chosen = revisions.find((r) => r.number === asked) ?? defaultRevision(revisions);
   const revision = chosen ? await getRevisionWithResults({ projectId, number: chosen.number }) : null;
   const results = revision
     ? [
@@ -44,7 +45,7 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
         ) : (
           <ReportForm
             projectId={project.id}
-            revisions={revisions.map((r) => ({ number: r.number, name: r.name }))}
+            revisions={revisions.map(({ number, name, isCurrent, analysisStatus }) => ({ number, name, isCurrent, analysisStatus }))}
             revision={revision.number}
             results={results}
             defaultChosen={revision.model.combinations.length ? revision.model.combinations.map((c) => c.id) : revision.model.loadCases.map((c) => c.id)}

@@ -4,9 +4,11 @@ import { notFound } from "next/navigation";
 import { listRevisionsByProject } from "@/db/queries/models";
 import { ProjectHeader } from "@/components/project/project-header";
 import { ProjectNav } from "@/components/project/project-nav";
+import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { RevisionPicker } from "@/components/viewer/revision-picker";
 import { LiveReview } from "@/components/session/live-review";
 import { requirePageProject } from "@/lib/auth/page";
+import { defaultRevision } from "@/lib/models/revision-stage";
 
 export const metadata: Metadata = { title: "3D viewer" };
 
@@ -23,8 +25,9 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
   const { project } = await requirePageProject(projectId);
   const revisions = await listRevisionsByProject({ projectId });
   const requested = typeof revision === "string" ? Number(revision) : null;
-  const number = requested ?? revisions[0]?.number ?? null;
+  const number = requested ?? defaultRevision(revisions)?.number ?? null;
   if (requested !== null && !revisions.some((r) => r.number === requested)) notFound();
+  const shown = revisions.find((r) => r.number === number);
   return (
     <div className="flex flex-col gap-4">
       <ProjectHeader project={project} />
@@ -39,7 +42,10 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
         </p>
       ) : (
         <>
-          <RevisionPicker projectId={project.id} revisions={revisions.map((r) => ({ number: r.number, name: r.name }))} current={number} />
+          <div className="flex items-center gap-2">
+            <RevisionPicker projectId={project.id} revisions={revisions.map(({ number, name, isCurrent, analysisStatus }) => ({ number, name, isCurrent, analysisStatus }))} current={number} />
+            {shown && <RevisionStageBadge revision={shown} />}
+          </div>
           <LiveReview key={number} projectId={project.id} revisionNumber={number} realtimeUrl={realtimeUrl()} focusClash={typeof clash === "string" ? clash : null} />
         </>
       )}
