@@ -40,7 +40,16 @@ function RemovalResult({ outcome }: { outcome: RemovalOutcome }) {
       </p>
       {worst ? <p>{worst.changedCount} members change force in {worst.result}; {worst.newlyZero.length} become zero-force, {worst.noLongerZero.length} start carrying force.</p> : null}
       {outcome.lostBraces.length > 0 ? (
-        <p>Loses bracing of {outcome.lostBraces.map((b) => `${b.member} (u = ${b.utilisationWithoutBrace.toFixed(2)} with doubled buckling length)`).join(", ")}.</p>
+        <p>
+          Loses bracing of{" "}
+          {outcome.lostBraces
+            .map((b) => {
+              const held = b.restraints.map((r) => `${r.joint} along (${r.direction.map((v) => v.toFixed(2)).join(", ")}): ${r.stiffnessAfter.toPrecision(3)} of ${r.required.toPrecision(3)} kN/m needed`).join("; ");
+              return `${b.member} (${held}; u = ${b.utilisationWithoutBrace.toFixed(2)} with doubled buckling length)`;
+            })
+            .join(", ")}
+          .
+        </p>
       ) : null}
     </div>
   );
