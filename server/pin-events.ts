@@ -1,4 +1,5 @@
 // Pins and threads: every write is committed to PostgreSQL before it is acknowledged or broadcast.
+import { requireSameProject } from "@/lib/commands/require-same-project";
 import { createComment, listCommentsSince, type WrittenComment } from "@/db/queries/comments";
 import { createPin, getPinById, listPinsChangedSince, setPinState } from "@/db/queries/pins";
 import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
@@ -25,6 +26,7 @@ export function registerPinEvents(io: RealtimeServer, socket: RealtimeSocket): v
 
   onEvent(socket, "pin:create", pinCreateSchema, async (input) => {
     if (!authorize(await currentMember({ projectId, userId: user.id }), "pin.create")) throw new ForbiddenError();
+    await requireSameProject(projectId, { revisionId: input.revisionId });
     const result = await createPin({ projectId, authorId: user.id, authorName: user.name, input });
     if (!result) throw new NotFoundError("That pin id is already used elsewhere.");
     if (result.created) {

@@ -4,6 +4,7 @@ import "server-only";
 // final key and only then marks the record ready (or deletes both object and record). Server-side uploads check the bytes first, store them, and write the record
 // last. Pending records nobody confirmed are swept by the jobs process. So no ready record ever points at missing
 // or unchecked bytes, and a failed upload leaves nothing behind.
+import { requireSameProject } from "@/lib/commands/require-same-project";
 import { randomUUID } from "node:crypto";
 import {
   deleteAttachmentRecord,
@@ -55,6 +56,7 @@ export async function requestUpload(input: {
 }): Promise<{ attachmentId: string; uploadUrl: string; method: "PUT"; headers: Record<string, string>; expiresInSeconds: number }> {
   const refusal = checkSize(input.purpose, input.sizeBytes);
   if (refusal && !refusal.ok) throw new FileRefusedError(refusal);
+  await requireSameProject(input.projectId, input.links);
   const id = randomUUID();
   const key = stagingKey(input.projectId, input.purpose, id);
   await insertAttachment({
