@@ -86,6 +86,25 @@ export function ReportForm({
           Download the envelope (largest tension and compression per member)
         </a>
       </div>
+
+      <div className="flex flex-col gap-3 rounded-lg border border-board-200 bg-white p-4">
+        <h3 className="text-sm font-medium text-board-800">IFC and BCF exports</h3>
+        <form method="get" action={`${api}/exports/revision.ifc`} className="flex flex-wrap items-end gap-3">
+          <input type="hidden" name="revision" value={revision} />
+          <label className="flex flex-col gap-1 text-sm">
+            Force state of
+            <select name="result" className={selectClass} defaultValue={defaultChosen[0]} data-testid="export-ifc-result">
+              <ResultOptions results={results} />
+            </select>
+          </label>
+          <button type="submit" className={buttonClass} data-testid="export-ifc">
+            Download the roof as IFC4
+          </button>
+        </form>
+        <a className="text-sm text-tension underline" href={`${api}/exports/pins.bcf`} data-testid="export-bcf">
+          Download every pin and thread as BCF 3.0
+        </a>
+      </div>
     </div>
   );
 }
