@@ -85,6 +85,9 @@ export function ReportForm({
         <a className="text-sm text-tension underline" href={`${api}/exports/envelope.csv?revision=${revision}`} data-testid="export-envelope">
           Download the envelope (largest tension and compression per member)
         </a>
+        <a className="text-sm text-tension underline" href={`${api}/exports/clashes.csv?revision=${revision}`} data-testid="export-clashes">
+          Download the clashes (outcome, who proposed and decided, conditions or reason, assignee and due date)
+        </a>
       </div>
 
       <div className="flex flex-col gap-3 rounded-lg border border-board-200 bg-white p-4">

@@ -8,7 +8,7 @@ import { memberState } from "./states";
 // Cells starting with =, +, -, @, tab or CR are prefixed with a quote so a spreadsheet shows them as text (OWASP
 // "CSV Injection"). papaparse's own pattern for `escapeFormulae: true` ends in `.*$`, which misses a cell with a
 // line break, so the bare prefix pattern is passed. Numbers are never escaped (negative forces stay numbers).
-const UNPARSE = { newline: "\n", escapeFormulae: /^[=+\-@\t\r]/ } as const;
+export const UNPARSE = { newline: "\n", escapeFormulae: /^[=+\-@\t\r]/ } as const;
 
 export const MEMBER_FORCE_COLUMNS = ["member", "node_i", "node_j", "section", "result", "axial_force_kN", "state"] as const;
 export const ENVELOPE_COLUMNS = ["member", "node_i", "node_j", "section", "max_tension_kN", "max_compression_kN", "zero_in_all", "governing_tension", "governing_compression"] as const;
