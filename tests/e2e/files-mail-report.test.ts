@@ -69,8 +69,9 @@ describe("invitation mail", () => {
 describe("comment attachments", () => {
   it("the comment's author attaches an image, which shows in the thread; an executable named .png is refused", async () => {
     const architect = demoAccount("architect");
-    const [row] = await getDb().select({ id: users.id }).from(users).where(eq(users.email, architect.email));
-    const socket = await realtimeClient(process.env.REALTIME_URL!, projectId, { id: row.id, email: architect.email, name: architect.name });
+    // The sign-out in the roles test ended the architect's earlier sessions: mint this one at the current version.
+    const [row] = await getDb().select({ id: users.id, sessionVersion: users.sessionVersion }).from(users).where(eq(users.email, architect.email));
+    const socket = await realtimeClient(process.env.REALTIME_URL!, projectId, { id: row.id, email: architect.email, name: architect.name, sessionVersion: row.sessionVersion });
     await connectClient(socket);
     const title = `Skylight kerb at grid C/4 ${randomUUID().slice(0, 6)}`;
     const pin = await socket.emitWithAck("pin:create", { id: randomUUID(), anchor: { kind: "point", point: [12, 18, 7.5] }, revisionId: null, title, discipline: "architectural" }) as { ok: boolean; data: PresentedPin };

@@ -4,13 +4,14 @@ import { encode } from "next-auth/jwt";
 
 export const SESSION_COOKIE = "next-auth.session-token";
 
-type Person = { id: string; email: string; name: string };
+/** sessionVersion: the user's version when the session is issued (users.session_version; 0 until first revoked). */
+type Person = { id: string; email: string; name: string; sessionVersion?: number };
 
 /** The session token (the cookie's value) for this user. */
 export async function sessionToken(user: Person): Promise<string> {
   const secret = process.env.NEXTAUTH_SECRET;
   if (!secret) throw new Error("NEXTAUTH_SECRET must be set to mint test sessions.");
-  return encode({ token: { sub: user.id, userId: user.id, email: user.email, name: user.name }, secret });
+  return encode({ token: { sub: user.id, userId: user.id, email: user.email, name: user.name, sessionVersion: user.sessionVersion ?? 0 }, secret });
 }
 
 /** A Cookie header carrying this user's session. */

@@ -19,8 +19,8 @@ export default async function ClashesPage({ params, searchParams }: PageProps<"/
   const revisions = await listRevisionsByProject({ projectId });
   const requested = typeof revision === "string" ? Number(revision) : null;
   if (requested !== null && !revisions.some((r) => r.number === requested)) notFound();
-  const shown = revisions.find((r) => r.number === number);
   const number = requested ?? defaultRevision(revisions)?.number ?? null;
+  const shown = revisions.find((r) => r.number === number);
   return (
     <div className="flex flex-col gap-4">
       <ProjectHeader project={project} />
