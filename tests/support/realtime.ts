@@ -7,10 +7,9 @@ import WebSocket from "ws";
 import { WebsocketProvider } from "y-websocket";
 import * as Y from "yjs";
 import type { Ack, ClientToServerEvents, ServerToClientEvents } from "@/lib/realtime/events";
-import { sessionCookie } from "./session";
+import { sessionCookie, type Person } from "./session";
 
 export type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
-type Person = { id: string; email: string; name: string };
 
 function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {

@@ -5,7 +5,7 @@ import { encode } from "next-auth/jwt";
 export const SESSION_COOKIE = "next-auth.session-token";
 
 /** sessionVersion: the user's version when the session is issued (users.session_version; 0 until first revoked). */
-type Person = { id: string; email: string; name: string; sessionVersion?: number };
+export type Person = { id: string; email: string; name: string; sessionVersion?: number };
 
 /** The session token (the cookie's value) for this user. */
 export async function sessionToken(user: Person): Promise<string> {
