@@ -43,6 +43,7 @@ export default defineConfig({
         test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
+          setupFiles: ["tests/support/csp-guard.ts"],
           environment: "node",
           fileParallelism: false,
           testTimeout: 120_000,

@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import { connection } from "next/server";
 import type { ReactNode } from "react";
 // Fonts ship with the app (npm packages), so nothing is fetched from a font service at build or run time.
 import "@fontsource-variable/public-sans";
@@ -16,7 +17,10 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { themeColor: "#0f766e" };
 
-export default function RootLayout({ children }: { children: ReactNode }) {
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  // Every page renders per request: the Content-Security-Policy nonce (proxy.ts) is new each time, and Next can
+  // only put it on the scripts of a page it renders then.
+  await connection();
   return (
     <html lang="en-GB">
       <body className="min-h-screen">

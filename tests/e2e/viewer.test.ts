@@ -1,8 +1,8 @@
 import { readFileSync, statSync } from "node:fs";
 import path from "node:path";
-import { chromium, type Browser, type Page } from "playwright-core";
+import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { appUrl, baseUrl, CHROMIUM_FLAGS, screenshot } from "../support/browser";
+import { appUrl, baseUrl, launchBrowser, screenshot } from "../support/browser";
 import { ProjectsPage } from "./pages/projects-page";
 import { SignInPage } from "./pages/sign-in-page";
 import { ViewerPage } from "./pages/viewer-page";
@@ -38,7 +38,7 @@ let page: Page;
 let projectId: string;
 
 beforeAll(async () => {
-  browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH, args: [...CHROMIUM_FLAGS, ...WEBGL_FLAGS], headless: true });
+  browser = await launchBrowser({ extraArgs: WEBGL_FLAGS });
   const context = await browser.newContext({ baseURL: baseUrl(), viewport: { width: 1440, height: 900 } });
   page = await context.newPage();
   const structural = accounts.users.find((u) => u.role === "structural_engineer")!;

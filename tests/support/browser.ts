@@ -32,9 +32,39 @@ export function baseUrl(): string {
 /** An absolute URL on the app under test (page.goto is given absolute URLs, whatever the context's baseURL). */
 export const appUrl = (path: string) => new URL(path, baseUrl()).toString();
 
-/** Launches Debian's chromium; never downloads a browser. */
-export function launchBrowser(): Promise<Browser> {
-  return chromium.launch({ executablePath: env("CHROMIUM_PATH"), args: CHROMIUM_FLAGS, headless: true });
+const cspViolations: string[] = [];
+
+/** The Content-Security-Policy violations seen since the last call (tests/support/csp-guard.ts fails on any). */
+export function takeCspViolations(): string[] {
+  return cspViolations.splice(0);
+}
+
+/** Records every CSP violation in the context's pages: the DOM event, and Chromium's "Refused to …" console error. */
+async function watchCsp(context: BrowserContext): Promise<void> {
+  await context.addInitScript(() => {
+    document.addEventListener("securitypolicyviolation", (event) => {
+      console.error(`CSP violation: ${event.violatedDirective} blocked ${event.blockedURI || "inline"}`);
+    });
+  });
+  const watchPage = (page: Page) => {
+    page.on("console", (message) => {
+      if (message.type() === "error" && /Content Security Policy|CSP violation/.test(message.text())) cspViolations.push(`${page.url()}: ${message.text()}`);
+    });
+  };
+  context.pages().forEach(watchPage);
+  context.on("page", watchPage);
+}
+
+/** Launches Debian's chromium (never a downloaded browser); every context it opens is watched for CSP violations. */
+export async function launchBrowser({ extraArgs = [] }: { extraArgs?: string[] } = {}): Promise<Browser> {
+  const browser = await chromium.launch({ executablePath: env("CHROMIUM_PATH"), args: [...CHROMIUM_FLAGS, ...extraArgs], headless: true });
+  const open = browser.newContext.bind(browser);
+  browser.newContext = async (...args: Parameters<Browser["newContext"]>) => {
+    const context = await open(...args);
+    await watchCsp(context);
+    return context;
+  };
+  return browser;
 }
 
 /** A fresh signed-out browser context on the app. */
