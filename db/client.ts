@@ -4,7 +4,7 @@ import { Pool } from "pg";
 import { database } from "../lib/limits";
 import * as schema from "./schema";
 
-export type Database = NodePgDatabase<typeof schema> & { $client: Pool };
+export type Database = NodePgDatabase<typeof schema>;
 /** A transaction handle; accepted wherever a query function takes `db`. */
 export type Transaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
 /** Either the database or an open transaction. */
