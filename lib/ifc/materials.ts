@@ -2,6 +2,7 @@ import * as WebIFC from "web-ifc";
 import type { TrussMaterial, TrussSection } from "@/lib/analysis/model";
 import { STANDARD_GRAVITY } from "./export";
 import { num, refId, refIds, text, type IfcLine, type IfcProblem, type IfcReader } from "./reader";
+import { relatingOf } from "./relations";
 import type { UnitScale } from "./units";
 
 const round = (v: number, digits = 9) => Number(v.toPrecision(digits));
@@ -53,8 +54,19 @@ export function toMaterial(reader: IfcReader, materialId: number, values: Map<nu
   return { id, E: round(E! * units.pressure), fy: round(fy! * units.pressure), unitWeight: round((density! * STANDARD_GRAVITY) / 1000) };
 }
 
-/** The material and circular hollow profile associated with an element (IFC4 material profile set, or usage). */
-export function profileAndMaterial(reader: IfcReader, associations: Map<number, number[]>, element: number): { profile?: IfcLine; material?: number } {
+/**
+ * The material and circular hollow profile associated with an element: IFC4 material profile set (or its usage), or
+ * IFC2X3's IfcMaterial with the profile from IfcRelAssociatesProfileProperties (IfcGeneralProfileProperties or a
+ * subtype, ProfileDefinition), which IFC2X3 has instead of profile sets.
+ */
+export function profileAndMaterial(reader: IfcReader, associations: Map<number, number[]>, element: number, profileProperties?: Map<number, number[]>): { profile?: IfcLine; material?: number } {
+  const fromProperties = () => {
+    for (const relating of profileProperties?.get(element) ?? []) {
+      const profile = reader.line(refId(reader.line(relating)?.ProfileDefinition) ?? -1);
+      if (profile) return profile;
+    }
+    return undefined;
+  };
   for (const relating of associations.get(element) ?? []) {
     let line = reader.line(relating);
     if (line?.type === WebIFC.IFCMATERIALPROFILESETUSAGE) line = reader.line(refId(line.ForProfileSet) ?? -1);
@@ -62,9 +74,14 @@ export function profileAndMaterial(reader: IfcReader, associations: Map<number, 
       const first = reader.line(refIds(line.MaterialProfiles)[0] ?? -1);
       return { profile: reader.line(refId(first?.Profile) ?? -1), material: refId(first?.Material) };
     }
-    if (line?.type === WebIFC.IFCMATERIAL) return { material: line.expressID };
+    if (line?.type === WebIFC.IFCMATERIAL) return { material: line.expressID, profile: fromProperties() };
   }
-  return {};
+  return { profile: fromProperties() };
+}
+
+/** IFC2X3 profile associations (element → IfcGeneralProfileProperties); the relation is gone from IFC4. */
+export function profilePropertiesOf(reader: IfcReader): Map<number, number[]> | undefined {
+  return reader.schema === "IFC2X3" ? relatingOf(reader, WebIFC.IFCRELASSOCIATESPROFILEPROPERTIES, "RelatedObjects", "RelatingProfileProperties") : undefined;
 }
 
 /** Our section from a circular hollow profile (m): A = π(D² − d²)/4, r = √(D² + d²)/4 (closed-form for a tube). */

@@ -1,6 +1,6 @@
 import * as WebIFC from "web-ifc";
 import { validateModel, type LoadCase, type LoadCategory, type TrussMaterial, type TrussModel, type TrussSection } from "@/lib/analysis/model";
-import { profileAndMaterial, readMaterialValues, toMaterial, tubeSection } from "./materials";
+import { profileAndMaterial, profilePropertiesOf, readMaterialValues, toMaterial, tubeSection } from "./materials";
 import { applyPoint, distance, objectPlacement, pointOf, scale, type Vec3 } from "./placement";
 import { relatingOf } from "./relations";
 import { num, plain, refId, refIds, text, whereOf, type IfcLine, type IfcProblem, type IfcReader } from "./reader";
@@ -108,9 +108,8 @@ class SectionSet {
   }
 }
 
-function memberSection(reader: IfcReader, sections: SectionSet, associations: Map<number, number[]>, line: IfcLine, problems: IfcProblem[], profileFromBody?: IfcLine): string | undefined {
-  const { profile, material } = profileAndMaterial(reader, associations, line.expressID);
-  const tube = profile ?? profileFromBody;
+function memberSection(reader: IfcReader, sections: SectionSet, associations: Map<number, number[]>, line: IfcLine, problems: IfcProblem[], profileProperties?: Map<number, number[]>): string | undefined {
+  const { profile: tube, material } = profileAndMaterial(reader, associations, line.expressID, profileProperties);
   if (!tube || tube.type !== WebIFC.IFCCIRCLEHOLLOWPROFILEDEF) {
     problems.push({ where: whereOf(line), message: tube ? `profile ${reader.typeName(tube)} is not a circular hollow section` : "no circular hollow profile (material profile set) is associated" });
     return undefined;
@@ -128,10 +127,15 @@ function memberSection(reader: IfcReader, sections: SectionSet, associations: Ma
   return sections.tube(text(tube.ProfileName), material, radius!, wall!);
 }
 
-const restrained = (value: unknown, where: string, problems: IfcProblem[]): boolean => {
+/**
+ * Whether a boundary condition fixes a direction. IFC4: TRUE fixed, FALSE free, a number a spring. IFC2X3 has only
+ * numbers: -1. is infinite stiffness (fixed), 0. free, anything else a spring (IFC2X3 IfcBoundaryNodeCondition
+ * conventions, restated in the IFC4 change note of IfcBoundaryNodeCondition).
+ */
+const restrained = (value: unknown, schema: string, where: string, problems: IfcProblem[]): boolean => {
   const v = plain(value);
   if (v === undefined || v === false || v === "F" || v === 0) return false;
-  if (v === true || v === "T") return true;
+  if (v === true || v === "T" || (schema === "IFC2X3" && v === -1)) return true;
   problems.push({ where, message: `spring stiffness ${String(v)} is not read (our supports are fixed or free)` });
   return false;
 };
@@ -140,6 +144,7 @@ const categories: Record<string, LoadCategory> = { DEAD_LOAD_G: "dead", COMPLETI
 
 function readAnalysisModel(reader: IfcReader, units: UnitScale, problems: IfcProblem[], notes: string[]): Omit<TrussModel, "format" | "name"> {
   const associations = relatingOf(reader, WebIFC.IFCRELASSOCIATESMATERIAL, "RelatedObjects", "RelatingMaterial");
+  const profileProperties = profilePropertiesOf(reader);
   const sections = new SectionSet(reader, units, problems);
   const nodes = new NodeSet();
   const connections = reader.idsOf(WebIFC.IFCSTRUCTURALPOINTCONNECTION).map((id) => reader.line(id)).filter((l): l is IfcLine => l !== undefined);
@@ -158,9 +163,9 @@ function readAnalysisModel(reader: IfcReader, units: UnitScale, problems: IfcPro
     const condition = reader.line(refId(c.AppliedCondition) ?? -1);
     if (!condition) continue;
     const where = whereOf(c);
-    const ux = restrained(condition.TranslationalStiffnessX ?? condition.LinearStiffnessX, where, problems);
-    const uy = restrained(condition.TranslationalStiffnessY ?? condition.LinearStiffnessY, where, problems);
-    const uz = restrained(condition.TranslationalStiffnessZ ?? condition.LinearStiffnessZ, where, problems);
+    const ux = restrained(condition.TranslationalStiffnessX ?? condition.LinearStiffnessX, reader.schema, where, problems);
+    const uy = restrained(condition.TranslationalStiffnessY ?? condition.LinearStiffnessY, reader.schema, where, problems);
+    const uz = restrained(condition.TranslationalStiffnessZ ?? condition.LinearStiffnessZ, reader.schema, where, problems);
     if ((ux || uy || uz) && !supports.some((s) => s.node === node)) supports.push({ node, ux, uy, uz });
   }
   const curveMembers = reader.idsOf(WebIFC.IFCSTRUCTURALCURVEMEMBER).map((id) => reader.line(id)).filter((l): l is IfcLine => l !== undefined);
@@ -176,7 +181,7 @@ function readAnalysisModel(reader: IfcReader, units: UnitScale, problems: IfcPro
       problems.push({ where: whereOf(line), message: "the curve member has no edge with two vertex points" });
       continue;
     }
-    const section = memberSection(reader, sections, associations, line, problems);
+    const section = memberSection(reader, sections, associations, line, problems, profileProperties);
     if (section === undefined) continue;
     const i = nodes.add(`N${++generated}`, a);
     const j = nodes.add(`N${++generated}`, b);
@@ -209,6 +214,15 @@ function readAnalysisModel(reader: IfcReader, units: UnitScale, problems: IfcPro
   const combinations: TrussModel["combinations"] = groups
     .filter((g) => text(g.PredefinedType) === "LOAD_COMBINATION")
     .map((g) => ({ id: groupIds.get(g.expressID)!, name: text(g.Name) ?? groupIds.get(g.expressID)!, factors: {} }));
+  // IFC2X3 has no assignment by factor: a load case assigned to a combination enters it with its own Coefficient.
+  for (const [caseRef, groupRefs] of assigned) {
+    const caseId = loadCases.find((c) => c.id === groupIds.get(caseRef))?.id;
+    if (caseId === undefined) continue;
+    for (const groupRef of groupRefs) {
+      const combination = combinations.find((c) => c.id === groupIds.get(groupRef));
+      if (combination) combination.factors[caseId] = num(reader.line(caseRef)?.Coefficient) ?? 1;
+    }
+  }
   for (const relId of reader.idsOf(WebIFC.IFCRELASSIGNSTOGROUPBYFACTOR)) {
     const rel = reader.line(relId)!;
     const combination = combinations.find((c) => c.id === groupIds.get(refId(rel.RelatingGroup) ?? -1));
@@ -232,6 +246,7 @@ function readAnalysisModel(reader: IfcReader, units: UnitScale, problems: IfcPro
 
 function readPhysicalMembers(reader: IfcReader, units: UnitScale, problems: IfcProblem[], notes: string[]): Omit<TrussModel, "format" | "name"> {
   const associations = relatingOf(reader, WebIFC.IFCRELASSOCIATESMATERIAL, "RelatedObjects", "RelatingMaterial");
+  const profileProperties = profilePropertiesOf(reader);
   const sections = new SectionSet(reader, units, problems);
   const nodes = new NodeSet();
   const lines = reader.idsOf(WebIFC.IFCMEMBER).map((id) => reader.line(id)).filter((l): l is IfcLine => l !== undefined);
@@ -243,7 +258,7 @@ function readPhysicalMembers(reader: IfcReader, units: UnitScale, problems: IfcP
       problems.push({ where: whereOf(line), message: axis });
       continue;
     }
-    const section = memberSection(reader, sections, associations, line, problems);
+    const section = memberSection(reader, sections, associations, line, problems, profileProperties);
     if (section === undefined) continue;
     const i = nodes.add(`N${nodes.nodes.length + 1}`, scale(axis.start, units.length));
     const j = nodes.add(`N${nodes.nodes.length + 1}`, scale(axis.end, units.length));

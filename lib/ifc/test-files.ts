@@ -23,10 +23,11 @@ export class StepText {
   localPlacement(relTo: string | undefined, origin: [number, number, number], axis?: [number, number, number], ref?: [number, number, number]): string {
     return this.add(`IFCLOCALPLACEMENT(${relTo ?? "$"},${this.placement(origin, axis, ref)})`);
   }
-  /** Project with a length unit (MILLI or none), a model context; returns the context id. */
-  project(lengthPrefix: "MILLI" | undefined): string {
+  /** Project with a length unit (MILLI or none) and any further unit lines, a model context; returns the context id. */
+  project(lengthPrefix: "MILLI" | undefined, moreUnits: string[] = []): string {
     const length = this.add(`IFCSIUNIT(*,.LENGTHUNIT.,${lengthPrefix ? `.${lengthPrefix}.` : "$"},.METRE.)`);
-    const units = this.add(`IFCUNITASSIGNMENT((${length}))`);
+    const more = moreUnits.map((u) => this.add(u));
+    const units = this.add(`IFCUNITASSIGNMENT((${[length, ...more].join(",")}))`);
     const context = this.add(`IFCGEOMETRICREPRESENTATIONCONTEXT($,'Model',3,1.E-05,${this.placement([0, 0, 0])},$)`);
     const owner = this.schema === "IFC2X3" ? this.ownerHistory() : "$";
     this.add(`IFCPROJECT('0TestProject0000000001',${owner},'Test project',$,$,$,$,(${context}),${units})`);
