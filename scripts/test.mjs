@@ -61,7 +61,7 @@ async function main() {
   if (wants("unit")) await vitestProject("unit", process.env);
   if (!wants("integration") && !wants("security") && !wants("e2e")) return;
 
-  const ports = { web: await freePort(), postgres: await freePort(), realtime: await freePort(), s3: await freePort(), smtp: await freePort() };
+  const ports = { web: await freePort(), postgres: await freePort(), realtime: await freePort(), jobs: await freePort(), s3: await freePort(), smtp: await freePort() };
   const databaseUrl = await startPostgres({ dataDir: pgDir, port: ports.postgres, throwaway: true });
   // STRUTROOM_TEST_PG_DIR lets the security suite stop and start this throwaway cluster (a database outage test).
   const env = { ...serviceEnv({ databaseUrl, ports, secret: randomBytes(32).toString("hex"), dataDir: runDir }), CHROMIUM_PATH: chromium, ARTIFACTS_DIR: artifacts, STRUTROOM_TEST_PG_DIR: pgDir };

@@ -34,11 +34,11 @@ const SERVICES = [
     command: () => [bin("tsx"), ["--conditions=react-server", "server/index.ts"]],
   },
   {
-    // Mail outbox, upload sweep and daily digest on croner schedules (server/jobs/main.ts). It serves nothing, so
-    // it has no port to wait for; a crash is logged and restarted by processes.mjs.
+    // Analysis queue, mail outbox, upload sweep and daily digest (server/jobs/main.ts). Its port carries only
+    // GET /health, opened once the queues are served; a crash is logged and restarted by processes.mjs.
     name: "jobs",
     kind: "app",
-    port: null,
+    port: (ports) => ports.jobs,
     command: () => [bin("tsx"), ["--conditions=react-server", "server/jobs/main.ts"]],
   },
 ];
@@ -71,6 +71,7 @@ export function serviceEnv({ databaseUrl, ports, secret, dataDir }) {
     APP_URL: `http://127.0.0.1:${ports.web}`,
     REALTIME_PORT: String(ports.realtime),
     REALTIME_URL: `http://127.0.0.1:${ports.realtime}`,
+    JOBS_PORT: String(ports.jobs),
     S3_PORT: String(ports.s3),
     SMTP_PORT: String(ports.smtp),
     // Object storage and mail: the local fakes above; a hosted deployment sets these to the real services.

@@ -11,12 +11,15 @@ import { queueDailyDigests } from "../../lib/mail/digest";
 import { processOutbox } from "../../lib/mail/outbox";
 import { sweepStaleUploads } from "../../lib/storage/attachments";
 import { runAnalysisJob } from "./analysis";
+import { serveHealth } from "./health";
 
 const log = (message: string) => console.log(`[jobs] ${message}`);
 const onError = (name: string) => (error: unknown) => console.error(`[jobs] ${name} failed:`, error);
 
 const connectionString = process.env.DATABASE_URL;
 if (!connectionString) throw new Error("DATABASE_URL is not set.");
+const jobsPort = Number(process.env.JOBS_PORT);
+if (!jobsPort) throw new Error("JOBS_PORT is not set (the port of the jobs process's health endpoint).");
 const boss = new PgBoss({ connectionString, max: 4 });
 boss.on("error", onError("queue"));
 await boss.start();
@@ -41,6 +44,8 @@ const outbox = new Cron("*/5 * * * * *", { name: "mail-outbox", protect: true, c
   const run = await processOutbox();
   if (run.sent || run.retrying || run.failed) log(`mail: ${run.sent} sent, ${run.retrying} to retry, ${run.failed} given up`);
 });
+// Listening only once the queues are served, so the supervisor's wait for the port means "ready".
+const health = await serveHealth(jobsPort);
 log(`running: queues ${Object.values(QUEUES).join(", ")}; mail outbox every 5 s`);
 
 let stopping = false;
@@ -49,6 +54,7 @@ async function stop(signal: string) {
   stopping = true;
   log(`${signal}: stopping`);
   outbox.stop();
+  health.close();
   await boss.stop({ graceful: true, wait: true, timeout: 20_000 });
   await closeDb();
   process.exit(0);

@@ -15,10 +15,15 @@ afterAll(async () => {
 });
 
 async function health(port: number): Promise<number> {
+  return (await healthOf(port))?.status ?? 0;
+}
+
+async function healthOf(port: number): Promise<{ status: number; body: unknown } | null> {
   try {
-    return (await fetch(`http://127.0.0.1:${port}/health`)).status;
+    const response = await fetch(`http://127.0.0.1:${port}/health`);
+    return { status: response.status, body: await response.json() };
   } catch {
-    return 0;
+    return null;
   }
 }
 
@@ -62,6 +67,24 @@ describe("the stack heals", () => {
     process.kill(-first, "SIGKILL");
     await until(async () => Number(readFileSync(pidFile, "utf8")) !== first && (await health(port)) === 200, 15_000 + startTime, "the realtime server did not serve again");
     expect(log.mock.calls.map((call) => String(call[0]))).toContain("[realtime] exited (killed by SIGKILL); restarting in 0.5 s.");
+    log.mockRestore();
+  });
+
+  it("the jobs process answers GET /health once its queues are served, and is restarted after SIGKILL", async () => {
+    requireIntegrationEnv();
+    const port = await freePort();
+    const pidFile = path.join(dir, "jobs.pid");
+    const env = { ...process.env, JOBS_PORT: String(port) };
+    startProcess("jobs", "node_modules/.bin/tsx", ["--conditions=react-server", "server/jobs/main.ts"], { env, quiet: true, restart: true, pidFile });
+    const starting = Date.now();
+    await until(async () => (await health(port)) === 200, 120_000, "the jobs process did not start");
+    const startTime = Date.now() - starting;
+    expect(await healthOf(port)).toEqual({ status: 200, body: { ok: true, process: "jobs" } });
+    const first = Number(readFileSync(pidFile, "utf8"));
+    const log = vi.spyOn(console, "error").mockImplementation(() => undefined);
+    process.kill(-first, "SIGKILL");
+    await until(async () => Number(readFileSync(pidFile, "utf8")) !== first && (await health(port)) === 200, 15_000 + startTime, "the jobs process did not serve again");
+    expect(log.mock.calls.map((call) => String(call[0]))).toContain("[jobs] exited (killed by SIGKILL); restarting in 0.5 s.");
     log.mockRestore();
   });
 });
