@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ACTIONS, ROLES, abilitiesOf, can, authorize, canCloseThread, clashDecisionRefusal, isRole, type Action, type Role } from "./permissions";
+import { ACTIONS, ROLES, abilitiesOf, can, authorize, canCloseThread, clashDecisionRefusal, isRole, mayMoveThread, type Action, type Role } from "./permissions";
 
 // The full role × action matrix, written out cell by cell from the team rules (the product owner's table), so a
 // change to lib/permissions.ts that is not also a deliberate change here fails.
@@ -64,6 +64,26 @@ describe("permission table", () => {
     expect(clashDecisionRefusal({ role: "mep_engineer", userId: "se1" }, { outcome: opening.outcome, proposerId: opening.proposerId })).toMatch(/Only the structural engineer/);
     // The rule is about openings: the structural engineer may confirm a reroute they proposed themselves.
     expect(authorize({ role: "structural_engineer", userId: "se1" }, "clash.decide", { kind: "proposal", outcome: "reroute_run", proposerId: "se1" })).toBe(true);
+  });
+
+  it("lets the same people move a thread as the socket server does: viewers never, closers close and reopen, commenters answer", () => {
+    const closed = { state: "closed", authorId: "a1" } as const;
+    const open = { state: "open", authorId: "a1" } as const;
+    // A viewer sees no Reopen, Close or Mark answered (issue 17 item 6: the viewer was shown Reopen and got an error).
+    for (const to of ["open", "answered", "closed"] as const) {
+      expect(mayMoveThread({ role: "viewer", userId: "v1" }, closed, to)).toBe(false);
+      expect(mayMoveThread({ role: "viewer", userId: "v1" }, open, to)).toBe(false);
+    }
+    expect(mayMoveThread(null, open, "answered")).toBe(false);
+    // An architect who did not write the pin may mark it answered but not close or reopen it.
+    expect(mayMoveThread({ role: "architect", userId: "x" }, open, "answered")).toBe(true);
+    expect(mayMoveThread({ role: "architect", userId: "x" }, open, "closed")).toBe(false);
+    expect(mayMoveThread({ role: "architect", userId: "x" }, closed, "open")).toBe(false);
+    expect(mayMoveThread({ role: "architect", userId: "x" }, closed, "answered")).toBe(false);
+    // The pin's author and the structural engineer may close and reopen.
+    expect(mayMoveThread({ role: "architect", userId: "a1" }, closed, "open")).toBe(true);
+    expect(mayMoveThread({ role: "structural_engineer", userId: "se" }, open, "closed")).toBe(true);
+    expect(mayMoveThread({ role: "structural_engineer", userId: "se" }, closed, "open")).toBe(true);
   });
 
   it("recognises role strings", () => {

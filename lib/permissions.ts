@@ -137,6 +137,21 @@ export function authorize(asker: Asker, action: Action | ResourceAction, resourc
   }
 }
 
+/** The states a pin's thread takes (open, answered by someone, closed by the closer). */
+type ThreadState = "open" | "answered" | "closed";
+
+/**
+ * May this member move a pin's thread to `to`? Closing, and anything that moves a closed thread (reopening it or
+ * marking it answered), is the closer's call (`thread.close` / `thread.reopen`); marking an open thread answered, or an
+ * answered one open again, is anyone's who may comment. The socket event and the thread's buttons both ask here.
+ */
+export function mayMoveThread(asker: Asker, pin: { state: ThreadState; authorId: string }, to: ThreadState): boolean {
+  const resource = { kind: "pin", authorId: pin.authorId } as const;
+  if (to === "closed") return authorize(asker, "thread.close", resource);
+  if (pin.state === "closed") return authorize(asker, "thread.reopen", resource);
+  return authorize(asker, "comment.create");
+}
+
 /** True for a string that names a role. */
 export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (ROLES as readonly string[]).includes(value);

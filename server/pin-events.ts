@@ -4,7 +4,7 @@ import { createComment, listCommentsSince, type WrittenComment } from "@/db/quer
 import { createPin, getPinById, listPinsChangedSince, setPinState } from "@/db/queries/pins";
 import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
 import { commentCreateSchema, pinCreateSchema, pinSetStateSchema, syncSinceSchema } from "@/lib/realtime/events";
-import { authorize } from "@/lib/permissions";
+import { authorize, mayMoveThread } from "@/lib/permissions";
 import { currentMember } from "./auth";
 import { projectRoom, userRoom, type RealtimeServer } from "./context";
 import { onEvent, type RealtimeSocket } from "./handle-event";
@@ -54,10 +54,7 @@ export function registerPinEvents(io: RealtimeServer, socket: RealtimeSocket): v
     const member = await currentMember({ projectId, userId: user.id });
     const pin = await getPinById({ projectId, pinId });
     if (!pin) throw new NotFoundError("No such pin in this project.");
-    // Closing a thread, or reopening a closed one, is the closer's call; marking it answered is anyone's who may comment.
-    const resource = { kind: "pin", authorId: pin.author.id } as const;
-    const allowed =
-      state === "closed" ? authorize(member, "thread.close", resource) : pin.state === "closed" ? authorize(member, "thread.reopen", resource) : authorize(member, "comment.create");
+    const allowed = mayMoveThread(member, { state: pin.state, authorId: pin.author.id }, state);
     if (!allowed) throw new ForbiddenError();
     const updated = await setPinState({ projectId, pinId, state });
     if (!updated) throw new NotFoundError("No such pin in this project.");

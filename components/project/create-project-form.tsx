@@ -50,7 +50,7 @@ export function CreateProjectForm({ organization, onCreatedKey }: { organization
             Organisation: <span className="font-medium text-board-900">{organization.name}</span>
           </p>
         ) : (
-          <Field id="project-organization" label="Your organisation" hint="This is your first project: name the organisation it belongs to." error={errors.organizationName?.message} {...form.register("organizationName")} />
+          <Field id="project-organization" label="Your organisation" hint="You own no project yet: name the organisation this one belongs to (your later projects join it)." error={errors.organizationName?.message} {...form.register("organizationName")} />
         )}
         <Field id="project-name" label="Project name" error={errors.name?.message} {...form.register("name")} />
         <Field id="project-description" label="Description (optional)" error={errors.description?.message} {...form.register("description")} />

@@ -1,11 +1,12 @@
 "use client";
 // One pin's thread: comments oldest first, a reply box (decisions for the structural engineer) and the
-// open / answered / closed state. The server decides who may close; its refusal is shown as is.
+// open / answered / closed state. Its buttons follow the rule book (mayMoveThread), as the server does.
 import { useEffect, useState, type FormEvent } from "react";
 import { CommentAttachments } from "@/components/files/comment-attachments";
 import { Button, FieldError } from "@/components/ui/form";
 import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
+import { mayMoveThread } from "@/lib/permissions";
 import type { PresentedComment, PresentedPin, PinState, Vec3 } from "@/lib/realtime/events";
 import { useSessionStore } from "./session-store";
 import { send, type ReviewSocket } from "./use-review-socket";
@@ -16,6 +17,8 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
   const comments = useSessionStore((s) => s.comments[pin.id] ?? EMPTY);
   const abilities = useSessionStore((s) => s.abilities);
   const me = useSessionStore((s) => s.me);
+  const asker = me ? { role: me.role, userId: me.id } : null;
+  const thread = { state: pin.state, authorId: pin.author.id };
   const [body, setBody] = useState("");
   const [decision, setDecision] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
@@ -92,20 +95,21 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
         </form>
       ) : null}
       <div className="flex flex-wrap gap-1">
-        {pin.state !== "answered" && abilities["comment.create"] ? (
+        {pin.state !== "answered" && mayMoveThread(asker, thread, "answered") ? (
           <Button variant="quiet" onClick={() => void changeState("answered")} data-testid="pin-mark-answered">
             Mark answered
           </Button>
         ) : null}
-        {pin.state !== "closed" ? (
+        {pin.state !== "closed" && mayMoveThread(asker, thread, "closed") ? (
           <Button variant="quiet" onClick={() => void changeState("closed")} data-testid="pin-close">
             Close thread
           </Button>
-        ) : (
-          <Button variant="quiet" onClick={() => void changeState("open")}>
+        ) : null}
+        {pin.state === "closed" && mayMoveThread(asker, thread, "open") ? (
+          <Button variant="quiet" onClick={() => void changeState("open")} data-testid="pin-reopen">
             Reopen
           </Button>
-        )}
+        ) : null}
       </div>
       <FieldError message={message ?? undefined} />
     </section>
