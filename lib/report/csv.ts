@@ -10,6 +10,14 @@ import { memberState } from "./states";
 // line break, so the bare prefix pattern is passed. Numbers are never escaped (negative forces stay numbers).
 export const UNPARSE = { newline: "\n", escapeFormulae: /^[=+\-@\t\r]/ } as const;
 
+/**
+ * Forces are printed to 0.01 kN, as people read them (issue 17 item 14: 17 digits helped nobody); the state column
+ * says whether a force that prints as 0 counts as zero-force. A rounded -0 prints as 0.
+ */
+export function roundForce(kN: number): number {
+  return Math.round(kN * 100) / 100 + 0;
+}
+
 export const MEMBER_FORCE_COLUMNS = ["member", "node_i", "node_j", "section", "result", "axial_force_kN", "state"] as const;
 export const ENVELOPE_COLUMNS = ["member", "node_i", "node_j", "section", "max_tension_kN", "max_compression_kN", "zero_in_all", "governing_tension", "governing_compression"] as const;
 
@@ -23,7 +31,7 @@ export function memberForcesCsv(model: TrussModel, result: AnalysisResult, resul
     member.j,
     member.section,
     resultId,
-    caseResult.memberForces[member.id] ?? 0,
+    roundForce(caseResult.memberForces[member.id] ?? 0),
     memberState(caseResult, member.id),
   ]);
   return Papa.unparse({ fields: [...MEMBER_FORCE_COLUMNS], data: rows }, UNPARSE) + "\n";
@@ -39,8 +47,8 @@ export function envelopeCsv(model: TrussModel, result: AnalysisResult): string {
       member.i,
       member.j,
       member.section,
-      entry?.maxTension ?? "",
-      entry?.maxCompression ?? "",
+      entry ? roundForce(entry.maxTension) : "",
+      entry ? roundForce(entry.maxCompression) : "",
       entry ? String(entry.zeroInAll) : "",
       governing?.maxTension ?? "",
       governing?.maxCompression ?? "",
