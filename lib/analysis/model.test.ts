@@ -97,6 +97,23 @@ describe("validateModel after a wrong type", () => {
     expect(lines[1]).toMatch(/^members\[2\] "BC": member "BC" ends at a missing node "Q"/);
   });
 
+  it("reports a row's broken links beside its type error (issue 17 item 13)", () => {
+    const model = valid() as unknown as { sections: { area: unknown; material: string }[]; members: { j: string; section: string; effectiveLengthFactor?: unknown }[] };
+    model.sections[0].area = "abc";
+    model.sections[0].material = "S999";
+    model.members[1].effectiveLengthFactor = "one";
+    model.members[1].j = "Q";
+    model.members[1].section = "none";
+    const result = validateModel(model);
+    const lines = result.ok ? [] : result.problems.map((p) => `${p.where}: ${p.message}`);
+    expect(lines, lines.join("\n")).toHaveLength(5);
+    expect(lines.some((l) => /^sections\[0\] .*area: .*number/.test(l))).toBe(true);
+    expect(lines.some((l) => /names a missing material "S999"/.test(l))).toBe(true);
+    expect(lines.some((l) => /effectiveLengthFactor: .*number/.test(l))).toBe(true);
+    expect(lines.some((l) => /ends at a missing node "Q"/.test(l))).toBe(true);
+    expect(lines.some((l) => /names a missing section "none"/.test(l))).toBe(true);
+  });
+
   it("does not report stand-in values as further problems of a broken row", () => {
     const model = valid() as unknown as { sections: { area: unknown }[] };
     model.sections[0].area = "big";

@@ -175,10 +175,12 @@ export function validateModel(input: unknown, locate: Locator = jsonLocator(inpu
     const salvaged = salvageSchema.safeParse(input);
     // only when every table is at least a list: otherwise each reference would look missing
     if (salvaged.success) {
-      // rows with a structural problem already have one; their stand-in values would only add noise
-      const flagged = problems.map((p) => p.where);
-      for (const p of checkReferences(salvaged.data, locate)) {
-        if (!flagged.some((w) => w.startsWith(p.where))) problems.push(p);
+      // Only the links between rows are checked on the salvaged model (its stand-in values would make range checks
+      // noise), and a link is skipped only when its own field, the row's id or the whole row is already flagged:
+      // a section whose area is text still reports its missing material (issue 17 item 13).
+      const flagged = new Set(problems.map((p) => p.where));
+      for (const link of checkLinks(salvaged.data, locate)) {
+        if (![link.where, `${link.where} id`, `${link.where} ${link.field}`].some((w) => flagged.has(w))) problems.push({ where: link.where, message: link.message });
       }
     }
     return { ok: false, problems };
@@ -263,9 +265,28 @@ function duplicates(
   return byId;
 }
 
-function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
+/** A problem with a link between rows (a missing material, node, section or load case), naming the linking field. */
+type LinkProblem = ModelProblem & { field: string };
+
+function checkLinks(model: TrussModel, locate: Locator): LinkProblem[] {
+  const links: LinkProblem[] = [];
+  checkReferences(model, locate, links);
+  return links;
+}
+
+/**
+ * Every check that needs the rows' values. Problems with links between rows also go to `links` when it is given
+ * (with the field holding the link); then only those are collected.
+ */
+function checkReferences(model: TrussModel, locate: Locator, links?: LinkProblem[]): ModelProblem[] {
   const problems: ModelProblem[] = [];
-  const add = (where: string, message: string) => problems.push({ where, message });
+  const add = (where: string, message: string) => {
+    if (!links) problems.push({ where, message });
+  };
+  const link = (where: string, field: string, message: string) => {
+    if (links) links.push({ where, field, message });
+    else problems.push({ where, message });
+  };
 
   const materials = duplicates(model.materials, "materials", "material", locate, problems);
   model.materials.forEach((m, k) => {
@@ -289,7 +310,7 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
     if ([s.radiusOfGyration, s.outerDiameter, s.wallThickness].some((v) => v > sectionLength.max)) {
       add(locate("sections", k), `radius of gyration, outer diameter and wall thickness are at most ${sectionLength.max} m`);
     }
-    if (!materials.has(s.material)) add(locate("sections", k), `section "${s.id}" names a missing material "${s.material}"`);
+    if (!materials.has(s.material)) link(locate("sections", k), "material", `section "${s.id}" names a missing material "${s.material}"`);
   });
 
   const nodes = duplicates(model.nodes, "nodes", "node", locate, problems);
@@ -308,9 +329,9 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
     const where = locate("members", k);
     const ni = nodes.get(m.i);
     const nj = nodes.get(m.j);
-    if (ni === undefined) add(where, `member "${m.id}" starts at a missing node "${m.i}"`);
-    if (nj === undefined) add(where, `member "${m.id}" ends at a missing node "${m.j}"`);
-    if (!sections.has(m.section)) add(where, `member "${m.id}" names a missing section "${m.section}"`);
+    if (ni === undefined) link(where, "i", `member "${m.id}" starts at a missing node "${m.i}"`);
+    if (nj === undefined) link(where, "j", `member "${m.id}" ends at a missing node "${m.j}"`);
+    if (!sections.has(m.section)) link(where, "section", `member "${m.id}" names a missing section "${m.section}"`);
     if (m.effectiveLengthFactor !== undefined && m.effectiveLengthFactor <= 0) {
       add(where, `member "${m.id}" effective length factor must be positive (got ${m.effectiveLengthFactor})`);
     } else if (m.effectiveLengthFactor !== undefined && outside(m.effectiveLengthFactor, physical.effectiveLengthFactor)) {
@@ -337,7 +358,7 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
 
   const supported = new Map<string, number>();
   model.supports.forEach((s, k) => {
-    if (!nodes.has(s.node)) add(locate("supports", k), `support on a missing node "${s.node}"`);
+    if (!nodes.has(s.node)) link(locate("supports", k), "node", `support on a missing node "${s.node}"`);
     const first = supported.get(s.node);
     if (first !== undefined) add(locate("supports", k), `second support on node "${s.node}" (first at ${locate("supports", first)})`);
     else supported.set(s.node, k);
@@ -346,7 +367,7 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
   const cases = duplicates(model.loadCases, "loadCases", "load case", locate, problems);
   model.loadCases.forEach((c, k) => {
     c.nodalLoads.forEach((load, l) => {
-      if (!nodes.has(load.node)) add(locate("loadCases", k, l), `load case "${c.id}" has a load on a missing node "${load.node}"`);
+      if (!nodes.has(load.node)) link(locate("loadCases", k, l), "node", `load case "${c.id}" has a load on a missing node "${load.node}"`);
       if ([load.fx, load.fy, load.fz].some((v) => outside(v, physical.nodalLoad))) {
         add(locate("loadCases", k, l), `nodal loads must be within ±${physical.nodalLoad} kN`);
       }
@@ -357,7 +378,7 @@ function checkReferences(model: TrussModel, locate: Locator): ModelProblem[] {
   model.combinations.forEach((c, k) => {
     if (cases.has(c.id)) add(locate("combinations", k), `combination id "${c.id}" is also a load case id`);
     for (const [caseId, factor] of Object.entries(c.factors)) {
-      if (!cases.has(caseId)) add(locate("combinations", k), `combination "${c.id}" names a missing load case "${caseId}"`);
+      if (!cases.has(caseId)) link(locate("combinations", k), `factors ${caseId}`, `combination "${c.id}" names a missing load case "${caseId}"`);
       if (outside(factor, physical.combinationFactor)) add(locate("combinations", k), `factors must be within ±${physical.combinationFactor} (got ${factor} on "${caseId}")`);
     }
   });

@@ -50,9 +50,19 @@ describe("parseRunsCsv", () => {
     expect(problems.map((p) => p.row)).toEqual([...problems.map((p) => p.row)].sort((a, b) => (a ?? 0) - (b ?? 0)));
   });
 
-  it("names missing columns", () => {
-    const { problems } = parseRunsCsv("run,system,x,y\nA,b,1,2");
+  it("names missing columns, and still lists the other rows' problems (issue 17 item 13)", () => {
+    const { runs, problems } = parseRunsCsv("run,system,x,y\nA,b,1,2\nA,b,3,2");
+    expect(runs).toEqual([]);
     expect(problems).toEqual([{ row: 1, field: "header", message: "Missing column(s): shape, weight_per_metre, z." }]);
+    // z is missing: a negative diameter on line 2 and an unreadable x on line 3 are still listed, with their lines.
+    const partial = parseRunsCsv("run,system,shape,diameter,weight_per_metre,x,y\nA,supply air,round,-0.5,0.2,0,0\nA,,,,,abc,0");
+    expect(partial.runs).toEqual([]);
+    expect(partial.problems.map((p) => `${p.row}:${p.field}`)).toEqual(["1:header", "2:diameter", "3:x"]);
+  });
+
+  it("cannot group rows without the run column, and says so", () => {
+    const { problems } = parseRunsCsv("system,shape,x,y,z,weight_per_metre\nb,round,1,2,3,0.1");
+    expect(problems).toEqual([{ row: 1, field: "header", message: "Missing column(s): run." }]);
   });
 });
 
@@ -74,6 +84,8 @@ describe("parseRunsJson", () => {
 
   it("rejects text that is not JSON or not our format", () => {
     expect(parseRunsJson("{").problems[0].field).toBe("json");
+    // The line and column of the first syntax error (issue 17 item 13).
+    expect(parseRunsJson('{\n"format": "mep-runs/1",\n"runs": [}').problems).toEqual([{ row: 3, field: "json", message: "Not valid JSON: line 3, column 10: a value was expected" }]);
     expect(parseRunsJson('{"format":"other","runs":[]}').problems[0].field).toBe("format");
   });
 

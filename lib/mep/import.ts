@@ -1,4 +1,5 @@
 import Papa from "papaparse";
+import { locateJsonError } from "../json-errors";
 import { runSchema, runsFileSchema, type Run } from "./schemas";
 
 /** One problem found in an import file; `row` is the file line (CSV) or the run's position (JSON), 1-based. */
@@ -72,8 +73,11 @@ export function parseRunsCsv(text: string): ImportResult {
   const missing = RUN_CSV_COLUMNS.filter((c) => !header.includes(c) && !(OPTIONAL_COLUMNS as readonly string[]).includes(c));
   if (missing.length > 0) {
     problems.push({ row: 1, field: "header", message: `Missing column(s): ${missing.join(", ")}.` });
-    return { runs: [], problems };
+    // Without the run column rows cannot be grouped; otherwise the rows are still read, so a missing column does not
+    // hide bad numbers elsewhere (issue 17 item 13), and no row is blamed for the column that is missing.
+    if (missing.includes("run")) return { runs: [], problems };
   }
+  const missingColumns = new Set<string>(missing);
 
   // Group point rows by run, keeping the file order of runs and of points.
   const groups = new Map<string, { firstLine: number; rows: { line: number; row: CsvRow }[] }>();
@@ -134,8 +138,8 @@ export function parseRunsCsv(text: string): ImportResult {
         lineProblems.push({ row: line, field, message: `Run ${id}: ${issue.message}` });
       }
     }
-    problems.push(...lineProblems);
-    if (result.success && lineProblems.length === 0) runs.push(result.data);
+    problems.push(...lineProblems.filter((p) => !missingColumns.has(p.field)));
+    if (result.success && lineProblems.length === 0 && missingColumns.size === 0) runs.push(result.data);
   }
   problems.sort((a, b) => (a.row ?? 0) - (b.row ?? 0));
   return { runs, problems };
@@ -147,7 +151,8 @@ export function parseRunsJson(text: string): ImportResult {
   try {
     data = JSON.parse(text);
   } catch (error) {
-    return { runs: [], problems: [{ row: null, field: "json", message: `Not valid JSON: ${(error as Error).message}` }] };
+    const place = locateJsonError(text);
+    return { runs: [], problems: [{ row: place?.line ?? null, field: "json", message: `Not valid JSON: ${place?.message ?? (error as Error).message}` }] };
   }
   const file = runsFileSchema.safeParse(data);
   if (!file.success) {

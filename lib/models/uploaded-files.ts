@@ -1,5 +1,6 @@
 // Turns the text of uploaded model files into the request buildRevision reads: one JSON model, or CSV tables.
 import { ValidationError } from "@/lib/http/errors";
+import { locateJsonError } from "@/lib/json-errors";
 import type { InlineRevisionRequest } from "./schemas";
 
 export type UploadedModelFile = { filename: string; contentType: string; text: string };
@@ -13,7 +14,8 @@ export function requestFromUploadedFiles(files: UploadedModelFile[], name: strin
     try {
       model = JSON.parse(json[0].text);
     } catch {
-      throw new ValidationError([{ path: json[0].filename, message: "not valid JSON" }], `${json[0].filename} is not valid JSON.`);
+      const where = locateJsonError(json[0].text)?.message ?? "not valid JSON";
+      throw new ValidationError([{ path: json[0].filename, message: where }], `${json[0].filename} is not valid JSON (${where}).`);
     }
     return { kind: "uploadJson", name, fileName: json[0].filename, model };
   }
