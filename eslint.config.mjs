@@ -18,7 +18,7 @@ const LEGACY_LIB_USING_DB = [
   "lib/storage/attachments.ts",
   "lib/storage/model-files.ts",
 ];
-const LEGACY_DB_USING_LIB = ["db/queries/clashes.ts", "db/queries/projects.ts", "db/queries/comments.ts", "db/queries/invitations.ts", "db/queries/mep.ts"];
+const LEGACY_DB_USING_LIB = ["db/queries/projects.ts", "db/queries/comments.ts", "db/queries/invitations.ts"];
 
 const config = [
   ...nextVitals,

@@ -3,41 +3,20 @@ import { and, asc, desc, eq, inArray, isNotNull, ne, notInArray, sql } from "dri
 import { alias } from "drizzle-orm/pg-core";
 import { getDb, type Executor } from "@/db/client";
 import { clashDecisions, clashes, modelRevisions, users, type ClashRow } from "@/db/schema";
-import { detectClashes, type ClashModel } from "@/lib/clash/detect";
-import type { Run } from "@/lib/mep/schemas";
-import { STANDING_CAUTION } from "@/lib/review/caution";
 
 const UPSERT_BATCH = 500;
 
-export type DetectionSummary = { found: number; hard: number; clearance: number; cleared: number };
+export type ClashInsert = typeof clashes.$inferInsert;
 
 /**
- * Runs clash detection for one revision and stores the result: clashes found again keep their row, outcome and
- * decisions (matched by stable key) with fresh geometry; new ones are added; ones no longer found are marked
- * cleared, never deleted, so decisions stay on record. Pass the transaction that changed the runs.
+ * Stores detected clashes of a revision: a clash found again (same stable key) keeps its row, outcome and decisions
+ * with fresh geometry; a new one is added. Pass the transaction that changed the runs.
  */
-export async function syncClashes({ db, projectId, revisionId, model, runs }: { db: Executor; projectId: string; revisionId: string; model: ClashModel; runs: Run[] }): Promise<DetectionSummary> {
-  const found = detectClashes(model, runs);
-  for (let k = 0; k < found.length; k += UPSERT_BATCH) {
-    const rows = found.slice(k, k + UPSERT_BATCH).map((c) => ({
-      projectId,
-      revisionId,
-      clashKey: c.id,
-      memberId: c.memberId,
-      runId: c.runId,
-      segmentIndex: c.segmentIndex,
-      kind: c.kind,
-      status: "active" as const,
-      gap: c.gap,
-      depth: c.depth,
-      requiredClearance: c.requiredClearance,
-      pointX: c.point.x,
-      pointY: c.point.y,
-      pointZ: c.point.z,
-    }));
+export async function upsertClashes({ db, rows }: { db: Executor; rows: ClashInsert[] }): Promise<void> {
+  for (let k = 0; k < rows.length; k += UPSERT_BATCH) {
     await db
       .insert(clashes)
-      .values(rows)
+      .values(rows.slice(k, k + UPSERT_BATCH))
       .onConflictDoUpdate({
         target: [clashes.revisionId, clashes.clashKey],
         set: {
@@ -53,15 +32,17 @@ export async function syncClashes({ db, projectId, revisionId, model, runs }: { 
         },
       });
   }
-  const keys = found.map((c) => c.id);
+}
+
+/** Marks the revision's active clashes whose key is not in `keepKeys` cleared (never deleted, so decisions stay); answers how many. */
+export async function markClashesCleared({ db, revisionId, keepKeys }: { db: Executor; revisionId: string; keepKeys: string[] }): Promise<number> {
   const stillActive = and(eq(clashes.revisionId, revisionId), eq(clashes.status, "active"));
   const cleared = await db
     .update(clashes)
     .set({ status: "cleared" })
-    .where(keys.length > 0 ? and(stillActive, notInArray(clashes.clashKey, keys)) : stillActive)
+    .where(keepKeys.length > 0 ? and(stillActive, notInArray(clashes.clashKey, keepKeys)) : stillActive)
     .returning({ id: clashes.id });
-  const hard = found.filter((c) => c.kind === "hard").length;
-  return { found: found.length, hard, clearance: found.length - hard, cleared: cleared.length };
+  return cleared.length;
 }
 
 /** A clash as the API presents it (who proposed and decided, by name). */
@@ -126,13 +107,13 @@ export async function lockClash(tx: Executor, { projectId, clashId }: { projectI
   return row ?? null;
 }
 
-export type ClashEntryInput = Omit<typeof clashDecisions.$inferInsert, "id" | "createdAt" | "updatedAt" | "caution"> & { caution?: string };
+export type ClashEntryInput = Omit<typeof clashDecisions.$inferInsert, "id" | "createdAt" | "updatedAt">;
 
-/** Appends one step to a clash's history (never updated afterwards); the caution shown defaults to the standing one. */
+/** Appends one step to a clash's history (never updated afterwards), with the caution shown at the time. */
 export async function appendClashEntry(tx: Executor, entry: ClashEntryInput): Promise<string> {
   const [row] = await tx
     .insert(clashDecisions)
-    .values({ ...entry, caution: entry.caution ?? STANDING_CAUTION })
+    .values(entry)
     .returning({ id: clashDecisions.id });
   return row.id;
 }

@@ -2,12 +2,10 @@
 // the supply-air duct's dog-leg cuts a diagonal, the chilled-water drop comes too close to a bottom chord, the
 // sprinkler main hangs too tight under the mid-span bottom chords, and a cable tray set on edge clips six
 // diagonals. Idempotent: skipped once the revision has runs.
-import { eq } from "drizzle-orm";
-import type { Executor } from "../client";
-import { mepRuns } from "../schema";
+import type { Transaction } from "../client";
 import { runSchema, type RunInput } from "../../lib/mep/schemas";
-import { syncClashes } from "../queries/clashes";
-import { getRevisionForMep, runRow } from "../queries/mep";
+import { detectRevisionClashes } from "../../lib/commands/detect-revision-clashes";
+import { getRevisionForMep, revisionHasRuns, upsertRuns } from "../queries/mep";
 
 const DEMO_RUNS: RunInput[] = [
   {
@@ -53,12 +51,11 @@ const DEMO_RUNS: RunInput[] = [
 ];
 
 /** Adds the demo runs to revision 1 and stores their clashes, unless that revision already has runs. */
-export async function seedDemoRuns(db: Executor, { projectId, createdBy }: { projectId: string; createdBy: string }): Promise<void> {
-  const revision = await getRevisionForMep({ projectId, number: 1, db });
+export async function seedDemoRuns(tx: Transaction, { projectId, createdBy }: { projectId: string; createdBy: string }): Promise<void> {
+  const revision = await getRevisionForMep({ projectId, number: 1, db: tx });
   if (!revision) throw new Error("seed the demo model before its runs");
-  const [existing] = await db.select({ id: mepRuns.id }).from(mepRuns).where(eq(mepRuns.revisionId, revision.id)).limit(1);
-  if (existing) return;
+  if (await revisionHasRuns({ db: tx, revisionId: revision.id })) return;
   const runs = DEMO_RUNS.map((run) => runSchema.parse(run));
-  await db.insert(mepRuns).values(runs.map((run) => runRow(revision.id, run, createdBy)));
-  await syncClashes({ db, projectId, revisionId: revision.id, model: revision.model, runs });
+  await upsertRuns({ db: tx, revisionId: revision.id, runs, actorId: createdBy });
+  await detectRevisionClashes(tx, { projectId, revision });
 }

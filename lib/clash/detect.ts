@@ -13,6 +13,9 @@ export interface ClashModel {
 
 export type ClashKind = "hard" | "clearance";
 
+/** What one detection pass over a revision found (and how many earlier clashes it cleared). */
+export type DetectionSummary = { found: number; hard: number; clearance: number; cleared: number };
+
 /** One clash between a member and a run segment. */
 export interface Clash {
   /** Stable id (see clashKey). */

@@ -1,4 +1,5 @@
 import "server-only";
+import { STANDING_CAUTION } from "@/lib/review/caution";
 import { and, eq, isNotNull, or } from "drizzle-orm";
 import type { Transaction } from "@/db/client";
 import { recordAuditEvent } from "@/db/queries/audit";
@@ -60,7 +61,7 @@ export async function carryClashDecisions(tx: Transaction, input: { projectId: s
     if (verdict.action === "close" || !found) {
       const reason = verdict.action === "close" ? `The decision does not carry: ${verdict.reason}.` : `No longer found on revision ${to.number}.`;
       const clashId = found?.id ?? (await insertClosedCopy(tx, old, toRevision.id, reason));
-      await appendClashEntry(tx, { clashId, kind: "closure", outcome: old.outcome, reason, decidedBy: null, role: null, revisionId: toRevision.id });
+      await appendClashEntry(tx, { clashId, kind: "closure", outcome: old.outcome, reason, decidedBy: null, role: null, revisionId: toRevision.id, caution: STANDING_CAUTION });
       summary.closed += 1;
       continue;
     }

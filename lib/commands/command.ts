@@ -7,6 +7,7 @@ import "server-only";
 import { withTransaction, type Transaction } from "@/db/client";
 import { recordAuditEvent, type AuditInput } from "@/db/queries/audit";
 import { insertLiveEvent } from "@/db/queries/live-events";
+import { withNextRevision } from "@/db/queries/models";
 import type { LiveEventKind } from "@/lib/realtime/live-events";
 
 export type LiveEventInput = { projectId: string; kind: LiveEventKind; subjectId: string; revision?: number | null };
@@ -19,13 +20,20 @@ export type CommandContext = {
   live(event: LiveEventInput): Promise<void>;
 };
 
+function contextFor(tx: Transaction): CommandContext {
+  return {
+    tx,
+    audit: (event) => recordAuditEvent({ db: tx, ...event }),
+    live: (event) => insertLiveEvent({ db: tx, ...event }),
+  };
+}
+
 /** Runs a command's body in one transaction with the recorders bound to it. */
 export function runCommand<T>(body: (context: CommandContext) => Promise<T>): Promise<T> {
-  return withTransaction((tx) =>
-    body({
-      tx,
-      audit: (event) => recordAuditEvent({ db: tx, ...event }),
-      live: (event) => insertLiveEvent({ db: tx, ...event }),
-    }),
-  );
+  return withTransaction((tx) => body(contextFor(tx)));
+}
+
+/** runCommand for a command that inserts a project's next revision: a concurrent save that took the number is retried once. */
+export function runRevisionCommand<T>(body: (context: CommandContext) => Promise<T>): Promise<T> {
+  return withNextRevision((tx) => body(contextFor(tx)));
 }

@@ -1,11 +1,12 @@
 import "server-only";
 import { linkModelFiles } from "@/db/queries/attachments";
-import { carryPreviousRunsForward } from "@/db/queries/mep";
-import { insertRevision, withNextRevision } from "@/db/queries/models";
+import { insertRevision } from "@/db/queries/models";
 import type { JobView } from "@/db/queries/jobs";
 import type { TrussModel } from "@/lib/analysis/model";
 import { ConflictError } from "@/lib/http/errors";
 import { withStoredFiles, type ReceivedFile } from "@/lib/storage/attachments";
+import { carryPreviousRunsForward } from "./carry-runs-forward";
+import { runRevisionCommand } from "./command";
 import { enqueueAnalysis } from "./enqueue-analysis";
 
 /**
@@ -26,15 +27,16 @@ export async function createRevision(input: {
 }): Promise<{ revision: { id: string; number: number }; job: JobView }> {
   const { projectId, userId, model } = input;
   return withStoredFiles({ projectId, userId, purpose: "model", files: input.originals }, (record) =>
-    withNextRevision(async (tx) => {
+    runRevisionCommand(async ({ tx, live }) => {
       const revision = await insertRevision(tx, { projectId, name: input.name, model, source: input.source, createdBy: userId });
       await record(tx, { revisionId: revision.id });
       const uploaded = input.uploadedFiles ?? [];
       if ((await linkModelFiles(tx, { projectId, attachmentIds: uploaded, revisionId: revision.id })) !== new Set(uploaded).size) {
         throw new ConflictError("An uploaded model file was used by another revision meanwhile; upload it again.");
       }
-      await carryPreviousRunsForward({ projectId, revision, model, actorId: userId, db: tx });
+      await carryPreviousRunsForward(tx, { projectId, revision, model, actorId: userId });
       const job = await enqueueAnalysis(tx, { projectId, revisionId: revision.id, requestedBy: userId });
+      await live({ projectId, kind: "revision", subjectId: revision.id, revision: revision.number });
       return { revision, job };
     }),
   );

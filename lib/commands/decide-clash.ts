@@ -1,4 +1,5 @@
 import "server-only";
+import { STANDING_CAUTION } from "@/lib/review/caution";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, updateClashSummary } from "@/db/queries/clashes";
 import { CLASH_OUTCOME_LABELS, type DecideClashInput } from "@/lib/clash/outcomes";
@@ -28,7 +29,7 @@ export async function decideClash({ projectId, clashId, actor, input }: { projec
     const conditions = input.outcome === "opening_accepted" ? input.conditions : null;
     const reason = input.outcome === "opening_refused" ? input.reason : null;
     const note = "note" in input ? input.note : "";
-    const entryId = await appendClashEntry(tx, { clashId, kind: "decision", outcome: input.outcome, note, conditions, reason, decidedBy: actor.userId, role: actor.role, revisionId: clash.revisionId, analysisRunId });
+    const entryId = await appendClashEntry(tx, { clashId, kind: "decision", outcome: input.outcome, note, conditions, reason, decidedBy: actor.userId, role: actor.role, revisionId: clash.revisionId, analysisRunId, caution: STANDING_CAUTION });
     await updateClashSummary(tx, clashId, { outcome: input.outcome, note: reason ?? (note || clash.note), conditions, decidedBy: actor.userId, decidedAt: new Date(), recheckReason: null });
     await recordAuditEvent({ db: tx, projectId, actorId: actor.userId, action: "clash.decide", subjectType: "clash", subjectId: clashId, details: { entryId, outcome: input.outcome, conditions, reason, note } });
     const details = [conditions ? `Conditions: ${conditions}` : "", reason ? `Reason: ${reason}` : "", note ? `Note: ${note}` : ""].filter(Boolean);

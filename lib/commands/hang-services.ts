@@ -1,9 +1,10 @@
 import "server-only";
 import type { JobView } from "@/db/queries/jobs";
-import { carryRunsForward } from "@/db/queries/mep";
-import type { DetectionSummary } from "@/db/queries/clashes";
-import { insertRevision, withNextRevision } from "@/db/queries/models";
+import { insertRevision } from "@/db/queries/models";
 import type { TrussModel } from "@/lib/analysis/model";
+import type { DetectionSummary } from "@/lib/clash/detect";
+import { carryRunsForward } from "./carry-runs-forward";
+import { runRevisionCommand } from "./command";
 import { enqueueAnalysis } from "./enqueue-analysis";
 
 /**
@@ -18,10 +19,11 @@ export async function hangServicesRevision(input: {
   model: TrussModel;
 }): Promise<{ revision: { id: string; number: number }; detection: DetectionSummary; job: JobView }> {
   const { projectId, userId, fromRevisionId, model } = input;
-  return withNextRevision(async (tx) => {
+  return runRevisionCommand(async ({ tx, live }) => {
     const revision = await insertRevision(tx, { projectId, name: input.name, model, source: "generated", createdBy: userId });
-    const detection = await carryRunsForward({ projectId, fromRevisionId, toRevision: { id: revision.id, model }, actorId: userId, db: tx });
+    const detection = await carryRunsForward(tx, { projectId, fromRevisionId, toRevision: { id: revision.id, model }, actorId: userId });
     const job = await enqueueAnalysis(tx, { projectId, revisionId: revision.id, requestedBy: userId, compareWith: fromRevisionId });
+    await live({ projectId, kind: "revision", subjectId: revision.id, revision: revision.number });
     return { revision, detection, job };
   });
 }

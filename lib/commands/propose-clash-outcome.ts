@@ -1,4 +1,5 @@
 import "server-only";
+import { STANDING_CAUTION } from "@/lib/review/caution";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, updateClashSummary } from "@/db/queries/clashes";
 import { CLASH_OUTCOME_LABELS, type ProposeOutcomeInput } from "@/lib/clash/outcomes";
@@ -21,7 +22,7 @@ export async function proposeClashOutcome({ projectId, clashId, actor, input }: 
         `This clash is decided (${CLASH_OUTCOME_LABELS[clash.outcome].toLowerCase()}). A proposal cannot replace a decision; the structural engineer can supersede it, with a reason.`,
       );
     }
-    const entryId = await appendClashEntry(tx, { clashId, kind: "proposal", outcome: input.outcome, note: input.note, decidedBy: actor.userId, role: actor.role, revisionId: clash.revisionId, analysisRunId });
+    const entryId = await appendClashEntry(tx, { clashId, kind: "proposal", outcome: input.outcome, note: input.note, decidedBy: actor.userId, role: actor.role, revisionId: clash.revisionId, analysisRunId, caution: STANDING_CAUTION });
     const now = new Date();
     await updateClashSummary(tx, clashId, { outcome: input.outcome, note: input.note, conditions: null, proposedBy: actor.userId, proposedAt: now, decidedBy: null, decidedAt: null });
     await recordAuditEvent({ db: tx, projectId, actorId: actor.userId, action: "clash.propose", subjectType: "clash", subjectId: clashId, details: { entryId, outcome: input.outcome, note: input.note } });

@@ -1,4 +1,5 @@
 import "server-only";
+import { STANDING_CAUTION } from "@/lib/review/caution";
 import type { Transaction } from "@/db/client";
 import { appendClashEntry, judgedOnRevisions, listDecidedClashes, updateClashSummary } from "@/db/queries/clashes";
 import { getMemberResults, getRevisionModelById, type MemberResults } from "@/db/queries/member-snapshots";
@@ -42,7 +43,7 @@ export async function recheckCarriedDecisions(tx: Transaction, input: { projectI
     if (reasons.length === 0) continue;
     const reason = sentence(reasons.join("; "));
     await updateClashSummary(tx, clash.id, { recheckReason: reason });
-    const entryId = await appendClashEntry(tx, { clashId: clash.id, kind: "recheck", outcome: clash.outcome, reason, decidedBy: null, role: null, revisionId, analysisRunId });
+    const entryId = await appendClashEntry(tx, { clashId: clash.id, kind: "recheck", outcome: clash.outcome, reason, decidedBy: null, role: null, revisionId, analysisRunId, caution: STANDING_CAUTION });
     await notifyClashStep({ db: tx, projectId, clashId: clash.id, entryId, step: "recheck", outcome: clash.outcome, details: [reason], actorId: null, recipientIds: [clash.decidedBy ?? clash.proposedBy, clash.assigneeId] });
     flagged += 1;
   }

@@ -1,16 +1,15 @@
 import "server-only";
 import { TransactionRollbackError } from "drizzle-orm";
-import { withTransaction } from "@/db/client";
-import { recordAuditEvent } from "@/db/queries/audit";
 import { finishJob } from "@/db/queries/jobs";
-import { insertAnalysisRun } from "@/db/queries/models";
+import { getRevisionNumber, insertAnalysisRun } from "@/db/queries/models";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { StoredReview } from "@/lib/models/analyse";
+import { runCommand } from "./command";
 import { recheckCarriedDecisions } from "./recheck-carried-decisions";
 
 /**
- * Stores a finished analysis with its job marked done and an audit event, in one transaction. A job that is no
- * longer running (retried elsewhere, or its project removed) stores nothing.
+ * Stores a finished analysis with its job marked done, an audit event and a live event (open viewers refetch the
+ * revision's results). A job that is no longer running (retried elsewhere, or its project removed) stores nothing.
  */
 export async function storeAnalysis(input: {
   job: { id: string; projectId: string; revisionId: string };
@@ -19,12 +18,11 @@ export async function storeAnalysis(input: {
   outcome: Record<string, unknown> | null;
 }): Promise<boolean> {
   const { job } = input;
-  return withTransaction(async (tx) => {
+  return runCommand(async ({ tx, audit, live }) => {
     const run = await insertAnalysisRun(tx, { revisionId: job.revisionId, result: input.result, review: input.review });
     if (!(await finishJob(tx, { jobId: job.id, outcome: input.outcome }))) tx.rollback();
     await recheckCarriedDecisions(tx, { projectId: job.projectId, revisionId: job.revisionId });
-    await recordAuditEvent({
-      db: tx,
+    await audit({
       projectId: job.projectId,
       actorId: null,
       action: "analysis.store",
@@ -32,6 +30,7 @@ export async function storeAnalysis(input: {
       subjectId: job.revisionId,
       details: { jobId: job.id, analysisRunId: run.id, status: input.result.status },
     });
+    await live({ projectId: job.projectId, kind: "revision", subjectId: job.revisionId, revision: await getRevisionNumber({ revisionId: job.revisionId, db: tx }) });
     return true;
   }).catch((error: unknown) => {
     if (error instanceof TransactionRollbackError) return false;

@@ -1,4 +1,5 @@
 import "server-only";
+import { STANDING_CAUTION } from "@/lib/review/caution";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, latestDecisionEntry, updateClashSummary } from "@/db/queries/clashes";
 import type { SupersedeDecisionInput } from "@/lib/clash/outcomes";
@@ -27,6 +28,7 @@ export async function supersedeClashDecision({ projectId, clashId, actor, input 
       role: actor.role,
       revisionId: clash.revisionId,
       analysisRunId,
+      caution: STANDING_CAUTION,
     });
     await updateClashSummary(tx, clashId, { outcome: null, note: "", conditions: null, proposedBy: null, proposedAt: null, decidedBy: null, decidedAt: null, recheckReason: null });
     await recordAuditEvent({ db: tx, projectId, actorId: actor.userId, action: "clash.supersede", subjectType: "clash", subjectId: clashId, details: { entryId, superseded: superseded?.id ?? null, outcome: clash.outcome, reason: input.reason } });

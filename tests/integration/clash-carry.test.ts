@@ -6,7 +6,7 @@ import { and, eq, like } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { listClashesByRevision, listClashHistory } from "@/db/queries/clashes";
 import { claimJob } from "@/db/queries/jobs";
-import { importRuns } from "@/db/queries/mep";
+import { importRuns } from "@/lib/commands/import-runs";
 import { createRevisionWithAnalysis } from "@/db/queries/models";
 import { mailOutbox } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
@@ -43,7 +43,7 @@ beforeAll(async () => {
   base = generateRoof({ name: "Carry roof", spanX: 9, spanY: 9, module: 3, depth: 2 });
   const { result, review } = analyseForStorage(base, "EN1993-1-1");
   first = await createRevisionWithAnalysis({ projectId: fx.projectId, name: "r1", model: base, source: "generated", createdBy: fx.users.structural_engineer.id, result, review });
-  await importRuns({ projectId: fx.projectId, revision: { id: first.id, model: base }, runs: [duct], mode: "replace", actorId: fx.users.mep_engineer.id });
+  await importRuns({ projectId: fx.projectId, revision: { ...first, model: base }, runs: [duct], mode: "replace", actorId: fx.users.mep_engineer.id });
   const clash = await clashOn(first.id);
   await proposeClashOutcome({ projectId: fx.projectId, clashId: clash.id, actor: { userId: fx.users.mep_engineer.id, role: "mep_engineer" }, input: { outcome: "opening_proposed", note: "" } });
   await decideClash({ projectId: fx.projectId, clashId: clash.id, actor: { userId: fx.users.structural_engineer.id, role: "structural_engineer" }, input: { outcome: "opening_accepted", conditions: "Sleeved opening at mid-length, 250 mm." } });

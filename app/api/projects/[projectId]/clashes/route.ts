@@ -1,6 +1,8 @@
 import { listClashesByRevision } from "@/db/queries/clashes";
 import { listMembersByProject } from "@/db/queries/memberships";
-import { copyRunsToRevision, getMemberStatesForRevision, listRunsByRevision, redetectClashes } from "@/db/queries/mep";
+import { getMemberStatesForRevision, listRunsByRevision } from "@/db/queries/mep";
+import { copyRunsToRevision } from "@/lib/commands/copy-runs";
+import { redetectClashes } from "@/lib/commands/redetect-clashes";
 import { clashListQuerySchema, detectRequestSchema } from "@/lib/clash/outcomes";
 import { clashTableRows } from "@/lib/clash/rows";
 import { memberVerdicts } from "@/lib/clash/verdicts";

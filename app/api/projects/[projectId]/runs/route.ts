@@ -1,4 +1,5 @@
-import { importRuns, listRunsByRevision } from "@/db/queries/mep";
+import { listRunsByRevision } from "@/db/queries/mep";
+import { importRuns } from "@/lib/commands/import-runs";
 import { ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";

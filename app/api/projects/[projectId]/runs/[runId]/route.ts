@@ -1,5 +1,6 @@
 import { z } from "zod";
-import { deleteRun, updateRun } from "@/db/queries/mep";
+import { deleteRun } from "@/lib/commands/delete-run";
+import { editRun } from "@/lib/commands/edit-run";
 import { projectRoute } from "@/lib/http/route";
 import { requireRevision } from "@/lib/mep/revision";
 import { editRunRequestSchema, revisionQuerySchema, runIdSchema } from "@/lib/mep/schemas";
@@ -10,7 +11,7 @@ const paramsSchema = z.object({ projectId: z.uuid(), runId: runIdSchema });
 export const PATCH = projectRoute({ params: paramsSchema, body: editRunRequestSchema, action: "runs.edit" }, async ({ params: { projectId, runId }, body, user }) => {
   const { revision: number, ...edit } = body;
   const revision = await requireRevision(projectId, number);
-  return Response.json(await updateRun({ projectId, revision, runId, edit, actorId: user.id }));
+  return Response.json(await editRun({ projectId, revision, runId, edit, actorId: user.id }));
 });
 
 /** Removes one run (`?revision=N`); its clashes are kept as cleared, with their decisions. */

@@ -1,4 +1,4 @@
-import { importRuns } from "@/db/queries/mep";
+import { importRuns } from "@/lib/commands/import-runs";
 import { readBodyBytes } from "@/lib/http/body-bytes";
 import { ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";

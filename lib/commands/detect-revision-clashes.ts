@@ -1,0 +1,38 @@
+import "server-only";
+import type { Transaction } from "@/db/client";
+import { markClashesCleared, upsertClashes } from "@/db/queries/clashes";
+import { listRuns } from "@/db/queries/mep";
+import { detectClashes, type ClashModel, type DetectionSummary } from "@/lib/clash/detect";
+
+/**
+ * A step of the commands that change runs or models (not a command itself: it runs in the caller's transaction).
+ * Detects the clashes of a revision's stored runs and stores them: clashes found again keep their row, outcome and
+ * decisions (matched by stable key) with fresh geometry; new ones are added; ones no longer found are marked
+ * cleared, never deleted, so decisions stay on record.
+ */
+export async function detectRevisionClashes(tx: Transaction, { projectId, revision }: { projectId: string; revision: { id: string; model: ClashModel } }): Promise<DetectionSummary> {
+  const runs = await listRuns({ db: tx, revisionId: revision.id });
+  const found = detectClashes(revision.model, runs);
+  await upsertClashes({
+    db: tx,
+    rows: found.map((c) => ({
+      projectId,
+      revisionId: revision.id,
+      clashKey: c.id,
+      memberId: c.memberId,
+      runId: c.runId,
+      segmentIndex: c.segmentIndex,
+      kind: c.kind,
+      status: "active" as const,
+      gap: c.gap,
+      depth: c.depth,
+      requiredClearance: c.requiredClearance,
+      pointX: c.point.x,
+      pointY: c.point.y,
+      pointZ: c.point.z,
+    })),
+  });
+  const cleared = await markClashesCleared({ db: tx, revisionId: revision.id, keepKeys: found.map((c) => c.id) });
+  const hard = found.filter((c) => c.kind === "hard").length;
+  return { found: found.length, hard, clearance: found.length - hard, cleared };
+}
