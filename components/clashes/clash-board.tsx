@@ -13,6 +13,7 @@ import { DrawRunForm } from "./draw-run-form";
 import { useClashStore } from "./clash-store";
 import { DecisionPanel } from "./decision-panel";
 import { HangServicesButton } from "./hang-services-button";
+import { ImportIfcRunsForm } from "./import-ifc-runs-form";
 import { ImportRunsForm } from "./import-runs-form";
 import { MepViewerLayer } from "./mep-viewer-layer";
 import { RunsPanel } from "./runs-panel";
@@ -97,6 +98,8 @@ export function ClashBoard({ projectId, revision, otherRevisions, initialClash }
                 <RunsPanel projectId={projectId} revision={revision} runs={runs.data?.runs ?? []} canEdit onChanged={refresh} />
                 <h3 className="mb-1 mt-4 text-sm font-semibold text-board-900">Import</h3>
                 <ImportRunsForm projectId={projectId} revision={revision} onImported={refresh} />
+                <h3 className="mb-1 mt-4 text-sm font-semibold text-board-900">Import from IFC</h3>
+                <ImportIfcRunsForm projectId={projectId} revision={revision} onImported={refresh} />
                 <h3 className="mb-1 mt-4 text-sm font-semibold text-board-900">Draw a run in the 3D view</h3>
                 <DrawRunForm projectId={projectId} revision={revision} onSaved={refresh} />
               </section>

@@ -1,6 +1,6 @@
 "use client";
 // The MEP layer for any viewer screen: fetches the revision's runs and active clashes itself and draws them
-// (runs translucent sky, clashes rose). With `focusClash` (a stable clash id, e.g. from ?clash=) it selects that
+// (runs translucent sky, clashes rose), and the runs of an IFC file being previewed. With `focusClash` (a stable clash id, e.g. from ?clash=) it selects that
 // clash and its member and flies the camera there once the data is in.
 import { useQuery } from "@tanstack/react-query";
 import { useEffect, useMemo } from "react";
@@ -9,6 +9,7 @@ import { RunDraftLayer } from "@/components/viewer/layers/run-draft-layer";
 import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
 import { useClashStore } from "./clash-store";
+import { useRunPreviewStore } from "./run-preview-store";
 import { clashesQueryKey, runsQueryKey, type ClashListResponse, type RunListResponse } from "./types";
 
 // The force-state threshold does not matter for drawing; the clash table's default keeps the cache shared.
@@ -21,6 +22,7 @@ export function MepViewerLayer({ projectId, revision, focusClash }: { projectId:
     queryFn: () => apiFetch<ClashListResponse>(`/api/projects/${projectId}/clashes?revision=${revision}&lowForce=${DEFAULT_LOW_FORCE}`),
   });
   const selectedKey = useClashStore((s) => s.selectedClashId);
+  const previewRuns = useRunPreviewStore((s) => s.runs);
   const rows = clashes.data?.clashes;
   const markers = useMemo(() => (rows ?? []).filter((r) => r.status === "active").map((r) => ({ id: r.clashKey, kind: r.kind, point: r.point })), [rows]);
 
@@ -44,6 +46,7 @@ export function MepViewerLayer({ projectId, revision, focusClash }: { projectId:
   return (
     <>
       <MepRunsLayer runs={runs.data?.runs ?? []} clashes={markers} selectedClashId={selectedKey} onSelectClash={select} />
+      {previewRuns.length > 0 && <MepRunsLayer runs={previewRuns} clashes={[]} selectedClashId={null} />}
       <RunDraftLayer />
     </>
   );

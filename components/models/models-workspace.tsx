@@ -3,6 +3,7 @@
 import Link from "next/link";
 import { useState } from "react";
 import { GenerateForm } from "./generate-form";
+import { IfcRoofForm } from "./ifc-roof-form";
 import { RevisionList } from "./revision-list";
 import { UploadForm } from "./upload-form";
 
@@ -38,6 +39,12 @@ export function ModelsWorkspace({ projectId, canEdit }: { projectId: string; can
               Upload a model
             </h2>
             <UploadForm projectId={projectId} onSaved={setSaved} />
+          </section>
+          <section className="rounded-xl border border-board-200 bg-white p-5" aria-labelledby="ifc-roof-heading">
+            <h2 id="ifc-roof-heading" className="mb-3 text-lg font-semibold">
+              Import the roof from IFC
+            </h2>
+            <IfcRoofForm projectId={projectId} onSaved={setSaved} />
           </section>
         </div>
       ) : (

@@ -27,3 +27,13 @@ export async function apiFetch<T>(url: string, init: { method?: string; body?: u
   }
   return body as T;
 }
+
+/** Sends a file's bytes as the request body (IFC and BCF imports); resolves with the JSON answer or throws an ApiError. */
+export async function apiUpload<T>(url: string, file: Blob): Promise<T> {
+  const response = await fetch(url, { method: "POST", headers: { "content-type": "application/octet-stream" }, body: file, credentials: "same-origin" });
+  const body = await response.json().catch(() => null);
+  if (!response.ok) {
+    throw new ApiError(response.status, body?.error ?? `The server answered ${response.status}.`, body?.issues ?? []);
+  }
+  return body as T;
+}

@@ -1,49 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { readIfcRuns } from "./index";
-import { StepText } from "./test-files";
+import { ifcDuctFile, StepText } from "./test-files";
 
 const encode = (text: string) => new TextEncoder().encode(text);
-
-// IFC4 in millimetres: a supply-air duct drawn as three IfcDuctSegments (the second one drawn backwards, the
-// third behind an elbow joined through ports), a cable tray turned on edge, and a segment with an ellipse profile.
-function ductFile() {
-  const s = new StepText("IFC4");
-  const ctx = s.project("MILLI");
-  const circle = s.add("IFCCIRCLEPROFILEDEF(.AREA.,$,$,200.)");
-  const segment = (guid: string, name: string, origin: [number, number, number], axis: [number, number, number], depth: number, profile = circle) =>
-    s.add(`IFCDUCTSEGMENT('${guid}',$,'${name}',$,$,${s.localPlacement(undefined, origin, axis, axis[2] === 0 ? [0, 0, 1] : [1, 0, 0])},${s.extrusion(ctx, profile, depth)},$,.RIGIDSEGMENT.)`);
-  const a = segment("1AAAAAAAAAAAAAAAAAAA$1", "SA main 1", [0, 0, 3000], [1, 0, 0], 4000);
-  const b = segment("1BBBBBBBBBBBBBBBBBBBB2", "SA main 2", [8000, 0, 3000], [-1, 0, 0], 4000);
-  const c = segment("1CCCCCCCCCCCCCCCCCCCC3", "SA main 3", [8300, 300, 3000], [0, 1, 0], 5000);
-  const elbow = s.add(`IFCDUCTFITTING('1ElbowElbowElbowElbow4',$,'Elbow',$,$,$,$,$,.BEND.)`);
-  const port = (guid: string, owner: string) => {
-    const p = s.add(`IFCDISTRIBUTIONPORT('${guid}',$,$,$,$,$,$,.SOURCEANDSINK.,.DUCT.,.AIRCONDITIONING.)`);
-    s.add(`IFCRELNESTS('${guid.slice(0, 20)}Nx',$,$,$,${owner},(${p}))`);
-    return p;
-  };
-  const p1 = port("1PortPortPortPortPort1", b);
-  const p2 = port("1PortPortPortPortPort2", elbow);
-  const p3 = port("1PortPortPortPortPort3", elbow);
-  const p4 = port("1PortPortPortPortPort4", c);
-  s.add(`IFCRELCONNECTSPORTS('1ConnConnConnConnConn1',$,$,$,${p1},${p2},$)`);
-  s.add(`IFCRELCONNECTSPORTS('1ConnConnConnConnConn2',$,$,$,${p3},${p4},$)`);
-  const system = s.add(`IFCDISTRIBUTIONSYSTEM('1SystemSystemSystemSy1',$,'Supply air',$,$,$,.VENTILATION.)`);
-  s.add(`IFCRELASSIGNSTOGROUP('1GroupGroupGroupGroup1',$,$,$,(${a},${b},${c},${elbow}),$,${system})`);
-  const covering = s.add(`IFCCOVERING('1InsulInsulInsulInsul1',$,'Lagging',$,$,$,$,$,.INSULATION.)`);
-  s.add(`IFCRELCOVERSBLDGELEMENTS('1CoversCoversCoversCo1',$,$,$,${a},(${covering}))`);
-  s.add(`IFCRELCOVERSBLDGELEMENTS('1CoversCoversCoversCo2',$,$,$,${b},(${covering}))`);
-  s.add(`IFCRELCOVERSBLDGELEMENTS('1CoversCoversCoversCo3',$,$,$,${c},(${covering}))`);
-  const thickness = s.add("IFCPROPERTYSINGLEVALUE('NominalThickness',$,IFCPOSITIVELENGTHMEASURE(50.),$)");
-  const pset = s.add(`IFCPROPERTYSET('1PsetPsetPsetPsetPset1',$,'Pset_CoveringCommon',$,(${thickness}))`);
-  s.add(`IFCRELDEFINESBYPROPERTIES('1DefsDefsDefsDefsDefs1',$,$,$,(${covering}),${pset})`);
-  // Cable tray 300 x 100 along +y with its profile x axis (the 300 side) pointing up: rotation 90 degrees.
-  const rectangle = s.add("IFCRECTANGLEPROFILEDEF(.AREA.,$,$,300.,100.)");
-  const trayPlacement = s.localPlacement(undefined, [2000, 1000, 4000], [0, 1, 0], [0, 0, 1]);
-  s.add(`IFCCABLECARRIERSEGMENT('2TrayTrayTrayTrayTray1',$,'Tray',$,$,${trayPlacement},${s.extrusion(ctx, rectangle, 6000)},$,.CABLETRAYSEGMENT.)`);
-  const ellipse = s.add("IFCELLIPSEPROFILEDEF(.AREA.,$,$,100.,50.)");
-  s.add(`IFCPIPESEGMENT('2BadSegment00000000001',$,'Odd',$,$,${s.localPlacement(undefined, [0, 0, 0])},${s.extrusion(ctx, ellipse, 1000)},$,.RIGIDSEGMENT.)`);
-  return s.text();
-}
 
 // IFC2X3 in metres: a chilled-water riser and its horizontal leg as two IfcFlowSegments typed as pipe segments, the
 // second placed relative to a storey placement one metre up; one fitting (skipped and counted).
@@ -66,7 +25,7 @@ function pipeFile() {
 
 describe("IFC runs import (files written by the test; expected coordinates are those written)", () => {
   it("IFC4 in mm: joins segments by end points and through an elbow's ports, reads system, insulation and profiles", async () => {
-    const result = await readIfcRuns(encode(ductFile()));
+    const result = await readIfcRuns(encode(ifcDuctFile()));
     if ("message" in result) throw new Error(result.message);
     expect(result.problems).toEqual([{ where: "2BadSegment00000000001", message: expect.stringContaining("IfcEllipseProfileDef is not read") }]);
     expect(result.skipped.fittings).toBe(1);
@@ -113,7 +72,7 @@ describe("IFC runs import (files written by the test; expected coordinates are t
 
   it("refuses what is not an IFC STEP file, or a schema it does not read", async () => {
     expect(await readIfcRuns(encode("hello"))).toEqual({ where: "file", message: expect.stringContaining("ISO-10303-21") });
-    const ifc4x3 = ductFile().replace("FILE_SCHEMA(('IFC4'))", "FILE_SCHEMA(('IFC4X3_ADD2'))");
+    const ifc4x3 = ifcDuctFile().replace("FILE_SCHEMA(('IFC4'))", "FILE_SCHEMA(('IFC4X3_ADD2'))");
     expect(await readIfcRuns(encode(ifc4x3))).toEqual({ where: "file", message: expect.stringContaining("IFC4X3_ADD2") });
   });
 });

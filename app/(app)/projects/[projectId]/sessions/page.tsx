@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { ProjectHeader } from "@/components/project/project-header";
 import { ProjectNav } from "@/components/project/project-nav";
+import { BcfImportForm } from "@/components/session/bcf-import-form";
 import { listPinsByProject } from "@/db/queries/pins";
 import { getLiveSession } from "@/db/queries/review-sessions";
 import { requirePageProject } from "@/lib/auth/page";
@@ -46,6 +47,14 @@ export default async function SessionsPage({ params, searchParams }: PageProps<"
           </p>
         )}
       </section>
+      {project.abilities["pin.create"] && project.abilities["comment.create"] && (
+        <section className="rounded-xl border border-board-200 bg-white p-4" aria-labelledby="bcf-import-heading">
+          <h2 id="bcf-import-heading" className="mb-2 font-semibold">
+            Import pins from BCF
+          </h2>
+          <BcfImportForm projectId={project.id} />
+        </section>
+      )}
       <section className="flex flex-col gap-2" aria-label="Pinned questions">
         <div className="flex flex-wrap items-center gap-2 text-sm">
           <span className="font-medium">Pins</span>
