@@ -2,7 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { Button, Field, FormMessage, showServerError } from "@/components/ui/form";
 import { roofParamsSchema } from "@/lib/analysis/generator";
@@ -30,6 +30,7 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
     resolver: zodResolver(roofParamsSchema),
     defaultValues: { name: "Sports hall roof", pattern: "square_on_square_offset", spanX: 48, spanY: 36, module: 3, depth: 1.8, roofing: 0.6, snow: 0.8, windUplift: 0.7, services: 0.25, fabrication: "hot-finished" },
   });
+  const pattern = useWatch({ control: form.control, name: "pattern" });
   const { errors } = form.formState;
   const save = useMutation({
     mutationFn: (params: RoofValues) => apiFetch<{ revision: { number: number } }>(`/api/projects/${projectId}/models`, { method: "POST", body: { kind: "generate", params } }),
@@ -50,10 +51,15 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
         <label htmlFor="roof-pattern" className="text-sm font-medium text-board-800">
           Grid pattern
         </label>
-        <select id="roof-pattern" className="rounded-md border border-board-200 bg-white px-3 py-2" {...form.register("pattern")}>
+        <select id="roof-pattern" aria-describedby="roof-pattern-hint" className="rounded-md border border-board-200 bg-white px-3 py-2" {...form.register("pattern")}>
           <option value="square_on_square_offset">Square on square, offset half a module</option>
-          <option value="square_on_diagonal">Square on diagonal</option>
+          <option value="square_on_diagonal">Square on diagonal, bottom nodes under every other bay</option>
         </select>
+        <p className="text-xs text-board-700" id="roof-pattern-hint">
+          {pattern === "square_on_diagonal"
+            ? "About a quarter fewer members; every edge node is held normal to its wall, so the roof cannot expand freely."
+            : "Every edge node bears vertically; three plan restraints leave the roof free to expand."}
+        </p>
       </div>
       <div className="flex flex-col gap-1">
         <label htmlFor="roof-fabrication" className="text-sm font-medium text-board-800">

@@ -135,3 +135,52 @@ describe("double-layer grid generator (square on square offset)", () => {
     expect(roofSize(4, 7)).toEqual({ nodes: model.nodes.length, members: model.members.length });
   });
 });
+
+describe("double-layer grid generator (square on diagonal)", () => {
+  it.each([
+    [2, 2],
+    [3, 5],
+    [8, 6],
+    [16, 12],
+  ])("a %i x %i bay grid is valid, stable and in equilibrium, with the counts roofSize predicts", (nx, ny) => {
+    const model = generateRoof({ pattern: "square_on_diagonal", spanX: 3 * nx, spanY: 3 * ny, module: 3, depth: 1.5 });
+    expect(validateModel(model).ok).toBe(true);
+    expect(roofSize(nx, ny, "square_on_diagonal")).toEqual({ nodes: model.nodes.length, members: model.members.length });
+    // Bottom nodes only under every other bay (a checkerboard), so fewer members than square on square offset.
+    expect(model.nodes.filter((n) => n.id.startsWith("B-"))).toHaveLength(Math.ceil((nx * ny) / 2));
+    expect(model.members.length).toBeLessThan(roofSize(nx, ny).members);
+    expect(prepareStructure(model).status).toBe("ok");
+    const result = analyzeModel(model);
+    for (const loadCase of model.loadCases) {
+      const r = result.results[loadCase.id];
+      const applied = loadCase.nodalLoads.reduce((sum, l) => sum + l.fz, 0);
+      const scale = Math.abs(applied) || 1;
+      expect(r.equilibriumResidual).toBeLessThan(1e-9 * scale);
+      if (!loadCase.selfWeight) {
+        // Statics: the vertical reactions balance the applied loads.
+        const reactions = Object.values(r.reactions).reduce((sum, v) => sum + v.fz, 0);
+        expect(Math.abs(reactions + applied)).toBeLessThan(1e-9 * scale);
+      }
+    }
+    // The hanging services carry the whole plan area once: pressure x spanX x spanY.
+    const services = model.loadCases.find((c) => c.id === "services")!;
+    expect(services.nodalLoads.reduce((sum, l) => sum + l.fz, 0)).toBeCloseTo(-0.25 * 3 * nx * 3 * ny, 9);
+  });
+
+  it("holds every perimeter node normal to its edge: on the three plan restraints of the offset grid its edge bays rack", () => {
+    const model = generateRoof({ pattern: "square_on_diagonal", spanX: 24, spanY: 18, module: 3, depth: 1.5 });
+    expect(model.supports.filter((s) => s.node === "T-0-3")).toEqual([{ node: "T-0-3", ux: true, uy: false, uz: true }]);
+    expect(model.supports.filter((s) => s.node === "T-4-6")).toEqual([{ node: "T-4-6", ux: false, uy: true, uz: true }]);
+    // The analysis itself shows why: with only the offset grid's three plan restraints the layout is a mechanism.
+    const minimal = { ...model, supports: model.supports.map((s) => ({ ...s, ux: s.node === "T-0-0", uy: s.node === "T-0-0" || s.node === "T-8-0" })) };
+    expect(prepareStructure(minimal).status).toBe("unstable");
+  });
+
+  it("joins bottom nodes diagonally: B-0-0 to B-1-1 at 45 degrees, a module of a root 2", () => {
+    const model = generateRoof({ pattern: "square_on_diagonal", spanX: 12, spanY: 12, module: 3, depth: 1 });
+    expect(model.members.find((m) => m.id === "BCD-0-0-NE")).toMatchObject({ i: "B-0-0", j: "B-1-1" });
+    expect(model.members.find((m) => m.id === "BCD-1-1-SE")).toMatchObject({ i: "B-1-1", j: "B-2-0" });
+    expect(model.nodes.find((n) => n.id === "B-1-0")).toBeUndefined();
+    expect(model.members.some((m) => m.id.startsWith("BCX") || m.id.startsWith("BCY"))).toBe(false);
+  });
+});

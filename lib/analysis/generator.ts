@@ -1,13 +1,19 @@
 import { z } from "zod";
 import { generator, physical, text } from "../limits";
+import { diagonalBays, diagonalBottomChords, squareOnDiagonalSize } from "./square-on-diagonal";
 import { fabrications, type Combination, type Fabrication, type LoadCase, type TrussMember, type TrussModel, type TrussNode, type TrussSection, type TrussSupport } from "./model";
 
 /** Inputs of the double-layer grid roof generator (m, kN/m2); shared by the web form and the server. */
 const pressure = z.number().nonnegative().max(physical.pressure, `Use at most ${physical.pressure} kN/m2.`);
 const range = ({ min, max }: { min: number; max: number }) => z.number().min(min, `Use at least ${min} m.`).max(max, `Use at most ${max} m.`);
 
-/** Nodes and members of a square-on-square-offset grid of nx by ny bays (counted, not built). */
-export function roofSize(nx: number, ny: number): { nodes: number; members: number } {
+/** The double-layer grid layouts the generator builds (names of the common classification of double-layer grids). */
+export const ROOF_PATTERNS = ["square_on_square_offset", "square_on_diagonal"] as const;
+export type RoofPattern = (typeof ROOF_PATTERNS)[number];
+
+/** Nodes and members of a grid of nx by ny bays (counted, not built). */
+export function roofSize(nx: number, ny: number, pattern: RoofPattern = "square_on_square_offset"): { nodes: number; members: number } {
+  if (pattern === "square_on_diagonal") return squareOnDiagonalSize(nx, ny);
   return { nodes: (nx + 1) * (ny + 1) + nx * ny, members: 8 * nx * ny };
 }
 
@@ -15,7 +21,7 @@ export function roofSize(nx: number, ny: number): { nodes: number; members: numb
 export const roofParamsSchema = z
   .object({
     name: z.string().min(1).max(text.name).default("Double-layer grid roof"),
-    pattern: z.enum(["square_on_square_offset"]).default("square_on_square_offset"),
+    pattern: z.enum(ROOF_PATTERNS).default("square_on_square_offset"),
     spanX: range(generator.span),
     spanY: range(generator.span),
     module: range(generator.module),
@@ -40,7 +46,7 @@ export const roofParamsSchema = z
       }
     }
     // Counted before anything is built: a fine module on a long span would otherwise exhaust memory.
-    const size = roofSize(Math.round(p.spanX / p.module), Math.round(p.spanY / p.module));
+    const size = roofSize(Math.round(p.spanX / p.module), Math.round(p.spanY / p.module), p.pattern);
     if (size.nodes > generator.nodes || size.members > generator.members) {
       ctx.addIssue({
         code: "custom",
@@ -90,13 +96,15 @@ const sizes = {
 } as const;
 
 /**
- * Generates a double-layer grid roof, square on square offset: a top layer of square bays, a bottom layer of
+ * Generates a double-layer grid roof. Square on square offset: a top layer of square bays, a bottom layer of
  * square bays offset by half a module (bottom nodes at the top bay centres), four web members from each bottom
- * node to the corners of its bay. Ids are stable and readable: nodes T-i-j / B-i-j,
- * top chords TCX-i-j / TCY-i-j, bottom chords BCX-i-j / BCY-i-j, diagonals D-i-j-SW/SE/NW/NE.
+ * node to the corners of its bay. Square on diagonal: the same top layer, bottom nodes under every other bay
+ * (a checkerboard) joined by bottom chords at 45 degrees (see square-on-diagonal.ts). Ids are stable and readable:
+ * nodes T-i-j / B-i-j, top chords TCX-i-j / TCY-i-j, bottom chords BCX-i-j / BCY-i-j (offset) or BCD-i-j-NE /
+ * BCD-i-j-SE (diagonal), web members D-i-j-SW/SE/NW/NE.
  *
  * Supports: every perimeter top node is held vertically (the roof bears on the walls all round). In plan the
- * roof is held by the minimum three restraints, ux + uy at corner T-0-0 and uy at corner T-Nx-0, so it is
+ * square-on-square-offset roof is held by the minimum three restraints, ux + uy at corner T-0-0 and uy at corner T-Nx-0, so it is
  * stable yet free to expand; more horizontal restraints would attract forces from temperature and wall drift.
  *
  * Load cases (characteristic): dead (self-weight plus roofing), services (bottom nodes), snow and wind uplift
@@ -133,23 +141,33 @@ export function generateRoof(input: RoofParams): TrussModel {
   }
 
   const bottomLoads: { node: string; area: number }[] = [];
-  for (let j = 0; j < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      nodes.push({ id: bottom(i, j), x: (i + 0.5) * a, y: (j + 0.5) * a, z: 0 });
-      bottomLoads.push({ node: bottom(i, j), area: a * a });
-    }
-  }
-  for (let j = 0; j < ny; j++) {
-    for (let i = 0; i < nx; i++) {
-      const x = (i + 0.5) * a;
-      const y = (j + 0.5) * a;
-      if (i < nx - 1) addMember(`BCX-${i}-${j}`, bottom(i, j), bottom(i + 1, j), chordMid(x + a / 2, y) ? sizes.bottomChordMid : sizes.bottomChordEdge);
-      if (j < ny - 1) addMember(`BCY-${i}-${j}`, bottom(i, j), bottom(i, j + 1), chordMid(x, y + a / 2) ? sizes.bottomChordMid : sizes.bottomChordEdge);
-      const web = webEdge(x, y) ? sizes.diagonalEdge : sizes.diagonalMid;
-      addMember(`D-${i}-${j}-SW`, bottom(i, j), top(i, j), web);
-      addMember(`D-${i}-${j}-SE`, bottom(i, j), top(i + 1, j), web);
-      addMember(`D-${i}-${j}-NW`, bottom(i, j), top(i, j + 1), web);
-      addMember(`D-${i}-${j}-NE`, bottom(i, j), top(i + 1, j + 1), web);
+  // A bay with a bottom node hangs from the four corners of its top square (web members D-i-j-SW/SE/NW/NE).
+  const hangBay = (i: number, j: number, area: number) => {
+    const x = (i + 0.5) * a;
+    const y = (j + 0.5) * a;
+    nodes.push({ id: bottom(i, j), x, y, z: 0 });
+    bottomLoads.push({ node: bottom(i, j), area });
+    const web = webEdge(x, y) ? sizes.diagonalEdge : sizes.diagonalMid;
+    addMember(`D-${i}-${j}-SW`, bottom(i, j), top(i, j), web);
+    addMember(`D-${i}-${j}-SE`, bottom(i, j), top(i + 1, j), web);
+    addMember(`D-${i}-${j}-NW`, bottom(i, j), top(i, j + 1), web);
+    addMember(`D-${i}-${j}-NE`, bottom(i, j), top(i + 1, j + 1), web);
+  };
+  const bottomChord = (id: string, from: [number, number], to: [number, number]) => {
+    const mid = ((from[0] + to[0] + 1) / 2) * a;
+    const midY = ((from[1] + to[1] + 1) / 2) * a;
+    addMember(id, bottom(...from), bottom(...to), chordMid(mid, midY) ? sizes.bottomChordMid : sizes.bottomChordEdge);
+  };
+  if (p.pattern === "square_on_diagonal") {
+    for (const { i, j, area } of diagonalBays(nx, ny, a)) hangBay(i, j, area);
+    for (const { id, from, to } of diagonalBottomChords(nx, ny)) bottomChord(id, from, to);
+  } else {
+    for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) hangBay(i, j, a * a);
+    for (let j = 0; j < ny; j++) {
+      for (let i = 0; i < nx; i++) {
+        if (i < nx - 1) bottomChord(`BCX-${i}-${j}`, [i, j], [i + 1, j]);
+        if (j < ny - 1) bottomChord(`BCY-${i}-${j}`, [i, j], [i, j + 1]);
+      }
     }
   }
 
@@ -157,7 +175,13 @@ export function generateRoof(input: RoofParams): TrussModel {
   for (let j = 0; j <= ny; j++) {
     for (let i = 0; i <= nx; i++) {
       if (i !== 0 && i !== nx && j !== 0 && j !== ny) continue;
-      supports.push({ node: top(i, j), ux: i === 0 && j === 0, uy: j === 0 && (i === 0 || i === nx), uz: true });
+      if (p.pattern === "square_on_diagonal") {
+        // Its edge bays rack in plan on three restraints (a mechanism the analysis finds), so every perimeter node is
+        // held normal to its edge, as on bearings along walls all round; the roof is then not free to expand.
+        supports.push({ node: top(i, j), ux: i === 0 || i === nx, uy: j === 0 || j === ny, uz: true });
+      } else {
+        supports.push({ node: top(i, j), ux: i === 0 && j === 0, uy: j === 0 && (i === 0 || i === nx), uz: true });
+      }
     }
   }
 
