@@ -1,9 +1,9 @@
-// The demo roof (lib/analysis demoRoof: the Northfield sports hall) as revision 1 of the demo project, with its
+// The demo roof (lib/analysis/demo-roof.ts: the Northfield sports hall) as revision 1 of the demo project, with its
 // analysis and member review stored and marked current, so the viewer opens on real results. Idempotent: skipped once revision 1 exists.
 import { and, eq } from "drizzle-orm";
 import type { Executor } from "../client";
 import { modelRevisions, projects } from "../schema";
-import { demoRoof } from "../../lib/analysis/generator";
+import { demoRoof } from "../../lib/analysis/demo-roof";
 import { analyseForStorage } from "../../lib/models/analyse";
 import { insertRevisionWithAnalysis, setCurrentRevision } from "../queries/models";
 

@@ -1,54 +1,17 @@
-// The demo project's own services on revision 1 of the Northfield roof (our invented scenario), with real clashes:
-// the supply-air duct's dog-leg cuts a diagonal, the chilled-water drop comes too close to a bottom chord, the
-// sprinkler main hangs too tight under the mid-span bottom chords, and a cable tray set on edge clips six
-// diagonals. Idempotent: skipped once the revision has runs.
+// The demo project's own services on revision 1 of the Northfield roof (our invented scenario), with real clashes.
+// Three tell the review's story (lib/analysis/demo-roof.ts says why each member carries what it does):
+// the fresh-air intake FA-01 cuts west edge chord TCY-0-5, zero in every combination (an opening can be accepted
+// with conditions); the heating pipe HW-01 cuts restraint strut RS-W1, zero under every gravity combination but
+// working under the wind from the west (an opening is refused); the supply-air riser SA-02 cuts mid-span bottom
+// chord BCX-7-5, working hard in every gravity combination (the run is rerouted). Around them: the supply-air
+// duct's dog-leg cuts a diagonal, the chilled-water drop comes too close to a bottom chord, the sprinkler main
+// hangs too tight under the mid-span bottom chords, and a cable tray set on edge clips six diagonals.
+// Idempotent: skipped once the revision has runs.
 import type { Transaction } from "../client";
-import { runSchema, type RunInput } from "../../lib/mep/schemas";
+import { DEMO_RUNS } from "../../lib/mep/demo-runs";
+import { runSchema } from "../../lib/mep/schemas";
 import { detectRevisionClashes } from "../../lib/commands/detect-revision-clashes";
 import { getRevisionForMep, revisionHasRuns, upsertRuns } from "../queries/mep";
-
-const DEMO_RUNS: RunInput[] = [
-  {
-    id: "SA-01",
-    name: "Supply air main, hall east",
-    system: "supply air",
-    profile: { shape: "rectangular", width: 0.8, height: 0.4, rotation: 0 },
-    insulation: 0.025,
-    clearance: 0.05,
-    weightPerMetre: 0.45,
-    points: [{ x: 1.5, y: 18, z: 0.9 }, { x: 21, y: 18, z: 0.9 }, { x: 22.5, y: 19.5, z: 0.9 }, { x: 33, y: 19.5, z: 0.9 }, { x: 33, y: 27, z: 0.9 }],
-  },
-  {
-    id: "CHW-01",
-    name: "Chilled water flow to the air handler",
-    system: "chilled water",
-    profile: { shape: "round", diameter: 0.15 },
-    insulation: 0.03,
-    clearance: 0.05,
-    weightPerMetre: 0.35,
-    points: [{ x: 6, y: 3, z: 0.6 }, { x: 36, y: 3, z: 0.6 }, { x: 36, y: 9, z: 0.1 }],
-  },
-  {
-    id: "SPR-01",
-    name: "Sprinkler main, court zone",
-    system: "sprinkler",
-    profile: { shape: "round", diameter: 0.1 },
-    insulation: 0,
-    clearance: 0.05,
-    weightPerMetre: 0.2,
-    points: [{ x: 12, y: 12, z: -0.16 }, { x: 27, y: 12, z: -0.16 }],
-  },
-  {
-    id: "CT-01",
-    name: "Cable tray to the scoreboard",
-    system: "cable tray",
-    profile: { shape: "rectangular", width: 0.3, height: 0.1, rotation: 90 },
-    insulation: 0,
-    clearance: 0.05,
-    weightPerMetre: 0.15,
-    points: [{ x: 24.6, y: 13.5, z: 1.2 }, { x: 24.6, y: 22.5, z: 1.2 }],
-  },
-];
 
 /** Adds the demo runs to revision 1 and stores their clashes, unless that revision already has runs. */
 export async function seedDemoRuns(tx: Transaction, { projectId, createdBy }: { projectId: string; createdBy: string }): Promise<void> {

@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "./analyze";
 import { classifyMembers } from "./classify";
-import { demoRoof, generateRoof, roofParamsSchema, roofSize } from "./generator";
+import { demoRoof } from "./demo-roof";
+import { generateRoof, roofParamsSchema, roofSize } from "./generator";
 import { loadVectorForCase } from "./loads";
 import { validateModel } from "./model";
 import { prepareStructure } from "./prepare";

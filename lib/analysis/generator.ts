@@ -242,19 +242,3 @@ const asce722Combinations: Combination[] = [
   { id: "LRFD-2", name: "ASCE 7-22 2.3.1: 1.2D + 1.0S", factors: { dead: 1.2, services: 1.2, snow: 1.0 } },
   { id: "LRFD-3", name: "ASCE 7-22 2.3.1: 0.9D + 1.0W (uplift)", factors: { dead: 0.9, "wind-uplift": 1.0 } },
 ];
-
-/** The demo project's roof: our invented Northfield Community Sports Hall, 36 m x 48 m on 3 m modules. */
-export function demoRoof(): TrussModel {
-  // Depth 1.8 m = short span / 20, the deep end of the common span/20 to span/30 range for perimeter support.
-  return generateRoof({
-    name: "Northfield Community Sports Hall roof",
-    spanX: 48,
-    spanY: 36,
-    module: 3,
-    depth: 1.8,
-    roofing: 0.6,
-    snow: 0.8,
-    windUplift: 0.9,
-    services: 0.25,
-  });
-}

@@ -40,6 +40,7 @@ export { loadVectorForCase } from "./loads";
 export { mechanismModes, nearMechanism, describeModes, type MechanismMode, type MovingJoint } from "./mechanism";
 export { instabilityFromModes } from "./analyze";
 export { planSpan } from "./plan-span";
-export { generateRoof, roofParamsSchema, demoRoof, type RoofParams } from "./generator";
+export { generateRoof, roofParamsSchema, type RoofParams } from "./generator";
+export { demoRoof } from "./demo-roof";
 export { classifyMembers, type MemberClass } from "./classify";
 export { handleAnalysisRequest, type AnalysisRequest, type AnalysisResponse } from "./worker-protocol";

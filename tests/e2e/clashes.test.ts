@@ -33,14 +33,14 @@ afterAll(async () => {
 describe("clash review on the demo roof", () => {
   it("lists the demo runs' clashes, filters them, and settles one between MEP and structural engineers", async () => {
     const mep = await clashesAs("mep_engineer");
-    // db/seed/demo-runs.ts: SA-01 1, CHW-01 1, SPR-01 5, CT-01 6 clashes.
-    expect(await mep.count()).toBe("13 of 13 clashes");
+    // lib/mep/demo-runs.ts: FA-01 1, HW-01 1, SA-02 1, SA-01 1, CHW-01 1, SPR-01 5, CT-01 6 clashes.
+    expect(await mep.count()).toBe("16 of 16 clashes");
     expect(await mep.caution()).toBe(CAUTION);
     await mep.filter("system", "sprinkler");
-    expect(await mep.count()).toBe("5 of 13 clashes");
+    expect(await mep.count()).toBe("5 of 16 clashes");
     await mep.filter("system", "");
     await mep.filter("state", "hard");
-    expect(await mep.count()).toBe("7 of 13 clashes");
+    expect(await mep.count()).toBe("10 of 16 clashes");
     await mep.filter("state", "");
 
     await mep.select("CHW-01");
