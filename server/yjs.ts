@@ -5,9 +5,11 @@ import type { IncomingMessage } from "node:http";
 import type { Duplex } from "node:stream";
 import { WebSocketServer, type WebSocket } from "ws";
 import * as Y from "yjs";
+import * as encoding from "lib0/encoding";
+import { writePermissionDenied } from "y-protocols/auth";
 import { docs, getYDoc, setPersistence, setupWSConnection, type WSSharedDoc } from "@y/websocket-server/utils";
 import { appendYjsUpdate, compactYjsUpdates, loadYjsUpdates } from "@/db/queries/live-documents";
-import { realtime } from "@/lib/limits";
+import { formatBytes, realtime } from "@/lib/limits";
 import { YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { authorize } from "@/lib/permissions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
@@ -71,6 +73,29 @@ async function storeChange(projectId: string, update: Uint8Array): Promise<void>
   }
 }
 
+/** y-websocket's top-level message type for auth messages (y-websocket's protocol: 0 sync, 1 awareness, 2 auth). */
+const MESSAGE_AUTH = 2;
+/** Close code for a change the document cannot take: y-websocket clients do not reconnect after 4400–4499. */
+export const DOCUMENT_FULL_CODE = 4413;
+export const DOCUMENT_FULL_REASON = `The shared notes are full (${formatBytes(realtime.yjsDocumentBytes)}): your last change was not stored.`;
+
+/**
+ * The document's size in bytes once `update` is applied: its encoded state plus the part of the update it does not
+ * hold yet (a reconnecting client re-sends what the server already has; only what is new counts). The whole state is
+ * encoded for each change, which stays cheap up to the cap.
+ */
+function sizeAfter(doc: Y.Doc, update: Uint8Array): number {
+  return Y.encodeStateAsUpdate(doc).byteLength + Y.diffUpdate(update, Y.encodeStateVector(doc)).byteLength;
+}
+
+/** Tells the client why (a y-protocols permission-denied message, which y-websocket logs) and closes for good. */
+function refuseAsFull(ws: WebSocket) {
+  const encoder = encoding.createEncoder();
+  encoding.writeVarUint(encoder, MESSAGE_AUTH);
+  writePermissionDenied(encoder, `${DOCUMENT_FULL_REASON} Copy it elsewhere, then remove older notes to make room.`);
+  ws.send(encoding.toUint8Array(encoder), () => ws.close(DOCUMENT_FULL_CODE, DOCUMENT_FULL_REASON));
+}
+
 function bytesOf(data: ArrayBuffer | Buffer): Uint8Array {
   return data instanceof ArrayBuffer ? new Uint8Array(data) : new Uint8Array(data.buffer, data.byteOffset, data.byteLength);
 }
@@ -90,6 +115,17 @@ function gateMessages(ws: WebSocket, { projectId, mayEdit }: { projectId: string
     const message = readClientMessage(bytesOf(data));
     if (message.kind === "read") return true;
     if (message.kind === "malformed" || !mayEdit) return false;
+    const doc = docs.get(projectId);
+    let size: number;
+    try {
+      size = doc ? sizeAfter(doc, message.update) : message.update.byteLength;
+    } catch {
+      return false; // an update Yjs cannot read: the library would fail on it too
+    }
+    if (size > realtime.yjsDocumentBytes) {
+      refuseAsFull(ws);
+      return false;
+    }
     try {
       await storeChange(projectId, message.update);
       return true;
@@ -158,6 +194,9 @@ export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
     if (isRefusal(who)) return refuse(socket, who.status, who.message);
     await openDocument(who.projectId);
     wss.handleUpgrade(request, socket, head, (ws) => {
+      // ws reports a message over maxPayload (and other protocol faults) as an 'error' on the socket before closing
+      // it with 1009; unheard, that error would end the whole realtime process.
+      ws.on("error", (error) => console.warn(`[realtime] Yjs connection closed: ${error.message}`));
       holdConnection(ws, who.projectId, who.user.id);
       gateMessages(ws, { projectId: who.projectId, mayEdit: authorize({ role: who.role, userId: who.user.id }, "notes.edit") });
       setupWSConnection(ws, request, { docName: who.projectId });

@@ -1,8 +1,12 @@
 // Issue 21: hostile payloads to every socket event (generated from CLIENT_EVENTS), an oversized handshake and an
 // oversized Yjs message. Each gets an error reply with a message; nothing is written; another person is answered.
 import { sql } from "drizzle-orm";
+import * as decoding from "lib0/decoding";
+import * as encoding from "lib0/encoding";
 import { describe, expect, it } from "vitest";
 import WebSocket from "ws";
+import * as Y from "yjs";
+import { loadYjsUpdates } from "@/db/queries/live-documents";
 import { realtime } from "@/lib/limits";
 import { CLIENT_EVENTS, clientEventsComplete } from "@/lib/realtime/events";
 import { getDb } from "../support/db";
@@ -69,5 +73,47 @@ describe("hostile input on every socket event (generated from CLIENT_EVENTS)", (
     const closed = new Promise<number>((resolve) => ws.once("close", (code) => resolve(code)));
     ws.send(new Uint8Array(realtime.yjsUpdateBytes + 1));
     expect(await closed).toBe(1009);
+    // and the realtime process is still there for everyone else (an unheard 'error' once ended it)
+    const other = await suite.signedIn("viewer");
+    expect((await request(other, "sync:since", { since: new Date(0).toISOString() })).ok).toBe(true);
+  });
+
+  it("a change that would grow the whole Yjs document past its cap is refused with the reason; nothing of it is stored", async () => {
+    const url = `${suite.server.url.replace(/^http/, "ws")}/yjs/${suite.project.projectId}`;
+    const ws = new WebSocket(url, { headers: { cookie: await sessionCookie(suite.project.users.structural_engineer), origin: suite.server.appUrl } });
+    const replies: Uint8Array[] = [];
+    ws.on("message", (data: Buffer) => replies.push(new Uint8Array(data)));
+    await new Promise((resolve, reject) => {
+      ws.once("open", resolve);
+      ws.once("error", reject);
+    });
+    const closed = new Promise<{ code: number; reason: string }>((resolve) => ws.once("close", (code, reason) => resolve({ code, reason: reason.toString() })));
+    // Each change is under the per-message cap; together they pass the document cap on the last one.
+    const chunk = Math.floor(realtime.yjsUpdateBytes * 0.9);
+    const fitting = Math.floor(realtime.yjsDocumentBytes / chunk);
+    const doc = new Y.Doc();
+    const text = doc.getText("minutes");
+    for (let i = 0; i <= fitting; i += 1) {
+      const before = Y.encodeStateVector(doc);
+      text.insert(text.length, String.fromCharCode(97 + i).repeat(chunk));
+      const encoder = encoding.createEncoder();
+      encoding.writeVarUint(encoder, 0); // sync message
+      encoding.writeVarUint(encoder, 2); // update (y-protocols/sync.js messageYjsUpdate)
+      encoding.writeVarUint8Array(encoder, Y.encodeStateAsUpdate(doc, before));
+      ws.send(encoding.toUint8Array(encoder));
+    }
+    const { code, reason } = await closed;
+    expect(code).toBe(4413);
+    expect(reason).toMatch(/full \(2 MB\).*not stored/);
+    // Before closing, the reason went out as a y-protocols permission-denied message (type 2, auth; 0, denied).
+    const denied = replies.map((reply) => decoding.createDecoder(reply)).find((d) => decoding.readVarUint(d) === 2 && decoding.readVarUint(d) === 0);
+    expect(denied && decoding.readVarString(denied)).toMatch(/full \(2 MB\).*remove older notes/);
+    // The stored document holds the changes that fitted and none of the refused one.
+    const stored = new Y.Doc();
+    const rows = await loadYjsUpdates({ projectId: suite.project.projectId });
+    Y.applyUpdate(stored, Y.mergeUpdates(rows.map((row) => row.update)));
+    const minutes = stored.getText("minutes").toString();
+    expect(minutes.length).toBe(fitting * chunk);
+    expect(minutes).not.toContain(String.fromCharCode(97 + fitting));
   });
 });
