@@ -1,10 +1,11 @@
 import "server-only";
 import { and, asc, desc, eq, max } from "drizzle-orm";
 import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
-import { analysisRuns, attachments, modelRevisions, projects, users, type ModelRevision, type Project } from "@/db/schema";
+import { analysisRuns, attachments, modelRevisions, projects, resultColumns, users, type ModelRevision, type Project } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
 import type { StoredReview } from "@/lib/models/analyse";
+import type { ResultColumns, RunColumns } from "@/lib/models/result-columns";
 import { recordAuditEvent } from "./audit";
 import { latestJobsOfRevisions, type JobView } from "./jobs";
 
@@ -125,7 +126,10 @@ export type NewRevisionInput = {
   createdBy: string | null;
 };
 
-export type CreateRevisionInput = NewRevisionInput & { result: AnalysisResult; review: StoredReview | null };
+/** The columns of a run (lib/models/result-columns.ts encodeResultColumns), stored beside its JSON. */
+export type StoredColumns = { results: ResultColumns[]; run: RunColumns };
+
+export type CreateRevisionInput = NewRevisionInput & { result: AnalysisResult; review: StoredReview | null; columns: StoredColumns };
 
 /** Inserts the next revision of the project (no analysis yet) with an audit event, inside the given transaction. */
 export async function insertRevision(tx: Executor, input: NewRevisionInput): Promise<{ id: string; number: number }> {
@@ -133,7 +137,16 @@ export async function insertRevision(tx: Executor, input: NewRevisionInput): Pro
   const number = (row?.latest ?? 0) + 1;
   const [revision] = await tx
     .insert(modelRevisions)
-    .values({ projectId: input.projectId, number, name: input.name, model: input.model, memberCount: input.model.members.length, source: input.source, createdBy: input.createdBy })
+    .values({
+      projectId: input.projectId,
+      number,
+      name: input.name,
+      model: input.model,
+      memberCount: input.model.members.length,
+      memberOrder: input.model.members.map((member) => member.id),
+      source: input.source,
+      createdBy: input.createdBy,
+    })
     .returning({ id: modelRevisions.id, number: modelRevisions.number });
   await recordAuditEvent({
     db: tx,
@@ -147,16 +160,45 @@ export async function insertRevision(tx: Executor, input: NewRevisionInput): Pro
   return revision;
 }
 
-/** Stores an analysis run (results and review) of a revision. */
-export async function insertAnalysisRun(tx: Executor, input: { revisionId: string; result: AnalysisResult; review: StoredReview | null }): Promise<{ id: string }> {
-  const [run] = await tx.insert(analysisRuns).values({ revisionId: input.revisionId, status: input.result.status, result: input.result, review: input.review }).returning({ id: analysisRuns.id });
+/** Rows per insert of result columns: a few hundred combinations of a big roof stay well under pg's parameter cap. */
+const COLUMN_ROWS_PER_INSERT = 50;
+
+/** Stores an analysis run (results and review as JSON, and the same as columns) of a revision. */
+export async function insertAnalysisRun(
+  tx: Executor,
+  input: { revisionId: string; result: AnalysisResult; review: StoredReview | null; columns: StoredColumns },
+): Promise<{ id: string }> {
+  const { run: runColumns, results } = input.columns;
+  const [run] = await tx
+    .insert(analysisRuns)
+    .values({
+      revisionId: input.revisionId,
+      status: input.result.status,
+      result: input.result,
+      review: input.review,
+      utilisation: runColumns.utilisation ? new Uint8Array(runColumns.utilisation.buffer, runColumns.utilisation.byteOffset, runColumns.utilisation.byteLength) : null,
+      verdicts: runColumns.verdicts,
+      zeroInAll: runColumns.zeroInAll,
+    })
+    .returning({ id: analysisRuns.id });
+  const bytes = (values: Float32Array) => new Uint8Array(values.buffer, values.byteOffset, values.byteLength);
+  for (let start = 0; start < results.length; start += COLUMN_ROWS_PER_INSERT) {
+    const rows = results.slice(start, start + COLUMN_ROWS_PER_INSERT).map((columns) => ({
+      analysisRunId: run.id,
+      resultId: columns.resultId,
+      forces: bytes(columns.forces),
+      zero: columns.zero,
+      displacements: bytes(columns.displacements),
+    }));
+    await tx.insert(resultColumns).values(rows);
+  }
   return run;
 }
 
 /** Inserts the next revision of the project with an analysis already computed (the demo seed, tests). */
 export async function insertRevisionWithAnalysis(tx: Executor, input: CreateRevisionInput): Promise<{ id: string; number: number }> {
   const revision = await insertRevision(tx, input);
-  await insertAnalysisRun(tx, { revisionId: revision.id, result: input.result, review: input.review });
+  await insertAnalysisRun(tx, { revisionId: revision.id, result: input.result, review: input.review, columns: input.columns });
   return revision;
 }
 
@@ -174,11 +216,6 @@ export async function withNextRevision<T>(write: (tx: Transaction) => Promise<T>
     if ((pgError.cause?.code ?? pgError.code) === "23505") return attempt();
     throw error;
   }
-}
-
-/** Stores a new revision with an analysis already computed, in one transaction (tests). */
-export function createRevisionWithAnalysis(input: CreateRevisionInput): Promise<{ id: string; number: number }> {
-  return withNextRevision((tx) => insertRevisionWithAnalysis(tx, input));
 }
 
 /** The number of a revision given its id (null when it does not exist). */

@@ -1,10 +1,12 @@
 // Models area: immutable model revisions (the model JSON of our format) and the analysis run stored with each
-// (results and member review as jsonb), so opening the viewer never waits for a solve (design.md, "Data").
+// (results and member review as jsonb, for the CLI's format and the exports; the same results as columns for the
+// viewer, lib/models/result-columns.ts), so opening the viewer never waits for a solve (design.md, "Data").
 import { sql } from "drizzle-orm";
-import { boolean, integer, jsonb, pgEnum, pgTable, text, uniqueIndex, uuid, index } from "drizzle-orm/pg-core";
+import { boolean, integer, jsonb, pgEnum, pgTable, primaryKey, text, uniqueIndex, uuid, index } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "../../lib/analysis/analyze";
 import type { TrussModel } from "../../lib/analysis/model";
 import type { StoredReview } from "../../lib/models/analyse";
+import { bytea } from "./bytea";
 import { projects, timestamps, users } from "./core";
 
 export const REVISION_SOURCES = ["generated", "uploaded"] as const;
@@ -27,6 +29,8 @@ export const modelRevisions = pgTable(
     source: revisionSource().notNull(),
     /** members.length of the model, so listing revisions never loads a model. */
     memberCount: integer().notNull().default(0),
+    /** Member ids in model order: the order of every result column (one member's value is read by its index). */
+    memberOrder: text().array().notNull().default(sql`'{}'::text[]`),
     createdBy: uuid().references(() => users.id, { onDelete: "set null" }),
     /** The revision the structural engineer marked current (for review); pages open it by default. */
     isCurrent: boolean().notNull().default(false),
@@ -51,9 +55,34 @@ export const analysisRuns = pgTable(
     result: jsonb().$type<AnalysisResult>().notNull(),
     /** The member review of lib/review for the project's design standard; null when the model is unstable. */
     review: jsonb().$type<StoredReview>(),
+    /** Float32 utilisation per member in member order (NaN: no check); null without a review. */
+    utilisation: bytea(),
+    /** Verdict code per member (lib/models/result-columns.ts VERDICT_CODES); null without a review. */
+    verdicts: bytea(),
+    /** Bitset of the members zero in every result. */
+    zeroInAll: bytea(),
     ...timestamps,
   },
   (t) => [index("analysis_runs_revision_idx").on(t.revisionId, t.createdAt)],
+);
+
+/** One result (load case or combination) of a run as columns in member order; written with the run, never updated. */
+export const resultColumns = pgTable(
+  "result_columns",
+  {
+    analysisRunId: uuid()
+      .notNull()
+      .references(() => analysisRuns.id, { onDelete: "cascade" }),
+    resultId: text().notNull(),
+    /** Float32 axial force per member (kN, tension positive). */
+    forces: bytea().notNull(),
+    /** Bitset: zero-force in this result (design.md's rule). */
+    zero: bytea().notNull(),
+    /** Float32 ux, uy, uz per node in model node order (m). */
+    displacements: bytea().notNull(),
+    ...timestamps,
+  },
+  (t) => [primaryKey({ columns: [t.analysisRunId, t.resultId] })],
 );
 
 export type ModelRevision = typeof modelRevisions.$inferSelect;

@@ -4,7 +4,6 @@ import { sql } from "drizzle-orm";
 import {
   bigserial,
   boolean,
-  customType,
   doublePrecision,
   index,
   jsonb,
@@ -17,14 +16,8 @@ import {
 } from "drizzle-orm/pg-core";
 import type { PinViewpoint } from "../../lib/bcf/viewpoint";
 import { ANCHOR_KINDS, COMMENT_KINDS, DISCIPLINES, PIN_STATES, type SessionView } from "../../lib/realtime/events";
+import { bytea } from "./bytea";
 import { projects, timestamps, users } from "./core";
-
-// drizzle-orm 0.45 has no built-in bytea column; pg returns bytea as a Buffer, which is a Uint8Array.
-const bytea = customType<{ data: Uint8Array; driverData: Buffer }>({
-  dataType: () => "bytea",
-  toDriver: (value) => Buffer.from(value.buffer, value.byteOffset, value.byteLength),
-  fromDriver: (value) => new Uint8Array(value.buffer, value.byteOffset, value.byteLength),
-});
 
 export const pinState = pgEnum("pin_state", PIN_STATES);
 export const anchorKind = pgEnum("anchor_kind", ANCHOR_KINDS);

@@ -5,6 +5,7 @@ import type { Executor } from "../client";
 import { modelRevisions, projects } from "../schema";
 import { demoRoof } from "../../lib/analysis/demo-roof";
 import { analyseForStorage } from "../../lib/models/analyse";
+import { encodeResultColumns } from "../../lib/models/result-columns";
 import { insertRevisionWithAnalysis, setCurrentRevision } from "../queries/models";
 
 /** Stores the demo roof as revision 1 (with results) unless the project already has it. */
@@ -19,7 +20,7 @@ export async function seedDemoModel(db: Executor, { projectId, createdBy }: { pr
   const model = demoRoof();
   const { result, review } = analyseForStorage(model, project.designStandard);
   if (result.status !== "ok") throw new Error("the demo roof analysed as unstable");
-  const revision = await insertRevisionWithAnalysis(db, { projectId, name: model.name, model, source: "generated", createdBy, result, review });
+  const revision = await insertRevisionWithAnalysis(db, { projectId, name: model.name, model, source: "generated", createdBy, result, review, columns: encodeResultColumns(model, result, review) });
   // The structural engineer has put it up for review: pages open it by default.
   await setCurrentRevision(db, { projectId, revisionId: revision.id });
 }

@@ -5,6 +5,8 @@ import { getRevisionNumber, insertAnalysisRun } from "@/db/queries/models";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { StoredReview } from "@/lib/models/analyse";
 import { runCommand } from "./command";
+import { encodeResultColumns } from "@/lib/models/result-columns";
+import type { TrussModel } from "@/lib/analysis/model";
 import { recheckCarriedDecisions } from "./recheck-carried-decisions";
 
 /**
@@ -13,13 +15,16 @@ import { recheckCarriedDecisions } from "./recheck-carried-decisions";
  */
 export async function storeAnalysis(input: {
   job: { id: string; projectId: string; revisionId: string };
+  /** The revision's model: the columns follow its member and node order. */
+  model: TrussModel;
   result: AnalysisResult;
   review: StoredReview | null;
   outcome: Record<string, unknown> | null;
 }): Promise<boolean> {
   const { job } = input;
+  const columns = encodeResultColumns(input.model, input.result, input.review);
   return runCommand(async ({ tx, audit, live }) => {
-    const run = await insertAnalysisRun(tx, { revisionId: job.revisionId, result: input.result, review: input.review });
+    const run = await insertAnalysisRun(tx, { revisionId: job.revisionId, result: input.result, review: input.review, columns });
     if (!(await finishJob(tx, { jobId: job.id, outcome: input.outcome }))) tx.rollback();
     await recheckCarriedDecisions(tx, { projectId: job.projectId, revisionId: job.revisionId });
     await audit({

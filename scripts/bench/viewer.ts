@@ -22,6 +22,7 @@ import { closeDb, getDb } from "@/db/client";
 import { insertRevisionWithAnalysis } from "@/db/queries/models";
 import { memberships, organizations, projects, users } from "@/db/schema";
 import { analyzeModel, generateRoof } from "@/lib/analysis";
+import { encodeResultColumns } from "@/lib/models/result-columns";
 import { freePort, waitForPort } from "../stack/ports.mjs";
 import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
 
@@ -52,7 +53,7 @@ async function storeModel(): Promise<{ projectId: string; user: { id: string; em
   await db.insert(memberships).values({ projectId: project.id, userId: user.id, role: "structural_engineer" });
   t = performance.now();
   // The member review is left out: it is not drawn by the force-state colouring measured here.
-  await insertRevisionWithAnalysis(db, { projectId: project.id, name: model.name, model, source: "generated", createdBy: user.id, result, review: null });
+  await insertRevisionWithAnalysis(db, { projectId: project.id, name: model.name, model, source: "generated", createdBy: user.id, result, review: null, columns: encodeResultColumns(model, result, null) });
   record("stored revision", `${((performance.now() - t) / 1000).toFixed(2)} s`);
   return { projectId: project.id, user };
 }

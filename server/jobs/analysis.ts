@@ -33,7 +33,7 @@ export async function runAnalysisJob(jobId: string, steps: AnalysisSteps = defau
       status: result.status,
       zeroForce: before?.result.status === "ok" && result.status === "ok" ? zeroForceChange(before.result, result) : null,
     };
-    return (await storeAnalysis({ job, result, review, outcome })) ? "done" : "skipped";
+    return (await storeAnalysis({ job, model: revision.model, result, review, outcome })) ? "done" : "skipped";
   } catch (error) {
     const reason = error instanceof Error ? error.message : String(error);
     await failJob({ jobId, error: `The analysis stopped: ${reason}` });

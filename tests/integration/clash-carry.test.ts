@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { listClashesByRevision, listClashHistory } from "@/db/queries/clashes";
 import { claimJob } from "@/db/queries/jobs";
 import { importRuns } from "@/lib/commands/import-runs";
-import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { mailOutbox } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
 import type { TrussModel } from "@/lib/analysis/model";
@@ -32,7 +32,7 @@ async function derive(name: string, model: TrussModel) {
   const { revision, job } = await hangServicesRevision({ projectId: fx.projectId, userId: fx.users.structural_engineer.id, fromRevisionId: first.id, name, model });
   expect(await claimJob({ jobId: job.id })).not.toBeNull();
   const { result, review } = analyseForStorage(model, "EN1993-1-1");
-  expect(await storeAnalysis({ job: { id: job.id, projectId: fx.projectId, revisionId: revision.id }, result, review, outcome: null })).toBe(true);
+  expect(await storeAnalysis({ job: { id: job.id, projectId: fx.projectId, revisionId: revision.id }, model, result, review, outcome: null })).toBe(true);
   return revision;
 }
 const clashOn = async (revisionId: string) => (await listClashesByRevision({ revisionId })).find((c) => c.memberId === MEMBER)!;

@@ -9,7 +9,7 @@ import { POST as DECIDE } from "@/app/api/projects/[projectId]/clashes/[clashId]
 import { POST as PROPOSE } from "@/app/api/projects/[projectId]/clashes/[clashId]/proposal/route";
 import { GET as GET_CLASH } from "@/app/api/projects/[projectId]/clashes/[clashId]/route";
 import { POST as SUPERSEDE } from "@/app/api/projects/[projectId]/clashes/[clashId]/supersession/route";
-import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { clashDecisions, clashes, memberships } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
 import { analyseForStorage } from "@/lib/models/analyse";

@@ -4,7 +4,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as MARK_CURRENT } from "@/app/api/projects/[projectId]/models/[number]/current/route";
 import { GET as LIST_MODELS } from "@/app/api/projects/[projectId]/models/route";
-import { createRevisionWithAnalysis, getDefaultRevisionNumber } from "@/db/queries/models";
+import { getDefaultRevisionNumber } from "@/db/queries/models";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import { generateRoof } from "@/lib/analysis/generator";
 import type { TrussModel } from "@/lib/analysis/model";

@@ -12,7 +12,7 @@ import { POST as PROPOSE } from "@/app/api/projects/[projectId]/clashes/[clashId
 import { DELETE as REMOVE_MEMBER } from "@/app/api/projects/[projectId]/members/[userId]/route";
 import { PATCH as CHANGE_ROLE } from "@/app/api/projects/[projectId]/members/route";
 import { POST as IMPORT_RUNS } from "@/app/api/projects/[projectId]/runs/route";
-import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { clashes, liveEvents } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
 import { runCommand } from "@/lib/commands/command";

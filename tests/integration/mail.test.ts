@@ -12,7 +12,7 @@ import { withTransaction } from "@/db/client";
 import { decideClash } from "@/lib/commands/decide-clash";
 import { proposeClashOutcome } from "@/lib/commands/propose-clash-outcome";
 import { createComment } from "@/db/queries/comments";
-import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import { TRIPOD } from "@/lib/report/test-report";
 import { listCapturedMail } from "@/lib/mail/captured";

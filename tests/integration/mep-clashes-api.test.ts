@@ -8,7 +8,7 @@ import { POST as CREATE_REVISION } from "@/app/api/projects/[projectId]/models/r
 import { DELETE as DELETE_RUN, PATCH as EDIT_RUN } from "@/app/api/projects/[projectId]/runs/[runId]/route";
 import { GET as LIST_RUNS, POST as IMPORT } from "@/app/api/projects/[projectId]/runs/route";
 import { POST as HANG } from "@/app/api/projects/[projectId]/services/route";
-import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { auditEvents, clashDecisions, jobs } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
 import { analyseForStorage } from "@/lib/models/analyse";

@@ -13,7 +13,7 @@ import { GET as report } from "@/app/api/projects/[projectId]/report/route";
 import { GET as memberForces } from "@/app/api/projects/[projectId]/exports/member-forces.csv/route";
 import { GET as envelope } from "@/app/api/projects/[projectId]/exports/envelope.csv/route";
 import { roundForce } from "@/lib/report/csv";
-import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analysisRuns, clashes, pins, projects } from "@/db/schema";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import type { AnalysisResult } from "@/lib/analysis/analyze";

@@ -5,7 +5,7 @@ import Papa from "papaparse";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as memberForces } from "@/app/api/projects/[projectId]/exports/member-forces.csv/route";
 import { GET as envelope } from "@/app/api/projects/[projectId]/exports/envelope.csv/route";
-import { createRevisionWithAnalysis } from "@/db/queries/models";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
 import { TRIPOD } from "@/lib/report/test-report";

@@ -1,0 +1,9 @@
+// Route params of the result-columns and member-detail endpoints.
+import { z } from "zod";
+import { ids } from "@/lib/limits";
+import { revisionParamsSchema } from "./schemas";
+
+const elementId = z.string().min(1).max(ids.elementIdChars);
+
+export const resultColumnsParamsSchema = revisionParamsSchema.extend({ resultId: elementId });
+export const memberDetailParamsSchema = revisionParamsSchema.extend({ memberId: elementId });
