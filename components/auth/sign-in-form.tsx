@@ -5,7 +5,7 @@ import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { signInSchema } from "@/lib/auth/schemas";
+import { SIGN_IN_REFUSED, signInSchema } from "@/lib/auth/schemas";
 import { Button, Field, FormMessage } from "@/components/ui/form";
 
 /** E-mail and password; a wrong pair is reported beside the password field. */
@@ -22,7 +22,11 @@ export function SignInForm({ callbackUrl, defaultEmail = "" }: { callbackUrl: st
     if (!result || result.error) {
       const error = result?.error;
       const message =
-        error === "CredentialsSignin" ? "E-mail or password is incorrect." : error?.startsWith("Too many") ? error : "Signing in failed. Please try again.";
+        error === "CredentialsSignin"
+          ? "E-mail or password is incorrect."
+          : error?.startsWith("Too many") || error?.startsWith(SIGN_IN_REFUSED)
+            ? error
+            : "Signing in failed. Please try again.";
       form.setError("password", { message });
       return;
     }

@@ -2,7 +2,7 @@ import "server-only";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { raiseSessionVersion } from "@/db/queries/users";
-import { signInSchema } from "./schemas";
+import { SIGN_IN_REFUSED, signInSchema } from "./schemas";
 import { signInWithLimits, TooManySignInsError } from "./sign-in-limits";
 
 /**
@@ -26,8 +26,9 @@ export const authOptions: NextAuthOptions = {
       name: "E-mail and password",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
       async authorize(credentials, request) {
+        // Malformed input (a 100 kB e-mail, no password) is refused with what is wrong, before any count or hash.
         const parsed = signInSchema.safeParse(credentials);
-        if (!parsed.success) return null;
+        if (!parsed.success) throw new Error(`${SIGN_IN_REFUSED} ${[...new Set(parsed.error.issues.map((issue) => issue.message))].join(" ")}`);
         try {
           return await signInWithLimits({ ...parsed.data, address: clientAddress(request?.headers) });
         } catch (error) {

@@ -1,12 +1,16 @@
 // Input schemas for sign-in, joining and the account: shared by the forms (react-hook-form) and the server.
 import { z } from "zod";
+import { text } from "@/lib/limits";
 import { passwordWeakness } from "./password-strength";
+
+/** Starts the message of a sign-in refused for its input (the form shows these as they are; lib/auth/options.ts). */
+export const SIGN_IN_REFUSED = "Sign-in refused:";
 
 export const emailSchema = z
   .string()
   .trim()
   .min(1, "Enter an e-mail address.")
-  .max(254, "That e-mail address is too long.")
+  .max(text.email, `That e-mail address is too long (at most ${text.email} characters).`)
   .pipe(z.email("Enter a valid e-mail address."))
   .transform((email) => email.toLowerCase());
 
@@ -25,7 +29,7 @@ export const personNameSchema = z.string().trim().min(1, "Enter your name.").max
 
 export const signInSchema = z.object({
   email: emailSchema,
-  password: z.string().min(1, "Enter your password."),
+  password: z.string().min(1, "Enter your password.").max(text.password, `That password is too long (at most ${text.password} characters).`),
 });
 export type SignInInput = z.input<typeof signInSchema>;
 

@@ -5,6 +5,7 @@
 // zxcvbn-ts (score 3 of 4 or more: "safely unguessable" in zxcvbn's scale, with its common-password dictionary).
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { POST as changePassword } from "@/app/api/account/password/route";
+import { authOptions } from "@/lib/auth/options";
 import { verifyPassword } from "@/lib/auth/password";
 import { joinSchema } from "@/lib/auth/schemas";
 import { blockSeconds, signInWithLimits, SIGN_IN_LIMITS, TooManySignInsError } from "@/lib/auth/sign-in-limits";
@@ -69,6 +70,21 @@ describe("sign-in limits", () => {
     vi.mocked(verifyPassword).mockClear();
     await signInWithLimits({ email: `unknown-${run}@fixture.test`, password: "wrong-password-1", address: newAddress() });
     expect(vi.mocked(verifyPassword)).toHaveBeenCalledTimes(1);
+  });
+});
+
+describe("malformed sign-in input (issue 21)", () => {
+  type Authorize = (credentials: Record<string, string>, request: { headers: Record<string, string> }) => Promise<unknown>;
+  const authorize = (authOptions.providers[0] as unknown as { options: { authorize: Authorize } }).options.authorize;
+
+  it.each([
+    ["a 100 kB e-mail", { email: `${"a".repeat(100_000)}@fixture.test`, password: "whatever-1" }, /^Sign-in refused: That e-mail address is too long \(at most 254 characters\)\.$/],
+    ["a 100 kB password", { email: "someone@fixture.test", password: "p".repeat(100_000) }, /^Sign-in refused: That password is too long \(at most 200 characters\)\.$/],
+    ["no e-mail and no password", { email: "", password: "" }, /^Sign-in refused: .*Enter an e-mail address\..*Enter your password\./],
+  ])("%s is refused with the reason, before any password is checked", async (_name, credentials, message) => {
+    vi.mocked(verifyPassword).mockClear();
+    await expect(authorize(credentials, { headers: { "x-forwarded-for": newAddress() } })).rejects.toThrow(message);
+    expect(vi.mocked(verifyPassword)).not.toHaveBeenCalled();
   });
 });
 
