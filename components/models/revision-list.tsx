@@ -45,7 +45,7 @@ export function RevisionList({ projectId, canRetry, canMarkCurrent }: { projectI
         </tr>
       </thead>
       <tbody>
-        {revisions.map((r) => (
+        {revisions.map((r, k) => (
           <tr key={r.id} className="border-t border-board-100" data-testid={`revision-${r.number}`}>
             <td className="py-1 font-mono">{r.number}</td>
             <td>{r.name}</td>
@@ -77,6 +77,11 @@ export function RevisionList({ projectId, canRetry, canMarkCurrent }: { projectI
               <Link className="text-tension underline" href={`/projects/${projectId}/viewer?revision=${r.number}`}>
                 Open in 3D
               </Link>
+              {k + 1 < revisions.length && (
+                <Link className="ml-3 underline" href={`/projects/${projectId}/models/compare?from=${revisions[k + 1].number}&to=${r.number}`} data-testid="revision-compare">
+                  Compare with {revisions[k + 1].number}
+                </Link>
+              )}
               {r.originals.map((file) => (
                 // The attachments route redirects to a short-lived download URL of the object store.
                 <a key={file.id} className="ml-3 text-xs text-board-700 underline" href={`/api/projects/${projectId}/attachments/${file.id}`} data-testid="revision-original">

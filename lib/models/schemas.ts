@@ -37,3 +37,8 @@ export type CreateRevisionInput = z.input<typeof createRevisionSchema>;
 export type CreateRevisionRequest = z.output<typeof createRevisionSchema>;
 
 export const revisionParamsSchema = z.object({ projectId: z.uuid(), number: revisionNumberText });
+
+/** The two revisions a comparison is between (from: the earlier one, usually). */
+export const compareQuerySchema = z
+  .object({ from: revisionNumberText, to: revisionNumberText })
+  .refine((q) => q.from !== q.to, { path: ["to"], message: "Choose two different revisions to compare." });
