@@ -37,7 +37,8 @@ export {
 } from "./analyze";
 export { prepareStructure, PIVOT_TOLERANCE, type PreparedStructure, type Instability, type Direction } from "./prepare";
 export { loadVectorForCase } from "./loads";
-export { mechanismModes, nearMechanism, describeModes, type MechanismMode, type MovingJoint } from "./mechanism";
+export { mechanismModes, nearMechanism, describeModes, describeDirection, movingJoints, type MechanismMode, type MovingJoint } from "./mechanism";
+export { bucklingModes, ALPHA_CR_LIMIT, type BucklingMode, type BucklingAnalysis, type BucklingOptions } from "./buckling";
 export { instabilityFromModes } from "./analyze";
 export { planSpan } from "./plan-span";
 export { generateRoof, roofParamsSchema, type RoofParams } from "./generator";

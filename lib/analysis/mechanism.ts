@@ -27,7 +27,7 @@ export type MechanismMode = {
 
 const axisWords = ["x", "y", "z"];
 
-function describeDirection([x, y, z]: [number, number, number]): string {
+export function describeDirection([x, y, z]: [number, number, number]): string {
   const parts = [x, y, z]
     .map((v, s) => ({ v, s }))
     .filter(({ v }) => Math.abs(v) >= 0.05)
@@ -59,8 +59,9 @@ function rayleigh(structure: PreparedStructure, v: Float64Array, scale: number):
   return den === 0 ? 0 : num / den / scale;
 }
 
-function modeOf(structure: PreparedStructure, v: Float64Array, scale: number): MechanismMode {
-  const n = structure.nodeIds.length;
+/** Every joint of a motion v (full 3n) that moves, largest first, and the motion scaled to a largest component of 1. */
+export function movingJoints(nodeIds: string[], v: Float64Array): { joints: MovingJoint[]; shape: number[] } {
+  const n = nodeIds.length;
   let largest = 0;
   for (let k = 0; k < n; k++) largest = Math.max(largest, Math.hypot(v[3 * k], v[3 * k + 1], v[3 * k + 2]));
   let peak = 0;
@@ -69,11 +70,16 @@ function modeOf(structure: PreparedStructure, v: Float64Array, scale: number): M
   for (let k = 0; k < n; k++) {
     const size = Math.hypot(v[3 * k], v[3 * k + 1], v[3 * k + 2]);
     if (size < MOVING * largest) continue;
-    joints.push({ node: structure.nodeIds[k], share: size / largest, direction: [v[3 * k] / size, v[3 * k + 1] / size, v[3 * k + 2] / size] });
+    joints.push({ node: nodeIds[k], share: size / largest, direction: [v[3 * k] / size, v[3 * k + 1] / size, v[3 * k + 2] / size] });
   }
   joints.sort((a, b) => b.share - a.share);
+  return { joints, shape: Array.from(v, (x) => (peak === 0 ? 0 : x / peak)) };
+}
+
+function modeOf(structure: PreparedStructure, v: Float64Array, scale: number): MechanismMode {
+  const { joints, shape } = movingJoints(structure.nodeIds, v);
   const ratio = rayleigh(structure, v, scale);
-  return { kind: ratio < EXACT_MECHANISM ? "mechanism" : "nearly a mechanism", stiffnessRatio: Math.max(0, ratio), joints, shape: Array.from(v, (x) => x / peak) };
+  return { kind: ratio < EXACT_MECHANISM ? "mechanism" : "nearly a mechanism", stiffnessRatio: Math.max(0, ratio), joints, shape };
 }
 
 function largestMemberStiffness(structure: PreparedStructure): number {

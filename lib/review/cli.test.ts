@@ -4,6 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { STANDING_CAUTION } from "./caution";
+import { pointLoads, trussModel } from "@/lib/analysis/test-fixtures";
 import { prattTruss } from "./test-models";
 
 const dir = mkdtempSync(join(tmpdir(), "strutroom-review-cli-"));
@@ -34,5 +35,38 @@ describe("npm run analyze -- --review", { timeout: 60_000 }, () => {
     const bad = analyze(file, "--review", "--standard", "BS5950");
     expect(bad.code).toBe(1);
     expect(bad.stderr).toMatch(/--standard must be one of/);
+  });
+
+  it("reports the overall stability per design result and warns below αcr = 10 (EN 1993-1-1 5.2.1(3))", () => {
+    // A shallow two-bar truss, bars from (±5, 0, 0) to the apex (0, 0, 0.5), EA = 2e5 kN, 100 kN down at the apex.
+    // Closed form (derived in lib/analysis/buckling.test.ts): αcr = 2EA sin³θ / (P cos²θ) = 3.96, below 10.
+    const shallow = trussModel({
+      nodes: [
+        ["A", -5, 0, 0],
+        ["B", 5, 0, 0],
+        ["C", 0, 0, 0.5],
+      ],
+      members: ["A-C", "B-C"],
+      supports: [
+        ["A", true, true, true],
+        ["B", true, true, true],
+        ["C", false, true, false],
+      ],
+      loadCases: [pointLoads("P", [["C", 0, 0, -100]])],
+    });
+    const shallowFile = join(dir, "shallow.json");
+    writeFileSync(shallowFile, JSON.stringify(shallow));
+    const out = analyze(shallowFile, "--review");
+    expect(out.code).toBe(0);
+    const stability = JSON.parse(out.stdout).review.overallStability;
+    const theta = Math.atan2(0.5, 5);
+    const expected = (2 * 2e5 * Math.sin(theta) ** 3) / (100 * Math.cos(theta) ** 2);
+    expect(stability.limit).toBe(10);
+    expect(stability.results[0].result).toBe("P");
+    expect(stability.results[0].alphaCr).toBeCloseTo(expected, 4);
+    expect(stability.results[0].modes[0].joints[0].node).toBe("C");
+    expect(stability.results[0].modes[0].shape).toHaveLength(9);
+    expect(stability.results[0].warning).toMatch(/^P: αcr = 3\.\d\d < 10: second-order effects must be taken into account \(EN 1993-1-1 5\.2\.1\(3\)\)/);
+    expect(stability.lowest).toEqual({ result: "P", alphaCr: expect.closeTo(expected, 4) });
   });
 });

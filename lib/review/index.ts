@@ -12,6 +12,7 @@ export { STANDING_CAUTION } from "./caution";
 export { createReviewContext, type ReviewContext, type ReviewOptions } from "./context";
 export { reviewModel, type ModelReview, type MemberReview } from "./review-model";
 export { removalWhatIf, type RemovalRequest, type RemovalOutcome, type ResultChanges, type ForceChange, type LostBrace, type UtilisationChange } from "./removal";
+export { overallStability, STABILITY_TOLERANCE, type OverallStability, type ResultStability } from "./overall-stability";
 export { checkDeflections, deflectionSpan, DEFAULT_DEFLECTION_LIMIT, type DeflectionCheck } from "./deflection";
 export { memberVerdicts, type MemberVerdict, type VerdictKind } from "./verdicts";
 export { explainZeroForces, inspectZeroForces, type WhyZero, type InspectionStep, type ZeroRule } from "./why-zero";

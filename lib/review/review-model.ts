@@ -5,6 +5,7 @@ import { createReviewContext, type ReviewContext, type ReviewOptions } from "./c
 import { EN_COMPRESSION_SLENDERNESS_LIMIT, EN_TENSION_SLENDERNESS_LIMIT } from "./design-checks/en1993";
 import { checkDeflections, DEFAULT_DEFLECTION_LIMIT, type DeflectionCheck } from "./deflection";
 import { designMembers, type MemberDesign } from "./member-design";
+import { overallStability, type OverallStability } from "./overall-stability";
 import { memberVerdicts, type VerdictKind } from "./verdicts";
 import { explainZeroForces, type WhyZero } from "./why-zero";
 
@@ -28,6 +29,8 @@ export type ModelReview = {
   deflections: DeflectionCheck[];
   /** Load cases in no combination: analysed and counted for "zero in all", but not in the design envelope. */
   loadCasesInNoCombination: string[];
+  /** Critical load factor αcr of the whole truss per design result, its modes, and the warning below 10. */
+  overallStability: OverallStability;
   summary: { maxUtilisation: number; governingMember: string | null; overCapacity: string[]; verdicts: Record<VerdictKind, number> };
   caution: string;
 };
@@ -41,6 +44,7 @@ function assumptions(options: ReviewOptions, model: TrussModel): string[] {
     `fu per material from the model, else the usual value of its grade (product standards), else 1.10·fy; fabrication per section, ${options.fabrication ?? DEFAULT_FABRICATION} where a section states none (the conservative default).`,
     "Buckling length = effective length factor × member length (factor 1.0 unless the member gives one).",
     "E and fy are the model material's values; area and radius of gyration the model section's.",
+    "Overall stability: the critical load factor αcr of the whole truss per design result (linear buckling, first-order member forces); below 10 second-order effects must be considered (EN 1993-1-1 5.2.1(3)). Connections and joint (node) stiffness are not modelled: joints are pins.",
     "Bracing is judged by stability: a joint of a compression member counts as held when its lateral stiffness across the member, from the (reduced) structure, is at least 4P/L (Winter's ideal brace stiffness 2P/L doubled); a member that loses that hold at a joint is re-checked with its buckling length doubled.",
   ];
   if (options.standard === "EN1993-1-1") {
@@ -106,6 +110,7 @@ export function reviewModel(model: TrussModel, result: AnalysisResult, options: 
     members,
     deflections: checkDeflections(model, result, options.deflectionLimit ?? DEFAULT_DEFLECTION_LIMIT),
     loadCasesInNoCombination: result.info.loadCasesInNoCombination,
+    overallStability: overallStability(context),
     summary: {
       maxUtilisation,
       governingMember,
