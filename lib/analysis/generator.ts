@@ -226,10 +226,10 @@ export function generateRoof(input: RoofParams): TrussModel {
 }
 
 const en1990Combinations: Combination[] = [
-  { id: "ULS-1", name: "EN 1990 (6.10) permanent only: 1.35G", factors: { dead: 1.35, services: 1.35 } },
-  { id: "ULS-2", name: "EN 1990 (6.10) snow leading: 1.35G + 1.5S", factors: { dead: 1.35, services: 1.35, snow: 1.5 } },
-  { id: "ULS-3", name: "EN 1990 (6.10) wind uplift leading, G favourable: 1.0G + 1.5W", factors: { dead: 1.0, "wind-uplift": 1.5 } },
-  { id: "SLS-1", name: "EN 1990 (6.14b) characteristic, snow leading: G + S", factors: { dead: 1.0, services: 1.0, snow: 1.0 } },
+  { id: "ULS-1", name: "EN 1990 (6.10) permanent only: 1.35G", factors: { dead: 1.35, services: 1.35 }, kind: "ultimate" },
+  { id: "ULS-2", name: "EN 1990 (6.10) snow leading: 1.35G + 1.5S", factors: { dead: 1.35, services: 1.35, snow: 1.5 }, kind: "ultimate" },
+  { id: "ULS-3", name: "EN 1990 (6.10) wind uplift leading, G favourable: 1.0G + 1.5W", factors: { dead: 1.0, "wind-uplift": 1.5 }, kind: "ultimate" },
+  { id: "SLS-1", name: "EN 1990 (6.14b) characteristic, snow leading: G + S", factors: { dead: 1.0, services: 1.0, snow: 1.0 }, kind: "serviceability" },
 ];
 
 /**
@@ -238,7 +238,7 @@ const en1990Combinations: Combination[] = [
  * for uplift. Services are dead load but, as above, not relied upon against uplift.
  */
 const asce722Combinations: Combination[] = [
-  { id: "LRFD-1", name: "ASCE 7-22 2.3.1: 1.4D", factors: { dead: 1.4, services: 1.4 } },
-  { id: "LRFD-2", name: "ASCE 7-22 2.3.1: 1.2D + 1.0S", factors: { dead: 1.2, services: 1.2, snow: 1.0 } },
-  { id: "LRFD-3", name: "ASCE 7-22 2.3.1: 0.9D + 1.0W (uplift)", factors: { dead: 0.9, "wind-uplift": 1.0 } },
+  { id: "LRFD-1", name: "ASCE 7-22 2.3.1: 1.4D", factors: { dead: 1.4, services: 1.4 }, kind: "ultimate" },
+  { id: "LRFD-2", name: "ASCE 7-22 2.3.1: 1.2D + 1.0S", factors: { dead: 1.2, services: 1.2, snow: 1.0 }, kind: "ultimate" },
+  { id: "LRFD-3", name: "ASCE 7-22 2.3.1: 0.9D + 1.0W (uplift)", factors: { dead: 0.9, "wind-uplift": 1.0 }, kind: "ultimate" },
 ];
