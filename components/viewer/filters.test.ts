@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { forceStates } from "./colouring";
-import { autoDeflectionScale, buildMemberEnds, buildNodeTable, defaultFilters, deflectedPositions, visibleMask } from "./filters";
+import { autoDeflectionScale, buildMemberEnds, buildNodeTable, defaultFilters, deflectedPositions, modePositions, visibleMask } from "./filters";
 import type { MemberGroup } from "./types";
 
 // A one-bay pyramid: four bottom nodes on a 2 m square, one top node 1 m above the centre (hand-made geometry).
@@ -61,5 +61,18 @@ describe("deflected shape", () => {
   it("chooses a scale that makes the largest displacement a tenth of the span", () => {
     // span 2 m, largest displacement 0.01 m → 0.2 / 0.01 = 20.
     expect(autoDeflectionScale(nodes, displacements)).toBe(20);
+  });
+});
+
+describe("a drawn mode", () => {
+  it("moves each node along its share of the mode, the largest motion a tenth of the span (2 m here)", () => {
+    // the mode moves T up by its full size and N2 sideways by half; the other nodes stay put
+    const shape = [0, 0, 0, 0.5, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1];
+    const moved = modePositions(nodes, model.nodes.map((n) => n.id), shape);
+    const t = nodes.index.get("T")! * 3;
+    const n2 = nodes.index.get("N2")! * 3;
+    expect(moved[t + 2] - nodes.positions[t + 2]).toBeCloseTo(0.2, 6);
+    expect(moved[n2] - nodes.positions[n2]).toBeCloseTo(0.1, 6);
+    expect(moved[0]).toBe(nodes.positions[0]);
   });
 });

@@ -57,6 +57,18 @@ export function deflectedPositions(nodes: NodeTable, displacements: ViewerCaseRe
   return out;
 }
 
+/** Node positions moved along a mode (model node ids with 3 values each, largest 1) so its peak is a tenth of the span. */
+export function modePositions(nodes: NodeTable, nodeIds: readonly string[], shape: readonly number[]): Float32Array {
+  const out = Float32Array.from(nodes.positions);
+  const scale = 0.1 * modelSpan(nodes.positions);
+  nodeIds.forEach((id, k) => {
+    const n = nodes.index.get(id);
+    if (n === undefined) return;
+    for (let s = 0; s < 3; s++) out[n * 3 + s] += (shape[3 * k + s] ?? 0) * scale;
+  });
+  return out;
+}
+
 /** A deflection scale that makes the largest displacement a tenth of the model's span (1 when nothing moves). */
 export function autoDeflectionScale(nodes: NodeTable, displacements: ViewerCaseResult["displacements"]): number {
   let maxDisp = 0;

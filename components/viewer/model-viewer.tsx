@@ -14,6 +14,7 @@ import { InfluenceLegend, Legend } from "./legend";
 import { MemberPanel } from "./member-panel";
 import { prepareModel, resultIds } from "./prepare";
 import { memberReviewMap } from "./review-adapter";
+import { StabilityPanel } from "./stability-panel";
 import { installTestHook } from "./test-hook";
 import { useViewerStore } from "./viewer-store";
 import { ViewerToolbar } from "./viewer-toolbar";
@@ -88,6 +89,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
   return (
     <div className="flex flex-col">
       <ViewerToolbar prepared={prepared} analysis={analysis} ids={ids} hasReview={review !== undefined} fileName={`strutroom-${revision.name}-r${revision.number}.png`.replace(/\s+/g, "-")} />
+      <StabilityPanel review={revision.analysis?.review} nodeIds={prepared.nodes.ids} />
       <div className="flex">
         <div className="relative h-[75vh] min-w-0 flex-1">
           <ViewerCanvas prepared={prepared} analysis={analysis} review={review}>

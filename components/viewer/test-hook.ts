@@ -11,6 +11,8 @@ export interface StrutroomTestHook {
   /** Draw calls and triangles of the last frame, and the time to render one frame now (ms). */
   measureFrame(): { calls: number; triangles: number; ms: number } | null;
   memberCount: number;
+  /** Label of the buckling or mechanism mode drawn, or null. */
+  shownMode(): string | null;
 }
 
 declare global {
@@ -27,6 +29,7 @@ export function installTestHook(prepared: PreparedModel): () => void {
     getLegendCounts: () => useViewerStore.getState().legend?.counts ?? null,
     measureFrame: () => useViewerStore.getState().controller?.measureFrame() ?? null,
     memberCount: prepared.memberIds.length,
+    shownMode: () => useViewerStore.getState().mode?.label ?? null,
   };
   return () => {
     delete window.__strutroom;

@@ -7,7 +7,7 @@ import { Canvas } from "@react-three/fiber";
 import { useMemo, type ReactNode } from "react";
 import { CameraRig } from "./camera-rig";
 import { cameraLook, memberLook, palette } from "./config";
-import { deflectedPositions } from "./filters";
+import { deflectedPositions, modePositions } from "./filters";
 import { LoadsLayer, NodesLayer, SupportsLayer } from "./glyphs-layer";
 import { MembersLayer } from "./members-layer";
 import type { PreparedModel } from "./prepare";
@@ -37,10 +37,17 @@ function GroundGrid({ prepared }: { prepared: PreparedModel }) {
 function Scene({ prepared, analysis, review, children }: ViewerCanvasProps) {
   const resultId = useViewerStore((s) => s.resultId);
   const deflection = useViewerStore((s) => s.deflection);
+  const mode = useViewerStore((s) => s.mode);
   const displacements = resultId ? analysis.results[resultId]?.displacements : undefined;
+  // a shown mode (buckling or mechanism) replaces the deflected shape until it is cleared
   const positions = useMemo(
-    () => (deflection.enabled && displacements ? deflectedPositions(prepared.nodes, displacements, deflection.scale) : prepared.nodes.positions),
-    [prepared, displacements, deflection],
+    () =>
+      mode
+        ? modePositions(prepared.nodes, mode.nodeIds, mode.shape)
+        : deflection.enabled && displacements
+          ? deflectedPositions(prepared.nodes, displacements, deflection.scale)
+          : prepared.nodes.positions,
+    [prepared, displacements, deflection, mode],
   );
   return (
     <>

@@ -6,6 +6,8 @@
 //   useViewerStore.subscribe((s) => s.selectedMemberId, …)     hear selection changes
 //   useViewerStore.getState().showInfluence(map)              show a member's influence map (null clears); it is
 //                                                             cleared when the selection or the revision changes
+//   useViewerStore.getState().showMode(mode)                  draw a buckling or mechanism mode (null clears); it
+//                                                             is cleared when the result or the revision changes
 // Components read it with selectors (`useViewerStore((s) => s.colourMode)`); per-frame code uses getState().
 import { create } from "zustand";
 import { subscribeWithSelector } from "zustand/middleware";
@@ -32,6 +34,9 @@ export interface CameraController {
 
 export interface DeflectionSettings { enabled: boolean; scale: number }
 
+/** A mode to draw instead of the deflected shape: its motion per model node (3 each, largest component 1). */
+export interface ShownMode { label: string; nodeIds: readonly string[]; shape: readonly number[] }
+
 export interface ViewerState {
   selectedMemberId: string | null;
   hoveredMemberId: string | null;
@@ -45,6 +50,8 @@ export interface ViewerState {
   legend: Legend | null;
   /** Influence map of the selected member, drawn on the top-layer nodes; null when none is shown. */
   influence: InfluenceMap | null;
+  /** A buckling or mechanism mode drawn on the roof; null when none is shown. */
+  mode: ShownMode | null;
   controller: CameraController | null;
 
   selectMember(id: string | null): void;
@@ -67,6 +74,7 @@ export interface ViewerState {
   setLegend(legend: Legend): void;
   /** Shows an influence map if it belongs to the selected member (an answer that arrives late is dropped). */
   showInfluence(map: InfluenceMap | null): void;
+  showMode(mode: ShownMode | null): void;
   /** Back to defaults when another revision is opened. */
   reset(resultId: string | null): void;
 }
@@ -81,6 +89,7 @@ const initial = {
   deflection: { enabled: false, scale: 0 },
   legend: null,
   influence: null,
+  mode: null,
 };
 
 export const useViewerStore = create<ViewerState>()(
@@ -95,7 +104,7 @@ export const useViewerStore = create<ViewerState>()(
     hoverMember: (id) => {
       if (get().hoveredMemberId !== id) set({ hoveredMemberId: id });
     },
-    setResult: (id) => set({ resultId: id }),
+    setResult: (id) => set({ resultId: id, ...(id !== get().resultId ? { mode: null } : {}) }),
     setCompareResult: (id) => set({ compareResultId: id }),
     setColourMode: (mode) => set({ colourMode: mode }),
     setLowForceThreshold: (kN) => set({ lowForceThreshold: Math.max(0, kN) }),
@@ -116,6 +125,7 @@ export const useViewerStore = create<ViewerState>()(
     showInfluence: (map) => {
       if (map === null || map.member === get().selectedMemberId) set({ influence: map });
     },
+    showMode: (mode) => set({ mode }),
     reset: (resultId) => set({ ...initial, resultId }),
   })),
 );

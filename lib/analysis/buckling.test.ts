@@ -139,7 +139,7 @@ function denseMatrices(model: TrussModel, forces: Float64Array) {
   return { structure, K, A };
 }
 
-describe("linear buckling against a dense eigen-solve of the same matrices (mathjs)", () => {
+describe("linear buckling against a dense eigen-solve of the same matrices (mathjs)", { timeout: 60_000 }, () => {
   it("a generated 4 × 4 double-layer roof: the lowest three αcr agree", () => {
     const model = generateRoof({ spanX: 12, spanY: 12, module: 3, depth: 1.5 });
     const result = analyzeModel(model);

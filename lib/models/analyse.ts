@@ -4,6 +4,7 @@
 import { analyzeModel, type AnalysisResult, type TrussModel } from "@/lib/analysis";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { createReviewContext } from "@/lib/review/context";
+import { overallStability, type OverallStability } from "@/lib/review/overall-stability";
 import type { DesignStandard } from "@/lib/review/design-checks/types";
 import { designMembers, type MemberDesign } from "@/lib/review/member-design";
 import { memberVerdicts, type VerdictKind } from "@/lib/review/verdicts";
@@ -19,7 +20,37 @@ export type StoredMemberReview = {
   warnings: string[];
 };
 
-export type StoredReview = { standard: DesignStandard; caution: string; members: Record<string, StoredMemberReview> };
+/**
+ * Overall stability per design result as stored: the lowest factors with up to 12 moving joints each, and the
+ * first mode's shape (3 per model node, 4 significant digits) for the viewer to draw.
+ */
+export type StoredStability = Omit<OverallStability, "results"> & {
+  results: {
+    result: string;
+    alphaCr: number | null;
+    converged: boolean;
+    warning: string | null;
+    modes: { alphaCr: number; joints: OverallStability["results"][number]["modes"][number]["joints"] }[];
+    shape: number[] | null;
+  }[];
+};
+
+/** `stability` is absent on reviews stored before the overall-stability check existed. */
+export type StoredReview = { standard: DesignStandard; caution: string; members: Record<string, StoredMemberReview>; stability?: StoredStability };
+
+function storedStability(stability: OverallStability): StoredStability {
+  return {
+    ...stability,
+    results: stability.results.map((r) => ({
+      result: r.result,
+      alphaCr: r.alphaCr,
+      converged: r.converged,
+      warning: r.warning,
+      modes: r.modes.map((m) => ({ alphaCr: m.alphaCr, joints: m.joints.slice(0, 12) })),
+      shape: r.modes[0]?.shape?.map((x) => Number(x.toPrecision(4))) ?? null,
+    })),
+  };
+}
 
 /** Analyses a validated model and, when it is stable, reviews every member against the design standard. */
 export function analyseForStorage(model: TrussModel, standard: DesignStandard): { result: AnalysisResult; review: StoredReview | null } {
@@ -30,7 +61,8 @@ export function analyseForStorage(model: TrussModel, standard: DesignStandard): 
 /** The member review of an analysed model; null when the model is unstable. */
 export function reviewForStorage(model: TrussModel, result: AnalysisResult, standard: DesignStandard): StoredReview | null {
   if (result.status !== "ok") return null;
-  const verdicts = memberVerdicts(createReviewContext(model, result, { standard }));
+  const context = createReviewContext(model, result, { standard });
+  const verdicts = memberVerdicts(context);
   const design = designMembers(model, result, { standard });
   const members: Record<string, StoredMemberReview> = {};
   model.members.forEach((member, e) => {
@@ -46,5 +78,5 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
       warnings: d.warnings,
     };
   });
-  return { standard, caution: STANDING_CAUTION, members };
+  return { standard, caution: STANDING_CAUTION, members, stability: storedStability(overallStability(context)) };
 }

@@ -102,6 +102,25 @@ describe("the 3D viewer on the demo roof", () => {
     await screenshot(page, "viewer-member-panel");
   });
 
+  it("shows the overall stability (αcr) of the chosen design combination as stored, and draws its buckling mode", async () => {
+    const viewer = new ViewerPage(page);
+    const response = await page.request.get(appUrl(`/api/projects/${projectId}/models/1`));
+    const { revision } = (await response.json()) as {
+      revision: { analysis: { review: { stability: { limit: number; results: { result: string; alphaCr: number | null; shape: number[] | null }[] } } } };
+    };
+    const stability = revision.analysis.review.stability;
+    expect(stability.limit).toBe(10); // EN 1993-1-1 5.2.1(3)
+    const first = stability.results.find((r) => r.alphaCr !== null && r.shape !== null)!;
+    await viewer.chooseResult(first.result);
+    const shown = first.alphaCr! >= 1000 ? first.alphaCr!.toExponential(2) : first.alphaCr!.toPrecision(3);
+    await expect.poll(() => page.getByTestId("stability-alpha").textContent()).toBe(`αcr = ${shown}`);
+    await page.getByTestId("stability-draw-mode").click();
+    await expect.poll(() => page.evaluate(() => window.__strutroom?.shownMode() ?? null)).toBe(`Buckling mode of ${first.result}`);
+    await screenshot(page, "viewer-buckling-mode");
+    await page.getByTestId("stability-draw-mode").click();
+    await expect.poll(() => page.evaluate(() => window.__strutroom?.shownMode() ?? null)).toBeNull();
+  });
+
   it("exports the current view as a PNG file", async () => {
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("viewer-export-png").click()]);
     expect(download.suggestedFilename()).toMatch(/\.png$/);
