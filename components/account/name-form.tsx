@@ -1,6 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { limitHints } from "@/lib/limit-hints";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
@@ -31,7 +32,7 @@ export function NameForm({ name }: { name: string }) {
   return (
     <form onSubmit={form.handleSubmit(handleSubmit)} className="flex flex-col gap-3 rounded-xl border border-board-200 bg-white p-5" noValidate data-testid="name-form">
       <h2 className="text-lg font-semibold">Name</h2>
-      <Field id="account-name" label="Name shown to your team" autoComplete="name" error={errors.name?.message} {...form.register("name")} />
+      <Field id="account-name" label="Name shown to your team" autoComplete="name" hint={limitHints.personName} error={errors.name?.message} {...form.register("name")} />
       <FormMessage message={errors.root?.message} />
       <FormMessage message={saved} tone="success" testId="name-saved" />
       <div>

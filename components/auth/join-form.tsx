@@ -1,6 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { limitHints } from "@/lib/limit-hints";
 import { useMutation } from "@tanstack/react-query";
 import { signIn } from "next-auth/react";
 import { useRouter } from "next/navigation";
@@ -32,7 +33,7 @@ export function JoinForm({ token, email, projectId }: { token: string; email: st
 
   return (
     <form onSubmit={form.handleSubmit(handleSubmit)} className="flex flex-col gap-4" noValidate data-testid="join-form">
-      <Field id="name" label="Your name" autoComplete="name" error={errors.name?.message} {...form.register("name")} />
+      <Field id="name" label="Your name" autoComplete="name" hint={limitHints.personName} error={errors.name?.message} {...form.register("name")} />
       <Field id="password" label="Choose a password" type="password" autoComplete="new-password" hint="At least 10 characters." error={errors.password?.message} {...form.register("password")} />
       <FormMessage message={errors.root?.message} />
       <Button type="submit" disabled={isSubmitting} data-testid="join-submit">

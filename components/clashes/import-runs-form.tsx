@@ -2,6 +2,7 @@
 // Import duct and pipe runs from a CSV or JSON file onto the revision; every problem is listed by row and
 // nothing is stored until the file is clean.
 import { useMutation } from "@tanstack/react-query";
+import { limitHints } from "@/lib/limit-hints";
 import { useState, type FormEvent } from "react";
 import { Button, FormMessage } from "@/components/ui/form";
 import type { Issue } from "@/lib/http/errors";
@@ -49,6 +50,9 @@ export function ImportRunsForm({ projectId, revision, onImported }: { projectId:
       </div>
       <p className="text-xs text-board-700">
         CSV: one row per point, columns <span className="font-mono">{RUN_CSV_COLUMNS.join(", ")}</span> (optional <span className="font-mono">name</span>); lengths in m, weight in kN/m, rotation in degrees. JSON: <span className="font-mono">{'{ "format": "mep-runs/1", "runs": [...] }'}</span>.
+      </p>
+      <p className="text-xs text-board-700" data-testid="import-runs-limits">
+        {limitHints.runsImport}
       </p>
       <FormMessage message={importRuns.error?.message} />
       {issues.length > 0 && (

@@ -1,6 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { limitHints } from "@/lib/limit-hints";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
@@ -12,11 +13,11 @@ import { revisionsKey } from "./revision-list";
 type RoofInput = z.input<typeof roofParamsSchema>;
 type RoofValues = z.output<typeof roofParamsSchema>;
 
-const numberFields: { name: keyof RoofInput & string; label: string; unit: string }[] = [
-  { name: "spanX", label: "Span along x", unit: "m" },
-  { name: "spanY", label: "Span along y", unit: "m" },
-  { name: "module", label: "Grid module", unit: "m" },
-  { name: "depth", label: "Depth between layers", unit: "m" },
+const numberFields: { name: keyof RoofInput & string; label: string; unit: string; hint?: string }[] = [
+  { name: "spanX", label: "Span along x", unit: "m", hint: limitHints.span },
+  { name: "spanY", label: "Span along y", unit: "m", hint: limitHints.span },
+  { name: "module", label: "Grid module", unit: "m", hint: limitHints.module },
+  { name: "depth", label: "Depth between layers", unit: "m", hint: limitHints.depth },
   { name: "roofing", label: "Roofing (superimposed dead)", unit: "kN/m²" },
   { name: "snow", label: "Snow", unit: "kN/m²" },
   { name: "windUplift", label: "Wind uplift", unit: "kN/m²" },
@@ -46,7 +47,7 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
   });
   return (
     <form onSubmit={form.handleSubmit((values) => save.mutate(values))} noValidate className="flex flex-col gap-3" data-testid="generate-form">
-      <Field id="roof-name" label="Name" error={errors.name?.message} {...form.register("name")} />
+      <Field id="roof-name" label="Name" hint={limitHints.name} error={errors.name?.message} {...form.register("name")} />
       <div className="flex flex-col gap-1">
         <label htmlFor="roof-pattern" className="text-sm font-medium text-board-800">
           Grid pattern
@@ -72,9 +73,12 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
       </div>
       <div className="grid grid-cols-2 gap-3">
         {numberFields.map((f) => (
-          <Field key={f.name} id={`roof-${f.name}`} label={`${f.label} (${f.unit})`} type="number" step="any" error={errors[f.name]?.message} {...form.register(f.name, { valueAsNumber: true })} />
+          <Field key={f.name} id={`roof-${f.name}`} label={`${f.label} (${f.unit})`} hint={f.hint} type="number" step="any" error={errors[f.name]?.message} {...form.register(f.name, { valueAsNumber: true })} />
         ))}
       </div>
+      <p className="text-xs text-board-700" data-testid="generate-limits">
+        {limitHints.generator}
+      </p>
       <FormMessage message={errors.root?.message} />
       <Button type="submit" disabled={save.isPending} data-testid="generate-submit">
         {save.isPending ? "Generating…" : "Generate, save and analyse"}

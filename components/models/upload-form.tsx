@@ -1,11 +1,11 @@
 "use client";
 
 import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { limitHints } from "@/lib/limit-hints";
 import { useState, type FormEvent } from "react";
 import { Button, FormMessage } from "@/components/ui/form";
 import type { Issue } from "@/lib/http/errors";
 import { ApiError, apiFetch } from "@/lib/http/fetcher";
-import { formatBytes, modelCounts, modelFileBytes } from "@/lib/limits";
 import type { CreateRevisionInput } from "@/lib/models/schemas";
 import { uploadToStorage } from "@/lib/storage/upload-client";
 import { revisionsKey } from "./revision-list";
@@ -61,8 +61,7 @@ export function UploadForm({ projectId, onSaved }: { projectId: string; onSaved:
         </label>
         <input id="upload-files" type="file" multiple accept=".json,.csv,application/json,text/csv" onChange={(e) => setFiles(Array.from(e.target.files ?? []))} aria-describedby="upload-limits" data-testid="upload-files" />
         <p id="upload-limits" className="text-xs text-board-700" data-testid="upload-limits">
-          Up to {formatBytes(modelFileBytes)} per file and at most {modelCounts.nodes.toLocaleString("en")} nodes, {modelCounts.members.toLocaleString("en")} members,{" "}
-          {modelCounts.loadCases} load cases and {modelCounts.combinations} combinations per model. The files are kept as uploaded.
+          {limitHints.upload} The files are kept as uploaded.
         </p>
       </div>
       <FormMessage message={upload.error?.message} />

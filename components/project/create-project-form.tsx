@@ -1,6 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
+import { limitHints } from "@/lib/limit-hints";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
@@ -52,8 +53,8 @@ export function CreateProjectForm({ organization, onCreatedKey }: { organization
         ) : (
           <Field id="project-organization" label="Your organisation" hint="You own no project yet: name the organisation this one belongs to (your later projects join it)." error={errors.organizationName?.message} {...form.register("organizationName")} />
         )}
-        <Field id="project-name" label="Project name" error={errors.name?.message} {...form.register("name")} />
-        <Field id="project-description" label="Description (optional)" error={errors.description?.message} {...form.register("description")} />
+        <Field id="project-name" label="Project name" hint={limitHints.projectName} error={errors.name?.message} {...form.register("name")} />
+        <Field id="project-description" label="Description (optional)" hint={limitHints.description} error={errors.description?.message} {...form.register("description")} />
         <div className="grid gap-3 sm:grid-cols-2">
           <div className="flex flex-col gap-1">
             <label htmlFor="project-design-standard" className="text-sm font-medium text-board-800">
