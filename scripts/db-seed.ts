@@ -1,10 +1,10 @@
 // `npm run db:seed`: the idempotent demo (run by `npm start` and before the browser tests). Each area adds its
-// own step as a function in db/seed/*.ts, called below inside the one transaction. It runs with tsx
-// --conditions=react-server, so seed steps may call the "server-only" data layer in db/queries.
+// own step as a function in scripts/seed/*.ts, called below inside the one transaction. It runs with tsx
+// --conditions=react-server, so seed steps may call the "server-only" data layer (db/queries) and commands (lib/commands).
 import { closeDb, withTransaction } from "../db/client";
-import { seedDemoModel } from "../db/seed/demo-model";
-import { seedDemoRuns } from "../db/seed/demo-runs";
-import { DEMO_PROJECT, seedDemoProject, seedDemoTeam } from "../db/seed/demo-team";
+import { seedDemoModel } from "./seed/demo-model";
+import { seedDemoRuns } from "./seed/demo-runs";
+import { DEMO_PROJECT, seedDemoProject, seedDemoTeam } from "./seed/demo-team";
 
 async function main() {
   await withTransaction(async (tx) => {

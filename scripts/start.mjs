@@ -62,7 +62,7 @@ async function main() {
     if ((await run("node_modules/.bin/next", ["build"], { env: { ...env, NODE_ENV: "production" } })) !== 0) throw new Error("next build failed (see above).");
   }
   await startServices({ env, ports });
-  const accounts = JSON.parse(readFileSync(path.join(root, "db/seed/demo-accounts.json"), "utf8"));
+  const accounts = JSON.parse(readFileSync(path.join(root, "scripts/seed/demo-accounts.json"), "utf8"));
   console.log(`\nStrutroom is running: open ${env.APP_URL}\n\nDemo sign-ins (password for all: ${accounts.password}):`);
   for (const account of accounts.users) console.log(`  ${account.role.padEnd(22)} ${account.email}`);
   console.log("\nPress Ctrl+C to stop everything (PostgreSQL is stopped cleanly; your data stays in .data/).");

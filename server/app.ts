@@ -2,6 +2,7 @@
 // the Yjs websocket endpoint, told apart by path on the `upgrade` event.
 import { createServer } from "node:http";
 import { Server } from "socket.io";
+import { pingDatabase } from "@/db/queries/health";
 import { checkHealth } from "@/lib/health";
 import { realtime } from "@/lib/limits";
 import { abilitiesOf } from "@/lib/permissions";
@@ -21,7 +22,7 @@ export function createRealtimeServer({ appUrl, databaseUrl }: { appUrl: string; 
   const httpServer = createServer((request, response) => {
     const json = (status: number, body: unknown) => response.writeHead(status, { "content-type": "application/json", "cache-control": "no-store" }).end(JSON.stringify(body));
     if (request.method === "GET" && request.url === "/health") {
-      void checkHealth("realtime").then(({ status, body }) => json(status, body));
+      void checkHealth("realtime", pingDatabase).then(({ status, body }) => json(status, body));
       return;
     }
     json(404, { error: "Not found." });

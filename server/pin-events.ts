@@ -1,7 +1,10 @@
 // Pins and threads: every write is committed to PostgreSQL before it is acknowledged or broadcast.
 import { requireSameProject } from "@/lib/commands/require-same-project";
-import { createComment, listCommentsSince, type WrittenComment } from "@/db/queries/comments";
-import { createPin, getPinById, listPinsChangedSince, setPinState } from "@/db/queries/pins";
+import { listCommentsSince } from "@/db/queries/comments";
+import { createPin } from "@/lib/commands/create-pin";
+import { postComment } from "@/lib/commands/post-comment";
+import type { WrittenComment } from "@/lib/commands/write-comment";
+import { getPinById, listPinsChangedSince, setPinState } from "@/db/queries/pins";
 import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
 import { commentCreateSchema, pinCreateSchema, pinSetStateSchema, syncSinceSchema } from "@/lib/realtime/events";
 import { authorize, mayMoveThread } from "@/lib/permissions";
@@ -40,7 +43,7 @@ export function registerPinEvents(io: RealtimeServer, socket: RealtimeSocket): v
     const member = await currentMember({ projectId, userId: user.id });
     if (!authorize(member, "comment.create")) throw new ForbiddenError();
     if (input.kind === "decision" && !authorize(member, "review.decide")) throw new ForbiddenError("Only the structural engineer records decisions.");
-    const written = await createComment({ ...input, projectId, authorId: user.id, authorName: user.name });
+    const written = await postComment({ ...input, projectId, authorId: user.id, authorName: user.name });
     if (!written) throw new NotFoundError("No such pin in this project.");
     if (written.created) {
       announceComment(io, socket.id, projectId, written);

@@ -5,7 +5,7 @@ import { limitHints } from "@/lib/limit-hints";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
-import type { ProjectForMember } from "@/db/queries/projects";
+import type { ProjectForMember } from "@/lib/projects/for-member";
 import { apiFetch } from "@/lib/http/fetcher";
 import {
   COMBINATION_STANDARDS,

@@ -1,4 +1,4 @@
-import type { ProjectForMember } from "@/db/queries/projects";
+import type { ProjectForMember } from "@/lib/projects/for-member";
 import { RoleBadge } from "./role-badge";
 
 const STANDARD_LABELS: Record<string, string> = {

@@ -2,7 +2,7 @@
 
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
-import type { ProjectForMember } from "@/db/queries/projects";
+import type { ProjectForMember } from "@/lib/projects/for-member";
 import { apiFetch } from "@/lib/http/fetcher";
 import { FormMessage } from "@/components/ui/form";
 import { CreateProjectForm } from "./create-project-form";

@@ -1,6 +1,6 @@
 import "server-only";
 import { asc, eq, inArray, ne, sql } from "drizzle-orm";
-import { getDb } from "../client";
+import { getDb, type Executor } from "../client";
 import { comments, memberships, pins, projects, users } from "../schema";
 
 export type DigestProject = {
@@ -11,8 +11,7 @@ export type DigestProject = {
 };
 
 /** Every project with threads that are not closed, with those threads (oldest first) and the team to tell. */
-export async function listProjectsWithOpenThreads(): Promise<DigestProject[]> {
-  const db = getDb();
+export async function listProjectsWithOpenThreads({ db = getDb() }: { db?: Executor } = {}): Promise<DigestProject[]> {
   const lastBy = sql<string | null>`(select ${users.name} from ${comments} join ${users} on ${users.id} = ${comments.authorId}
     where ${comments.pinId} = ${pins.id} order by ${comments.createdAt} desc limit 1)`;
   const threads = await db

@@ -1,8 +1,7 @@
 import "server-only";
 import { desc, eq, sql } from "drizzle-orm";
 import type { Executor } from "@/db/client";
-import { analysisRuns, modelRevisions } from "@/db/schema";
-import type { TrussModel } from "@/lib/analysis/model";
+import { analysisRuns, modelRevisions, type ModelRevision } from "@/db/schema";
 
 export type MemberResults = {
   id: string;
@@ -43,7 +42,7 @@ export async function getMemberResults({ db, revisionId, memberIds }: { db: Exec
 }
 
 /** A revision's number and model by id, or null. */
-export async function getRevisionModelById(db: Executor, revisionId: string): Promise<{ number: number; model: TrussModel } | null> {
+export async function getRevisionModelById(db: Executor, revisionId: string): Promise<{ number: number; model: ModelRevision["model"] } | null> {
   const [row] = await db.select({ number: modelRevisions.number, model: modelRevisions.model }).from(modelRevisions).where(eq(modelRevisions.id, revisionId));
   return row ?? null;
 }

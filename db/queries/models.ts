@@ -1,13 +1,15 @@
 import "server-only";
 import { and, asc, desc, eq, max } from "drizzle-orm";
 import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
-import { analysisRuns, attachments, modelRevisions, projects, resultColumns, users, type ModelRevision, type Project } from "@/db/schema";
-import type { AnalysisResult } from "@/lib/analysis/analyze";
-import type { TrussModel } from "@/lib/analysis/model";
-import type { StoredReview } from "@/lib/models/analyse";
+import { analysisRuns, attachments, modelRevisions, projects, resultColumns, users, type AnalysisRun, type ModelRevision, type Project } from "@/db/schema";
 import type { ResultColumns, RunColumns } from "@/lib/models/result-columns";
 import { recordAuditEvent } from "./audit";
 import { latestJobsOfRevisions, type JobView } from "./jobs";
+
+// The stored jsonb columns' types (db/schema), so this file needs nothing from the analysis code.
+type TrussModel = ModelRevision["model"];
+type AnalysisResult = AnalysisRun["result"];
+type StoredReview = NonNullable<AnalysisRun["review"]>;
 
 /** A revision as listed (no model body). */
 export type RevisionSummary = {

@@ -1,9 +1,7 @@
 import "server-only";
-import { randomUUID } from "node:crypto";
 import { and, asc, eq, gt, sql, type SQL } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { comments, pins, users } from "../schema";
-import { writeComment, type WrittenComment } from "./comments";
 import type { Anchor, PinCreateInput, PinFilter, PinState, PresentedPin } from "../../lib/realtime/events";
 
 const pinColumns = {
@@ -62,50 +60,38 @@ export async function listPinsChangedSince({ projectId, since }: { projectId: st
   return rows.map(presentPin);
 }
 
-/**
- * Stores a pin (and its first comment when given) in one transaction. The id comes from the client, so a retry
- * returns the stored pin instead of a second one; `created` says whether this call wrote it.
- */
-export async function createPin({
-  projectId,
-  authorId,
-  authorName,
-  input,
-}: {
-  projectId: string;
-  authorId: string;
-  authorName: string;
-  input: PinCreateInput;
-}): Promise<{ pin: PresentedPin; created: boolean; firstComment: WrittenComment | null } | null> {
-  return getDb().transaction(async (tx) => {
-    const { anchor } = input;
-    const inserted = await tx
-      .insert(pins)
-      .values({
-        id: input.id,
-        projectId,
-        anchorKind: anchor.kind,
-        anchorId: anchor.kind === "point" ? null : anchor.id,
-        anchorX: anchor.kind === "point" ? anchor.point[0] : null,
-        anchorY: anchor.kind === "point" ? anchor.point[1] : null,
-        anchorZ: anchor.kind === "point" ? anchor.point[2] : null,
-        revisionId: input.revisionId,
-        title: input.title,
-        discipline: input.discipline,
-        authorId,
-      })
-      .onConflictDoNothing({ target: pins.id })
-      .returning({ id: pins.id });
-    const created = inserted.length > 0;
-    // The first comment of a new pin gets a server-made id; a retried pin writes nothing (created is false).
-    const firstComment =
-      created && input.body
-        ? await writeComment(tx, { id: randomUUID(), projectId, pinId: input.id, authorId, authorName, body: input.body, kind: "comment" })
-        : null;
-    // A retried id that belongs to another project is not this caller's pin.
-    const pin = await getPinById({ projectId, pinId: input.id, db: tx });
-    return pin ? { pin, created, firstComment } : null;
-  });
+/** Stores a pin unless its id is already stored (a client retry); answers whether this call wrote it. */
+export async function insertPin({ db, projectId, authorId, input }: { db: Executor; projectId: string; authorId: string; input: PinCreateInput }): Promise<boolean> {
+  const { anchor } = input;
+  const inserted = await db
+    .insert(pins)
+    .values({
+      id: input.id,
+      projectId,
+      anchorKind: anchor.kind,
+      anchorId: anchor.kind === "point" ? null : anchor.id,
+      anchorX: anchor.kind === "point" ? anchor.point[0] : null,
+      anchorY: anchor.kind === "point" ? anchor.point[1] : null,
+      anchorZ: anchor.kind === "point" ? anchor.point[2] : null,
+      revisionId: input.revisionId,
+      title: input.title,
+      discipline: input.discipline,
+      authorId,
+    })
+    .onConflictDoNothing({ target: pins.id })
+    .returning({ id: pins.id });
+  return inserted.length > 0;
+}
+
+/** Marks a pin changed (its thread got a comment). */
+export async function touchPin({ db, pinId }: { db: Executor; pinId: string }): Promise<void> {
+  await db.update(pins).set({ updatedAt: new Date() }).where(eq(pins.id, pinId));
+}
+
+/** Whether the pin is in the project. */
+export async function pinInProject({ db, projectId, pinId }: { db: Executor; projectId: string; pinId: string }): Promise<boolean> {
+  const [pin] = await db.select({ id: pins.id }).from(pins).where(and(eq(pins.id, pinId), eq(pins.projectId, projectId)));
+  return Boolean(pin);
 }
 
 /** Moves a thread to open, answered or closed; returns the updated pin. */

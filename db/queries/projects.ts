@@ -1,11 +1,7 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
-import { getDb, withTransaction, type Executor } from "@/db/client";
-import { memberships, organizations, projects, type Project } from "@/db/schema";
-import { ConflictError, ValidationError } from "@/lib/http/errors";
-import { abilitiesOf, type Action, type Role } from "@/lib/permissions";
-import type { CreateProjectValues } from "@/lib/projects/schemas";
-import { recordAuditEvent } from "./audit";
+import { getDb, type Executor } from "@/db/client";
+import { memberships, organizations, projects, type Membership, type Project } from "@/db/schema";
 
 export type PresentedProject = {
   id: string;
@@ -17,8 +13,6 @@ export type PresentedProject = {
   createdAt: string;
 };
 
-/** A project as the browser sees it, with the caller's role and what that role may do. */
-export type ProjectForMember = PresentedProject & { role: Role; abilities: Record<Action, boolean> };
 
 function present(project: Project, organization: { id: string; name: string }): PresentedProject {
   return {
@@ -43,14 +37,8 @@ export async function getProjectById({ projectId, db = getDb() }: { projectId: s
   return row ? present(row.project, row.organization) : null;
 }
 
-/** The project as seen by one member (role and abilities added). */
-export async function getProjectForMember({ projectId, role }: { projectId: string; role: Role }): Promise<ProjectForMember | null> {
-  const project = await getProjectById({ projectId });
-  return project ? { ...project, role, abilities: abilitiesOf(role) } : null;
-}
-
 /** Every project the user is a member of, by name, with their role on each. */
-export async function listProjectsForUser({ userId, db = getDb() }: { userId: string; db?: Executor }): Promise<ProjectForMember[]> {
+export async function listProjectsForUser({ userId, db = getDb() }: { userId: string; db?: Executor }): Promise<(PresentedProject & { role: Membership["role"] })[]> {
   const rows = await db
     .select({ project: projects, organization: { id: organizations.id, name: organizations.name }, role: memberships.role })
     .from(memberships)
@@ -58,7 +46,7 @@ export async function listProjectsForUser({ userId, db = getDb() }: { userId: st
     .innerJoin(organizations, eq(organizations.id, projects.organizationId))
     .where(eq(memberships.userId, userId))
     .orderBy(asc(projects.name));
-  return rows.map((row) => ({ ...present(row.project, row.organization), role: row.role, abilities: abilitiesOf(row.role) }));
+  return rows.map((row) => ({ ...present(row.project, row.organization), role: row.role }));
 }
 
 /**
@@ -77,47 +65,30 @@ export async function getOwnedOrganization({ userId, db = getDb() }: { userId: s
   return row ?? null;
 }
 
-/**
- * Creates a project with its creator as owner, in one transaction with its audit event. Organisation (kept
- * simple on purpose): the user's organisation (getOwnedOrganization) when they have one, and `organizationName`
- * is then ignored; otherwise a new organisation with that name, which is required and must not be taken.
- */
-export async function createProject({ userId, input }: { userId: string; input: CreateProjectValues }): Promise<ProjectForMember> {
-  return withTransaction(async (tx) => {
-    let organization = await getOwnedOrganization({ userId, db: tx });
-    if (!organization) {
-      const name = input.organizationName ?? "";
-      if (!name) throw new ValidationError([{ path: "organizationName", message: "Name your organisation: this is your first project." }]);
-      const [taken] = await tx.select({ id: organizations.id }).from(organizations).where(eq(organizations.name, name)).limit(1);
-      if (taken) throw new ConflictError("That organisation name is taken.", [{ path: "organizationName", message: "This name is taken: choose another." }]);
-      [organization] = await tx.insert(organizations).values({ name }).returning({ id: organizations.id, name: organizations.name });
-    }
-    const [duplicate] = await tx
-      .select({ id: projects.id })
-      .from(projects)
-      .where(and(eq(projects.organizationId, organization.id), eq(projects.name, input.name)))
-      .limit(1);
-    if (duplicate) throw new ConflictError("Your organisation already has a project with this name.", [{ path: "name", message: "A project with this name exists." }]);
-    const [project] = await tx
-      .insert(projects)
-      .values({
-        organizationId: organization.id,
-        name: input.name,
-        description: input.description,
-        designStandard: input.designStandard,
-        combinationStandard: input.combinationStandard,
-      })
-      .returning();
-    await tx.insert(memberships).values({ projectId: project.id, userId, role: "owner" });
-    await recordAuditEvent({
-      db: tx,
-      projectId: project.id,
-      actorId: userId,
-      action: "project.created",
-      subjectType: "project",
-      subjectId: project.id,
-      details: { name: project.name, organizationId: organization.id, designStandard: project.designStandard, combinationStandard: project.combinationStandard },
-    });
-    return { ...present(project, organization), role: "owner" as const, abilities: abilitiesOf("owner") };
-  });
+/** Whether an organisation has this name. */
+export async function organizationNameTaken({ db, name }: { db: Executor; name: string }): Promise<boolean> {
+  const [taken] = await db.select({ id: organizations.id }).from(organizations).where(eq(organizations.name, name)).limit(1);
+  return Boolean(taken);
+}
+
+/** Stores an organisation. */
+export async function insertOrganization({ db, name }: { db: Executor; name: string }): Promise<{ id: string; name: string }> {
+  const [row] = await db.insert(organizations).values({ name }).returning({ id: organizations.id, name: organizations.name });
+  return row;
+}
+
+/** Whether the organisation has a project with this name. */
+export async function projectNameTaken({ db, organizationId, name }: { db: Executor; organizationId: string; name: string }): Promise<boolean> {
+  const [duplicate] = await db
+    .select({ id: projects.id })
+    .from(projects)
+    .where(and(eq(projects.organizationId, organizationId), eq(projects.name, name)))
+    .limit(1);
+  return Boolean(duplicate);
+}
+
+/** Stores a project of an organisation. */
+export async function insertProject({ db, organization, values }: { db: Executor; organization: { id: string; name: string }; values: Omit<typeof projects.$inferInsert, "organizationId"> }): Promise<PresentedProject> {
+  const [project] = await db.insert(projects).values({ ...values, organizationId: organization.id }).returning();
+  return present(project, organization);
 }

@@ -1,9 +1,11 @@
 import "server-only";
 import { and, desc, eq, sql } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
-import { analysisRuns, modelRevisions, resultColumns } from "@/db/schema";
-import type { EnvelopeEntry } from "@/lib/analysis/analyze";
+import { analysisRuns, modelRevisions, resultColumns, type AnalysisRun } from "@/db/schema";
 import type { StoredMemberReview } from "@/lib/models/analyse";
+
+// Typed by the stored column (db/schema), so this file needs nothing from the analysis code.
+type EnvelopeEntry = AnalysisRun["result"]["envelope"][string];
 
 type RevisionKey = { projectId: string; number: number; db?: Executor };
 

@@ -1,5 +1,6 @@
 import { bigint, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, varchar } from "drizzle-orm/pg-core";
 import { ROLES } from "../../lib/permissions";
+import { COMBINATION_STANDARDS, DESIGN_STANDARDS } from "../../lib/projects/standards";
 
 /** createdAt/updatedAt columns shared by every table. */
 export const timestamps = {
@@ -11,9 +12,7 @@ export const timestamps = {
 };
 
 export const projectRole = pgEnum("project_role", ROLES);
-export const DESIGN_STANDARDS = ["AISC360-22", "EN1993-1-1"] as const;
 export const designStandard = pgEnum("design_standard", DESIGN_STANDARDS);
-export const COMBINATION_STANDARDS = ["ASCE7-22", "EN1990"] as const;
 export const combinationStandard = pgEnum("combination_standard", COMBINATION_STANDARDS);
 
 export const users = pgTable("users", {

@@ -1,5 +1,5 @@
 // Outgoing mail: written in the same transaction as what it announces, sent later by the jobs process with
-// retries (lib/mail/outbox.ts), so a mail server that is down never loses a comment, decision or invitation.
+// retries (server/jobs/mail-outbox.ts), so a mail server that is down never loses a comment, decision or invitation.
 import { index, integer, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { projects, timestamps } from "./core";
 

@@ -1,8 +1,9 @@
 import "server-only";
 import { forbidden, notFound } from "next/navigation";
-import { getProjectForMember, type ProjectForMember } from "@/db/queries/projects";
+import { getProjectById } from "@/db/queries/projects";
 import { ForbiddenError, HttpError } from "@/lib/http/errors";
 import type { Action } from "@/lib/permissions";
+import { projectForMember, type ProjectForMember } from "@/lib/projects/for-member";
 import { requireProjectRole } from "./guard";
 import { requirePageUser, type SessionUser } from "./session";
 
@@ -16,9 +17,9 @@ export async function requirePageProject(projectId: string, action: Action = "pr
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
   try {
     const membership = await requireProjectRole(user, projectId, action);
-    const project = await getProjectForMember({ projectId, role: membership.role });
+    const project = await getProjectById({ projectId });
     if (!project) notFound();
-    return { user, project };
+    return { user, project: projectForMember(project, membership.role) };
   } catch (error) {
     if (error instanceof ForbiddenError) forbidden();
     if (error instanceof HttpError) notFound();

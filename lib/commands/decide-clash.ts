@@ -4,7 +4,7 @@ import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, updateClashSummary } from "@/db/queries/clashes";
 import { CLASH_OUTCOME_LABELS, type DecideClashInput } from "@/lib/clash/outcomes";
 import { ConflictError, ForbiddenError } from "@/lib/http/errors";
-import { notifyClashStep } from "@/lib/mail/notify";
+import { notifyClashStep } from "./mail";
 import { clashDecisionRefusal } from "@/lib/permissions";
 import { runCommand } from "./command";
 import { lockClashForStep, type ClashActor } from "./clash-context";

@@ -4,7 +4,7 @@ import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, updateClashSummary } from "@/db/queries/clashes";
 import { CLASH_OUTCOME_LABELS, type ProposeOutcomeInput } from "@/lib/clash/outcomes";
 import { ConflictError } from "@/lib/http/errors";
-import { notifyClashStep, structuralEngineerIds } from "@/lib/mail/notify";
+import { notifyClashStep, structuralEngineerIds } from "./mail";
 import { runCommand } from "./command";
 import { lockClashForStep, type ClashActor } from "./clash-context";
 

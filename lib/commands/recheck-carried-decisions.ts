@@ -5,7 +5,7 @@ import { appendClashEntry, judgedOnRevisions, listDecidedClashes, updateClashSum
 import { getMemberResults, getRevisionModelById, type MemberResults } from "@/db/queries/member-snapshots";
 import type { TrussModel } from "@/lib/analysis/model";
 import { recheckReasons, type MemberSnapshot } from "@/lib/clash/carry";
-import { notifyClashStep } from "@/lib/mail/notify";
+import { notifyClashStep } from "./mail";
 
 const resultNames = (model: TrussModel) => Object.fromEntries([...model.loadCases, ...model.combinations].map((r) => [r.id, r.name]));
 const sentence = (text: string) => `${text[0].toUpperCase()}${text.slice(1)}.`;

@@ -4,7 +4,7 @@ import { recordAuditEvent } from "@/db/queries/audit";
 import { appendClashEntry, latestDecisionEntry, updateClashSummary } from "@/db/queries/clashes";
 import type { SupersedeDecisionInput } from "@/lib/clash/outcomes";
 import { ConflictError } from "@/lib/http/errors";
-import { notifyClashStep } from "@/lib/mail/notify";
+import { notifyClashStep } from "./mail";
 import { runCommand } from "./command";
 import { lockClashForStep, type ClashActor } from "./clash-context";
 

@@ -4,7 +4,6 @@ import "server-only";
 import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
 import { simpleParser, type AddressObject } from "mailparser";
-import { listSentMessageIds } from "../../db/queries/mail-outbox";
 
 export type CapturedMail = { id: string; receivedAt: string; from: string; to: string[]; subject: string; text: string; html: string | null };
 
@@ -60,11 +59,11 @@ export async function listCapturedMail({ limit = 50, to, messageIds }: { limit?:
 }
 
 /**
- * The captured mail written for this project: matched by Message-ID to the project's sent outbox rows, never by
- * recipient (a person on two teams would otherwise show one project's join links to the other's owners).
+ * The captured mail written for a project: matched by Message-ID to the project's sent outbox rows (pass
+ * db/queries/mail-outbox.ts listSentMessageIds), never by recipient (a person on two teams would otherwise show one
+ * project's join links to the other's owners). No ids, no mail.
  */
-export async function capturedMailForProject({ projectId, limit = 100 }: { projectId: string; limit?: number }): Promise<CapturedMail[]> {
-  const messageIds = await listSentMessageIds({ projectId });
+export async function capturedMailForProject({ messageIds, limit = 100 }: { messageIds: string[]; limit?: number }): Promise<CapturedMail[]> {
   if (messageIds.length === 0) return [];
   return listCapturedMail({ limit, messageIds });
 }

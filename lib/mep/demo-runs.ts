@@ -1,5 +1,5 @@
 // The demo project's own services (our invented scenario) on the Northfield roof (lib/analysis/demo-roof.ts), as
-// data the seed (db/seed/demo-runs.ts) stores and the tests check against the analysis.
+// data the seed (scripts/seed/demo-runs.ts) stores and the tests check against the analysis.
 import type { RunInput } from "./schemas";
 
 /** The three runs of the demo's story, by the member each one cuts (README "What to try"). */

@@ -1,6 +1,6 @@
 // Input schema for creating a project: shared by the create-project form and POST /api/projects.
 import { z } from "zod";
-import { COMBINATION_STANDARDS, DESIGN_STANDARDS } from "@/db/schema/core";
+import { COMBINATION_STANDARDS, DESIGN_STANDARDS } from "./standards";
 
 export { COMBINATION_STANDARDS, DESIGN_STANDARDS };
 
@@ -19,7 +19,7 @@ export const createProjectSchema = z.object({
   description: z.string().trim().max(2000, "Keep the description under 2000 characters.").default(""),
   designStandard: z.enum(DESIGN_STANDARDS, { error: "Choose a design standard." }),
   combinationStandard: z.enum(COMBINATION_STANDARDS, { error: "Choose a combination standard." }),
-  // Only read when the user owns no project yet, so has no organisation (see createProject in db/queries/projects.ts).
+  // Only read when the user owns no project yet, so has no organisation (see lib/commands/create-project.ts).
   organizationName: z.string().trim().max(120, "Keep the organisation name under 120 characters.").optional(),
 });
 export type CreateProjectInput = z.input<typeof createProjectSchema>;

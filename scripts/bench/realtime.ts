@@ -66,7 +66,7 @@ async function main() {
   const { getDb, closeDb } = await import("../../db/client");
   const { memberships, organizations, projects, users } = await import("../../db/schema");
   const { hashPassword } = await import("../../lib/auth/password");
-  const { createPin } = await import("../../db/queries/pins");
+  const { createPin } = await import("../../lib/commands/create-pin");
   const { listCommentsByPin } = await import("../../db/queries/comments");
   const db = getDb();
   const [org] = await db.insert(organizations).values({ name: "Northfield bench" }).returning();

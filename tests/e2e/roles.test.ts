@@ -7,7 +7,7 @@ import { ProjectsPage } from "./pages/projects-page";
 import { SignInPage } from "./pages/sign-in-page";
 
 // The seeded demo (scripts/db-seed.ts) and its documented sign-ins.
-const accounts = JSON.parse(readFileSync(new URL("../../db/seed/demo-accounts.json", import.meta.url), "utf8")) as {
+const accounts = JSON.parse(readFileSync(new URL("../../scripts/seed/demo-accounts.json", import.meta.url), "utf8")) as {
   password: string;
   users: { email: string; name: string; role: string }[];
 };

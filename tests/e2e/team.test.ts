@@ -8,7 +8,7 @@ import { ProjectOverviewPage } from "./pages/project-overview-page";
 import { ProjectsPage } from "./pages/projects-page";
 import { SignInPage } from "./pages/sign-in-page";
 
-const accounts = JSON.parse(readFileSync(new URL("../../db/seed/demo-accounts.json", import.meta.url), "utf8")) as {
+const accounts = JSON.parse(readFileSync(new URL("../../scripts/seed/demo-accounts.json", import.meta.url), "utf8")) as {
   password: string;
   users: { email: string; name: string; role: string }[];
 };

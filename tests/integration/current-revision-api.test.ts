@@ -10,7 +10,7 @@ import { analyzeModel } from "@/lib/analysis/analyze";
 import { generateRoof } from "@/lib/analysis/generator";
 import type { TrussModel } from "@/lib/analysis/model";
 import { analyseForStorage } from "@/lib/models/analyse";
-import { loadAnalysedRevision } from "@/lib/report/collect";
+import { loadAnalysedRevision } from "@/app/api/projects/[projectId]/_lib/report-data";
 import { closeDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";

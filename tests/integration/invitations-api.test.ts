@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as listInvitations, POST as invite } from "@/app/api/projects/[projectId]/invitations/route";
 import { GET as checkToken, POST as accept } from "@/app/api/invitations/[token]/route";
 import { auditEvents, invitations, memberships, users } from "@/db/schema";
-import { hashToken } from "@/db/queries/invitations";
+import { hashToken } from "@/lib/team/invitation-link";
 import { ROLES } from "@/lib/permissions";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createFixtureUser, createProjectFixture, type ProjectFixture } from "../support/fixtures";

@@ -11,14 +11,14 @@ import { clashes, comments, mailOutbox, memberships, pins, projects, users } fro
 import { withTransaction } from "@/db/client";
 import { decideClash } from "@/lib/commands/decide-clash";
 import { proposeClashOutcome } from "@/lib/commands/propose-clash-outcome";
-import { createComment } from "@/db/queries/comments";
+import { postComment } from "@/lib/commands/post-comment";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import { TRIPOD } from "@/lib/report/test-report";
 import { listCapturedMail } from "@/lib/mail/captured";
-import { queueDailyDigests } from "@/lib/mail/digest";
-import { notifyMention } from "@/lib/mail/notify";
-import { processOutbox } from "@/lib/mail/outbox";
+import { queueDailyDigests } from "@/lib/commands/queue-daily-digests";
+import { notifyMention } from "@/lib/commands/mail";
+import { processOutbox } from "@/server/jobs/mail-outbox";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
@@ -105,7 +105,7 @@ describe("mention, decision and digest mails", () => {
     await getDb().insert(pins).values({ id: threadPin, projectId: fx.projectId, anchorKind: "member", anchorId: "B-41", title: "Opening in chord B-41", discipline: "mep", authorId: fx.users.architect.id });
     const decisionMails = async () => (await getDb().select().from(mailOutbox).where(and(eq(mailOutbox.projectId, fx.projectId), eq(mailOutbox.kind, "decision")))).length;
     const say = (author: keyof ProjectFixture["users"], body: string, kind: "comment" | "decision") =>
-      createComment({ id: randomUUID(), projectId: fx.projectId, pinId: threadPin, authorId: fx.users[author].id, authorName: fx.users[author].name, body, kind });
+      postComment({ id: randomUUID(), projectId: fx.projectId, pinId: threadPin, authorId: fx.users[author].id, authorName: fx.users[author].name, body, kind });
 
     const before = await decisionMails();
     await say("mep_engineer", "The 300 mm duct needs to pass B-41.", "comment");
@@ -159,7 +159,7 @@ describe("mention, decision and digest mails", () => {
   });
 
   it("the comment and clash queries queue their mails in their own transactions (the hooks other areas call)", async () => {
-    const written = await createComment({ id: randomUUID(), projectId: fx.projectId, pinId, authorId: fx.users.mep_engineer.id, authorName: fx.users.mep_engineer.name, body: `@${fx.users.owner.name} the duct is 400 mm wide`, kind: "comment" });
+    const written = await postComment({ id: randomUUID(), projectId: fx.projectId, pinId, authorId: fx.users.mep_engineer.id, authorName: fx.users.mep_engineer.name, body: `@${fx.users.owner.name} the duct is 400 mm wide`, kind: "comment" });
     expect(written?.mentioned.map((m) => m.userId)).toEqual([fx.users.owner.id]);
     expect((await deliveredTo(fx.users.owner.email, /mentioned you/)).text).toContain("the duct is 400 mm wide");
 

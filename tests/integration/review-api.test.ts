@@ -5,8 +5,8 @@ import { GET as listPins } from "@/app/api/projects/[projectId]/pins/route";
 import { GET as listComments } from "@/app/api/projects/[projectId]/pins/[pinId]/comments/route";
 import { GET as listNotifications } from "@/app/api/notifications/route";
 import { PATCH as markRead } from "@/app/api/notifications/[notificationId]/route";
-import { createComment } from "@/db/queries/comments";
-import { createPin } from "@/db/queries/pins";
+import { postComment } from "@/lib/commands/post-comment";
+import { createPin } from "@/lib/commands/create-pin";
 import { closeDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
@@ -31,7 +31,7 @@ beforeAll(async () => {
     authorName: mep.name,
     input: { id: randomUUID(), anchor: { kind: "point", point: [1, 2, 3] }, revisionId: null, title: "Riser here", discipline: "mep" },
   });
-  await createComment({ id: randomUUID(), projectId: project.projectId, pinId: memberPinId, authorId: mep.id, authorName: mep.name, body: `@${architect.name} at node N-12.`, kind: "comment" });
+  await postComment({ id: randomUUID(), projectId: project.projectId, pinId: memberPinId, authorId: mep.id, authorName: mep.name, body: `@${architect.name} at node N-12.`, kind: "comment" });
 });
 afterAll(closeDb);
 

@@ -2,7 +2,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { DELETE as cancel } from "@/app/api/projects/[projectId]/invitations/[invitationId]/route";
 import { DELETE as remove } from "@/app/api/projects/[projectId]/members/[userId]/route";
-import { createInvitation } from "@/db/queries/invitations";
+import { createInvitation } from "@/lib/commands/create-invitation";
 import { auditEvents, invitations, memberships } from "@/db/schema";
 import { ROLES } from "@/lib/permissions";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";

@@ -8,8 +8,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as invite } from "@/app/api/projects/[projectId]/invitations/route";
 import { POST as accept } from "@/app/api/invitations/[token]/route";
 import { memberships, users } from "@/db/schema";
+import { listSentMessageIds } from "@/db/queries/mail-outbox";
 import { capturedMailForProject, capturedMailPageEnabled } from "@/lib/mail/captured";
-import { processOutbox } from "@/lib/mail/outbox";
+import { processOutbox } from "@/server/jobs/mail-outbox";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
@@ -41,12 +42,12 @@ describe("captured mail is scoped to its project", () => {
     await inviteTo(b, a.users.architect.email);
     for (let sent = 1; sent > 0; ) sent = (await processOutbox({ limit: 50 })).sent;
 
-    const onB = await capturedMailForProject({ projectId: b.projectId });
+    const onB = await capturedMailForProject({ messageIds: await listSentMessageIds({ projectId: b.projectId }) });
     const textB = onB.map((mail) => mail.text).join("\n");
     expect(textB).toContain(linkB);
     expect(textB).not.toContain(linkA);
     expect(onB.every((mail) => !mail.subject.includes(a.projectId))).toBe(true);
-    const onA = await capturedMailForProject({ projectId: a.projectId });
+    const onA = await capturedMailForProject({ messageIds: await listSentMessageIds({ projectId: a.projectId }) });
     expect(onA.map((mail) => mail.text).join("\n")).toContain(linkA);
     expect(onA.map((mail) => mail.text).join("\n")).not.toContain(linkB);
   });

@@ -1,4 +1,4 @@
-// The seeded demo (db/seed) as browser tests use it: its accounts and the Northfield roof project.
+// The seeded demo (scripts/seed) as browser tests use it: its accounts and the Northfield roof project.
 import { readFileSync } from "node:fs";
 import { eq } from "drizzle-orm";
 import { projects } from "@/db/schema";
@@ -6,7 +6,7 @@ import { getDb } from "./db";
 
 export const DEMO_PROJECT = "Northfield Community Sports Hall — roof";
 
-export const demoAccounts = JSON.parse(readFileSync(new URL("../../db/seed/demo-accounts.json", import.meta.url), "utf8")) as {
+export const demoAccounts = JSON.parse(readFileSync(new URL("../../scripts/seed/demo-accounts.json", import.meta.url), "utf8")) as {
   password: string;
   users: { email: string; name: string; role: string }[];
 };
@@ -14,7 +14,7 @@ export const demoAccounts = JSON.parse(readFileSync(new URL("../../db/seed/demo-
 /** The demo account with this role. */
 export function demoAccount(role: string): { email: string; name: string; role: string } {
   const account = demoAccounts.users.find((u) => u.role === role);
-  if (!account) throw new Error(`db/seed/demo-accounts.json has no ${role} account.`);
+  if (!account) throw new Error(`scripts/seed/demo-accounts.json has no ${role} account.`);
   return account;
 }
 

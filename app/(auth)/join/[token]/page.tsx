@@ -2,16 +2,17 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { AcceptInvitationButton, JoinForm } from "@/components/auth/join-form";
 import { FormMessage } from "@/components/ui/form";
-import { checkInvitation, INVITATION_EXPIRED, INVITATION_USED } from "@/db/queries/invitations";
+import { getInvitationByTokenHash } from "@/db/queries/invitations";
 import { getSessionUser } from "@/lib/auth/session";
 import { tokenParamsSchema } from "@/lib/http/params";
 import { ROLE_LABELS } from "@/lib/permissions";
+import { hashToken, INVITATION_EXPIRED, INVITATION_USED, invitationCheck } from "@/lib/team/invitation-link";
 
 export const metadata: Metadata = { title: "Join a project" };
 
 export default async function JoinPage({ params }: PageProps<"/join/[token]">) {
   const parsed = tokenParamsSchema.safeParse(await params);
-  const invitation = parsed.success ? await checkInvitation({ token: parsed.data.token }) : null;
+  const invitation = parsed.success ? invitationCheck(await getInvitationByTokenHash({ tokenHash: hashToken(parsed.data.token) })) : null;
   if (!parsed.success || !invitation) {
     return <Notice title="This link does not work" message="This invitation link is not valid. Check that you copied it whole, or ask the project owner for a new one." />;
   }

@@ -3,6 +3,7 @@ import { notFound } from "next/navigation";
 import { ProjectHeader } from "@/components/project/project-header";
 import { ProjectNav } from "@/components/project/project-nav";
 import { requirePageProject } from "@/lib/auth/page";
+import { listSentMessageIds } from "@/db/queries/mail-outbox";
 import { capturedMailForProject, capturedMailPageEnabled } from "@/lib/mail/captured";
 
 export const metadata: Metadata = { title: "Captured mail" };
@@ -32,7 +33,7 @@ export default async function CapturedMailPage({ params }: PageProps<"/projects/
   if (!capturedMailPageEnabled()) notFound();
   const { projectId } = await params;
   const { project } = await requirePageProject(projectId, "mail.viewCaptured");
-  const mails = await capturedMailForProject({ projectId: project.id });
+  const mails = await capturedMailForProject({ messageIds: await listSentMessageIds({ projectId: project.id }) });
   return (
     <div className="flex flex-col gap-6">
       <ProjectHeader project={project} />

@@ -8,7 +8,7 @@ import { clashTableRows } from "@/lib/clash/rows";
 import { memberVerdicts } from "@/lib/clash/verdicts";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { requireRevision } from "@/lib/mep/revision";
+import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { authorize } from "@/lib/permissions";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 

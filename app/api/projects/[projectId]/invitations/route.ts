@@ -1,6 +1,8 @@
-import { createInvitation, joinLink, listPendingInvitations } from "@/db/queries/invitations";
+import { listPendingInvitations } from "@/db/queries/invitations";
+import { createInvitation } from "@/lib/commands/create-invitation";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
+import { joinLink } from "@/lib/team/invitation-link";
 import { inviteSchema } from "@/lib/team/schemas";
 
 /** Pending invitations (owners only). */

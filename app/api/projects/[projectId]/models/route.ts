@@ -7,7 +7,7 @@ import { requestBytes } from "@/lib/limits";
 import { buildRevision } from "@/lib/models/build-revision";
 import { createRevisionSchema, type InlineRevisionRequest } from "@/lib/models/schemas";
 import { requestFromUploadedFiles } from "@/lib/models/uploaded-files";
-import { readModelFiles } from "@/lib/storage/model-files";
+import { readModelFiles } from "@/app/api/projects/[projectId]/_lib/uploaded-model-files";
 import type { ReceivedFile } from "@/lib/storage/attachments";
 
 const encoder = new TextEncoder();

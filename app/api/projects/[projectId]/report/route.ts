@@ -1,6 +1,6 @@
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { collectReport } from "@/lib/report/collect";
+import { collectReport } from "@/app/api/projects/[projectId]/_lib/report-data";
 import { buildReportPdf } from "@/lib/report/pdf";
 import { reportQueryFrom, reportQuerySchema } from "@/lib/report/schemas";
 

@@ -5,7 +5,7 @@ import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { requestBytes } from "@/lib/limits";
 import { parseRunsFile } from "@/lib/mep/import";
-import { requireRevision } from "@/lib/mep/revision";
+import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { importRunsSchema, revisionQuerySchema } from "@/lib/mep/schemas";
 import { withStoredFiles } from "@/lib/storage/attachments";
 

@@ -3,7 +3,7 @@ import { hangServicesRevision } from "@/lib/commands/hang-services";
 import { ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { requireRevision } from "@/lib/mep/revision";
+import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { hangServicesSchema } from "@/lib/mep/schemas";
 import { hangServices } from "@/lib/mep/services";
 import { STANDING_CAUTION } from "@/lib/review/caution";

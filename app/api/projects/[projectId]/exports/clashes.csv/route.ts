@@ -2,7 +2,7 @@ import { listClashesByRevision } from "@/db/queries/clashes";
 import { clashesCsv } from "@/lib/clash/csv";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { requireRevision } from "@/lib/mep/revision";
+import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { envelopeQuerySchema } from "@/lib/report/schemas";
 import { getDefaultRevisionNumber } from "@/db/queries/models";
 import { NotFoundError } from "@/lib/http/errors";

@@ -1,7 +1,7 @@
 import { ConflictError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { loadAnalysedRevision } from "@/lib/report/collect";
+import { loadAnalysedRevision } from "@/app/api/projects/[projectId]/_lib/report-data";
 import { envelopeCsv } from "@/lib/report/csv";
 import { envelopeQuerySchema } from "@/lib/report/schemas";
 

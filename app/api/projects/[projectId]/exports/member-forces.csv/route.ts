@@ -1,6 +1,6 @@
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { loadAnalysedRevision, requireResults } from "@/lib/report/collect";
+import { loadAnalysedRevision, requireResults } from "@/app/api/projects/[projectId]/_lib/report-data";
 import { memberForcesCsv } from "@/lib/report/csv";
 import { memberForcesQuerySchema } from "@/lib/report/schemas";
 

@@ -6,7 +6,7 @@ import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { exportIfc, type ExportOpening } from "@/lib/ifc";
 import { ifcExportQuerySchema } from "@/lib/ifc/schemas";
-import { loadAnalysedRevision, requireResults } from "@/lib/report/collect";
+import { loadAnalysedRevision, requireResults } from "@/app/api/projects/[projectId]/_lib/report-data";
 
 /**
  * A revision as IFC4: members as IfcMember tubes, the force state of `?result=` as a property set, and the openings

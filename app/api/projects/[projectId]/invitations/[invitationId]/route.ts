@@ -1,4 +1,4 @@
-import { cancelInvitation } from "@/db/queries/invitations";
+import { cancelInvitation } from "@/lib/commands/cancel-invitation";
 import { invitationParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { deleteRun } from "@/lib/commands/delete-run";
 import { editRun } from "@/lib/commands/edit-run";
 import { projectRoute } from "@/lib/http/route";
-import { requireRevision } from "@/lib/mep/revision";
+import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { editRunRequestSchema, revisionQuerySchema, runIdSchema } from "@/lib/mep/schemas";
 
 const paramsSchema = z.object({ projectId: z.uuid(), runId: runIdSchema });

@@ -5,7 +5,7 @@ import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { readIfcRuns } from "@/lib/ifc";
 import { IFC_UPLOAD_BYTES, ifcRunsQuerySchema } from "@/lib/ifc/schemas";
-import { requireRevision } from "@/lib/mep/revision";
+import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
 
 /**
  * Duct, pipe and cable-tray runs from an IFC file (the request body). `preview=1` (the default) answers the runs,

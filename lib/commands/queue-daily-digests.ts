@@ -1,10 +1,10 @@
 import "server-only";
 // The daily digest of open threads, queued by the jobs process's daily schedule (server/jobs/main.ts).
-import { withTransaction } from "../../db/client";
-import { enqueueMail } from "../../db/queries/mail-outbox";
-import { listProjectsWithOpenThreads } from "../../db/queries/mail-digest";
-import { appUrl, pinUrl } from "./notify";
-import { digestMail } from "./templates";
+import { enqueueMail } from "@/db/queries/mail-outbox";
+import { listProjectsWithOpenThreads } from "@/db/queries/mail-digest";
+import { appUrl, outboxBodies, pinUrl } from "@/lib/mail/notify";
+import { digestMail } from "@/lib/mail/templates";
+import { runCommand } from "./command";
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -13,10 +13,10 @@ const DAY_MS = 24 * 60 * 60 * 1000;
  * date, so running it twice on one day (a restart, two job processes) queues each digest once.
  */
 export async function queueDailyDigests({ now }: { now: Date }): Promise<number> {
-  const projects = await listProjectsWithOpenThreads();
   const day = now.toISOString().slice(0, 10);
   let queued = 0;
-  await withTransaction(async (tx) => {
+  await runCommand(async ({ tx }) => {
+    const projects = await listProjectsWithOpenThreads({ db: tx });
     for (const project of projects) {
       const threads = project.threads.map((thread) => ({
         title: thread.title,
@@ -33,9 +33,7 @@ export async function queueDailyDigests({ now }: { now: Date }): Promise<number>
             projectId: project.projectId,
             kind: "digest",
             toAddress: member.email,
-            subject: mail.subject,
-            textBody: mail.text,
-            htmlBody: mail.html,
+            ...outboxBodies(mail),
             dedupeKey: `digest:${project.projectId}:${member.userId}:${day}`,
           },
         });

@@ -1,10 +1,11 @@
 import "server-only";
+// Route-side reading (a private folder of the project API): it reads stored rows and objects, so it is not lib/.
 // Model files the browser uploaded through presigned URLs (confirmed attachments of purpose "model"): read back
 // for validation, and later linked to the revision as its originals, byte for byte as uploaded.
-import { getAttachment } from "../../db/queries/attachments";
-import { ConflictError, NotFoundError } from "../http/errors";
-import type { UploadedModelFile } from "../models/uploaded-files";
-import { getObject } from "./s3";
+import { getAttachment } from "@/db/queries/attachments";
+import { ConflictError, NotFoundError } from "@/lib/http/errors";
+import type { UploadedModelFile } from "@/lib/models/uploaded-files";
+import { getObject } from "@/lib/storage/s3";
 
 /** The text of each confirmed, unused model file the user uploaded to the project, in the order given. */
 export async function readModelFiles({ projectId, userId, attachmentIds }: { projectId: string; userId: string; attachmentIds: string[] }): Promise<UploadedModelFile[]> {

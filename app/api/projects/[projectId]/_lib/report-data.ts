@@ -1,5 +1,5 @@
 import "server-only";
-// Gathers what the review report and the CSV exports need from the stored data (other areas' query functions),
+// Route-side reading (a private folder of the project API; it reads stored rows, so it is not lib/). Gathers what the review report and the CSV exports need from the stored data (other areas' query functions),
 // checking the chosen revision and result ids; the report itself is built from the plain data (lib/report/pdf.ts).
 import { listClashesByRevision } from "@/db/queries/clashes";
 import { getDefaultRevisionNumber, getRevisionWithResults, type RevisionWithResults } from "@/db/queries/models";
@@ -9,8 +9,8 @@ import type { AnalysisResult } from "@/lib/analysis/analyze";
 import { CLASH_OUTCOME_LABELS } from "@/lib/clash/outcomes";
 import { ConflictError, NotFoundError, ValidationError } from "@/lib/http/errors";
 import type { Anchor } from "@/lib/realtime/events";
-import type { ReportQuery } from "./schemas";
-import type { ReportInput } from "./types";
+import type { ReportQuery } from "@/lib/report/schemas";
+import type { ReportInput } from "@/lib/report/types";
 
 type Analysed = RevisionWithResults & { analysis: NonNullable<RevisionWithResults["analysis"]> };
 

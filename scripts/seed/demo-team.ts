@@ -1,9 +1,9 @@
-// The demo organisation, project and one account per role (db/seed/demo-accounts.json), in our invented scenario.
+// The demo organisation, project and one account per role (scripts/seed/demo-accounts.json), in our invented scenario.
 // Idempotent: running it again updates names and roles in place and never duplicates rows.
 import { readFileSync } from "node:fs";
 import { and, eq } from "drizzle-orm";
-import type { Executor } from "../client";
-import { memberships, organizations, projects, users } from "../schema";
+import type { Executor } from "../../db/client";
+import { memberships, organizations, projects, users } from "../../db/schema";
 import { hashPassword, verifyPassword } from "../../lib/auth/password";
 import { isRole, type Role } from "../../lib/permissions";
 

@@ -7,11 +7,11 @@
 // duct's dog-leg cuts a diagonal, the chilled-water drop comes too close to a bottom chord, the sprinkler main
 // hangs too tight under the mid-span bottom chords, and a cable tray set on edge clips six diagonals.
 // Idempotent: skipped once the revision has runs.
-import type { Transaction } from "../client";
+import type { Transaction } from "../../db/client";
 import { DEMO_RUNS } from "../../lib/mep/demo-runs";
 import { runSchema } from "../../lib/mep/schemas";
 import { detectRevisionClashes } from "../../lib/commands/detect-revision-clashes";
-import { getRevisionForMep, revisionHasRuns, upsertRuns } from "../queries/mep";
+import { getRevisionForMep, revisionHasRuns, upsertRuns } from "../../db/queries/mep";
 
 /** Adds the demo runs to revision 1 and stores their clashes, unless that revision already has runs. */
 export async function seedDemoRuns(tx: Transaction, { projectId, createdBy }: { projectId: string; createdBy: string }): Promise<void> {

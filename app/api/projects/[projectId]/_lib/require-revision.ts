@@ -1,4 +1,5 @@
 import "server-only";
+// Route-side reading (a private folder of the project API): it reads stored rows, so it is not lib/.
 import { getRevisionForMep } from "@/db/queries/mep";
 import { NotFoundError } from "@/lib/http/errors";
 

@@ -1,12 +1,12 @@
 // The demo roof (lib/analysis/demo-roof.ts: the Northfield sports hall) as revision 1 of the demo project, with its
 // analysis and member review stored and marked current, so the viewer opens on real results. Idempotent: skipped once revision 1 exists.
 import { and, eq } from "drizzle-orm";
-import type { Executor } from "../client";
-import { modelRevisions, projects } from "../schema";
+import type { Executor } from "../../db/client";
+import { modelRevisions, projects } from "../../db/schema";
 import { demoRoof } from "../../lib/analysis/demo-roof";
 import { analyseForStorage } from "../../lib/models/analyse";
 import { encodeResultColumns } from "../../lib/models/result-columns";
-import { insertRevisionWithAnalysis, setCurrentRevision } from "../queries/models";
+import { insertRevisionWithAnalysis, setCurrentRevision } from "../../db/queries/models";
 
 /** Stores the demo roof as revision 1 (with results) unless the project already has it. */
 export async function seedDemoModel(db: Executor, { projectId, createdBy }: { projectId: string; createdBy: string }): Promise<void> {

@@ -3,8 +3,8 @@ import "server-only";
 // few seconds; the tests call it directly.
 import type { Transporter } from "nodemailer";
 import { claimDueMail, markMailAttemptFailed, markMailSent } from "../../db/queries/mail-outbox";
-import { nextMailAttempt } from "./retry";
-import { mailFrom, mailTransport } from "./transport";
+import { nextMailAttempt } from "../../lib/mail/retry";
+import { mailFrom, mailTransport } from "../../lib/mail/transport";
 
 export type OutboxRun = { sent: number; retrying: number; failed: number };
 
