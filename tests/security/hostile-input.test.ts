@@ -4,8 +4,10 @@
 import { randomUUID } from "node:crypto";
 import { readdirSync } from "node:fs";
 import { join, relative } from "node:path";
-import { sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { attachments, comments, invitations, jobs, modelRevisions, pins } from "@/db/schema";
+import { triangleModel } from "@/lib/analysis/test-fixtures";
 import type { RouteInputs } from "@/lib/http/route";
 import { database, requestBytes } from "@/lib/limits";
 import { ROLES } from "@/lib/permissions";
@@ -79,6 +81,9 @@ function zeroStream(bytes: number): ReadableStream<Uint8Array> {
 }
 
 let fx: ProjectFixture;
+/** Another project, with one row of each kind a route names in its path: its ids must never reach `fx`'s rows. */
+let other: ProjectFixture;
+const foreignIds: Record<string, string> = {};
 let routes: Route[];
 const cookies = new Map<string, string>();
 
@@ -105,6 +110,27 @@ async function expectRefusal(response: Response, what: string) {
   const body = (await response.json().catch(() => null)) as { error?: unknown } | null;
   expect(typeof body?.error === "string" && body.error.length > 0, `${what}: the reply names the problem`).toBe(true);
   return response.status;
+}
+
+/** One row of each kind in the other project, by the name of the path segment that takes its id. */
+async function makeForeignRows() {
+  const db = getDb();
+  const author = other.users.structural_engineer.id;
+  const [revision] = await db.insert(modelRevisions).values({ projectId: other.projectId, number: 1, name: "Other roof", model: triangleModel(), source: "uploaded", createdBy: author }).returning();
+  const pinId = randomUUID();
+  await db.insert(pins).values({ id: pinId, projectId: other.projectId, anchorKind: "point", anchorX: 0, anchorY: 0, anchorZ: 0, title: "Other pin", discipline: "structural", authorId: author });
+  const commentId = randomUUID();
+  await db.insert(comments).values({ id: commentId, pinId, authorId: author, body: "Other comment" });
+  const [attachment] = await db
+    .insert(attachments)
+    .values({ projectId: other.projectId, purpose: "comment", objectKey: `foreign/${randomUUID()}`, filename: "note.txt", contentType: "text/plain", sizeBytes: 4, uploadedBy: author, commentId, state: "ready" })
+    .returning();
+  const [job] = await db.insert(jobs).values({ projectId: other.projectId, kind: "analysis", revisionId: revision.id }).returning();
+  const [invitation] = await db
+    .insert(invitations)
+    .values({ projectId: other.projectId, email: `invitee-${randomUUID().slice(0, 8)}@fixture.test`, role: "viewer", tokenHash: randomUUID(), invitedBy: other.users.owner.id, expiresAt: new Date(Date.now() + 86_400_000) })
+    .returning();
+  Object.assign(foreignIds, { pinId, commentId, attachmentId: attachment.id, jobId: job.id, invitationId: invitation.id, userId: author });
 }
 
 /** Rows in every table of the app's schema, summed: a refused request must not change it. */
@@ -140,7 +166,8 @@ async function whileAnotherUserWorks(hostile: () => Promise<void>) {
 
 beforeAll(async () => {
   requireIntegrationEnv();
-  fx = await createProjectFixture("hostile");
+  [fx, other] = await Promise.all([createProjectFixture("hostile"), createProjectFixture("hostile-other")]);
+  await makeForeignRows();
   for (const user of Object.values(fx.users)) cookies.set(user.id, await sessionCookie(user));
   routes = await loadRoutes();
 });
@@ -168,6 +195,33 @@ describe("hostile input on every route handler (generated from app/api)", () => 
     expect(await rowCount()).toBe(before);
   });
 
+  it("another project's ids in the path: a 4xx with a message on every route that takes one, nothing written or changed", async () => {
+    const before = await rowCount();
+    const pinBefore = await getDb().select().from(pins).where(eq(pins.id, foreignIds.pinId));
+    const covered = new Set<string>();
+    await whileAnotherUserWorks(async () => {
+      for (const route of routes) {
+        for (const name of route.segments.filter((segment) => foreignIds[segment])) {
+          covered.add(name);
+          await expectRefusal(await call(route, { user: fx.users.owner, params: { [name]: foreignIds[name] } }), `${route.method} ${route.url} with the other project's ${name}`);
+        }
+      }
+    });
+    // each kind of id in the path met at least one route (a renamed segment would silently skip its kind)
+    expect([...covered].sort()).toEqual(["attachmentId", "invitationId", "jobId", "pinId", "userId"]);
+    expect(await rowCount()).toBe(before);
+    expect(await getDb().select().from(pins).where(eq(pins.id, foreignIds.pinId))).toEqual(pinBefore);
+  });
+
+  it("another project's comment in a query finds nothing of it", async () => {
+    for (const route of routes.filter((r) => r.handler.inputs?.query && r.method === "GET")) {
+      const response = await call(route, { user: fx.users.owner, query: `commentId=${foreignIds.commentId}` });
+      expect(response.status, `${route.url}?commentId=`).toBeLessThan(500);
+      expect(await response.text(), `${route.url} shows nothing of the other project's comment`).not.toContain("note.txt");
+    }
+  });
+
+  // Routes × roles × bodies is several hundred calls: 60 s was not enough at load average 27 (a bound, not a measurement).
   it("hostile bodies: every role gets a 4xx with a message, the body is read by at least one, nothing written", async () => {
     const before = await rowCount();
     await whileAnotherUserWorks(async () => {
@@ -183,7 +237,7 @@ describe("hostile input on every route handler (generated from app/api)", () => 
       }
     });
     expect(await rowCount()).toBe(before);
-  });
+  }, 240_000);
 
   it("bodies over the route's cap are a 413 that says the limit, read no further than the cap", async () => {
     const before = await rowCount();
