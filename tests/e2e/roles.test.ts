@@ -39,6 +39,9 @@ describe("signing in as each demo role", () => {
       await overview.header.waitFor();
       await overview.waitForTeam(accounts.users.length);
       expect(await overview.nav.textContent()).toContain("Clashes");
+      // Where the review stands (issue 17 item 16): the demo has a revision under review and open questions.
+      expect(await page.getByTestId("review-state-revision").textContent()).toMatch(/^Revision \d+: /);
+      expect(await page.getByTestId("review-state-threads").textContent()).toMatch(/\d+ open · \d+ answered · \d+ closed/);
       const isOwner = role === "owner";
       expect(await overview.invitePanel.isVisible()).toBe(isOwner);
       expect(await overview.roleSelect(email).count()).toBe(isOwner ? 1 : 0);

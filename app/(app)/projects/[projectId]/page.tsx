@@ -3,6 +3,9 @@ import { ProjectHeader } from "@/components/project/project-header";
 import { ProjectNav } from "@/components/project/project-nav";
 import { TeamPanel } from "@/components/project/team-panel";
 import { InvitePanel } from "@/components/project/invite-panel";
+import { ReviewStatePanel } from "@/components/project/review-state-panel";
+import { getDb } from "@/db/client";
+import { getReviewState } from "@/db/queries/review-state";
 import { requirePageProject } from "@/lib/auth/page";
 
 export const metadata: Metadata = { title: "Project overview" };
@@ -11,10 +14,12 @@ export default async function ProjectOverviewPage({ params }: PageProps<"/projec
   const { projectId } = await params;
   const { user, project } = await requirePageProject(projectId);
   const canManage = project.abilities["team.manage"];
+  const reviewState = await getReviewState({ db: getDb(), projectId: project.id });
   return (
     <div className="flex flex-col gap-6">
       <ProjectHeader project={project} />
       <ProjectNav projectId={project.id} />
+      <ReviewStatePanel projectId={project.id} state={reviewState} />
       <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
         <TeamPanel projectId={project.id} canManage={canManage} currentUserId={user.id} />
         {canManage ? <InvitePanel projectId={project.id} /> : null}
