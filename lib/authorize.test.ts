@@ -41,4 +41,14 @@ describe("authorize", () => {
     expect(authorize(member("viewer"), "comment.attach", { kind: "comment", authorId: "me" })).toBe(false);
     expect(authorize(member("architect"), "comment.attach", { kind: "pin", authorId: "me" })).toBe(false);
   });
+
+  it("lets a pin's author, the owner and the structural engineer save a view on a pin; not a viewer who raised one", () => {
+    const own = { kind: "pin", authorId: "me" } as const;
+    const other = { kind: "pin", authorId: "them" } as const;
+    expect(authorize(member("architect"), "pin.saveView", own)).toBe(true);
+    expect(authorize(member("mep_engineer"), "pin.saveView", other)).toBe(false);
+    expect(authorize(member("structural_engineer"), "pin.saveView", other)).toBe(true);
+    expect(authorize(member("owner"), "pin.saveView", other)).toBe(true);
+    expect(authorize(member("viewer"), "pin.saveView", own)).toBe(false);
+  });
 });

@@ -83,7 +83,7 @@ export function abilitiesOf(role: Role | null | undefined): Record<Action, boole
 }
 
 /** Actions whose answer depends on the resource as well as the role (kept apart from the role table above). */
-export const RESOURCE_ACTIONS = ["thread.reopen", "session.steer", "session.drive", "notes.edit", "comment.attach"] as const;
+export const RESOURCE_ACTIONS = ["thread.reopen", "session.steer", "session.drive", "notes.edit", "comment.attach", "pin.saveView"] as const;
 export type ResourceAction = (typeof RESOURCE_ACTIONS)[number];
 
 /** Who is asking: their role on the project and their user id (a membership row fits). */
@@ -114,6 +114,8 @@ function ownsResource(asker: NonNullable<Asker>, resource: Resource | undefined,
  * - `session.drive` (move everyone's view): the presenter only;
  * - `notes.edit` (the shared session notes): whoever may comment;
  * - `comment.attach`: the comment's author, while they may comment;
+ * - `pin.saveView` (save the viewer's view and snapshot on a pin): whoever may comment, if they raised the pin or may
+ *   close any thread (owner, structural engineer);
  * - `clash.decide` on a proposal: the structural engineer, but never the one who proposed that opening.
  */
 export function authorize(asker: Asker, action: Action | ResourceAction, resource?: Resource): boolean {
@@ -130,6 +132,8 @@ export function authorize(asker: Asker, action: Action | ResourceAction, resourc
       return can(asker.role, "comment.create");
     case "comment.attach":
       return can(asker.role, "comment.create") && ownsResource(asker, resource, "comment");
+    case "pin.saveView":
+      return can(asker.role, "comment.create") && (can(asker.role, "thread.close") || ownsResource(asker, resource, "pin"));
     case "clash.decide":
       return can(asker.role, "clash.decide") && !(resource?.kind === "proposal" && resource.outcome === "opening_proposed" && ownsResource(asker, resource, "proposal"));
     default:

@@ -8,6 +8,7 @@ import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
 import { mayMoveThread } from "@/lib/permissions";
 import type { PresentedComment, PresentedPin, PinState, Vec3 } from "@/lib/realtime/events";
+import { PinView } from "./pin-view";
 import { useSessionStore } from "./session-store";
 import { send, type ReviewSocket } from "./use-review-socket";
 
@@ -69,6 +70,7 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
           </>
         ) : null}
       </p>
+      <PinView projectId={projectId} pinId={pin.id} />
       <ol className="flex max-h-64 flex-col gap-2 overflow-y-auto" data-testid="comment-list">
         {comments.map((c) => (
           <li key={c.id} className={`rounded px-2 py-1 text-sm ${c.kind === "decision" ? "border-l-4 border-tension bg-tension/5" : "bg-board-100"}`} data-testid="comment">

@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, eq, gt, sql, type SQL } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { comments, pins, users } from "../schema";
+import type { StoredPinViewpoint } from "../../lib/bcf/viewpoint";
 import type { Anchor, PinCreateInput, PinFilter, PinState, PresentedPin } from "../../lib/realtime/events";
 
 const pinColumns = {
@@ -101,4 +102,20 @@ export async function setPinState({ projectId, pinId, state }: { projectId: stri
     .set({ state })
     .where(and(eq(pins.projectId, projectId), eq(pins.id, pinId)));
   return getPinById({ projectId, pinId });
+}
+
+/** A pin's saved view and its author, or null when the pin is not the project's. */
+export async function getPinViewpoint({ projectId, pinId, db = getDb() }: { projectId: string; pinId: string; db?: Executor }) {
+  const [row] = await db.select({ viewpoint: pins.viewpoint, authorId: pins.authorId }).from(pins).where(and(eq(pins.projectId, projectId), eq(pins.id, pinId)));
+  return row ?? null;
+}
+
+/** Stores a pin's saved view; false when the pin is not (or no longer) the project's. */
+export async function setPinViewpoint({ projectId, pinId, viewpoint, db }: { projectId: string; pinId: string; viewpoint: StoredPinViewpoint; db: Executor }): Promise<boolean> {
+  const rows = await db
+    .update(pins)
+    .set({ viewpoint, updatedAt: new Date() })
+    .where(and(eq(pins.projectId, projectId), eq(pins.id, pinId)))
+    .returning({ id: pins.id });
+  return rows.length > 0;
 }

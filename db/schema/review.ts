@@ -14,7 +14,7 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
-import type { PinViewpoint } from "../../lib/bcf/viewpoint";
+import type { StoredPinViewpoint } from "../../lib/bcf/viewpoint";
 import { ANCHOR_KINDS, COMMENT_KINDS, DISCIPLINES, PIN_STATES, type SessionView } from "../../lib/realtime/events";
 import { bytea } from "./bytea";
 import { projects, timestamps, users } from "./core";
@@ -49,7 +49,7 @@ export const pins = pgTable(
       .notNull()
       .references(() => users.id, { onDelete: "restrict" }),
     // The view the pin was made in (camera, selected member, result, colouring, section box); a BCF viewpoint.
-    viewpoint: jsonb().$type<PinViewpoint>(),
+    viewpoint: jsonb().$type<StoredPinViewpoint>(),
     // The BCF topic GUID of a pin imported from BCF (exports use it, else the pin id): re-imports merge into it.
     bcfGuid: text(),
     // Carried from BCF topics and written back on export.

@@ -18,6 +18,8 @@ export interface PinForBcf {
   dueAt: Date | null;
   anchor: string;
   viewpoint: PinViewpoint | null;
+  /** The saved view's snapshot PNG, read from object storage. */
+  snapshot?: Uint8Array;
   comments: { id: string; bcfGuid: string | null; body: string; authorEmail: string; externalAuthor: string | null; createdAt: Date }[];
 }
 
@@ -30,7 +32,7 @@ export function bcfFromPins(project: { id: string; name: string }, pins: PinForB
   const topics: BcfTopic[] = pins.map((pin) => {
     const guid = pin.bcfGuid ?? pin.id;
     const viewpointGuid = `${"f".repeat(8)}${guid.slice(8)}`;
-    const viewpoints = pin.viewpoint ? [toBcfViewpoint(viewpointGuid, pin.viewpoint, globalIdOf)] : [];
+    const viewpoints = pin.viewpoint ? [{ ...toBcfViewpoint(viewpointGuid, pin.viewpoint, globalIdOf), ...(pin.snapshot ? { snapshot: pin.snapshot } : {}) }] : [];
     return {
       guid,
       title: pin.title,

@@ -12,6 +12,26 @@ export const pinViewpointSchema = z.object({
 });
 export type PinViewpoint = z.infer<typeof pinViewpointSchema>;
 
+/**
+ * A saved view as stored on the pin: the view, plus the id of its snapshot PNG in object storage. The id is set
+ * only by the server (the input schema above strips it), so a client cannot point a view at another file.
+ */
+export type StoredPinViewpoint = PinViewpoint & { snapshotId?: string };
+
+/** Largest snapshot PNG a saved view takes (bytes); its base64 form is a third larger. */
+export const SNAPSHOT_BYTES = 5 * 1024 * 1024;
+
+/** PUT …/pins/<id>/viewpoint: the view, and the canvas capture as a PNG data URL (checked again from its bytes). */
+export const savePinViewSchema = z.object({
+  viewpoint: pinViewpointSchema,
+  snapshot: z
+    .string()
+    .max(Math.ceil((SNAPSHOT_BYTES * 4) / 3) + 32, "The snapshot is larger than 5 MB.")
+    .regex(/^data:image\/png;base64,[A-Za-z0-9+/]+={0,2}$/, "The snapshot must be a PNG data URL.")
+    .optional(),
+});
+export type SavePinViewInput = z.input<typeof savePinViewSchema>;
+
 const sub = (a: Vec3, b: Vec3): Vec3 => [a[0] - b[0], a[1] - b[1], a[2] - b[2]];
 const len = (a: Vec3) => Math.hypot(a[0], a[1], a[2]);
 const unit = (a: Vec3): Vec3 => [a[0] / len(a), a[1] / len(a), a[2] / len(a)];

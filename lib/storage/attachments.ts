@@ -186,7 +186,7 @@ export async function storeFile(input: { projectId: string; userId: string; purp
 export async function downloadUrl({ projectId, attachmentId }: { projectId: string; attachmentId: string }): Promise<string> {
   const attachment = await getAttachment({ projectId, attachmentId });
   if (!attachment || attachment.state !== "ready") throw new NotFoundError("No such file.");
-  const inline = attachment.purpose === "comment";
+  const inline = attachment.purpose === "comment" || attachment.purpose === "snapshot";
   return presignDownload(attachment.objectKey, attachment.filename, attachment.contentType, inline);
 }
 
@@ -195,4 +195,11 @@ export async function sweepStaleUploads({ now }: { now: Date }): Promise<number>
   const stale = await listStalePendingAttachments({ before: new Date(now.getTime() - PENDING_UPLOAD_MAX_AGE_MS) });
   for (const attachment of stale) await removeEverywhere(attachment);
   return stale.length;
+}
+
+/** The bytes of a ready snapshot of the project, or undefined when there is none or its object is gone. */
+export async function readSnapshot({ projectId, attachmentId }: { projectId: string; attachmentId: string }): Promise<Uint8Array | undefined> {
+  const attachment = await getAttachment({ projectId, attachmentId });
+  if (!attachment || attachment.state !== "ready" || attachment.purpose !== "snapshot") return undefined;
+  return (await getObject(attachment.objectKey)) ?? undefined;
 }

@@ -4,8 +4,11 @@ import Papa from "papaparse";
 import { modelFileBytes } from "@/lib/limits";
 
 /** What a stored file is for; each purpose accepts its own content types and size. */
-export const FILE_PURPOSES = ["comment", "model", "run"] as const;
+export const FILE_PURPOSES = ["comment", "model", "run", "snapshot"] as const;
 export type FilePurpose = (typeof FILE_PURPOSES)[number];
+/** Purposes a browser may upload through a presigned URL; snapshots are only stored by the server itself. */
+export const UPLOAD_PURPOSES = ["comment", "model", "run"] as const satisfies readonly FilePurpose[];
+export type UploadPurpose = (typeof UPLOAD_PURPOSES)[number];
 
 const MB = 1024 * 1024;
 
@@ -14,6 +17,8 @@ export const FILE_RULES = {
   comment: { maxBytes: 10 * MB, types: ["image/png", "image/jpeg", "image/webp", "application/pdf"] },
   model: { maxBytes: modelFileBytes, types: ["application/json", "text/csv"] },
   run: { maxBytes: 10 * MB, types: ["application/json", "text/csv"] },
+  // A saved view's canvas capture (and the snapshot of an imported BCF viewpoint).
+  snapshot: { maxBytes: 5 * MB, types: ["image/png"] },
 } as const satisfies Record<FilePurpose, { maxBytes: number; types: readonly string[] }>;
 
 /** How many leading bytes a binary check needs (file-type reads at most this many for the kinds we accept). */
@@ -34,6 +39,7 @@ const LABELS: Record<FilePurpose, string> = {
   comment: "an image (PNG, JPEG, WebP) or a PDF",
   model: "a model file in JSON or a CSV table",
   run: "a run file in JSON or CSV",
+  snapshot: "a PNG image",
 };
 
 function formatMb(bytes: number): string {

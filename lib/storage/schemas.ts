@@ -1,12 +1,12 @@
 // Input schemas for file uploads: shared by the upload form and the route handlers.
 import { z } from "zod";
 import { fileName } from "@/lib/fields";
-import { FILE_PURPOSES } from "./content-check";
+import { UPLOAD_PURPOSES } from "./content-check";
 
 /** A request for a presigned upload: what the browser says about the file (checked again against the bytes). */
 export const uploadRequestSchema = z
   .object({
-    purpose: z.enum(FILE_PURPOSES),
+    purpose: z.enum(UPLOAD_PURPOSES),
     filename: fileName,
     contentType: z.string().trim().min(1).max(100),
     sizeBytes: z.number().int().positive("The file is empty."),

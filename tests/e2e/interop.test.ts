@@ -5,12 +5,14 @@
 import { randomUUID } from "node:crypto";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { writeBcf, type BcfFile } from "@/lib/bcf";
+import { readBcf, writeBcf, type BcfFile } from "@/lib/bcf";
+import { memberGlobalId } from "@/lib/ifc/guid";
 import { ifcDuctFile, ifcTriangleAnalysisFile } from "@/lib/ifc/test-files";
 import { launchBrowser, screenshot } from "../support/browser";
 import { closeDb } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { BcfImport, IfcRoofImport, IfcRunsImport } from "./pages/interop-pages";
+import { ReviewPage } from "./pages/review-page";
 import { signedInPage } from "./pages/sign-in-page";
 
 let browser: Browser;
@@ -110,6 +112,34 @@ describe("IFC and BCF import screens", () => {
 
     await bcf.upload("review.bcf", bytes);
     await expect.poll(() => bcf.result()).toBe("0 topics added as pins, 0 comments added; 2 topics already here — nothing new in this file.");
+    await page.context().close();
+  });
+
+  it("the pin's author saves the viewer's view with a snapshot, restores it with one click, and the BCF export carries it", async () => {
+    const page = await as("architect");
+    const review = new ReviewPage(page);
+    await review.open(fixture.projectId);
+    await page.waitForFunction(() => window.__strutroom?.memberCount === 3, undefined, { timeout: 60_000 });
+    const title = `Gutter bracket on AB ${randomUUID().slice(0, 6)}`;
+    await review.pinOnMember("AB", title, "Bracket at mid-span?");
+    await page.getByTestId("pin-thread").waitFor();
+    await page.getByTestId("pin-view-none").waitFor();
+    await page.evaluate(() => window.__strutroom!.selectMember("AC"));
+    await page.getByTestId("pin-view-save").click();
+    await page.getByTestId("pin-view-snapshot").waitFor();
+    await screenshot(page, "pin-saved-view");
+
+    await page.evaluate(() => window.__strutroom!.selectMember("BC"));
+    await expect.poll(() => page.getByTestId("member-panel-id").textContent()).toBe("Member BC");
+    await page.getByTestId("pin-view-restore").click();
+    await expect.poll(() => page.getByTestId("member-panel-id").textContent()).toBe("Member AC");
+
+    const exported = await page.request.get(`/api/projects/${fixture.projectId}/exports/pins.bcf`);
+    expect(exported.status()).toBe(200);
+    const topic = readBcf(new Uint8Array(await exported.body())).file!.topics.find((t) => t.title === title)!;
+    expect(topic.viewpoints[0].selection).toEqual([memberGlobalId("AC")]);
+    // PNG signature (W3C PNG specification §5.2): the canvas capture is stored and exported as it was taken.
+    expect(Buffer.from(topic.viewpoints[0].snapshot!.subarray(0, 8)).toString("hex")).toBe("89504e470d0a1a0a");
     await page.context().close();
   });
 

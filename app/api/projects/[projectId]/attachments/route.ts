@@ -4,10 +4,10 @@ import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { authorize, type Action } from "@/lib/permissions";
 import { requestUpload } from "@/lib/storage/attachments";
-import type { FilePurpose } from "@/lib/storage/content-check";
+import type { UploadPurpose } from "@/lib/storage/content-check";
 import { listAttachmentsQuerySchema, uploadRequestSchema } from "@/lib/storage/schemas";
 
-const ACTION_FOR: Record<FilePurpose, Action> = { comment: "comment.create", model: "model.edit", run: "runs.edit" };
+const ACTION_FOR: Record<UploadPurpose, Action> = { comment: "comment.create", model: "model.edit", run: "runs.edit" };
 
 /** The ready attachments of one comment (`?commentId=`), for anyone on the project. */
 export const GET = projectRoute({ params: projectParamsSchema, query: listAttachmentsQuerySchema, action: "project.read" }, async ({ params, query }) =>
