@@ -7,6 +7,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { ensureDependencies, run, stopAll } from "./stack/processes.mjs";
 import { removeCluster, startPostgres, stopPostgres } from "./stack/postgres.mjs";
+import { removeRedisData, startRedis, stopRedis } from "./stack/redis.mjs";
 import { serviceEnv, startServices } from "./stack/services.mjs";
 import { freePort } from "./stack/ports.mjs";
 import { ensureChromium, ensurePoppler, ensurePostgres } from "./stack/system.mjs";
@@ -18,6 +19,7 @@ process.env.NEXT_TELEMETRY_DISABLED = "1";
 const artifacts = path.join(root, ".artifacts");
 const runDir = path.join(root, ".data", `test-${process.pid}`);
 const pgDir = path.join(runDir, "pg");
+const redisDataDir = path.join(runDir, "redis");
 const tally = { passed: 0, failed: 0, skipped: 0 };
 // `npm test` runs every stage. While working on one part: `npm test -- --only=integration [vitest filters]` runs
 // just the named stages (checks, unit, integration, security, e2e; comma-separated) with the filters passed to vitest.
@@ -64,7 +66,10 @@ async function main() {
   const ports = { web: await freePort(), postgres: await freePort(), realtime: await freePort(), jobs: await freePort(), s3: await freePort(), smtp: await freePort() };
   const databaseUrl = await startPostgres({ dataDir: pgDir, port: ports.postgres, throwaway: true });
   // STRUTROOM_TEST_PG_DIR lets the security suite stop and start this throwaway cluster (a database outage test).
-  const env = { ...serviceEnv({ databaseUrl, ports, secret: randomBytes(32).toString("hex"), dataDir: runDir }), CHROMIUM_PATH: chromium, ARTIFACTS_DIR: artifacts, STRUTROOM_TEST_PG_DIR: pgDir };
+  // The cluster test (tests/integration/cluster.test.ts) starts its own realtime nodes and job workers on this
+  // Redis; every other process of the test stack runs embedded, without one.
+  const redisUrl = wants("integration") ? await startRedis({ dataDir: redisDataDir, port: await freePort(), throwaway: true }) : "";
+  const env = { ...serviceEnv({ databaseUrl, ports, secret: randomBytes(32).toString("hex"), dataDir: runDir }), CHROMIUM_PATH: chromium, ARTIFACTS_DIR: artifacts, STRUTROOM_TEST_PG_DIR: pgDir, STRUTROOM_TEST_REDIS_URL: redisUrl };
   await step("migrate", "node_modules/.bin/tsx", ["scripts/db-migrate.ts"], env);
   await startServices({ env, ports, kinds: ["backing"], quiet: true });
   if (wants("integration")) await vitestProject("integration", { ...env, NODE_ENV: "test" });
@@ -87,6 +92,8 @@ try {
   await stopAll();
   try { stopPostgres(pgDir); } catch (error) { console.error(String(error)); }
   removeCluster(pgDir);
+  try { await stopRedis(redisDataDir); } catch (error) { console.error(String(error)); }
+  removeRedisData(redisDataDir);
   rmSync(runDir, { recursive: true, force: true });
 }
 console.log(`\n${tally.passed} passed, ${tally.failed} failed${tally.skipped ? `, ${tally.skipped} skipped` : ""}`);

@@ -6,6 +6,7 @@ import { chmodSync, chownSync, existsSync, mkdirSync, readFileSync, rmSync, writ
 import path from "node:path";
 import { ensurePostgres } from "./system.mjs";
 import { isPortTaken } from "./ports.mjs";
+import { reachableDir } from "./data-folder.mjs";
 
 const USER = "strutroom";
 const PASSWORD = "strutroom-local";
@@ -21,28 +22,9 @@ function asOwner(bin, args, options = {}) {
   return result.stdout;
 }
 
-function canReach(user, dir) {
-  return spawnSync("runuser", ["-u", user, "--", "test", "-x", dir]).status === 0;
-}
-
-const announced = new Set();
-
-/**
- * Where the cluster for dataDir really lives. As root, initdb and the server run as the `postgres` system user, who
- * cannot enter a private folder (a project cloned into /root, say); the cluster then lives under
- * /var/lib/strutroom in a folder named after the project path, so `npm start` and `npm test` work from any folder.
- */
+/** Where the cluster for dataDir really lives (data-folder.mjs: inside the project, or under /var/lib/strutroom). */
 export function clusterDir(dataDir) {
-  if (process.getuid?.() !== 0) return dataDir;
-  const parent = path.dirname(dataDir);
-  mkdirSync(parent, { recursive: true });
-  if (canReach("postgres", parent)) return dataDir;
-  const fallback = path.join("/var/lib/strutroom", dataDir.replace(/^\//, "").replace(/[^A-Za-z0-9._]+/g, "-"));
-  if (!announced.has(dataDir)) {
-    announced.add(dataDir);
-    console.log(`[postgres] the postgres system user cannot reach ${parent}, so this cluster's data lives in ${fallback}`);
-  }
-  return fallback;
+  return reachableDir("postgres", dataDir);
 }
 
 /** Deletes a throwaway cluster's data wherever clusterDir placed it. */

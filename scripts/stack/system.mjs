@@ -48,3 +48,9 @@ export function ensureChromium() {
 export function ensurePoppler() {
   if (!onPath("pdftoppm") || !onPath("pdftotext")) aptInstall(["poppler-utils"]);
 }
+
+/** Debian's redis-server, for `npm run start:cluster` and the cluster test (`npm start` needs no Redis). */
+export function ensureRedis() {
+  if (!onPath("redis-server")) aptInstall(["redis-server"]);
+  return execFileSync("sh", ["-c", "command -v redis-server"]).toString().trim();
+}
