@@ -9,16 +9,23 @@ import { abilitiesOf } from "@/lib/permissions";
 import { SOCKET_PATH, YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { getLiveSession } from "@/db/queries/review-sessions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
+import { clusterAdapter, connectRedis } from "./cluster";
 import { createCursorBatcher } from "./cursor-batcher";
 import { projectRoom, userRoom, type RealtimeServer } from "./context";
 import { startLiveEventPublisher } from "./live-events";
 import { flushViews } from "./live-session-state";
 import { registerPinEvents } from "./pin-events";
-import { broadcastPresence, registerSessionEvents } from "./session-events";
+import { broadcastPresence, followSessionChanges, registerSessionEvents } from "./session-events";
 import { createYjsUpgradeHandler } from "./yjs";
+import { createYjsRelay } from "./yjs-relay";
 
-/** Builds the realtime server (not yet listening); close() stores everything pending and stops it. */
-export function createRealtimeServer({ appUrl, databaseUrl }: { appUrl: string; databaseUrl: string }) {
+/**
+ * Builds the realtime server (not yet listening); close() stores everything pending and stops it. With redisUrl
+ * it is one of several nodes sharing rooms and live documents (server/cluster.ts); without, it runs alone.
+ */
+export async function createRealtimeServer({ appUrl, databaseUrl, redisUrl }: { appUrl: string; databaseUrl: string; redisUrl?: string }) {
+  const redis = redisUrl ? await connectRedis(redisUrl) : null;
+  const relay = redis ? await createYjsRelay(redis) : null;
   const httpServer = createServer((request, response) => {
     const json = (status: number, body: unknown) => response.writeHead(status, { "content-type": "application/json", "cache-control": "no-store" }).end(JSON.stringify(body));
     if (request.method === "GET" && request.url === "/health") {
@@ -37,9 +44,14 @@ export function createRealtimeServer({ appUrl, databaseUrl }: { appUrl: string; 
     allowRequest: (request, callback) => callback(null, isAllowedOrigin(request.headers, appUrl)),
     // socket.io attaches its own upgrade listener; the Yjs paths are routed below instead.
     destroyUpgrade: false,
+    // Websockets only: a connection stays on the node that accepted it, so nodes behind a load balancer need no
+    // sticky sessions (long-polling would spread one session's requests over several nodes).
+    transports: ["websocket"],
+    ...(redis ? { adapter: clusterAdapter(redis) } : {}),
   });
-  const yjs = createYjsUpgradeHandler({ appUrl });
+  const yjs = createYjsUpgradeHandler({ appUrl, relay });
   const cursors = createCursorBatcher(io);
+  followSessionChanges(io);
   const liveEvents = startLiveEventPublisher({ io, yjs, connectionString: databaseUrl });
   httpServer.on("upgrade", (request, socket, head) => {
     const url = request.url ?? "";
@@ -92,6 +104,8 @@ export function createRealtimeServer({ appUrl, databaseUrl }: { appUrl: string; 
       await yjs.close();
       await new Promise<void>((resolve) => io.close(() => resolve()));
       await flushViews();
+      await relay?.stop();
+      await redis?.quit().catch(() => undefined);
     },
   };
 }

@@ -12,7 +12,15 @@ export type SocketData = {
   following: boolean;
 };
 
-export type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents, Record<string, never>, SocketData>;
+/** What one realtime node tells the others (through the cluster adapter; see server/cluster.ts). */
+export type NodeToNodeEvents = {
+  /** A member was removed or their role changed: each node applies it to its own connections. */
+  "team:changed": (change: { projectId: string; userId: string }) => void;
+  /** A review session started, changed hands or ended: each node forgets its cached presenter. */
+  "session:changed": (change: { projectId: string }) => void;
+};
+
+export type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents, NodeToNodeEvents, SocketData>;
 
 /** Everyone connected to a project. */
 export function projectRoom(projectId: string): string {

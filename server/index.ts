@@ -9,7 +9,8 @@ function required(name: string): string {
 }
 
 const port = Number(required("REALTIME_PORT"));
-const server = createRealtimeServer({ appUrl: required("APP_URL"), databaseUrl: required("DATABASE_URL") });
+// REDIS_URL makes this one of several nodes (npm run start:cluster); without it the server runs alone.
+const server = await createRealtimeServer({ appUrl: required("APP_URL"), databaseUrl: required("DATABASE_URL"), redisUrl: process.env.REDIS_URL || undefined });
 server.httpServer.listen(port, "127.0.0.1", () => console.log(`[realtime] listening on 127.0.0.1:${port}`));
 
 let stopping = false;

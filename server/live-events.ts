@@ -8,6 +8,7 @@ import { lockUnpublishedLiveEvents, markLiveEventsPublished } from "@/db/queries
 import type { LiveEventRow } from "@/db/schema";
 import { abilitiesOf } from "@/lib/permissions";
 import { LIVE_EVENTS_CHANNEL } from "@/lib/realtime/live-events";
+import { tellOtherNodes } from "./cluster";
 import { projectRoom, type RealtimeServer } from "./context";
 
 const BATCH = 200;
@@ -35,13 +36,25 @@ async function applyTeamChange(io: RealtimeServer, yjs: Yjs, projectId: string, 
   yjs.closeConnectionsOf(projectId, userId, { removed: !membership });
 }
 
-async function publish(io: RealtimeServer, yjs: Yjs, event: LiveEventRow) {
-  if (event.kind === "member") await applyTeamChange(io, yjs, event.projectId, event.subjectId);
-  io.to(projectRoom(event.projectId)).emit("live:invalidate", { kind: event.kind, id: event.subjectId, revision: event.revision });
-}
-
-/** Starts listening; stop() ends the listener and waits for a running publish. */
+/**
+ * Starts listening; stop() ends the listener and waits for a running publish. Every node listens, and each event
+ * is published by whichever node locks it first (the room's emit reaches the sockets on every node). A team
+ * change is applied by that node to its own connections and, with several nodes, sent to the others to apply to
+ * theirs (only the node holding a connection can close it or change what it may do).
+ */
 export function startLiveEventPublisher({ io, yjs, connectionString }: { io: RealtimeServer; yjs: Yjs; connectionString: string }) {
+  io.on("team:changed", ({ projectId, userId }) => {
+    applyTeamChange(io, yjs, projectId, userId).catch((error) => console.error("[realtime] applying a team change failed", error));
+  });
+
+  async function publish(event: LiveEventRow) {
+    if (event.kind === "member") {
+      await applyTeamChange(io, yjs, event.projectId, event.subjectId);
+      tellOtherNodes(io, "team:changed", { projectId: event.projectId, userId: event.subjectId });
+    }
+    io.to(projectRoom(event.projectId)).emit("live:invalidate", { kind: event.kind, id: event.subjectId, revision: event.revision });
+  }
+
   let stopped = false;
   let running: Promise<void> | null = null;
   let again = false;
@@ -50,7 +63,7 @@ export function startLiveEventPublisher({ io, yjs, connectionString }: { io: Rea
   async function drainOnce(): Promise<number> {
     return getDb().transaction(async (tx) => {
       const events = await lockUnpublishedLiveEvents({ db: tx, limit: BATCH });
-      for (const event of events) await publish(io, yjs, event);
+      for (const event of events) await publish(event);
       await markLiveEventsPublished({ db: tx, ids: events.map((e) => e.id) });
       return events.length;
     });

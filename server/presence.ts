@@ -4,9 +4,12 @@ import type { PresenceEntry } from "@/lib/realtime/events";
 import { ROLES } from "@/lib/permissions";
 import { projectRoom, type RealtimeServer } from "./context";
 
+/** How long to wait for the other nodes' sockets before giving up (a node killed outright never answers). */
+const FETCH_TIMEOUT_MS = 2000;
+
 /** Who is in the project's room, one entry per person, owners first. */
 export async function presenceOf(io: RealtimeServer, projectId: string, presenterId: string | null): Promise<PresenceEntry[]> {
-  const sockets = await io.in(projectRoom(projectId)).fetchSockets();
+  const sockets = await io.in(projectRoom(projectId)).timeout(FETCH_TIMEOUT_MS).fetchSockets();
   const byUser = new Map<string, PresenceEntry>();
   for (const { data } of sockets) {
     const entry = byUser.get(data.user.id);

@@ -12,24 +12,43 @@ import {
 } from "@/lib/realtime/events";
 import { authorize } from "@/lib/permissions";
 import { currentMember } from "./auth";
+import { HEARTBEAT_TIMEOUT_MS, tellOtherNodes } from "./cluster";
 import type { CursorBatcher } from "./cursor-batcher";
 import { projectRoom, type RealtimeServer } from "./context";
 import { onEvent, type RealtimeSocket } from "./handle-event";
 import { forgetPresenter, presenterOf, rememberView } from "./live-session-state";
 import { presenceOf } from "./presence";
 
-/** Sends the project's presence list to everyone in its room. */
-export async function broadcastPresence(io: RealtimeServer, projectId: string): Promise<void> {
+async function sendPresence(io: RealtimeServer, projectId: string): Promise<void> {
   const presenterId = await presenterOf(projectId);
   io.to(projectRoom(projectId)).emit("presence", await presenceOf(io, projectId, presenterId));
 }
 
+/** Sends the project's presence list to everyone in its room (on every node). */
+export async function broadcastPresence(io: RealtimeServer, projectId: string): Promise<void> {
+  try {
+    await sendPresence(io, projectId);
+  } catch {
+    // With several nodes, one killed outright is still asked for its sockets until its heartbeats are missed:
+    // ask once more after that.
+    await new Promise((resolve) => setTimeout(resolve, HEARTBEAT_TIMEOUT_MS + 1000));
+    await sendPresence(io, projectId);
+  }
+}
+
 async function broadcastSession(io: RealtimeServer, projectId: string) {
   forgetPresenter(projectId);
+  // Sent before the new state: the other nodes forget theirs before their clients hear of the change.
+  tellOtherNodes(io, "session:changed", { projectId });
   const session = await getLiveSession({ projectId });
   io.to(projectRoom(projectId)).emit("session:state", session);
   await broadcastPresence(io, projectId);
   return session;
+}
+
+/** Makes this node forget its cached presenter whenever another node changes a session. */
+export function followSessionChanges(io: RealtimeServer): void {
+  io.on("session:changed", ({ projectId }) => forgetPresenter(projectId));
 }
 
 /** Registers the review-session events of one socket. */
@@ -71,7 +90,15 @@ export function registerSessionEvents(io: RealtimeServer, socket: RealtimeSocket
 
   onEvent(socket, "session:view", sessionViewSchema, async (view) => {
     const asker = { role: socket.data.role, userId: user.id };
-    if (!authorize(asker, "session.drive", { kind: "session", presenterId: await presenterOf(projectId) })) throw new ForbiddenError("Only the presenter drives the view.");
+    const drives = async () => authorize(asker, "session.drive", { kind: "session", presenterId: await presenterOf(projectId) });
+    // A refusal is checked once more against PostgreSQL: the cached presenter may predate a hand-over made through
+    // another node a moment ago.
+    let allowed = await drives();
+    if (!allowed) {
+      forgetPresenter(projectId);
+      allowed = await drives();
+    }
+    if (!allowed) throw new ForbiddenError("Only the presenter drives the view.");
     socket.to(room).emit("session:view", { ...view, presenterId: user.id });
     rememberView(projectId, user.id, view);
     return null;

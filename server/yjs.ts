@@ -8,14 +8,18 @@ import * as Y from "yjs";
 import * as encoding from "lib0/encoding";
 import { writePermissionDenied } from "y-protocols/auth";
 import { docs, getYDoc, setPersistence, setupWSConnection, type WSSharedDoc } from "@y/websocket-server/utils";
-import { appendYjsUpdate, compactYjsUpdates, loadYjsUpdates } from "@/db/queries/live-documents";
+import { appendYjsUpdate, compactYjsUpdates, loadYjsUpdates, loadYjsUpdatesAfter } from "@/db/queries/live-documents";
 import { formatBytes, realtime } from "@/lib/limits";
 import { YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { authorize } from "@/lib/permissions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
 import { readClientMessage } from "./yjs-messages";
+import { STORED, type YjsRelay } from "./yjs-relay";
 
 const COMPACT_EVERY_MS = 5 * 60_000;
+// With several nodes, each open document is also read back from PostgreSQL this often, so a change whose Redis
+// message this node missed still arrives.
+const CATCH_UP_EVERY_MS = 2_000;
 // A change is written with up to five tries (0.1, 0.2, 0.4, 0.8 s apart) before its connection is closed.
 const STORE_TRIES = 5;
 const FIRST_RETRY_MS = 100;
@@ -24,12 +28,41 @@ const loading = new Map<string, Promise<void>>();
 /** Projects with a failed write since their last stored row: the whole document state is stored next. */
 const needsWholeState = new Set<string>();
 
-/** Loads the stored updates into a fresh document (later changes are stored by the message gate below). */
+/** Set when several nodes share documents (REDIS_URL): relays changes and awareness between them. */
+let relay: YjsRelay | null = null;
+/** Per open document, the id of the last stored row it has surely seen (catch-up reads the rows after it). */
+const seenUpTo = new Map<string, number>();
+
+/**
+ * Loads the stored updates into a fresh document (later changes are stored by the message gate below). With
+ * several nodes the relay subscribes first, so a change another node stores meanwhile arrives one way or the other.
+ */
 function bindState(projectId: string, doc: WSSharedDoc) {
-  const loaded = loadYjsUpdates({ projectId }).then((rows) => {
-    if (rows.length) Y.applyUpdate(doc, Y.mergeUpdates(rows.map((row) => row.update)));
-  });
+  const loaded = (relay ? relay.open(projectId, doc) : Promise.resolve())
+    .then(() => loadYjsUpdates({ projectId }))
+    .then((rows) => {
+      if (rows.length) Y.applyUpdate(doc, Y.mergeUpdates(rows.map((row) => row.update)), STORED);
+      seenUpTo.set(projectId, rows.at(-1)?.id ?? 0);
+    });
   loading.set(projectId, loaded);
+}
+
+/** Applies the rows stored since each open document was last read (changes relayed messages may have missed). */
+async function catchUp() {
+  for (const [projectId, doc] of docs) {
+    const after = seenUpTo.get(projectId);
+    if (after === undefined) continue;
+    const rows = await loadYjsUpdatesAfter({ projectId, afterId: after });
+    if (docs.get(projectId) !== doc || rows.length === 0) continue;
+    Y.applyUpdate(doc, Y.mergeUpdates(rows.map((row) => row.update)), STORED);
+    // Move the mark only past settled rows: a row with a lower id may still commit after a newer one.
+    let mark = after;
+    for (const row of rows) {
+      if (!row.settled) break;
+      mark = row.id;
+    }
+    seenUpTo.set(projectId, mark);
+  }
 }
 
 /** Whole-state writes under way (started when a last client left), awaited on shutdown. */
@@ -37,6 +70,8 @@ const writingState = new Set<Promise<void>>();
 
 /** When the last client leaves: store the whole state once more, then compact. */
 function writeState(projectId: string, doc: WSSharedDoc): Promise<void> {
+  relay?.close(projectId, doc);
+  seenUpTo.delete(projectId);
   const write = storeWholeState(projectId, doc);
   writingState.add(write);
   void write.finally(() => writingState.delete(write));
@@ -178,8 +213,18 @@ function holdConnection(ws: WebSocket, projectId: string, userId: string) {
 }
 
 /** Handles a websocket upgrade to /yjs/<projectId>: authenticate, load the document, then hand over to Yjs. */
-export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
+export function createYjsUpgradeHandler({ appUrl, relay: nodes = null }: { appUrl: string; relay?: YjsRelay | null }) {
+  relay = nodes;
   setPersistence({ provider: null, bindState, writeState });
+  let catchingUp: Promise<void> | null = null;
+  const runCatchUp = () => {
+    catchingUp ??= catchUp()
+      .catch((error) => console.error("[realtime] Yjs catch-up failed", error))
+      .finally(() => (catchingUp = null));
+  };
+  const catchUpTimer = relay ? setInterval(runCatchUp, CATCH_UP_EVERY_MS) : null;
+  catchUpTimer?.unref();
+  relay?.onReconnect(runCatchUp);
   // A larger message closes the connection with 1009 "Message Too Big" (the reason the client sees).
   const wss = new WebSocketServer({ noServer: true, maxPayload: realtime.yjsUpdateBytes });
   const compaction = setInterval(() => {
@@ -221,6 +266,8 @@ export function createYjsUpgradeHandler({ appUrl }: { appUrl: string }) {
     /** Closes every Yjs connection and stores every open document (shutdown). */
     async close() {
       clearInterval(compaction);
+      if (catchUpTimer) clearInterval(catchUpTimer);
+      await catchingUp;
       const open = [...docs.entries()];
       // Store the documents here, once, rather than from the library's close handlers that nobody awaits.
       setPersistence(null);

@@ -30,7 +30,8 @@ export function useReviewSocket(projectId: string, realtimeUrl: string): ReviewS
       path: SOCKET_PATH,
       auth: { projectId },
       withCredentials: true,
-      transports: ["websocket", "polling"],
+      // The realtime server speaks websockets only (no sticky sessions needed across nodes).
+      transports: ["websocket"],
       ...RECONNECT,
     });
     let welcomed = false;

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, sql } from "drizzle-orm";
+import { and, asc, eq, gt, sql } from "drizzle-orm";
 import * as Y from "yjs";
 import { getDb } from "../client";
 import { yjsUpdates } from "../schema";
@@ -19,13 +19,31 @@ export async function loadYjsUpdates({ projectId }: { projectId: string }) {
   return rows;
 }
 
+/** Rows settled this long ago cannot be overtaken by a row with a lower id that commits later. */
+const SETTLED_AFTER = sql`interval '5 seconds'`;
+
+/**
+ * The project's updates stored after row afterId, in id order, each saying whether it is settled (old enough that
+ * no row with a lower id can still commit): a reader moves its mark only past settled rows.
+ */
+export async function loadYjsUpdatesAfter({ projectId, afterId }: { projectId: string; afterId: number }) {
+  return getDb()
+    .select({ id: yjsUpdates.id, update: yjsUpdates.update, settled: sql<boolean>`${yjsUpdates.createdAt} < now() - ${SETTLED_AFTER}` })
+    .from(yjsUpdates)
+    .where(and(eq(yjsUpdates.projectId, projectId), gt(yjsUpdates.id, afterId)))
+    .orderBy(asc(yjsUpdates.id));
+}
+
 /**
  * Merges the project's stored updates up to now into one compacted row, in one transaction. Rows written
  * meanwhile (by this or another realtime node) have higher ids and are left alone, so nothing is lost.
- * Returns how many rows were merged.
+ * Only one realtime node compacts a document at a time (a transaction-scoped advisory lock on the project; a node
+ * that does not get it skips this round). Returns how many rows were merged.
  */
 export async function compactYjsUpdates({ projectId }: { projectId: string }) {
   return getDb().transaction(async (tx) => {
+    const lock = await tx.execute<{ locked: boolean }>(sql`select pg_try_advisory_xact_lock(hashtextextended(${`yjs-compact:${projectId}`}, 0)) as locked`);
+    if (!lock.rows[0].locked) return 0;
     const rows = await tx
       .select({ id: yjsUpdates.id, update: yjsUpdates.update })
       .from(yjsUpdates)

@@ -22,18 +22,21 @@ function freePort(): Promise<number> {
   });
 }
 
+function portOpen(port: number): Promise<boolean> {
+  return new Promise<boolean>((resolve) => {
+    const socket = net.connect({ host: "127.0.0.1", port });
+    socket.once("connect", () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once("error", () => resolve(false));
+  });
+}
+
 async function waitForPort(port: number, child: ChildProcess, output: () => string) {
   for (let attempt = 0; attempt < 300; attempt += 1) {
     if (child.exitCode !== null) throw new Error(`The realtime server exited early:\n${output()}`);
-    const open = await new Promise<boolean>((resolve) => {
-      const socket = net.connect({ host: "127.0.0.1", port });
-      socket.once("connect", () => {
-        socket.destroy();
-        resolve(true);
-      });
-      socket.once("error", () => resolve(false));
-    });
-    if (open) return;
+    if (await portOpen(port)) return;
     await new Promise((r) => setTimeout(r, 100));
   }
   throw new Error(`The realtime server did not listen on ${port}:\n${output()}`);
@@ -43,17 +46,21 @@ export type RealtimeProcess = { url: string; port: number; appUrl: string; stop:
 
 /**
  * Starts server/index.ts on a free port; stop() sends SIGTERM and waits, crash() kills it with SIGKILL (nothing
- * stored on the way out), start() starts it again on the same port.
+ * stored on the way out), start() starts it again on the same port. `env` adds to the environment (REDIS_URL makes
+ * it one node of several).
  */
-export async function startRealtimeServer({ appUrl = "http://127.0.0.1:3999" }: { appUrl?: string } = {}): Promise<RealtimeProcess> {
+export async function startRealtimeServer({ appUrl = "http://127.0.0.1:3999", env = {} }: { appUrl?: string; env?: Record<string, string> } = {}): Promise<RealtimeProcess> {
   const port = await freePort();
   let child: ChildProcess | null = null;
   let output = "";
   const start = async () => {
     output = "";
     child = spawn("node_modules/.bin/tsx", ["--conditions=react-server", "server/index.ts"], {
-      env: { ...process.env, NODE_ENV: "production", REALTIME_PORT: String(port), APP_URL: appUrl },
+      env: { ...process.env, NODE_ENV: "production", REALTIME_PORT: String(port), APP_URL: appUrl, ...env },
       stdio: ["ignore", "pipe", "pipe"],
+      // Its own process group: tsx runs the server in a child of its own, which a SIGKILL of tsx alone would leave
+      // running (and serving the port), so crash() kills the whole group.
+      detached: true,
     });
     child.stdout?.on("data", (chunk) => (output += chunk));
     child.stderr?.on("data", (chunk) => (output += chunk));
@@ -65,8 +72,14 @@ export async function startRealtimeServer({ appUrl = "http://127.0.0.1:3999" }: 
     if (!running || running.exitCode !== null) return;
     await new Promise<void>((resolve) => {
       running.once("exit", () => resolve());
-      running.kill(signal);
+      if (signal === "SIGKILL") process.kill(-running.pid!, signal);
+      else running.kill(signal);
     });
+    // The launcher is gone; wait until its server child has let go of the port too.
+    for (let waited = 0; await portOpen(port); waited += 50) {
+      if (waited > 10_000) throw new Error(`The realtime server on port ${port} still answers after it was stopped.`);
+      await new Promise((r) => setTimeout(r, 50));
+    }
   };
   await start();
   return { url: `http://127.0.0.1:${port}`, port, appUrl, start, stop: () => end("SIGTERM"), crash: () => end("SIGKILL") };
