@@ -203,3 +203,9 @@ export async function readSnapshot({ projectId, attachmentId }: { projectId: str
   if (!attachment || attachment.state !== "ready" || attachment.purpose !== "snapshot") return undefined;
   return (await getObject(attachment.objectKey)) ?? undefined;
 }
+
+/** Removes a stored file and its record (a snapshot replaced by a newer one); nothing when it is already gone. */
+export async function removeStoredFile({ projectId, attachmentId }: { projectId: string; attachmentId: string }): Promise<void> {
+  const attachment = await getAttachment({ projectId, attachmentId });
+  if (attachment) await removeEverywhere(attachment);
+}

@@ -140,4 +140,14 @@ describe("saved views on pins", () => {
     await upload(target, target.users.architect, await exported(source));
     expect(await snapshots(target)).toHaveLength(1);
   });
+
+  it("saving the view again replaces its snapshot: the old file and its record are removed", async () => {
+    const [before] = await snapshots(source);
+    const again = await put(source, source.users.structural_engineer, pinId, { viewpoint: view, snapshot: dataUrl(PNG) });
+    expect(again.status).toBe(200);
+    const after = await snapshots(source);
+    expect(after).toHaveLength(1);
+    expect(after[0].id).not.toBe(before.id);
+    expect(await readSnapshot({ projectId: source.projectId, attachmentId: before.id })).toBeUndefined();
+  });
 });
