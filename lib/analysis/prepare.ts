@@ -1,6 +1,7 @@
 import { assembleStiffness, type AssembledStiffness } from "./assemble";
 import type { TrussModel } from "./model";
-import { factorSupernodal, solveSupernodal, solveSupernodalMany, type SupernodalFactor } from "./sparse/supernodal";
+import { solveSupernodalMany } from "./sparse/solve-many";
+import { factorSupernodal, solveSupernodal, type SupernodalFactor } from "./sparse/supernodal";
 import { analyzePattern, canReuse, type SymbolicAnalysis } from "./symbolic";
 import { buildTopology, type Topology } from "./topology";
 

@@ -23,7 +23,8 @@ import { freeDofsPerNode } from "@/lib/analysis/symbolic";
 import { seededRandom } from "@/lib/analysis/test-fixtures";
 import { symbolicLdl } from "@/lib/analysis/sparse/ldl";
 import { fillReducingOrder } from "@/lib/analysis/sparse/ordering";
-import { factorSupernodal, solveSupernodalMany, supernodes } from "@/lib/analysis/sparse/supernodal";
+import { solveSupernodalMany } from "@/lib/analysis/sparse/solve-many";
+import { factorSupernodal, supernodes } from "@/lib/analysis/sparse/supernodal";
 import { buildTopology } from "@/lib/analysis/topology";
 import { buildCholmodTimer, type CholmodFigures } from "./cholmod";
 
