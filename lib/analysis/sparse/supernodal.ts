@@ -113,7 +113,6 @@ export function factorSupernodal(a: UpperCsc, st: SupernodeStructure, scale: Flo
   const nextLink = new Int32Array(ns);
   const position = new Int32Array(ns); // next row (index into the supernode's rows) still to pass on
   const scaled = new Float64Array(maxW * maxW); // D_d L_d(c, k) for the target columns c
-  const update = new Float64Array(maxM * maxW);
 
   for (let s = 0; s < ns; s++) {
     const f = superStart[s];
@@ -146,63 +145,7 @@ export function factorSupernodal(a: UpperCsc, st: SupernodeStructure, scale: Flo
         const colk = dx0 + k * md;
         for (let c = 0; c < nc; c++) scaled[k * nc + c] = dk * values[colk + p1 + c];
       }
-      // update(r, c) = -sum_k L_d(p1 + r, k) * scaled(k, c), lower part r >= c, column-major by c
-      update.fill(0, 0, height * nc);
-      // Register blocking: two target columns c, c+1 and four columns of L_d per sweep, so each loaded L_d
-      // value serves two multiply-adds and each update entry is loaded and stored once per four. Column c+1
-      // also gets row c (above its diagonal); the scatter below skips it.
-      let c = 0;
-      for (; c + 1 < nc; c += 2) {
-        const ua = c * height;
-        const ub = ua + height;
-        let k = 0;
-        for (; k + 3 < wd; k += 4) {
-          const s0 = k * nc + c;
-          const a0 = scaled[s0];
-          const b0 = scaled[s0 + 1];
-          const a1 = scaled[s0 + nc];
-          const b1 = scaled[s0 + nc + 1];
-          const a2 = scaled[s0 + 2 * nc];
-          const b2 = scaled[s0 + 2 * nc + 1];
-          const a3 = scaled[s0 + 3 * nc];
-          const b3 = scaled[s0 + 3 * nc + 1];
-          const o0 = dx0 + k * md + p1;
-          const o1 = o0 + md;
-          const o2 = o1 + md;
-          const o3 = o2 + md;
-          for (let r = c; r < height; r++) {
-            const v0 = values[o0 + r];
-            const v1 = values[o1 + r];
-            const v2 = values[o2 + r];
-            const v3 = values[o3 + r];
-            update[ua + r] -= v0 * a0 + v1 * a1 + v2 * a2 + v3 * a3;
-            update[ub + r] -= v0 * b0 + v1 * b1 + v2 * b2 + v3 * b3;
-          }
-        }
-        for (; k < wd; k++) {
-          const ta = scaled[k * nc + c];
-          const tb = scaled[k * nc + c + 1];
-          const o = dx0 + k * md + p1;
-          for (let r = c; r < height; r++) {
-            const v = values[o + r];
-            update[ua + r] -= v * ta;
-            update[ub + r] -= v * tb;
-          }
-        }
-      }
-      for (; c < nc; c++) {
-        const uc = c * height;
-        for (let k = 0; k < wd; k++) {
-          const t = scaled[k * nc + c];
-          const colk = dx0 + k * md + p1;
-          for (let r = c; r < height; r++) update[uc + r] -= values[colk + r] * t;
-        }
-      }
-      for (let c = 0; c < nc; c++) {
-        const target = x0 + (rows[dr0 + p1 + c] - f) * m;
-        const uc = c * height;
-        for (let r = c; r < height; r++) values[target + map[rows[dr0 + p1 + r]]] += update[uc + r];
-      }
+      updateFromDescendant(values, rows, map, dx0, dr0, md, wd, p1, nc, height, scaled, x0, m, f);
       position[d] = p2;
       if (p2 < md) {
         const t = superOf[rows[dr0 + p2]];
@@ -212,37 +155,20 @@ export function factorSupernodal(a: UpperCsc, st: SupernodeStructure, scale: Flo
       d = following;
     }
 
-    // Dense LDL^T of the supernode's block, column by column.
-    for (let k = 0; k < w; k++) {
-      const colk = x0 + k * m;
-      let j = 0;
-      for (; j + 3 < k; j += 4) {
-        const c0 = x0 + j * m;
-        const c1 = c0 + m;
-        const c2 = c1 + m;
-        const c3 = c2 + m;
-        const t0 = values[c0 + k] * pivot[f + j];
-        const t1 = values[c1 + k] * pivot[f + j + 1];
-        const t2 = values[c2 + k] * pivot[f + j + 2];
-        const t3 = values[c3 + k] * pivot[f + j + 3];
-        for (let r = k; r < m; r++) values[colk + r] -= values[c0 + r] * t0 + values[c1 + r] * t1 + values[c2 + r] * t2 + values[c3 + r] * t3;
+    // Dense LDL^T of the supernode's block, four columns at a time: the columns before the block update it
+    // through the same register-blocked kernel as a descendant (the supernode's map is already set), then
+    // the block's own columns are factored one by one.
+    for (let kb = 0; kb < w; kb += 4) {
+      const bw = Math.min(4, w - kb);
+      if (kb > 0) {
+        for (let j = 0; j < kb; j++) {
+          const dj = pivot[f + j];
+          const colj = x0 + j * m + kb;
+          for (let i = 0; i < bw; i++) scaled[j * bw + i] = dj * values[colj + i];
+        }
+        updateFromDescendant(values, rows, map, x0, r0, m, kb, kb, bw, m - kb, scaled, x0, m, f);
       }
-      for (; j < k; j++) {
-        const colj = x0 + j * m;
-        const t = values[colj + k] * pivot[f + j];
-        for (let r = k; r < m; r++) values[colk + r] -= values[colj + r] * t;
-      }
-      const dk = values[colk + k];
-      if (dk > relTol * scale[f + k]) {
-        pivot[f + k] = dk;
-        inversePivot[f + k] = 1 / dk;
-        const inv = 1 / dk;
-        for (let r = k + 1; r < m; r++) values[colk + r] *= inv;
-      } else {
-        tinyPivots.push(f + k);
-        for (let r = k + 1; r < m; r++) values[colk + r] = 0;
-      }
-      values[colk + k] = 1;
+      for (let k = kb; k < kb + bw; k++) factorColumn(values, x0, m, f, kb, k, pivot, inversePivot, tinyPivots, relTol, scale);
     }
     position[s] = w;
     if (m > w) {
@@ -258,6 +184,136 @@ export function factorSupernodal(a: UpperCsc, st: SupernodeStructure, scale: Flo
     nnzL += w * m - (w * (w + 1)) / 2;
   }
   return { n, superStart, rowStart, rows, valueStart, values, inversePivot, tinyPivots, nnzL };
+}
+
+/**
+ * Finishes column k of a supernode's block (columns before kb already applied): subtracts the block's
+ * columns kb .. k-1, then divides by the pivot, or flags it as tiny and zeroes the column.
+ */
+function factorColumn(
+  values: Float64Array,
+  x0: number,
+  m: number,
+  f: number,
+  kb: number,
+  k: number,
+  pivot: Float64Array,
+  inversePivot: Float64Array,
+  tinyPivots: number[],
+  relTol: number,
+  scale: Float64Array,
+): void {
+  const colk = x0 + k * m;
+  for (let j = kb; j < k; j++) {
+    const colj = x0 + j * m;
+    const t = values[colj + k] * pivot[f + j];
+    for (let r = k; r < m; r++) values[colk + r] -= values[colj + r] * t;
+  }
+  const dk = values[colk + k];
+  if (dk > relTol * scale[f + k]) {
+    pivot[f + k] = dk;
+    inversePivot[f + k] = 1 / dk;
+    const inv = 1 / dk;
+    for (let r = k + 1; r < m; r++) values[colk + r] *= inv;
+  } else {
+    tinyPivots.push(f + k);
+    for (let r = k + 1; r < m; r++) values[colk + r] = 0;
+  }
+  values[colk + k] = 1;
+}
+
+/**
+ * Subtracts descendant d's contribution L_d(rows p1.., k) D_d L_d(rows p1 .. p1+nc, k)^T, summed over d's
+ * columns k, from the target supernode (block at x0, height m, first column f), lower part only. Register
+ * blocks of four rows by four target columns summed over k, added straight into the target through `map`
+ * (row -> position in the target): each loaded value serves four multiply-adds and no intermediate update
+ * block is written and read back.
+ */
+function updateFromDescendant(
+  values: Float64Array,
+  rows: Int32Array,
+  map: Int32Array,
+  dx0: number,
+  dr0: number,
+  md: number,
+  wd: number,
+  p1: number,
+  nc: number,
+  height: number,
+  scaled: Float64Array,
+  x0: number,
+  m: number,
+  f: number,
+): void {
+  const lo = dx0 + p1; // L_d(p1 + r, k) = values[lo + k * md + r]
+  const rowAt = dr0 + p1;
+  let c = 0;
+  for (; c + 4 <= nc; c += 4) {
+    const tc0 = x0 + (rows[rowAt + c] - f) * m;
+    const tc1 = x0 + (rows[rowAt + c + 1] - f) * m;
+    const tc2 = x0 + (rows[rowAt + c + 2] - f) * m;
+    const tc3 = x0 + (rows[rowAt + c + 3] - f) * m;
+    let r = c;
+    for (; r + 4 <= height; r += 4) {
+      let a00 = 0, a01 = 0, a02 = 0, a03 = 0;
+      let a10 = 0, a11 = 0, a12 = 0, a13 = 0;
+      let a20 = 0, a21 = 0, a22 = 0, a23 = 0;
+      let a30 = 0, a31 = 0, a32 = 0, a33 = 0;
+      for (let k = 0; k < wd; k++) {
+        const o = lo + k * md + r;
+        const l0 = values[o], l1 = values[o + 1], l2 = values[o + 2], l3 = values[o + 3];
+        const q = k * nc + c;
+        const s0 = scaled[q], s1 = scaled[q + 1], s2 = scaled[q + 2], s3 = scaled[q + 3];
+        a00 += l0 * s0; a01 += l0 * s1; a02 += l0 * s2; a03 += l0 * s3;
+        a10 += l1 * s0; a11 += l1 * s1; a12 += l1 * s2; a13 += l1 * s3;
+        a20 += l2 * s0; a21 += l2 * s1; a22 += l2 * s2; a23 += l2 * s3;
+        a30 += l3 * s0; a31 += l3 * s1; a32 += l3 * s2; a33 += l3 * s3;
+      }
+      const m0 = map[rows[rowAt + r]], m1 = map[rows[rowAt + r + 1]], m2 = map[rows[rowAt + r + 2]], m3 = map[rows[rowAt + r + 3]];
+      // a_ij: row r + i, target column c + j; on the diagonal block only i >= j lies in the lower part.
+      values[tc0 + m0] -= a00; values[tc0 + m1] -= a10; values[tc0 + m2] -= a20; values[tc0 + m3] -= a30;
+      values[tc1 + m1] -= a11; values[tc1 + m2] -= a21; values[tc1 + m3] -= a31;
+      values[tc2 + m2] -= a22; values[tc2 + m3] -= a32;
+      values[tc3 + m3] -= a33;
+      if (r === c) continue;
+      values[tc1 + m0] -= a01;
+      values[tc2 + m0] -= a02; values[tc2 + m1] -= a12;
+      values[tc3 + m0] -= a03; values[tc3 + m1] -= a13; values[tc3 + m2] -= a23;
+    }
+    // Rows left over (fewer than four; below the diagonal block, since height >= nc >= c + 4).
+    for (; r < height; r++) {
+      let a0 = 0, a1 = 0, a2 = 0, a3 = 0;
+      for (let k = 0; k < wd; k++) {
+        const l = values[lo + k * md + r];
+        const q = k * nc + c;
+        a0 += l * scaled[q]; a1 += l * scaled[q + 1]; a2 += l * scaled[q + 2]; a3 += l * scaled[q + 3];
+      }
+      const t = map[rows[rowAt + r]];
+      values[tc0 + t] -= a0; values[tc1 + t] -= a1; values[tc2 + t] -= a2; values[tc3 + t] -= a3;
+    }
+  }
+  // Target columns left over (fewer than four), one at a time, four rows per sweep.
+  for (; c < nc; c++) {
+    const tc = x0 + (rows[rowAt + c] - f) * m;
+    let r = c;
+    for (; r + 4 <= height; r += 4) {
+      let a0 = 0, a1 = 0, a2 = 0, a3 = 0;
+      for (let k = 0; k < wd; k++) {
+        const o = lo + k * md + r;
+        const t = scaled[k * nc + c];
+        a0 += values[o] * t; a1 += values[o + 1] * t; a2 += values[o + 2] * t; a3 += values[o + 3] * t;
+      }
+      values[tc + map[rows[rowAt + r]]] -= a0;
+      values[tc + map[rows[rowAt + r + 1]]] -= a1;
+      values[tc + map[rows[rowAt + r + 2]]] -= a2;
+      values[tc + map[rows[rowAt + r + 3]]] -= a3;
+    }
+    for (; r < height; r++) {
+      let a = 0;
+      for (let k = 0; k < wd; k++) a += values[lo + k * md + r] * scaled[k * nc + c];
+      values[tc + map[rows[rowAt + r]]] -= a;
+    }
+  }
 }
 
 /** Solves L D L^T x = b in place. */
