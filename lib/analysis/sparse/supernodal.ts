@@ -70,23 +70,36 @@ export function supernodes(a: UpperCsc, s: Symbolic): SupernodeStructure {
   return { n, superStart, rowStart, rows, valueStart, superOf };
 }
 
-/** Lower triangle by columns (the transpose of the upper CSC). */
-function lowerColumns(a: UpperCsc) {
-  const { n, colPtr, rowIdx, values } = a;
-  const start = new Int32Array(n + 1);
-  for (let p = 0; p < colPtr[n]; p++) start[rowIdx[p] + 1]++;
-  for (let j = 0; j < n; j++) start[j + 1] += start[j];
-  const next = start.slice(0, n);
-  const rows = new Int32Array(colPtr[n]);
-  const vals = new Float64Array(colPtr[n]);
+/**
+ * Puts A's entries into the supernodal blocks: A(i, k) (upper CSC, i <= k) is L's column i, row k, found in
+ * the rows of i's supernode by binary search past its own columns. Done in place, so that no transposed copy
+ * of K_ff is made (that copy was garbage of the size of K after every factorisation).
+ */
+function scatterMatrix(a: UpperCsc, st: SupernodeStructure, values: Float64Array): void {
+  const { superStart, rowStart, rows, valueStart, superOf } = st;
+  const { n, colPtr, rowIdx } = a;
   for (let k = 0; k < n; k++) {
     for (let p = colPtr[k]; p < colPtr[k + 1]; p++) {
-      const q = next[rowIdx[p]]++;
-      rows[q] = k;
-      vals[q] = values[p];
+      const i = rowIdx[p];
+      const t = superOf[i];
+      const f = superStart[t];
+      const end = superStart[t + 1];
+      const r0 = rowStart[t];
+      const m = rowStart[t + 1] - r0;
+      let position = k - f;
+      if (k >= end) {
+        let low = r0 + end - f;
+        let high = r0 + m;
+        while (low < high) {
+          const mid = (low + high) >>> 1;
+          if (rows[mid] < k) low = mid + 1;
+          else high = mid;
+        }
+        position = low - r0;
+      }
+      values[valueStart[t] + (i - f) * m + position] += a.values[p];
     }
   }
-  return { start, rows, vals };
 }
 
 /**
@@ -100,13 +113,11 @@ export function factorSupernodal(a: UpperCsc, st: SupernodeStructure, scale: Flo
   const pivot = new Float64Array(n); // d_k, 0 where flagged
   const inversePivot = new Float64Array(n);
   const tinyPivots: number[] = [];
-  const lower = lowerColumns(a);
+  scatterMatrix(a, st, values);
 
   let maxW = 0;
-  let maxM = 0;
   for (let t = 0; t < ns; t++) {
     maxW = Math.max(maxW, superStart[t + 1] - superStart[t]);
-    maxM = Math.max(maxM, rowStart[t + 1] - rowStart[t]);
   }
   const map = new Int32Array(n);
   const head = new Int32Array(ns).fill(-1);
@@ -122,10 +133,6 @@ export function factorSupernodal(a: UpperCsc, st: SupernodeStructure, scale: Flo
     const m = rowStart[s + 1] - r0;
     const x0 = valueStart[s];
     for (let t = 0; t < m; t++) map[rows[r0 + t]] = t;
-    for (let j = f; j < l; j++) {
-      const col = x0 + (j - f) * m;
-      for (let p = lower.start[j]; p < lower.start[j + 1]; p++) values[col + map[lower.rows[p]]] += lower.vals[p];
-    }
 
     // Updates from descendant supernodes d with rows in [f, l).
     for (let d = head[s]; d !== -1; ) {
