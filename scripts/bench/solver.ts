@@ -15,6 +15,9 @@
  * printed beside ours.
  */
 import { spawnSync } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { parseArgs } from "node:util";
 import { analyzeModel, generateRoof, loadVectorForCase, PIVOT_TOLERANCE, prepareStructure, validateModel, type TrussModel } from "@/lib/analysis";
 import { assembleStiffness } from "@/lib/analysis/assemble";
@@ -33,6 +36,7 @@ const { values } = parseArgs({
     sizes: { type: "string", default: "10,20,40,60,120" },
     repeat: { type: "string", default: "3" },
     grid: { type: "string" }, // internal: measure one grid in this (child) process and print its rows as JSON
+    peak: { type: "string" }, // internal: validate and analyse this model file in a fresh process, print peak RSS
     certificate: { type: "string", default: "60" }, // grid whose certificate workload is measured
     "certificate-batches": { type: "string", default: "40" },
   },
@@ -199,17 +203,42 @@ function measure(label: string, model: TrussModel, cholmod?: ReturnType<typeof b
   return best!;
 }
 
-if (values.grid) {
+/**
+ * Peak resident set of a fresh process that reads the model file, validates it and runs analyzeModel (the
+ * whole analysis process, results included), in MB, with the CPU seconds of the analysis.
+ */
+function wholeProcessPeak(model: TrussModel): { peakMb: number; analyzeSeconds: number } {
+  const dir = mkdtempSync(join(tmpdir(), "bench-solver-"));
+  const file = join(dir, "model.json");
+  try {
+    writeFileSync(file, JSON.stringify(model));
+    const child = spawnSync(process.execPath, [...process.execArgv, process.argv[1], "--peak", file], { encoding: "utf8", stdio: ["ignore", "pipe", "inherit"] });
+    if (child.status !== 0) throw new Error("peak measurement: child process failed");
+    return JSON.parse(child.stdout) as { peakMb: number; analyzeSeconds: number };
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+if (values.peak) {
+  const mark = process.cpuUsage();
+  const checked = validateModel(JSON.parse(readFileSync(values.peak, "utf8")));
+  if (!checked.ok) throw new Error(`${values.peak}: not a valid model`);
+  if (analyzeModel(checked.model).status !== "ok") throw new Error(`${values.peak}: analysis not ok`);
+  process.stdout.write(`${JSON.stringify({ peakMb: process.resourceUsage().maxRSS / 1024, analyzeSeconds: cpuSince(mark) })}\n`);
+} else if (values.grid) {
   const n = Number(values.grid);
   const cholmod = buildCholmodTimer();
   measure("warm-up", generateRoof({ spanX: 30, spanY: 30, module: 3, depth: 2 }));
   const model = squareGrid(n);
   const rows = [measure(`${n}x${n}`, model, cholmod), measure(`${n}x${n} shuffled`, shuffle(model, n), cholmod)];
   const work = values.certificate.split(",").map(Number).includes(n) ? certificate(`${n}x${n}`, model, Number(values["certificate-batches"])) : undefined;
-  process.stdout.write(`${JSON.stringify({ rows, certificate: work })}\n`);
+  const peak = { grid: `${n}x${n}`, ...wholeProcessPeak(model) };
+  process.stdout.write(`${JSON.stringify({ rows, certificate: work, peak })}\n`);
 } else {
   const rows: Row[] = [];
   const certificates: Certificate[] = [];
+  const peaks: { grid: string; peakMb: number; analyzeSeconds: number }[] = [];
   for (const n of sizes) {
     const child = spawnSync(process.execPath, [...process.execArgv, process.argv[1], "--grid", String(n), "--repeat", String(repeat), "--certificate", values.certificate, "--certificate-batches", values["certificate-batches"]], {
       encoding: "utf8",
@@ -217,8 +246,9 @@ if (values.grid) {
       maxBuffer: 1 << 24,
     });
     if (child.status !== 0) throw new Error(`grid ${n}: child process failed`);
-    const measured = JSON.parse(child.stdout) as { rows: Row[]; certificate?: Certificate };
+    const measured = JSON.parse(child.stdout) as { rows: Row[]; certificate?: Certificate; peak: (typeof peaks)[number] };
     rows.push(...measured.rows);
+    peaks.push(measured.peak);
     if (measured.certificate) certificates.push(measured.certificate);
   }
   const s = (v: number) => v.toFixed(3);
@@ -258,5 +288,13 @@ if (values.grid) {
       ...certificates.map((c) => `| ${c.grid} | ${c.members} | ${c.loadedDofs} | ${c.measured} | ${s(c.seconds)} | ${c.projected.toFixed(1)} |`),
     );
   }
+  lines.push(
+    "",
+    "Whole analysis process (a fresh Node.js process reads the model JSON, validates it and runs analyzeModel, results included):",
+    "",
+    "| grid | peak RSS MB | CPU seconds |",
+    "| --- | ---: | ---: |",
+    ...peaks.map((p) => `| ${p.grid} | ${p.peakMb.toFixed(0)} | ${s(p.analyzeSeconds)} |`),
+  );
   process.stdout.write(`Seconds of CPU time (user + system), best of ${repeat} runs, except the wall-clock column.\n${lines.join("\n")}\n`);
 }
