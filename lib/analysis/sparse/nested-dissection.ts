@@ -54,7 +54,7 @@ export function nestedDissection(n: number, adjStart: Int32Array, adj: Int32Arra
     }
     // side 0 and 1: the two halves; 2: the separator (the chosen side's nodes with a neighbour across).
     const list = sorted[cut.direction];
-    list.forEach((v, p) => (local[v] = p));
+    for (let p = 0; p < k; p++) local[list[p]] = p;
     for (let p = 0; p < k; p++) {
       const v = list[p];
       const left = p < cut.position;
@@ -108,10 +108,15 @@ function split(sorted: Int32Array[], side: Int32Array, count: number): Int32Arra
   for (const v of sorted[0]) sizes[side[v]]++;
   const out = Array.from({ length: count }, (_, c) => sorted.map(() => new Int32Array(sizes[c])));
   const fill = new Int32Array(count);
-  sorted.forEach((list, d) => {
+  for (let d = 0; d < sorted.length; d++) {
+    const list = sorted[d];
     fill.fill(0);
-    for (const v of list) out[side[v]][d][fill[side[v]]++] = v;
-  });
+    for (let p = 0; p < list.length; p++) {
+      const v = list[p];
+      const c = side[v];
+      out[c][d][fill[c]++] = v;
+    }
+  }
   return out;
 }
 
@@ -150,7 +155,7 @@ function componentsOf(nodes: Int32Array, adjStart: Int32Array, adj: Int32Array, 
  */
 function orderLeaf(nodes: Int32Array, lo: number, order: Int32Array, adjStart: Int32Array, adj: Int32Array, inPart: Int32Array, stamp: number, local: Int32Array) {
   const k = nodes.length;
-  nodes.forEach((v, p) => (local[v] = p));
+  for (let p = 0; p < k; p++) local[nodes[p]] = p;
   const haloIndex = new Map<number, number>();
   const lists: number[][] = [];
   const haloLists: number[][] = [];
@@ -218,10 +223,11 @@ function bestCut(
   // A plane normal to a direction in which the part is thin (the depth of a roof) cuts it lengthwise: skip it.
   const extent = sorted.map((list, direction) => keys[direction][list[k - 1]] - keys[direction][list[0]]);
   const widest = Math.max(...extent);
-  sorted.forEach((list, direction) => {
-    if (extent[direction] < 0.25 * widest) return;
+  for (let direction = 0; direction < sorted.length; direction++) {
+    const list = sorted[direction];
+    if (extent[direction] < 0.25 * widest) continue;
     const key = keys[direction];
-    list.forEach((v, p) => (local[v] = p));
+    for (let p = 0; p < k; p++) local[list[p]] = p;
     // Node at p is on the left boundary of cut t (left = positions < t) when p < t <= its furthest neighbour,
     // on the right boundary when its nearest neighbour < t <= p.
     leftBoundary.fill(0, 0, k + 1);
@@ -259,6 +265,6 @@ function bestCut(
       const score = (separator * separator) / (a * b);
       if (!best || score < best.score) best = { score, direction, position: t, separatorSide };
     }
-  });
+  }
   return best;
 }
