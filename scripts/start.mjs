@@ -1,5 +1,6 @@
 // `npm start`: installs what is missing, starts PostgreSQL on loopback, migrates, seeds the demo, builds when the
-// sources changed, starts every process of the product and prints where to go.
+// sources changed, starts every process of the product and prints where to go. `npm run start:cluster` (--cluster)
+// also starts Redis and runs two of each of Strutroom's processes (README "Running on several machines").
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync, readdirSync } from "node:fs";
 import path from "node:path";
@@ -8,6 +9,7 @@ import { ensureDependencies, run, stopAll } from "./stack/processes.mjs";
 import { startPostgres, stopPostgres } from "./stack/postgres.mjs";
 import { serviceEnv, startServices } from "./stack/services.mjs";
 import { demoPorts } from "./stack/demo-ports.mjs";
+import { startRedis, stopRedis } from "./stack/redis.mjs";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 process.chdir(root);
@@ -15,6 +17,8 @@ process.chdir(root);
 process.env.NEXT_TELEMETRY_DISABLED = "1";
 const dataDir = path.join(root, ".data");
 const pgDir = path.join(dataDir, "pg");
+const redisDataDir = path.join(dataDir, "redis");
+const cluster = process.argv.includes("--cluster");
 
 function secret() {
   const file = path.join(dataDir, "auth-secret");
@@ -45,7 +49,36 @@ async function shutdown(code) {
   console.log("\n[stop] stopping Strutroom…");
   await stopAll();
   try { stopPostgres(pgDir); } catch (error) { console.error(String(error)); }
+  if (cluster) try { await stopRedis(redisDataDir); } catch (error) { console.error(String(error)); }
   process.exit(code);
+}
+
+/**
+ * Two nodes on one Redis: node 1 is web-1 + realtime-1, node 2 web-2 + realtime-2 (each web page connects to its
+ * node's realtime server; both realtime servers share every room and document), and jobs-1 and jobs-2 share the
+ * PostgreSQL queue. The local fakes run once.
+ */
+async function startCluster(env, ports) {
+  const redisUrl = await startRedis({ dataDir: redisDataDir, port: ports.redis });
+  await startServices({ env, ports, kinds: ["backing"] });
+  const nodes = [
+    { node: "1", web: ports.web, realtime: ports.realtime, jobs: ports.jobs },
+    { node: "2", web: ports.web2, realtime: ports.realtime2, jobs: ports.jobs2 },
+  ];
+  await Promise.all(
+    nodes.map(({ node, web, realtime, jobs }) => {
+      const nodePorts = { ...ports, web, realtime, jobs };
+      const nodeEnv = { ...serviceEnv({ databaseUrl: env.DATABASE_URL, ports: nodePorts, secret: env.NEXTAUTH_SECRET, dataDir }), REDIS_URL: redisUrl };
+      return startServices({ env: nodeEnv, ports: nodePorts, kinds: ["app"], node });
+    }),
+  );
+  console.log("\nStrutroom cluster on loopback:");
+  console.log(`  redis        ${redisUrl}  (rooms and live documents shared between the realtime servers)`);
+  for (const { node, web, realtime, jobs } of nodes) {
+    console.log(`  web-${node}        http://127.0.0.1:${web}  (pages and API; its pages connect to realtime-${node})`);
+    console.log(`  realtime-${node}   http://127.0.0.1:${realtime}  (socket.io and shared notes, websockets only)`);
+    console.log(`  jobs-${node}       http://127.0.0.1:${jobs}/health  (analysis queue, upload sweep, daily digest, mail outbox; each job runs once)`);
+  }
 }
 
 async function main() {
@@ -61,11 +94,12 @@ async function main() {
     console.log("[setup] building the web app (next build)…");
     if ((await run("node_modules/.bin/next", ["build"], { env: { ...env, NODE_ENV: "production" } })) !== 0) throw new Error("next build failed (see above).");
   }
-  await startServices({ env, ports });
+  if (cluster) await startCluster(env, ports);
+  else await startServices({ env, ports });
   const accounts = JSON.parse(readFileSync(path.join(root, "scripts/seed/demo-accounts.json"), "utf8"));
   console.log(`\nStrutroom is running: open ${env.APP_URL}\n\nDemo sign-ins (password for all: ${accounts.password}):`);
   for (const account of accounts.users) console.log(`  ${account.role.padEnd(22)} ${account.email}`);
-  console.log("\nPress Ctrl+C to stop everything (PostgreSQL is stopped cleanly; your data stays in .data/).");
+  console.log(`\nPress Ctrl+C to stop everything (PostgreSQL${cluster ? " and Redis are" : " is"} stopped cleanly; your data stays in .data/).`);
 }
 
 process.on("SIGINT", () => shutdown(0));

@@ -8,5 +8,10 @@ export function demoPorts() {
     jobs: port("STRUTROOM_JOBS_PORT", 3002),
     s3: port("STRUTROOM_S3_PORT", 4569),
     smtp: port("STRUTROOM_SMTP_PORT", 2525),
+    // Only `npm run start:cluster` uses these: Redis, and the second web, realtime and jobs process.
+    redis: port("STRUTROOM_REDIS_PORT", 6390),
+    web2: port("STRUTROOM_WEB2_PORT", 3010),
+    realtime2: port("STRUTROOM_REALTIME2_PORT", 3011),
+    jobs2: port("STRUTROOM_JOBS2_PORT", 3012),
   };
 }

@@ -43,8 +43,11 @@ const SERVICES = [
   },
 ];
 
-/** Starts the services of the given kinds on loopback; resolves when each one accepts connections. */
-export async function startServices({ env, ports, kinds = ["backing", "app"], quiet = false }) {
+/**
+ * Starts the services of the given kinds on loopback; resolves when each one accepts connections. `node` ("1",
+ * "2"…) names the processes of one node of a cluster run (web-1, realtime-1, jobs-1), each with its own pid file.
+ */
+export async function startServices({ env, ports, kinds = ["backing", "app"], quiet = false, node = "" }) {
   // Each service's current process id, for operators and for the test that kills web and realtime.
   const pids = path.join(env.STRUTROOM_DATA_DIR, "pids");
   mkdirSync(pids, { recursive: true });
@@ -53,7 +56,8 @@ export async function startServices({ env, ports, kinds = ["backing", "app"], qu
     for (const service of group) {
       const [command, args] = service.command(ports);
       // A crash of one process never leaves the site down: every service is restarted with back-off.
-      startProcess(service.name, command, args, { env, quiet, restart: true, pidFile: path.join(pids, `${service.name}.pid`) });
+      const name = node ? `${service.name}-${node}` : service.name;
+      startProcess(name, command, args, { env, quiet, restart: true, pidFile: path.join(pids, `${name}.pid`) });
     }
     const listening = group.filter((service) => service.port);
     await Promise.all(listening.map((service) => waitForPort(service.port(ports), `The ${service.name} service`, 120_000)));
