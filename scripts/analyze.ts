@@ -7,7 +7,7 @@ import { readdirSync, readFileSync } from "node:fs";
 import { basename, join } from "node:path";
 import { parseArgs } from "node:util";
 import { analyzeModel, modelFromCsv, validateModel, type ValidationResult } from "@/lib/analysis";
-import { reviewModel, type DesignMethod, type DesignStandard } from "@/lib/review";
+import { createReviewContext, idleForAnyLoad, reviewModel, type AnyLoadCertificate, type DesignMethod, type DesignStandard, type ModelReview } from "@/lib/review";
 
 // Further flags (e.g. --review) are added to this table; values arrive typed in `args.values`.
 const options = {
@@ -18,6 +18,8 @@ const options = {
   standard: { type: "string", description: "design standard for --review: EN1993-1-1 (default) or AISC360-22" },
   "deflection-limit": { type: "string", description: "serviceability deflection limit for --review: span / VALUE (default 250)" },
   method: { type: "string", description: "AISC360-22 design basis for --review: LRFD (default) or ASD" },
+  "any-load": { type: "boolean", description: "with --review: whether any load at any top-layer node (x, y, z) can make each member work, under \"review.anyLoad\"" },
+  "loadable-nodes": { type: "string", description: "with --any-load: comma-separated loadable node ids instead of the top layer" },
   help: { type: "boolean", short: "h", description: "show this help" },
 } as const;
 
@@ -91,7 +93,22 @@ function main(argv: string[]): number {
     return 2;
   }
   const result = analyzeModel(checked.model, { lowForceThreshold: threshold });
-  const review = args.values.review && result.status === "ok" ? reviewModel(checked.model, result, { standard, method, deflectionLimit, lowForceThreshold: threshold }) : undefined;
+  const loadable = args.values["loadable-nodes"]?.split(",").map((id) => id.trim()).filter(Boolean);
+  if (loadable) {
+    const known = new Set(checked.model.nodes.map((n) => n.id));
+    const unknown = loadable.filter((id) => !known.has(id));
+    if (unknown.length > 0 || loadable.length === 0) {
+      process.stderr.write(`--loadable-nodes: ${unknown.length > 0 ? `no node ${unknown.map((id) => `"${id}"`).join(", ")} in the model` : "give at least one node id"}\n`);
+      return 1;
+    }
+  }
+  let review: (ModelReview & { anyLoad?: AnyLoadCertificate }) | undefined;
+  if ((args.values.review || args.values["any-load"]) && result.status === "ok") {
+    const reviewOptions = { standard, method, deflectionLimit, lowForceThreshold: threshold };
+    const context = createReviewContext(checked.model, result, reviewOptions);
+    review = reviewModel(checked.model, result, reviewOptions, context);
+    if (args.values["any-load"]) review = { ...review, anyLoad: idleForAnyLoad(context, loadable ? { nodes: loadable } : {}) };
+  }
   process.stdout.write(`${JSON.stringify(review ? { ...result, review } : result, null, args.values.pretty ? 2 : undefined)}\n`);
   if (result.status === "unstable") {
     for (const line of result.info.instabilityText ?? []) process.stderr.write(`${line}\n`);

@@ -9,6 +9,7 @@ import { STANDING_CAUTION } from "@/lib/review/caution";
 import type { OpeningAssessment, OpeningSpec } from "@/lib/review/opening";
 import type { RemovalOutcome } from "@/lib/review/removal";
 import type { WhyZero } from "@/lib/review/why-zero";
+import { AnyLoadSection } from "./any-load-section";
 import type { WhatIfAnswer, WhatIfRequest } from "./whatif-protocol";
 import { useViewerStore } from "./viewer-store";
 
@@ -110,6 +111,7 @@ export function MemberReviewSection({ memberId, analysis, revision, ask, ready }
             Verdict: <span data-testid="member-panel-verdict">{review.verdict}</span>
           </h3>
           <p className="text-xs">{review.reason}</p>
+          {revision.analysis?.review ? <AnyLoadSection memberId={memberId} review={revision.analysis.review} /> : null}
           <h3 className="mb-1 mt-3 font-semibold">
             Utilisation ({revision.analysis?.review?.standard}):{" "}
             <span data-testid="member-panel-utilisation" className={review.utilisation !== null && review.utilisation > 1 ? "text-clash" : ""}>

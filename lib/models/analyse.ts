@@ -4,6 +4,7 @@
 import { analyzeModel, type AnalysisResult, type TrussModel } from "@/lib/analysis";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { createReviewContext } from "@/lib/review/context";
+import { idleForAnyLoad, type AnyLoadCertificate, type InfluencePeak } from "@/lib/review/any-load";
 import { overallStability, type OverallStability } from "@/lib/review/overall-stability";
 import type { DesignStandard } from "@/lib/review/design-checks/types";
 import { designMembers, type MemberDesign } from "@/lib/review/member-design";
@@ -18,6 +19,8 @@ export type StoredMemberReview = {
   governing: MemberDesign["governing"];
   checks: MemberDesign["checks"];
   warnings: string[];
+  /** Whether any load at a loadable node could make it work, and where most (absent on older reviews). */
+  anyLoad?: { idle: boolean; mattersMost: InfluencePeak[] };
 };
 
 /**
@@ -35,8 +38,17 @@ export type StoredStability = Omit<OverallStability, "results"> & {
   }[];
 };
 
-/** `stability` is absent on reviews stored before the overall-stability check existed. */
-export type StoredReview = { standard: DesignStandard; caution: string; members: Record<string, StoredMemberReview>; stability?: StoredStability };
+/** The "idle for any roof load" run, without the per-member rows (those are on each member). */
+export type StoredAnyLoad = Omit<AnyLoadCertificate, "members"> & { patterns: { id: string; name: string }[] };
+
+/** `stability` and `anyLoad` are absent on reviews stored before those checks existed. */
+export type StoredReview = {
+  standard: DesignStandard;
+  caution: string;
+  members: Record<string, StoredMemberReview>;
+  stability?: StoredStability;
+  anyLoad?: StoredAnyLoad;
+};
 
 function storedStability(stability: OverallStability): StoredStability {
   return {
@@ -64,6 +76,7 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
   const context = createReviewContext(model, result, { standard });
   const verdicts = memberVerdicts(context);
   const design = designMembers(model, result, { standard });
+  const { members: anyLoadRows, ...anyLoad } = idleForAnyLoad(context);
   const members: Record<string, StoredMemberReview> = {};
   model.members.forEach((member, e) => {
     const v = verdicts[e];
@@ -76,7 +89,10 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
       governing: d.governing,
       checks: d.checks,
       warnings: d.warnings,
+      anyLoad: { idle: anyLoadRows[e].idleForAnyLoad, mattersMost: anyLoadRows[e].mattersMost },
     };
   });
-  return { standard, caution: STANDING_CAUTION, members, stability: storedStability(overallStability(context)) };
+  // the patterns analysed, shown next to every "idle" verdict: idle depends on them
+  const patterns = model.loadCases.map((c) => ({ id: c.id, name: c.name }));
+  return { standard, caution: STANDING_CAUTION, members, stability: storedStability(overallStability(context)), anyLoad: { ...anyLoad, patterns } };
 }

@@ -70,3 +70,24 @@ describe("npm run analyze -- --review", { timeout: 60_000 }, () => {
     expect(stability.lowest).toEqual({ result: "P", alphaCr: expect.closeTo(expected, 4) });
   });
 });
+
+describe("npm run analyze -- --review --any-load", { timeout: 60_000 }, () => {
+  const file = join(dir, "pratt-any.json");
+  writeFileSync(file, JSON.stringify(prattTruss()));
+
+  it("certifies the members no top-layer load can make work (Pratt: the verticals at L1 and L3, statics in any-load.test.ts)", () => {
+    const out = analyze(file, "--any-load");
+    expect(out.code).toBe(0);
+    const anyLoad = JSON.parse(out.stdout).review.anyLoad;
+    expect(anyLoad.idleForAnyLoad.sort()).toEqual(["U1L1", "U3L3"]);
+    expect(anyLoad.tolerance).toMatch(/zero-force/);
+  });
+
+  it("takes the loadable nodes as told and refuses unknown ones", () => {
+    const all = analyze(file, "--any-load", "--loadable-nodes", "L0,L1,L2,L3,L4,U1,U2,U3");
+    expect(JSON.parse(all.stdout).review.anyLoad.idleForAnyLoad).toEqual([]);
+    const bad = analyze(file, "--any-load", "--loadable-nodes", "U1,NOPE");
+    expect(bad.code).toBe(1);
+    expect(bad.stderr).toMatch(/no node "NOPE"/);
+  });
+});

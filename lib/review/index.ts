@@ -13,6 +13,7 @@ export { createReviewContext, type ReviewContext, type ReviewOptions } from "./c
 export { reviewModel, type ModelReview, type MemberReview } from "./review-model";
 export { removalWhatIf, type RemovalRequest, type RemovalOutcome, type ResultChanges, type ForceChange, type LostBrace, type UtilisationChange } from "./removal";
 export { overallStability, STABILITY_TOLERANCE, type OverallStability, type ResultStability } from "./overall-stability";
+export { idleForAnyLoad, ANY_LOAD_RELATIVE, ANY_LOAD_ABSOLUTE, type AnyLoadCertificate, type AnyLoadOptions, type MemberAnyLoad, type InfluencePeak, type LoadAxis } from "./any-load";
 export { checkDeflections, deflectionSpan, DEFAULT_DEFLECTION_LIMIT, type DeflectionCheck } from "./deflection";
 export { memberVerdicts, type MemberVerdict, type VerdictKind } from "./verdicts";
 export { explainZeroForces, inspectZeroForces, type WhyZero, type InspectionStep, type ZeroRule } from "./why-zero";

@@ -121,6 +121,18 @@ describe("the 3D viewer on the demo roof", () => {
     await expect.poll(() => page.evaluate(() => window.__strutroom?.shownMode() ?? null)).toBeNull();
   });
 
+  it("says in the member panel whether any roof load could make the member work, and which patterns 'idle' rests on", async () => {
+    // The demo's west gable chords run along y between nodes held in y and z (lib/analysis/demo-roof.ts): their
+    // elongation is always zero, so no load anywhere makes them work (statics; unit test in lib/review/any-load.test.ts).
+    const viewer = new ViewerPage(page);
+    await viewer.selectMember("TCY-0-5");
+    await expect.poll(() => page.getByTestId("any-load-verdict").textContent()).toMatch(/^Idle for any roof load: no load at any of the \d+ top-layer nodes/);
+    expect(await page.getByTestId("member-panel-patterns").textContent()).toMatch(/holds for the load patterns analysed: dead \(/);
+    await viewer.selectMember("BCX-7-5");
+    await expect.poll(() => page.getByTestId("any-load-verdict").textContent()).toMatch(/^Works under roof load; most at T-/);
+    await screenshot(page, "viewer-any-load");
+  });
+
   it("exports the current view as a PNG file", async () => {
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("viewer-export-png").click()]);
     expect(download.suggestedFilename()).toMatch(/\.png$/);

@@ -1,0 +1,38 @@
+"use client";
+// "Under any roof load" in the member panel: whether any load at a loadable node could make the member work (stored
+// with the review), where most, and, beside an "idle" verdict, the load patterns that verdict rests on.
+import type { StoredReview } from "@/lib/models/analyse";
+
+const perKn = (value: number) => `${value > 0 ? "+" : "−"}${Math.abs(value).toPrecision(3)} kN per kN`;
+
+export function AnyLoadSection({ memberId, review }: { memberId: string; review: StoredReview }) {
+  const row = review.members[memberId]?.anyLoad;
+  const run = review.anyLoad;
+  if (!row || !run) return null;
+  const idleVerdict = review.members[memberId].verdict === "idle";
+  return (
+    <section className="mb-3 text-xs" data-testid="member-panel-any-load">
+      {idleVerdict ? (
+        <p className="mb-1" data-testid="member-panel-patterns">
+          “Idle” holds for the load patterns analysed: {run.patterns.map((p) => `${p.id} (${p.name})`).join("; ") || "none"}.
+        </p>
+      ) : null}
+      <h3 className="mb-1 font-semibold">Under any roof load</h3>
+      {row.idle ? (
+        <p data-testid="any-load-verdict">
+          Idle for any roof load: no load at any of the {run.loadable.nodes} {run.loadable.which === "top layer" ? "top-layer" : "loadable"} nodes, along{" "}
+          {run.loadable.directions.join(", ")}, makes it work.
+        </p>
+      ) : (
+        <p data-testid="any-load-verdict" className={idleVerdict ? "font-semibold text-clash" : ""}>
+          {idleVerdict ? "Works under some roof load not analysed: " : "Works under roof load; most at "}
+          {row.mattersMost.map((p) => `${p.node} (+${p.direction}: ${perKn(p.value)})`).join(", ")}.
+        </p>
+      )}
+      <details className="mt-1 text-board-700">
+        <summary>Tolerance</summary>
+        {run.tolerance}
+      </details>
+    </section>
+  );
+}
