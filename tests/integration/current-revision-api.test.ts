@@ -11,7 +11,9 @@ import { generateRoof } from "@/lib/analysis/generator";
 import type { TrussModel } from "@/lib/analysis/model";
 import { analyseForStorage } from "@/lib/models/analyse";
 import { loadAnalysedRevision } from "@/app/api/projects/[projectId]/_lib/report-data";
-import { closeDb, requireIntegrationEnv } from "../support/db";
+import { eq } from "drizzle-orm";
+import { liveEvents } from "@/db/schema";
+import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
 
@@ -53,6 +55,9 @@ describe("the current revision", () => {
     expect((await mark(1)).status).toBe(200);
     expect((await mark(2)).status).toBe(200);
     expect(await getDefaultRevisionNumber({ projectId: fx.projectId })).toBe(2);
+    // Each marking is a command: open revision lists hear of it (a live event per marking, none for the refusals).
+    const events = await getDb().select().from(liveEvents).where(eq(liveEvents.projectId, fx.projectId));
+    expect(events.map((e) => [e.kind, e.revision])).toEqual([["revision", 1], ["revision", 2]]);
     const list = await (await LIST_MODELS(await buildRequest(`/api/projects/${fx.projectId}/models`, { user: fx.users.viewer }), routeContext({ projectId: fx.projectId }))).json();
     expect(list.revisions.map((r: { number: number; isCurrent: boolean }) => [r.number, r.isCurrent])).toEqual([[3, false], [2, true], [1, false]]);
     expect((await loadAnalysedRevision({ projectId: fx.projectId })).number).toBe(2);
