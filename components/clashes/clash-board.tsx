@@ -6,6 +6,7 @@ import { useEffect, useState } from "react";
 import { Button, FormMessage } from "@/components/ui/form";
 import { ModelViewer } from "@/components/viewer/model-viewer";
 import { useViewerStore } from "@/components/viewer/viewer-store";
+import { useLiveInvalidation } from "@/components/live/use-live-invalidation";
 import { apiFetch } from "@/lib/http/fetcher";
 import { ClashTable } from "./clash-table";
 import { CopyRunsForm } from "./copy-runs-form";
@@ -27,8 +28,10 @@ function focusClash(row: ClashRowData) {
   viewer.flyTo([row.point.x, row.point.y, row.point.z]);
 }
 
-export function ClashBoard({ projectId, revision, otherRevisions, initialClash }: { projectId: string; revision: number; otherRevisions: number[]; initialClash: string | null }) {
+export function ClashBoard({ projectId, revision, realtimeUrl, otherRevisions, initialClash }: { projectId: string; revision: number; realtimeUrl: string; otherRevisions: number[]; initialClash: string | null }) {
   const queryClient = useQueryClient();
+  // Another person's proposal or decision shows here without a reload.
+  useLiveInvalidation(projectId, realtimeUrl);
   const [lowForce, setLowForce] = useState(5);
   const clashes = useQuery({
     queryKey: clashesQueryKey(projectId, revision, lowForce),

@@ -9,6 +9,7 @@ import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { listRevisionsByProject } from "@/db/queries/models";
 import { requirePageProject } from "@/lib/auth/page";
 import { defaultRevision } from "@/lib/models/revision-stage";
+import { realtimeUrl } from "@/lib/realtime/browser-url";
 
 export const metadata: Metadata = { title: "Clashes" };
 
@@ -39,7 +40,7 @@ export default async function ClashesPage({ params, searchParams }: PageProps<"/
             <ClashRevisionPicker projectId={project.id} revisions={revisions.map(({ number, name, isCurrent, analysisStatus }) => ({ number, name, isCurrent, analysisStatus }))} current={number} />
             {shown && <RevisionStageBadge revision={shown} />}
           </div>
-          <ClashBoard key={number} projectId={project.id} revision={number} otherRevisions={revisions.map((r) => r.number).filter((n) => n !== number)} initialClash={typeof clash === "string" ? clash : null} />
+          <ClashBoard key={number} projectId={project.id} revision={number} realtimeUrl={realtimeUrl()} otherRevisions={revisions.map((r) => r.number).filter((n) => n !== number)} initialClash={typeof clash === "string" ? clash : null} />
         </>
       )}
     </div>

@@ -9,15 +9,9 @@ import { RevisionPicker } from "@/components/viewer/revision-picker";
 import { LiveReview } from "@/components/session/live-review";
 import { requirePageProject } from "@/lib/auth/page";
 import { defaultRevision } from "@/lib/models/revision-stage";
+import { realtimeUrl } from "@/lib/realtime/browser-url";
 
 export const metadata: Metadata = { title: "3D viewer" };
-
-/** Where browsers reach the realtime process (set by scripts/stack/services.mjs). */
-function realtimeUrl(): string {
-  const url = process.env.REALTIME_URL;
-  if (!url) throw new Error("REALTIME_URL is not set.");
-  return url;
-}
 
 export default async function ViewerPage({ params, searchParams }: PageProps<"/projects/[projectId]/viewer">) {
   const { projectId } = await params;
