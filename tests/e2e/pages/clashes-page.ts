@@ -10,6 +10,12 @@ export class ClashesPage {
     await this.page.getByTestId("clash-table").waitFor({ timeout: 60_000 });
   }
 
+  /** Opens the page without choosing a revision: the current one. */
+  async openDefault(projectId: string) {
+    await this.page.goto(appUrl(`/projects/${projectId}/clashes`));
+    await this.page.getByTestId("clash-table").waitFor({ timeout: 60_000 });
+  }
+
   count() {
     return this.page.getByTestId("clash-count").textContent();
   }
