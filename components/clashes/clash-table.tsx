@@ -1,6 +1,8 @@
 "use client";
-// The clash table (TanStack Table v9): sortable columns and filters by system, state, outcome and the member's
-// force state over all combinations. Selecting a row flies the viewer to the clash and selects its member.
+// The clash table (TanStack Table v9): sortable columns, filters by system, state, outcome and the member's
+// force state over all combinations, assignee and due date, and grouping by run, system or grid zone (group
+// headers drawn between the sorted rows, lib/clash/groups.ts). Selecting a row flies the viewer to the clash and
+// selects its member; its history is in the decision panel.
 import {
   columnFilteringFeature,
   createColumnHelper,
@@ -14,9 +16,10 @@ import {
   useTable,
 } from "@tanstack/react-table";
 import Link from "next/link";
-import { useMemo } from "react";
+import { Fragment, useMemo, useState } from "react";
 import { FORCE_STATE_LABELS, type ForceState } from "@/lib/clash/member-state";
 import { CLASH_KIND_LABELS, CLASH_OUTCOME_LABELS, type ClashOutcome } from "@/lib/clash/outcomes";
+import { CLASH_GROUPINGS, CLASH_GROUPING_LABELS, groupKey, groupRows, type ClashGrouping } from "@/lib/clash/groups";
 import type { ClashRowData } from "./types";
 
 const features = tableFeatures({
@@ -61,6 +64,9 @@ const columns = helper.columns([
   helper.accessor(stateOf, { id: "state", header: "State", filterFn: "equals", cell: (info) => STATE_LABELS[info.getValue()] }),
   helper.accessor("depth", { id: "depth", header: "Overlap / shortfall (mm)", sortFn: "basic", cell: (info) => (info.getValue() * 1000).toFixed(0) }),
   helper.accessor(outcomeOf, { id: "outcome", header: "Outcome", filterFn: "equals", cell: (info) => OUTCOME_LABELS[info.getValue()] }),
+  helper.accessor((row) => row.assignee ?? "", { id: "assignee", header: "Assignee", sortFn: "alphanumeric", cell: (info) => info.getValue() || "–" }),
+  // ISO dates sort as text; undated clashes sort last when ascending.
+  helper.accessor((row) => row.dueOn ?? "9999", { id: "due", header: "Due", sortFn: "alphanumeric", cell: (info) => info.row.original.dueOn ?? "–" }),
 ]);
 
 const FILTERS = [
@@ -90,6 +96,8 @@ export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: C
     } as Record<(typeof FILTERS)[number]["id"], string[]>;
   }, [rows]);
   const visible = table.getRowModel().rows;
+  const [grouping, setGrouping] = useState<ClashGrouping>("none");
+  const groups = grouping === "none" ? [{ key: "", rows: visible }] : groupRows(visible, (row) => groupKey(row.original, grouping));
 
   return (
     <div className="flex flex-col gap-2">
@@ -115,6 +123,21 @@ export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: C
             </label>
           );
         })}
+        <label className="flex flex-col text-xs text-board-700">
+          Group by
+          <select
+            className="mt-1 rounded border border-board-200 bg-white px-2 py-1 text-sm text-board-900"
+            value={grouping}
+            onChange={(e) => setGrouping(e.target.value as ClashGrouping)}
+            data-testid="clash-group-by"
+          >
+            {CLASH_GROUPINGS.map((g) => (
+              <option key={g} value={g}>
+                {CLASH_GROUPING_LABELS[g]}
+              </option>
+            ))}
+          </select>
+        </label>
         <span className="text-sm text-board-700" data-testid="clash-count">
           {visible.length} of {rows.length} clashes
         </span>
@@ -142,7 +165,16 @@ export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: C
             ))}
           </thead>
           <tbody>
-            {visible.map((row) => {
+            {groups.map((group) => (
+              <Fragment key={group.key}>
+                {grouping !== "none" && (
+                  <tr className="border-t border-board-200 bg-board-50" data-testid="clash-group">
+                    <th colSpan={columns.length + 1} scope="rowgroup" className="px-2 py-1.5 text-left text-xs font-semibold text-board-800">
+                      {CLASH_GROUPING_LABELS[grouping]}: {group.key} · {group.rows.length} {group.rows.length === 1 ? "clash" : "clashes"}
+                    </th>
+                  </tr>
+                )}
+            {group.rows.map((row) => {
               const selected = row.id === selectedId;
               return (
                 <tr
@@ -168,6 +200,8 @@ export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: C
                 </tr>
               );
             })}
+              </Fragment>
+            ))}
             {visible.length === 0 && (
               <tr>
                 <td colSpan={columns.length + 1} className="px-2 py-6 text-center text-board-700">
