@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { ProjectHeader } from "@/components/project/project-header";
 import { ProjectNav } from "@/components/project/project-nav";
 import { ReportForm } from "@/components/report/report-form";
+import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { getRevisionWithResults, listRevisionsByProject } from "@/db/queries/models";
 import { requirePageProject } from "@/lib/auth/page";
 import { defaultRevision } from "@/lib/models/revision-stage";
@@ -28,7 +29,9 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
       <ProjectHeader project={project} />
       <ProjectNav projectId={project.id} current="report" />
       <section className="flex max-w-3xl flex-col gap-4" data-testid="report-page">
-        <h2 className="text-lg font-semibold">Review report and exports</h2>
+        <h2 className="flex items-center gap-2 text-lg font-semibold">
+          Review report and exports {chosen ? <RevisionStageBadge revision={chosen} /> : null}
+        </h2>
         <p className="text-sm text-board-700">
           A PDF of the chosen revision: model summary, load cases and combinations, member forces and zero-force members per result, the
           members whose state differs between two results, the clash log and the open questions.
