@@ -22,6 +22,8 @@ const numberFields: { name: keyof RoofInput & string; label: string; unit: strin
   { name: "snow", label: "Snow", unit: "kN/m²" },
   { name: "windUplift", label: "Wind uplift", unit: "kN/m²" },
   { name: "services", label: "Services on the bottom layer", unit: "kN/m²" },
+  { name: "imposed", label: "Roof imposed (maintenance), 0 for none", unit: "kN/m²", hint: "Not combined with snow or wind (EN 1991-1-1 3.3.2)." },
+  { name: "pointLoad", label: "Maintenance point load, 0 for none", unit: "kN" },
 ];
 
 /** The roof generator as a form; saving stores a new revision and runs its analysis. */
@@ -29,7 +31,7 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
   const queryClient = useQueryClient();
   const form = useForm<RoofInput, unknown, RoofValues>({
     resolver: zodResolver(roofParamsSchema),
-    defaultValues: { name: "Sports hall roof", pattern: "square_on_square_offset", spanX: 48, spanY: 36, module: 3, depth: 1.8, roofing: 0.6, snow: 0.8, windUplift: 0.7, services: 0.25, fabrication: "hot-finished" },
+    defaultValues: { name: "Sports hall roof", pattern: "square_on_square_offset", spanX: 48, spanY: 36, module: 3, depth: 1.8, roofing: 0.6, snow: 0.8, windUplift: 0.7, services: 0.25, fabrication: "hot-finished", imposed: 0, pointLoad: 0, unbalancedSnow: false, combinationRule: "6.10" },
   });
   const pattern = useWatch({ control: form.control, name: "pattern" });
   const { errors } = form.formState;
@@ -75,6 +77,25 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
         {numberFields.map((f) => (
           <Field key={f.name} id={`roof-${f.name}`} label={`${f.label} (${f.unit})`} hint={f.hint} type="number" step="any" error={errors[f.name]?.message} {...form.register(f.name, { valueAsNumber: true })} />
         ))}
+      </div>
+      <Field
+        id="roof-pointLoadNode"
+        label="Point load at top node (T-i-j, i along x, j along y; the centre when empty)"
+        error={errors.pointLoadNode?.message}
+        {...form.register("pointLoadNode", { setValueAs: (v: string) => (v === "" ? undefined : v) })}
+      />
+      <label className="flex items-center gap-2 text-sm">
+        <input type="checkbox" {...form.register("unbalancedSnow")} data-testid="roof-unbalanced-snow" />
+        Unbalanced snow as well: full on one half of the span, half on the other, each half in both directions
+      </label>
+      <div className="flex flex-col gap-1">
+        <label htmlFor="roof-combination-rule" className="text-sm font-medium text-board-800">
+          EN 1990 combinations
+        </label>
+        <select id="roof-combination-rule" className="rounded-md border border-board-200 bg-white px-3 py-2" {...form.register("combinationRule")}>
+          <option value="6.10">Expression (6.10): 1.35G + 1.5Q</option>
+          <option value="6.10a/6.10b">Expressions (6.10a) and (6.10b): 1.35G + 1.5ψ0Q and 0.85·1.35G + 1.5Q</option>
+        </select>
       </div>
       <p className="text-xs text-board-700" data-testid="generate-limits">
         {limitHints.generator}

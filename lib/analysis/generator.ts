@@ -33,6 +33,19 @@ export const roofParamsSchema = z
     windUplift: pressure.default(0.7),
     /** Services hung from the bottom layer: ducts, pipes, lights, sprinklers. */
     services: pressure.default(0.25),
+    /** Roof imposed (maintenance) load on the top layer, 0 for none: EN 1991-1-1 category H, ASCE 7 Lr. */
+    imposed: pressure.default(0),
+    /**
+     * Unbalanced snow as well as balanced: full snow on one half of the span and half on the other, each half in
+     * both plan directions (the half-span pattern of EN 1991-1-3 5.3.3 Figure 5.3, cases (ii) and (iii)), so members
+     * that work only under unbalanced snow are not called idle.
+     */
+    unbalancedSnow: z.boolean().default(false),
+    /** Maintenance point load (kN, 0 for none) at one top node, T-i-j; the centre of the roof unless told. */
+    pointLoad: z.number().nonnegative().max(physical.pressure * 100, `Use at most ${physical.pressure * 100} kN.`).default(0),
+    pointLoadNode: z.string().regex(/^T-\d+-\d+$/, "Give a top node as T-i-j (i along x, j along y).").optional(),
+    /** EN 1990 expression (6.10), or the pair (6.10a) and (6.10b) with ξ = 0.85 (Table A1.2(B)). */
+    combinationRule: z.enum(["6.10", "6.10a/6.10b"]).default("6.10"),
     /** Which published strength combinations to generate. */
     standard: z.enum(["EN 1990", "ASCE 7-22"]).default("EN 1990"),
     /** How the tubes are made: hot finished (EN 10210) unless told; cold formed (EN 10219, ERW) lowers the checks. */
@@ -44,6 +57,10 @@ export const roofParamsSchema = z
       if (Math.abs(bays - Math.round(bays)) > 1e-6 || Math.round(bays) < 2) {
         ctx.addIssue({ code: "custom", path: [key], message: `span must be a whole number (at least 2) of ${p.module} m modules` });
       }
+    }
+    const node = p.pointLoadNode?.match(/^T-(\d+)-(\d+)$/);
+    if (node && (Number(node[1]) > Math.round(p.spanX / p.module) || Number(node[2]) > Math.round(p.spanY / p.module))) {
+      ctx.addIssue({ code: "custom", path: ["pointLoadNode"], message: `no top node ${p.pointLoadNode}: i goes to ${Math.round(p.spanX / p.module)}, j to ${Math.round(p.spanY / p.module)}` });
     }
     // Counted before anything is built: a fine module on a long span would otherwise exhaust memory.
     const size = roofSize(Math.round(p.spanX / p.module), Math.round(p.spanY / p.module), p.pattern);
@@ -185,16 +202,19 @@ export function generateRoof(input: RoofParams): TrussModel {
     }
   }
 
-  const topLoads = (pressure: number) => {
+  /** Pressure on the top layer by tributary area; `share` scales it per node (unbalanced patterns). */
+  const topLoads = (pressure: number, share: (i: number, j: number) => number = () => 1) => {
     const loads = [];
     for (let j = 0; j <= ny; j++) {
       for (let i = 0; i <= nx; i++) {
         const area = a * a * (i === 0 || i === nx ? 0.5 : 1) * (j === 0 || j === ny ? 0.5 : 1);
-        loads.push({ node: top(i, j), fx: 0, fy: 0, fz: pressure * area });
+        loads.push({ node: top(i, j), fx: 0, fy: 0, fz: pressure * area * share(i, j) });
       }
     }
     return loads;
   };
+  // half-span pattern: 1 on the loaded half, 0.5 on the other, 0.75 on the centre line (its tributary area straddles it)
+  const half = (k: number, n: number, low: boolean) => (2 * k === n ? 0.75 : 2 * k < n === low ? 1 : 0.5);
   const loadCases: LoadCase[] = [
     { id: "dead", name: `Self-weight and roofing ${p.roofing} kN/m2`, category: "dead", selfWeight: true, nodalLoads: topLoads(-p.roofing) },
     {
@@ -207,7 +227,29 @@ export function generateRoof(input: RoofParams): TrussModel {
     { id: "snow", name: `Snow ${p.snow} kN/m2`, category: "snow", selfWeight: false, nodalLoads: topLoads(-p.snow) },
     { id: "wind-uplift", name: `Wind uplift ${p.windUplift} kN/m2`, category: "wind", selfWeight: false, nodalLoads: topLoads(p.windUplift) },
   ];
-  const combinations = p.standard === "ASCE 7-22" ? asce722Combinations : en1990Combinations;
+  const extra: { id: string; kind: "snow" | "imposed" }[] = [];
+  if (p.unbalancedSnow) {
+    const patterns = [
+      { id: "snow-west", where: "full on the west half (low x), half on the east", share: (i: number) => half(i, nx, true) },
+      { id: "snow-east", where: "full on the east half (high x), half on the west", share: (i: number) => half(i, nx, false) },
+      { id: "snow-south", where: "full on the south half (low y), half on the north", share: (_: number, j: number) => half(j, ny, true) },
+      { id: "snow-north", where: "full on the north half (high y), half on the south", share: (_: number, j: number) => half(j, ny, false) },
+    ];
+    for (const pattern of patterns) {
+      loadCases.push({ id: pattern.id, name: `Unbalanced snow ${p.snow} kN/m2, ${pattern.where}`, category: "snow", selfWeight: false, nodalLoads: topLoads(-p.snow, pattern.share) });
+      extra.push({ id: pattern.id, kind: "snow" });
+    }
+  }
+  if (p.imposed > 0) {
+    loadCases.push({ id: "imposed", name: `Roof imposed (maintenance) ${p.imposed} kN/m2`, category: "roof_live", selfWeight: false, nodalLoads: topLoads(-p.imposed) });
+    extra.push({ id: "imposed", kind: "imposed" });
+  }
+  if (p.pointLoad > 0) {
+    const node = p.pointLoadNode ?? top(Math.round(nx / 2), Math.round(ny / 2));
+    loadCases.push({ id: "point", name: `Maintenance point load ${p.pointLoad} kN at ${node}`, category: "roof_live", selfWeight: false, nodalLoads: [{ node, fx: 0, fy: 0, fz: -p.pointLoad }] });
+    extra.push({ id: "point", kind: "imposed" });
+  }
+  const combinations = p.standard === "ASCE 7-22" ? asce722Combinations(extra) : en1990Combinations(p.combinationRule, extra);
 
   const usedSections = new Set(members.map((m) => m.section));
   return {
@@ -225,20 +267,58 @@ export function generateRoof(input: RoofParams): TrussModel {
   };
 }
 
-const en1990Combinations: Combination[] = [
-  { id: "ULS-1", name: "EN 1990 (6.10) permanent only: 1.35G", factors: { dead: 1.35, services: 1.35 }, kind: "ultimate" },
-  { id: "ULS-2", name: "EN 1990 (6.10) snow leading: 1.35G + 1.5S", factors: { dead: 1.35, services: 1.35, snow: 1.5 }, kind: "ultimate" },
-  { id: "ULS-3", name: "EN 1990 (6.10) wind uplift leading, G favourable: 1.0G + 1.5W", factors: { dead: 1.0, "wind-uplift": 1.5 }, kind: "ultimate" },
-  { id: "SLS-1", name: "EN 1990 (6.14b) characteristic, snow leading: G + S", factors: { dead: 1.0, services: 1.0, snow: 1.0 }, kind: "serviceability" },
-];
+/**
+ * EN 1990 Annex A1 with the recommended values of Table A1.2(B): γG,sup 1.35, γG,inf 1.00, γQ 1.50, ξ 0.85; ψ0 of
+ * Table A1.1: snow 0.5 (sites below 1000 m), roof imposed (category H) 0. Roof imposed load is not combined with
+ * snow or wind (EN 1991-1-1 3.3.2(1)), so each gravity variable action leads alone; wind uplift relieves gravity
+ * and snow relieves uplift, so neither accompanies the other. (6.10a) with snow only accompanying is 1.35G + 0.75S,
+ * (6.10b) with snow leading 1.15G + 1.5S.
+ */
+function en1990Combinations(rule: "6.10" | "6.10a/6.10b", extra: { id: string; kind: "snow" | "imposed" }[]): Combination[] {
+  const G = (factor: number) => ({ dead: factor, services: factor });
+  const uplift: Combination = { id: "ULS-3", name: "EN 1990 (6.10) wind uplift leading, G favourable: 1.0G + 1.5W", factors: { dead: 1.0, "wind-uplift": 1.5 }, kind: "ultimate" };
+  const sls: Combination = { id: "SLS-1", name: "EN 1990 (6.14b) characteristic, snow leading: G + S", factors: { dead: 1.0, services: 1.0, snow: 1.0 }, kind: "serviceability" };
+  const leading = [{ id: "snow", kind: "snow" as const }, ...extra];
+  if (rule === "6.10") {
+    return [
+      { id: "ULS-1", name: "EN 1990 (6.10) permanent only: 1.35G", factors: G(1.35), kind: "ultimate" },
+      { id: "ULS-2", name: "EN 1990 (6.10) snow leading: 1.35G + 1.5S", factors: { ...G(1.35), snow: 1.5 }, kind: "ultimate" },
+      uplift,
+      sls,
+      ...extra.map(({ id }): Combination => ({ id: `ULS-${id}`, name: `EN 1990 (6.10) ${id} leading: 1.35G + 1.5Q`, factors: { ...G(1.35), [id]: 1.5 }, kind: "ultimate" })),
+    ];
+  }
+  return [
+    { id: "ULS-1", name: "EN 1990 (6.10a) permanent only: 1.35G", factors: G(1.35), kind: "ultimate" },
+    ...leading.flatMap(({ id, kind }): Combination[] =>
+      kind === "snow"
+        ? [
+            { id: `ULS-${id}-a`, name: `EN 1990 (6.10a) ${id} accompanying: 1.35G + 1.5·0.5S`, factors: { ...G(1.35), [id]: 0.75 }, kind: "ultimate" },
+            { id: `ULS-${id}-b`, name: `EN 1990 (6.10b) ${id} leading: 0.85·1.35G + 1.5S`, factors: { ...G(1.1475), [id]: 1.5 }, kind: "ultimate" },
+          ]
+        : // ψ0 = 0 for roof imposed load: (6.10a) is then the permanent-only combination above
+          [{ id: `ULS-${id}-b`, name: `EN 1990 (6.10b) ${id} leading: 0.85·1.35G + 1.5Q`, factors: { ...G(1.1475), [id]: 1.5 }, kind: "ultimate" }],
+    ),
+    uplift,
+    sls,
+  ];
+}
 
 /**
  * ASCE/SEI 7-22 §2.3.1 strength combinations for a roof with D, S (strength-level, factor 1.0 when leading)
  * and W: 1.4D; 1.2D + 1.0S (the companion 0.5W is uplift here, which relieves, so it is left out); 0.9D + 1.0W
- * for uplift. Services are dead load but, as above, not relied upon against uplift.
+ * for uplift. Services are dead load but, as above, not relied upon against uplift. Roof live load: 1.2D + 1.6Lr.
  */
-const asce722Combinations: Combination[] = [
-  { id: "LRFD-1", name: "ASCE 7-22 2.3.1: 1.4D", factors: { dead: 1.4, services: 1.4 }, kind: "ultimate" },
-  { id: "LRFD-2", name: "ASCE 7-22 2.3.1: 1.2D + 1.0S", factors: { dead: 1.2, services: 1.2, snow: 1.0 }, kind: "ultimate" },
-  { id: "LRFD-3", name: "ASCE 7-22 2.3.1: 0.9D + 1.0W (uplift)", factors: { dead: 0.9, "wind-uplift": 1.0 }, kind: "ultimate" },
-];
+function asce722Combinations(extra: { id: string; kind: "snow" | "imposed" }[]): Combination[] {
+  return [
+    { id: "LRFD-1", name: "ASCE 7-22 2.3.1: 1.4D", factors: { dead: 1.4, services: 1.4 }, kind: "ultimate" },
+    { id: "LRFD-2", name: "ASCE 7-22 2.3.1: 1.2D + 1.0S", factors: { dead: 1.2, services: 1.2, snow: 1.0 }, kind: "ultimate" },
+    { id: "LRFD-3", name: "ASCE 7-22 2.3.1: 0.9D + 1.0W (uplift)", factors: { dead: 0.9, "wind-uplift": 1.0 }, kind: "ultimate" },
+    ...extra.map(({ id, kind }): Combination =>
+      kind === "snow"
+        ? { id: `LRFD-${id}`, name: `ASCE 7-22 2.3.1: 1.2D + 1.0S (${id})`, factors: { dead: 1.2, services: 1.2, [id]: 1.0 }, kind: "ultimate" }
+        : { id: `LRFD-${id}`, name: `ASCE 7-22 2.3.1: 1.2D + 1.6Lr (${id})`, factors: { dead: 1.2, services: 1.2, [id]: 1.6 }, kind: "ultimate" },
+    ),
+  ];
+}
+
