@@ -1,0 +1,79 @@
+// Issue 17 item 10: every page is checked with axe-core (Deque's accessibility engine, run in the page) against the
+// WCAG 2.1 A and AA rules it automates; no serious or critical violation may remain. The engine is evaluated through
+// the DevTools protocol, so the pages' Content-Security-Policy stays on and unchanged.
+import { readFileSync } from "node:fs";
+import axe from "axe-core";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { appUrl, baseUrl, launchBrowser } from "../support/browser";
+import { ProjectsPage } from "./pages/projects-page";
+import { SignInPage } from "./pages/sign-in-page";
+
+const accounts = JSON.parse(readFileSync(new URL("../../scripts/seed/demo-accounts.json", import.meta.url), "utf8")) as {
+  password: string;
+  users: { email: string; role: string }[];
+};
+const DEMO_PROJECT = "Northfield Community Sports Hall — roof";
+const WEBGL_FLAGS = ["--use-gl=angle", "--use-angle=swiftshader", "--enable-unsafe-swiftshader"];
+
+type Violation = { id: string; impact: string | null; help: string; nodes: { target: unknown[] }[] };
+
+/** Runs axe-core on the page as it stands and returns its serious and critical violations, described for a reader. */
+async function seriousViolations(page: Page): Promise<string[]> {
+  await page.evaluate(axe.source);
+  const violations = await page.evaluate(
+    async () =>
+      (
+        await (window as unknown as { axe: typeof axe }).axe.run(document, {
+          runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"] },
+          resultTypes: ["violations"],
+        })
+      ).violations as unknown as Violation[],
+  );
+  return violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.slice(0, 3).map((n) => JSON.stringify(n.target)).join(", ")}`);
+}
+
+let browser: Browser;
+let page: Page;
+let projectId: string;
+
+beforeAll(async () => {
+  browser = await launchBrowser({ extraArgs: WEBGL_FLAGS });
+  const context = await browser.newContext({ baseURL: baseUrl(), viewport: { width: 1440, height: 900 } });
+  page = await context.newPage();
+  const signIn = new SignInPage(page);
+  await signIn.open();
+  expect(await seriousViolations(page), "sign-in page").toEqual([]);
+  const owner = accounts.users.find((u) => u.role === "owner")!;
+  await signIn.signIn(owner.email, accounts.password);
+  const projects = new ProjectsPage(page);
+  await projects.waitForList();
+  projectId = await projects.open(DEMO_PROJECT);
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("accessibility of every page (axe-core, WCAG 2.1 A and AA)", () => {
+  const pages: [string, (id: string) => string, string][] = [
+    ["projects", () => "/projects", "project-list"],
+    ["project overview", (id) => `/projects/${id}`, "review-state"],
+    ["models", (id) => `/projects/${id}/models`, "revision-list"],
+    ["viewer", (id) => `/projects/${id}/viewer`, "viewer-legend"],
+    ["clashes", (id) => `/projects/${id}/clashes`, "standing-caution"],
+    ["review sessions", (id) => `/projects/${id}/sessions`, "main"],
+    ["report", (id) => `/projects/${id}/report`, "main"],
+    ["account", () => "/account", "main"],
+  ];
+
+  it.each(pages)("%s has no serious or critical violation", async (name, path, ready) => {
+    await page.goto(appUrl(path(projectId)));
+    if (ready === "main") await page.locator("main").first().waitFor();
+    else await page.getByTestId(ready).first().waitFor({ timeout: 60_000 });
+    await page.waitForLoadState("networkidle", { timeout: 5_000 }).catch(() => undefined);
+    expect(await seriousViolations(page), name).toEqual([]);
+  });
+});
