@@ -21,10 +21,12 @@ const SERVICES = [
     command: () => [process.execPath, ["scripts/fakes/smtp.mjs"]],
   },
   {
+    // The production Next app on our own HTTP server (server/web/main.ts): refusals Next and Node answer without a
+    // body (405, 431, unknown /api addresses) get the API's JSON error shape.
     name: "web",
     kind: "app",
     port: (ports) => ports.web,
-    command: (ports) => [bin("next"), ["start", "-H", "127.0.0.1", "-p", String(ports.web)]],
+    command: (ports) => [bin("tsx"), ["server/web/main.ts", String(ports.web)]],
   },
   {
     // socket.io + Yjs (server/index.ts). The react-server condition lets it import the "server-only" data layer.
