@@ -23,12 +23,37 @@ function Caution() {
   );
 }
 
-function RemovalResult({ outcome }: { outcome: RemovalOutcome }) {
+function MechanismDrawButtons({ outcome, nodeIds }: { outcome: Extract<RemovalOutcome, { mechanism: true }>; nodeIds: readonly string[] }) {
+  const shown = useViewerStore((s) => s.mode?.label ?? null);
+  return (
+    <div className="flex flex-wrap gap-1">
+      {outcome.modes.map((mode, k) => {
+        // the removal leaves every node in place, so the mode is in the revision's node order
+        const label = `Mechanism ${k + 1} without ${outcome.removed.join(", ")}`;
+        const drawn = shown === label;
+        return (
+          <button
+            key={label}
+            type="button"
+            className="rounded border border-board-200 px-2 py-1 hover:bg-board-100"
+            onClick={() => useViewerStore.getState().showMode(drawn ? null : { label, nodeIds, shape: mode.shape })}
+            data-testid={`removal-draw-mechanism-${k + 1}`}
+          >
+            {drawn ? `Clear mechanism ${k + 1}` : `Draw mechanism ${k + 1}`}
+          </button>
+        );
+      })}
+    </div>
+  );
+}
+
+function RemovalResult({ outcome, nodeIds }: { outcome: RemovalOutcome; nodeIds: readonly string[] }) {
   if (outcome.mechanism) {
     return (
       <div data-testid="removal-result" className="text-xs">
         <p className="font-semibold text-clash">Without it the roof becomes a mechanism.</p>
         <ul className="list-disc pl-5">{outcome.instabilityText.map((t) => <li key={t}>{t}</li>)}</ul>
+        <MechanismDrawButtons outcome={outcome} nodeIds={nodeIds} />
       </div>
     );
   }
@@ -155,7 +180,7 @@ export function MemberReviewSection({ memberId, analysis, revision, ask, ready }
           {ready ? "…it were removed?" : "Starting the what-if engine…"}
         </button>
         {removalAsked === memberId ? (
-          removal.isPending ? <p className="text-xs">Re-analysing without it…</p> : removal.isError ? <p className="text-xs text-clash">{removal.error.message}</p> : removal.data ? <RemovalResult outcome={removal.data} /> : null
+          removal.isPending ? <p className="text-xs">Re-analysing without it…</p> : removal.isError ? <p className="text-xs text-clash">{removal.error.message}</p> : removal.data ? <RemovalResult outcome={removal.data} nodeIds={revision.model.nodes.map((n) => n.id)} /> : null
         ) : null}
         <form
           className="mt-2 flex items-end gap-2 text-xs"
