@@ -79,5 +79,9 @@ describe("the demo's story, as the MEP engineer and the structural engineer", ()
     await structural.page.getByTestId("decide-submit").click();
     await mep.outcome().filter({ hasText: "Decided: Reroute the run" }).waitFor(LIVE);
     await screenshot(structural.page, "story-reroute");
+
+    // The table groups by system: the heating pipe's clash under its own header.
+    await mep.page.getByTestId("clash-group-by").selectOption("system");
+    await mep.page.getByTestId("clash-group").filter({ hasText: "System: heating · 1 clash" }).waitFor();
   }, 300_000); // two people, two sign-ins and several live round trips on a shared two-core machine
 });
