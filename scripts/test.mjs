@@ -70,7 +70,7 @@ async function main() {
   // Redis; every other process of the test stack runs embedded, without one.
   const redisUrl = wants("integration") ? await startRedis({ dataDir: redisDataDir, port: await freePort(), throwaway: true }) : "";
   const env = { ...serviceEnv({ databaseUrl, ports, secret: randomBytes(32).toString("hex"), dataDir: runDir }), CHROMIUM_PATH: chromium, ARTIFACTS_DIR: artifacts, STRUTROOM_TEST_PG_DIR: pgDir, STRUTROOM_TEST_REDIS_URL: redisUrl };
-  await step("migrate", "node_modules/.bin/tsx", ["scripts/db-migrate.ts"], env);
+  await step("migrate", "node_modules/.bin/tsx", ["--conditions=react-server", "scripts/db-migrate.ts"], env);
   await startServices({ env, ports, kinds: ["backing"], quiet: true });
   if (wants("integration")) await vitestProject("integration", { ...env, NODE_ENV: "test" });
   if (wants("security")) await vitestProject("security", { ...env, NODE_ENV: "test" });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { computeAppearance, countStates, divergingColour, forceStates, hexToRgb, memberRadius, STATE_CODE } from "./colouring";
-import type { ViewerCaseResult } from "./types";
+import { packBits, VERDICT_CODES } from "@/lib/models/result-columns";
+import { computeAppearance, countStates, divergingColour, forceStates, hexToRgb, memberRadius, STATE_CODE, type ResultColumnsView } from "./colouring";
+import type { MemberVerdict } from "./types";
 
 // Palette values copied from the product glossary ("Words and colours on screen"): tension #0f766e,
 // compression #c2410c, zero-force #94a3b8. Sign convention from the design notes: axial force positive in tension.
@@ -9,22 +10,31 @@ const COMPRESSION = [0xc2 / 255, 0x41 / 255, 0x0c / 255];
 const ZERO = [0x94 / 255, 0xa3 / 255, 0xb8 / 255];
 
 const ids = ["A", "B", "C", "D"];
-const result: ViewerCaseResult = {
-  memberForces: { A: 100, B: -50, C: 0, D: 2 },
-  displacements: {},
-  zeroForceMembers: ["C"],
-};
+type Review = Record<string, { verdict: MemberVerdict; utilisation: number | null }>;
+/** A result's columns in member order, as the columns endpoint sends them. */
+function columnsOf(forces: Record<string, number>, zero: string[], { zeroInAll = [], review }: { zeroInAll?: string[]; review?: Review } = {}): ResultColumnsView {
+  return {
+    memberCount: ids.length,
+    forces: Float32Array.from(ids.map((id) => forces[id])),
+    zero: packBits(ids.length, (k) => zero.includes(ids[k])),
+    zeroInAll: packBits(ids.length, (k) => zeroInAll.includes(ids[k])),
+    utilisation: Float32Array.from(ids.map((id) => review?.[id]?.utilisation ?? Number.NaN)),
+    verdicts: Uint8Array.from(ids.map((id) => (review?.[id] ? VERDICT_CODES.indexOf(review[id].verdict) + 1 : 0))),
+    hasReview: review !== undefined,
+  };
+}
+const result = columnsOf({ A: 100, B: -50, C: 0, D: 2 }, ["C"]);
 const colourOf = (colours: Float32Array, k: number) => Array.from(colours.slice(k * 3, k * 3 + 3));
 
 describe("force state", () => {
   it("reads tension as positive and takes zero-force from the stored list", () => {
-    const states = forceStates(ids, result);
+    const states = forceStates(result);
     expect(Array.from(states)).toEqual([STATE_CODE.tension, STATE_CODE.compression, STATE_CODE.zero, STATE_CODE.tension]);
     expect(countStates(states)).toEqual({ tension: 2, compression: 1, zero: 1 });
   });
 
   it("colours members with the palette, zero-force thin and translucent", () => {
-    const look = computeAppearance({ memberIds: ids, result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 0 });
+    const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 0 });
     colourOf(look.colours, 0).forEach((c, a) => expect(c).toBeCloseTo(TENSION[a], 5));
     colourOf(look.colours, 1).forEach((c, a) => expect(c).toBeCloseTo(COMPRESSION[a], 5));
     colourOf(look.colours, 2).forEach((c, a) => expect(c).toBeCloseTo(ZERO[a], 5));
@@ -34,7 +44,7 @@ describe("force state", () => {
   });
 
   it("makes thickness grow with |N| so the state reads without colour", () => {
-    const look = computeAppearance({ memberIds: ids, result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 0 });
+    const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 0 });
     const [a, b, c, d] = Array.from(look.radii);
     expect(a).toBeGreaterThan(b);
     expect(b).toBeGreaterThan(d);
@@ -43,7 +53,7 @@ describe("force state", () => {
   });
 
   it("pales low-force members towards white and counts them apart", () => {
-    const look = computeAppearance({ memberIds: ids, result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 5 });
+    const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 5 });
     const pale = colourOf(look.colours, 3);
     pale.forEach((c, a) => expect(c).toBeGreaterThan(TENSION[a]));
     const entry = look.legend.entries.find((e) => e.key === "low-tension");
@@ -61,12 +71,12 @@ describe("other colourings", () => {
     // Half the largest force sits halfway between the neutral and the sign colour.
     const neutral = hexToRgb("#f1f5f9");
     divergingColour(50, 100).forEach((c, a) => expect(c).toBeCloseTo((neutral[a] + TENSION[a]) / 2, 6));
-    const look = computeAppearance({ memberIds: ids, result, resultLabel: "LC1", mode: "magnitude", unitLength: 1, lowForceThreshold: 0 });
+    const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "magnitude", unitLength: 1, lowForceThreshold: 0 });
     expect(look.legend.scale).toMatchObject({ min: -100, max: 100, unit: "kN" });
   });
 
   it("marks members that are zero in every result", () => {
-    const look = computeAppearance({ memberIds: ids, result, resultLabel: "LC1", mode: "zeroInAll", unitLength: 1, lowForceThreshold: 0, zeroInAll: ["C", "D"] });
+    const look = computeAppearance({ columns: columnsOf({ A: 100, B: -50, C: 0, D: 2 }, ["C"], { zeroInAll: ["C", "D"] }), resultLabel: "LC1", mode: "zeroInAll", unitLength: 1, lowForceThreshold: 0 });
     expect(Array.from(look.translucent)).toEqual([0, 0, 1, 1]);
     expect(look.legend.entries.find((e) => e.key === "always")?.count).toBe(2);
   });
@@ -78,15 +88,16 @@ describe("other colourings", () => {
       C: { verdict: "idle" as const, utilisation: 0 },
       D: { verdict: "bracing" as const, utilisation: null },
     };
-    const verdicts = computeAppearance({ memberIds: ids, result, resultLabel: "LC1", mode: "verdict", unitLength: 1, lowForceThreshold: 0, review });
+    const reviewed = columnsOf({ A: 100, B: -50, C: 0, D: 2 }, ["C"], { review });
+    const verdicts = computeAppearance({ columns: reviewed, resultLabel: "LC1", mode: "verdict", unitLength: 1, lowForceThreshold: 0 });
     expect(Object.fromEntries(verdicts.legend.entries.map((e) => [e.key, e.count]))).toEqual({ "load-bearing": 2, stabilising: 0, bracing: 1, idle: 1 });
-    const util = computeAppearance({ memberIds: ids, result, resultLabel: "LC1", mode: "utilisation", unitLength: 1, lowForceThreshold: 0, review });
+    const util = computeAppearance({ columns: reviewed, resultLabel: "LC1", mode: "utilisation", unitLength: 1, lowForceThreshold: 0 });
     expect(Object.fromEntries(util.legend.entries.map((e) => [e.key, e.count]))).toEqual({ ok: 1, high: 1, over: 1, none: 1 });
   });
 
   it("shows which members changed state between two results", () => {
-    const other: ViewerCaseResult = { memberForces: { A: 80, B: 10, C: -3, D: 2 }, displacements: {}, zeroForceMembers: [] };
-    const look = computeAppearance({ memberIds: ids, result, resultLabel: "LC1", mode: "compare", unitLength: 1, lowForceThreshold: 0, compareResult: other, compareLabel: "LC2" });
+    const other = columnsOf({ A: 80, B: 10, C: -3, D: 2 }, []);
+    const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "compare", unitLength: 1, lowForceThreshold: 0, compareColumns: other, compareLabel: "LC2" });
     // B: tension → compression, C: compression → zero; A and D unchanged.
     expect(Object.fromEntries(look.legend.entries.map((e) => [e.key, e.count]))).toEqual({ "to-tension": 0, "to-compression": 1, "to-zero": 1, same: 2 });
     expect(Array.from(look.translucent)).toEqual([1, 0, 0, 1]);

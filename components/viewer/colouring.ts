@@ -1,7 +1,9 @@
-// Pure colour and thickness mapping for members. The mesh layer copies the arrays returned here straight into the
-// instance buffers, so switching result or colouring never rebuilds geometry.
+// Pure colour and thickness mapping for members, read from one result's columns (typed arrays in member order,
+// lib/models/result-columns.ts): no member is looked up by id. The mesh layer copies the arrays returned here
+// straight into the instance buffers, so switching result or colouring never rebuilds geometry.
+import { bitAt, VERDICT_CODES, type WireColumns } from "@/lib/models/result-columns";
 import { memberLook, palette, utilisationScale, verdictColours } from "./config";
-import type { MemberVerdict, ViewerCaseResult, ViewerMemberReview } from "./types";
+import type { MemberVerdict } from "./types";
 
 export type ColourMode = "forceState" | "magnitude" | "utilisation" | "zeroInAll" | "verdict" | "compare";
 export type ForceState = "tension" | "compression" | "zero";
@@ -38,13 +40,13 @@ export function forceStateOf(force: number, isZero: boolean): ForceState {
   return force > 0 ? "tension" : "compression";
 }
 
+/** What the colourings read of a result: its columns (forces, zero bits, and the run's review columns). */
+export type ResultColumnsView = Pick<WireColumns, "memberCount" | "forces" | "zero" | "zeroInAll" | "utilisation" | "verdicts" | "hasReview">;
+
 /** Force state code of every member, in member order. */
-export function forceStates(memberIds: readonly string[], result: ViewerCaseResult): Uint8Array {
-  const zero = new Set(result.zeroForceMembers);
-  const states = new Uint8Array(memberIds.length);
-  memberIds.forEach((id, k) => {
-    states[k] = STATE_CODE[forceStateOf(result.memberForces[id] ?? 0, zero.has(id))];
-  });
+export function forceStates(columns: ResultColumnsView): Uint8Array {
+  const states = new Uint8Array(columns.memberCount);
+  for (let k = 0; k < columns.memberCount; k += 1) states[k] = STATE_CODE[forceStateOf(columns.forces[k], bitAt(columns.zero, k) === 1)];
   return states;
 }
 
@@ -57,10 +59,10 @@ export function countStates(states: Uint8Array): StateCounts {
   return counts;
 }
 
-/** Largest |N| of a result over the given members (0 when every member is zero). */
-export function maxAbsForce(memberIds: readonly string[], result: ViewerCaseResult): number {
+/** Largest |N| of a result over its members (0 when every member is zero). */
+export function maxAbsForce(forces: Float32Array): number {
   let max = 0;
-  for (const id of memberIds) max = Math.max(max, Math.abs(result.memberForces[id] ?? 0));
+  for (let k = 0; k < forces.length; k += 1) max = Math.max(max, Math.abs(forces[k]));
   return max;
 }
 
@@ -103,17 +105,14 @@ export interface Legend {
 }
 
 export interface AppearanceInput {
-  memberIds: readonly string[];
-  result: ViewerCaseResult;
+  columns: ResultColumnsView;
   resultLabel: string;
   mode: ColourMode;
   unitLength: number;
   /** |N| below this (kN) and not zero-force: drawn as low-force. 0 turns the tint off. */
   lowForceThreshold: number;
-  review?: Record<string, ViewerMemberReview>;
-  zeroInAll?: readonly string[];
   /** The other result for the "compare" colouring. */
-  compareResult?: ViewerCaseResult;
+  compareColumns?: ResultColumnsView;
   compareLabel?: string;
 }
 
@@ -131,22 +130,20 @@ const rgbToHex = (rgb: Rgb) =>
 
 /** Colours, radii and legend for every member under one colouring of one result. */
 export function computeAppearance(input: AppearanceInput): MemberAppearance {
-  const { memberIds, result, mode, unitLength } = input;
-  const count = memberIds.length;
-  const states = forceStates(memberIds, result);
+  const { columns, mode, unitLength } = input;
+  const count = columns.memberCount;
+  const states = forceStates(columns);
   const counts = countStates(states);
-  const maxAbs = maxAbsForce(memberIds, result);
+  const maxAbs = maxAbsForce(columns.forces);
   const colours = new Float32Array(count * 3);
   const radii = new Float32Array(count);
   const translucent = new Uint8Array(count);
-  const zeroInAll = new Set(input.zeroInAll ?? []);
-  const compareStates = mode === "compare" && input.compareResult ? forceStates(memberIds, input.compareResult) : null;
+  const compareStates = mode === "compare" && input.compareColumns ? forceStates(input.compareColumns) : null;
   const tally = new Map<string, number>();
   const bump = (key: string) => tally.set(key, (tally.get(key) ?? 0) + 1);
 
   for (let k = 0; k < count; k += 1) {
-    const id = memberIds[k];
-    const force = result.memberForces[id] ?? 0;
+    const force = columns.forces[k];
     const state = STATE_BY_CODE[states[k]];
     const isZero = state === "zero";
     radii[k] = memberRadius(force, maxAbs, isZero, unitLength);
@@ -163,13 +160,14 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
         colour = isZero ? hexToRgb(palette.zeroForce) : divergingColour(force, maxAbs);
         break;
       case "utilisation": {
-        const u = input.review?.[id]?.utilisation;
-        colour = u == null ? hexToRgb(palette.zeroForce) : utilisationColour(u);
-        bump(u == null ? "none" : u > 1 ? "over" : u >= 0.9 ? "high" : "ok");
+        // NaN: no check (never carries force, or no review).
+        const u = columns.utilisation[k];
+        colour = Number.isNaN(u) ? hexToRgb(palette.zeroForce) : utilisationColour(u);
+        bump(Number.isNaN(u) ? "none" : u > 1 ? "over" : u >= 0.9 ? "high" : "ok");
         break;
       }
       case "zeroInAll": {
-        const always = zeroInAll.has(id);
+        const always = bitAt(columns.zeroInAll, k) === 1;
         colour = hexToRgb(always ? palette.zeroForce : palette.member);
         translucent[k] = always ? 1 : 0;
         if (always) radii[k] = memberLook.zeroRadius * unitLength;
@@ -177,7 +175,8 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
         break;
       }
       case "verdict": {
-        const verdict: MemberVerdict | undefined = input.review?.[id]?.verdict;
+        const code = columns.verdicts[k];
+        const verdict: MemberVerdict | undefined = code > 0 ? VERDICT_CODES[code - 1] : undefined;
         colour = hexToRgb(verdict ? verdictColours[verdict] : palette.zeroForce);
         translucent[k] = 0;
         bump(verdict ?? "none");

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { forceStates } from "./colouring";
+import { STATE_CODE } from "./colouring";
 import { autoDeflectionScale, buildMemberEnds, buildNodeTable, defaultFilters, deflectedPositions, modePositions, visibleMask } from "./filters";
 import type { MemberGroup } from "./types";
 
@@ -23,7 +23,8 @@ const groups: Record<string, MemberGroup> = { B1: "bottom_chord", B2: "bottom_ch
 const memberIds = model.members.map((m) => m.id);
 const nodes = buildNodeTable(model);
 const ends = buildMemberEnds(model, nodes);
-const states = forceStates(memberIds, { memberForces: { B1: 5, B2: 0, D1: -3, D2: -3 }, displacements: {}, zeroForceMembers: ["B2"] });
+// B1 5 kN, B2 zero-force, D1 and D2 -3 kN.
+const states = Uint8Array.from([STATE_CODE.tension, STATE_CODE.zero, STATE_CODE.compression, STATE_CODE.compression]);
 
 describe("member filters", () => {
   it("shows everything by default", () => {
@@ -49,7 +50,9 @@ describe("member filters", () => {
 });
 
 describe("deflected shape", () => {
-  const displacements = { T: { ux: 0, uy: 0, uz: -0.01 }, N1: { ux: 0, uy: 0, uz: 0 } };
+  const byNode: Record<string, [number, number, number]> = { T: [0, 0, -0.01], N1: [0, 0, 0] };
+  // In node order, as the result columns carry them.
+  const displacements = Float32Array.from(nodes.ids.flatMap((id) => byNode[id] ?? [0, 0, 0]));
 
   it("moves nodes by displacement times scale", () => {
     const moved = deflectedPositions(nodes, displacements, 50);

@@ -1,7 +1,7 @@
 // Pure member filters and node-position transforms. The mesh layer hides a member by giving its instance zero
 // scale, so filtering never rebuilds geometry either.
 import { STATE_CODE } from "./colouring";
-import type { FilterableGroup, MemberGroup, ViewerCaseResult, ViewerModel } from "./types";
+import type { FilterableGroup, MemberGroup, ViewerModel } from "./types";
 
 export interface SectionBox { min: [number, number, number]; max: [number, number, number] }
 
@@ -43,17 +43,14 @@ export function buildMemberEnds(model: Pick<ViewerModel, "members">, nodes: Node
   return ends;
 }
 
-/** Node positions moved by the displacements times `scale` (scale 0 gives the undeformed shape). */
-export function deflectedPositions(nodes: NodeTable, displacements: ViewerCaseResult["displacements"], scale: number): Float32Array {
+/**
+ * Node positions moved by the displacements times `scale` (scale 0 gives the undeformed shape). Displacements are
+ * the result columns' [ux0, uy0, uz0, ux1, …] in model node order, the same order as the positions.
+ */
+export function deflectedPositions(nodes: NodeTable, displacements: Float32Array, scale: number): Float32Array {
   const out = Float32Array.from(nodes.positions);
   if (scale === 0) return out;
-  nodes.ids.forEach((id, k) => {
-    const d = displacements[id];
-    if (!d) return;
-    out[k * 3] += d.ux * scale;
-    out[k * 3 + 1] += d.uy * scale;
-    out[k * 3 + 2] += d.uz * scale;
-  });
+  for (let a = 0; a < out.length; a += 1) out[a] += displacements[a] * scale;
   return out;
 }
 
@@ -70,12 +67,9 @@ export function modePositions(nodes: NodeTable, nodeIds: readonly string[], shap
 }
 
 /** A deflection scale that makes the largest displacement a tenth of the model's span (1 when nothing moves). */
-export function autoDeflectionScale(nodes: NodeTable, displacements: ViewerCaseResult["displacements"]): number {
+export function autoDeflectionScale(nodes: NodeTable, displacements: Float32Array): number {
   let maxDisp = 0;
-  for (const id of nodes.ids) {
-    const d = displacements[id];
-    if (d) maxDisp = Math.max(maxDisp, Math.hypot(d.ux, d.uy, d.uz));
-  }
+  for (let a = 0; a < displacements.length; a += 3) maxDisp = Math.max(maxDisp, Math.hypot(displacements[a], displacements[a + 1], displacements[a + 2]));
   if (maxDisp === 0) return 1;
   const span = modelSpan(nodes.positions);
   return Math.round((span * 0.1) / maxDisp);

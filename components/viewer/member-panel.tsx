@@ -1,9 +1,12 @@
 "use client";
 // The side panel of the selected member: forces in every load case and combination, envelope, utilisation with
 // the numbers behind it, why it is zero, its influence map, and the removal / opening what-ifs with the standing
-// caution.
+// caution. Forces, envelope and review come from the member's own endpoint (one member, not the whole run).
+import { useQuery } from "@tanstack/react-query";
 import type { RevisionWithResults } from "@/db/queries/models";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
+import { apiFetch } from "@/lib/http/fetcher";
+import type { MemberDetail } from "@/lib/models/member-detail";
 import { InfluenceControl } from "./influence-control";
 import { MemberReviewSection } from "./member-review-section";
 import { resultLabel, type PreparedModel } from "./prepare";
@@ -17,21 +20,28 @@ function stateWord(force: number, zero: boolean) {
   return force > 0 ? "tension" : "compression";
 }
 
-export function MemberPanel({ prepared, analysis, revision }: { prepared: PreparedModel; analysis: AnalysisResult; revision: RevisionWithResults }) {
+export function MemberPanel({ projectId, prepared, analysis, revision }: { projectId: string; prepared: PreparedModel; analysis: AnalysisResult; revision: RevisionWithResults }) {
   const { ask, ready } = useWhatIfWorker(revision.model, analysis, revision.analysis?.review?.standard ?? null);
   const selected = useViewerStore((s) => s.selectedMemberId);
   const resultId = useViewerStore((s) => s.resultId);
   const k = selected ? prepared.memberIndex.get(selected) : undefined;
+  const detailQuery = useQuery({
+    queryKey: ["projects", projectId, "models", revision.number, "members", selected],
+    queryFn: () => apiFetch<MemberDetail>(`/api/projects/${projectId}/models/${revision.number}/members/${encodeURIComponent(selected!)}`),
+    enabled: selected !== null && k !== undefined,
+    staleTime: Infinity,
+  });
   if (!selected || k === undefined) return null;
+  const detail = detailQuery.data;
   const member = prepared.model.members[k];
   const group = prepared.groups[member.id] ?? "other";
   const a = prepared.ends[k * 2] * 3;
   const b = prepared.ends[k * 2 + 1] * 3;
   const p = prepared.nodes.positions;
   const length = Math.hypot(p[b] - p[a], p[b + 1] - p[a + 1], p[b + 2] - p[a + 2]);
-  const envelope = analysis.envelope[member.id];
-  const governing = analysis.info.governing[member.id];
-  const ids = [...prepared.model.loadCases.map((c) => c.id), ...prepared.model.combinations.map((c) => c.id)].filter((id) => id in analysis.results);
+  const envelope = detail?.envelope;
+  const governing = detail?.governing;
+  const ids = detail ? [...prepared.model.loadCases.map((c) => c.id), ...prepared.model.combinations.map((c) => c.id)].filter((id) => id in detail.results) : [];
   const isCombination = new Set(prepared.model.combinations.map((c) => c.id));
 
   return (
@@ -49,12 +59,19 @@ export function MemberPanel({ prepared, analysis, revision }: { prepared: Prepar
       </header>
 
       <h3 className="mb-1 font-semibold">Axial force (tension positive)</h3>
+      {detailQuery.isPending ? <p className="text-xs text-board-700">Loading this member&apos;s results…</p> : null}
+      {detailQuery.isError ? (
+        <p role="alert" className="text-xs text-clash">
+          {detailQuery.error.message}{" "}
+          <button type="button" className="underline" onClick={() => void detailQuery.refetch()}>
+            Try again
+          </button>
+        </p>
+      ) : null}
       <table className="mb-3 w-full text-xs" data-testid="member-panel-forces">
         <tbody>
           {ids.map((id) => {
-            const result = analysis.results[id];
-            const force = result.memberForces[member.id] ?? 0;
-            const zero = result.zeroForceMembers.includes(member.id);
+            const { force, zero } = detail!.results[id];
             return (
               <tr key={id} className={id === resultId ? "bg-selection/10 font-semibold" : ""}>
                 <td className="py-0.5 pr-2">
@@ -73,7 +90,7 @@ export function MemberPanel({ prepared, analysis, revision }: { prepared: Prepar
 
       {envelope ? (
         <section className="mb-3" data-testid="member-panel-envelope">
-          <h3 className="mb-1 font-semibold">Envelope over {analysis.info.envelopeOver === "combinations" ? "the combinations" : "the load cases"}</h3>
+          <h3 className="mb-1 font-semibold">Envelope over {detail?.envelopeOver === "combinations" ? "the combinations" : "the load cases"}</h3>
           <dl className="grid grid-cols-2 gap-x-2 text-xs">
             <dt>Largest tension</dt>
             <dd className="font-mono">{kN(envelope.maxTension)} {governing?.maxTension ? `(${governing.maxTension})` : ""}</dd>
@@ -87,7 +104,7 @@ export function MemberPanel({ prepared, analysis, revision }: { prepared: Prepar
 
       <InfluenceControl key={member.id} memberId={member.id} ask={ask} ready={ready} />
 
-      <MemberReviewSection memberId={member.id} analysis={analysis} revision={revision} ask={ask} ready={ready} />
+      <MemberReviewSection memberId={member.id} detail={detail} revision={revision} ask={ask} ready={ready} />
     </aside>
   );
 }

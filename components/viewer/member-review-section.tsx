@@ -4,7 +4,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { useState } from "react";
 import type { RevisionWithResults } from "@/db/queries/models";
-import type { AnalysisResult } from "@/lib/analysis";
+import type { MemberDetail } from "@/lib/models/member-detail";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import type { OpeningAssessment, OpeningSpec } from "@/lib/review/opening";
 import type { RemovalOutcome } from "@/lib/review/removal";
@@ -101,13 +101,13 @@ function OpeningResult({ assessment }: { assessment: OpeningAssessment }) {
   );
 }
 
-export function MemberReviewSection({ memberId, analysis, revision, ask, ready }: { memberId: string; analysis: AnalysisResult; revision: RevisionWithResults; ask: Ask; ready: boolean }) {
+export function MemberReviewSection({ memberId, detail, revision, ask, ready }: { memberId: string; detail: MemberDetail | undefined; revision: RevisionWithResults; ask: Ask; ready: boolean }) {
   const resultId = useViewerStore((s) => s.resultId);
   const [removalAsked, setRemovalAsked] = useState<string | null>(null);
   const [opening, setOpening] = useState<{ member: string; spec: OpeningSpec } | null>(null);
   const [diameter, setDiameter] = useState(50);
-  const review = revision.analysis?.review?.members[memberId];
-  const isZero = resultId ? analysis.results[resultId]?.zeroForceMembers.includes(memberId) : false;
+  const review = detail?.review ?? undefined;
+  const isZero = resultId ? (detail?.results[resultId]?.zero ?? false) : false;
   const base = ["whatif", revision.id, memberId] as const;
 
   const whyZero = useQuery({
@@ -138,7 +138,7 @@ export function MemberReviewSection({ memberId, analysis, revision, ask, ready }
           <p className="text-xs">{review.reason}</p>
           {revision.analysis?.review ? <AnyLoadSection memberId={memberId} review={revision.analysis.review} /> : null}
           <h3 className="mb-1 mt-3 font-semibold">
-            Utilisation ({revision.analysis?.review?.standard}):{" "}
+            Utilisation ({detail?.standard}):{" "}
             <span data-testid="member-panel-utilisation" className={review.utilisation !== null && review.utilisation > 1 ? "text-clash" : ""}>
               {review.utilisation === null ? "no force, nothing to check" : review.utilisation.toFixed(3)}
             </span>

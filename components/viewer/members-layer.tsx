@@ -1,9 +1,11 @@
 "use client";
 // All members as two instanced meshes (opaque, and thin translucent for zero-force): two draw calls whatever the
-// member count. Switching result, colouring or filter rewrites the instance buffers in place.
+// member count. Switching result, colouring or filter rewrites the instance buffers in place, from the result's
+// columns (typed arrays in member order) without looking any member up by id.
 import { useFrame, useThree, type ThreeEvent } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo, useRef } from "react";
 import { CylinderGeometry, DynamicDrawUsage, InstancedBufferAttribute, InstancedMesh, MeshBasicMaterial, MeshLambertMaterial } from "three";
+import type { WireColumns } from "@/lib/models/result-columns";
 import { computeAppearance, hexToRgb, type MemberAppearance } from "./colouring";
 import { memberLook, palette } from "./config";
 import { disposeInstancedMesh } from "./dispose";
@@ -11,7 +13,6 @@ import { visibleMask } from "./filters";
 import { writeMemberMatrix } from "./geometry";
 import type { PreparedModel } from "./prepare";
 import { resultLabel } from "./prepare";
-import type { ViewerAnalysis, ViewerMemberReview } from "./types";
 import { useViewerStore } from "./viewer-store";
 
 interface Layer { mesh: InstancedMesh; order: Int32Array }
@@ -75,13 +76,14 @@ function writeMatrices(layers: { solid: Layer; faint: Layer }, look: MemberAppea
 
 interface MembersLayerProps {
   prepared: PreparedModel;
-  analysis: ViewerAnalysis;
-  review: Record<string, ViewerMemberReview> | undefined;
+  /** The chosen result's columns, and the other result's for the "compare" colouring (undefined while fetched). */
+  columns: WireColumns | undefined;
+  compareColumns: WireColumns | undefined;
   positions: Float32Array;
 }
 
 /** Draws, colours and picks members; publishes the legend to the viewer store. */
-export function MembersLayer({ prepared, analysis, review, positions }: MembersLayerProps) {
+export function MembersLayer({ prepared, columns, compareColumns, positions }: MembersLayerProps) {
   const invalidate = useThree((s) => s.invalidate);
   const resultId = useViewerStore((s) => s.resultId);
   const compareResultId = useViewerStore((s) => s.compareResultId);
@@ -100,23 +102,19 @@ export function MembersLayer({ prepared, analysis, review, positions }: MembersL
     [layers],
   );
 
-  const result = resultId ? analysis.results[resultId] : undefined;
   const look = useMemo(() => {
-    if (!result || !resultId) return null;
-    const compareResult = compareResultId ? analysis.results[compareResultId] : undefined;
+    if (!columns || !resultId || columns.memberCount !== count) return null;
+    const compare = compareResultId ? compareColumns : undefined;
     return computeAppearance({
-      memberIds: prepared.memberIds,
-      result,
+      columns,
       resultLabel: resultLabel(prepared.model, resultId),
-      mode: mode === "compare" && !compareResult ? "forceState" : mode,
+      mode: mode === "compare" && !compare ? "forceState" : mode,
       unitLength: prepared.unitLength,
       lowForceThreshold: threshold,
-      review,
-      zeroInAll: analysis.zeroInAll,
-      compareResult,
+      compareColumns: compare,
       compareLabel: compareResultId ? resultLabel(prepared.model, compareResultId) : undefined,
     });
-  }, [analysis, prepared, result, resultId, compareResultId, mode, threshold, review]);
+  }, [columns, compareColumns, prepared, count, resultId, compareResultId, mode, threshold]);
 
   // A User Timing mark on the first frame that draws a new colouring: the benchmark and profiling read it.
   const drawnMark = useRef(false);

@@ -1,6 +1,7 @@
 "use client";
-// The viewer screen: fetches one revision with its stored results (once, cached), then shows the toolbar, the
-// canvas (client-only, behind a sized placeholder), the legend, hover read-out and the member panel.
+// The viewer screen: fetches one revision with its stored results (once, cached) and the chosen result's columns
+// (binary, one result at a time, cached), then shows the toolbar, the canvas (client-only, behind a sized
+// placeholder), the legend, hover read-out and the member panel. The drawing reads only the columns.
 import { useQuery } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { useEffect, useMemo, type ReactNode } from "react";
@@ -13,9 +14,9 @@ import { InfluenceLayer } from "./layers/influence-layer";
 import { InfluenceLegend, Legend } from "./legend";
 import { MemberPanel } from "./member-panel";
 import { prepareModel, resultIds } from "./prepare";
-import { memberReviewMap } from "./review-adapter";
 import { StabilityPanel } from "./stability-panel";
 import { installTestHook } from "./test-hook";
+import { useResultColumns } from "./use-result-columns";
 import { useViewerStore } from "./viewer-store";
 import { ViewerToolbar } from "./viewer-toolbar";
 
@@ -52,7 +53,13 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
   const prepared = useMemo(() => (revision ? prepareModel(revision.model, classifyMembers(revision.model)) : null), [revision]);
   const analysis = revision?.analysis?.result;
   const ids = useMemo(() => (prepared && analysis ? resultIds(prepared.model, analysis.results) : []), [prepared, analysis]);
-  const review = useMemo(() => memberReviewMap(revision?.analysis?.review), [revision]);
+  const hasReview = Boolean(revision?.analysis?.review);
+  const resultId = useViewerStore((s) => s.resultId);
+  const compareResultId = useViewerStore((s) => s.compareResultId);
+  const colourMode = useViewerStore((s) => s.colourMode);
+  const analysed = analysis?.status === "ok";
+  const { columns, error: columnsError, retry: retryColumns } = useResultColumns(projectId, revisionNumber, analysed && resultId && ids.includes(resultId) ? resultId : null);
+  const compare = useResultColumns(projectId, revisionNumber, analysed && colourMode === "compare" && compareResultId && ids.includes(compareResultId) ? compareResultId : null);
 
   useEffect(() => {
     if (!prepared) return;
@@ -88,11 +95,19 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
 
   return (
     <div className="flex flex-col">
-      <ViewerToolbar prepared={prepared} analysis={analysis} ids={ids} hasReview={review !== undefined} fileName={`strutroom-${revision.name}-r${revision.number}.png`.replace(/\s+/g, "-")} />
+      <ViewerToolbar prepared={prepared} columns={columns} ids={ids} hasReview={hasReview} fileName={`strutroom-${revision.name}-r${revision.number}.png`.replace(/\s+/g, "-")} />
       <StabilityPanel review={revision.analysis?.review} nodeIds={prepared.nodes.ids} />
       <div className="flex">
         <div className="relative h-[75vh] min-w-0 flex-1">
-          <ViewerCanvas prepared={prepared} analysis={analysis} review={review}>
+          {columnsError ? (
+            <p role="alert" className="absolute right-3 top-3 z-10 rounded bg-white p-2 text-sm text-clash">
+              The chosen result could not be loaded: {columnsError.message}{" "}
+              <button type="button" className="underline" onClick={retryColumns}>
+                Try again
+              </button>
+            </p>
+          ) : null}
+          <ViewerCanvas prepared={prepared} columns={columns} compareColumns={compare.columns}>
             <InfluenceLayer prepared={prepared} />
             {layers}
           </ViewerCanvas>
@@ -101,10 +116,10 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
             <InfluenceLegend />
           </div>
           <div className="absolute bottom-3 left-3">
-            <HoverTooltip analysis={analysis} />
+            <HoverTooltip prepared={prepared} columns={columns} />
           </div>
         </div>
-        <MemberPanel prepared={prepared} analysis={analysis} revision={revision} />
+        <MemberPanel projectId={projectId} prepared={prepared} analysis={analysis} revision={revision} />
       </div>
     </div>
   );

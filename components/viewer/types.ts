@@ -35,5 +35,3 @@ export type MemberGroup = "top_chord" | "bottom_chord" | "diagonal" | "other";
 export type FilterableGroup = Exclude<MemberGroup, "other">;
 export type MemberVerdict = "load-bearing" | "stabilising" | "bracing" | "idle";
 
-/** Per-member review numbers the colourings need (utilisation and verdict), keyed by member id. */
-export interface ViewerMemberReview { verdict: MemberVerdict; utilisation: number | null }

@@ -11,13 +11,14 @@ import { deflectedPositions, modePositions } from "./filters";
 import { LoadsLayer, NodesLayer, SupportsLayer } from "./glyphs-layer";
 import { MembersLayer } from "./members-layer";
 import type { PreparedModel } from "./prepare";
-import type { ViewerAnalysis, ViewerMemberReview } from "./types";
+import type { WireColumns } from "@/lib/models/result-columns";
 import { useViewerStore } from "./viewer-store";
 
 export interface ViewerCanvasProps {
   prepared: PreparedModel;
-  analysis: ViewerAnalysis;
-  review?: Record<string, ViewerMemberReview>;
+  /** The chosen result's columns, and the compared result's (lib/models/result-columns.ts). */
+  columns: WireColumns | undefined;
+  compareColumns: WireColumns | undefined;
   /** Extra scene layers (see the note at the top of this file). */
   children?: ReactNode;
 }
@@ -34,11 +35,10 @@ function GroundGrid({ prepared }: { prepared: PreparedModel }) {
   );
 }
 
-function Scene({ prepared, analysis, review, children }: ViewerCanvasProps) {
-  const resultId = useViewerStore((s) => s.resultId);
+function Scene({ prepared, columns, compareColumns, children }: ViewerCanvasProps) {
   const deflection = useViewerStore((s) => s.deflection);
   const mode = useViewerStore((s) => s.mode);
-  const displacements = resultId ? analysis.results[resultId]?.displacements : undefined;
+  const displacements = columns?.displacements;
   // a shown mode (buckling or mechanism) replaces the deflected shape until it is cleared
   const positions = useMemo(
     () =>
@@ -56,7 +56,7 @@ function Scene({ prepared, analysis, review, children }: ViewerCanvasProps) {
       <ambientLight intensity={1.6} />
       <directionalLight position={[1, -2, 3]} intensity={1.4} />
       <GroundGrid prepared={prepared} />
-      <MembersLayer prepared={prepared} analysis={analysis} review={review} positions={positions} />
+      <MembersLayer prepared={prepared} columns={columns} compareColumns={compareColumns} positions={positions} />
       <NodesLayer prepared={prepared} positions={positions} />
       <SupportsLayer prepared={prepared} />
       <LoadsLayer prepared={prepared} />

@@ -4,7 +4,8 @@ import { useState } from "react";
 import { colourModeLabels, type ColourMode } from "./colouring";
 import { autoDeflectionScale, type SectionBox } from "./filters";
 import { resultLabel, type PreparedModel } from "./prepare";
-import type { FilterableGroup, ViewerAnalysis } from "./types";
+import type { WireColumns } from "@/lib/models/result-columns";
+import type { FilterableGroup } from "./types";
 import { useViewerStore, type CameraPreset } from "./viewer-store";
 
 const groupLabels: Record<FilterableGroup, string> = { top_chord: "Top chords", bottom_chord: "Bottom chords", diagonal: "Diagonals" };
@@ -45,7 +46,7 @@ function ResultSelect({ prepared, ids, value, onChange, testId, label }: { prepa
   );
 }
 
-export function ViewerToolbar({ prepared, analysis, ids, hasReview, fileName }: { prepared: PreparedModel; analysis: ViewerAnalysis; ids: string[]; hasReview: boolean; fileName: string }) {
+export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: { prepared: PreparedModel; columns: WireColumns | undefined; ids: string[]; hasReview: boolean; fileName: string }) {
   const store = useViewerStore.getState();
   const resultId = useViewerStore((s) => s.resultId);
   const compareResultId = useViewerStore((s) => s.compareResultId);
@@ -128,7 +129,7 @@ export function ViewerToolbar({ prepared, analysis, ids, hasReview, fileName }: 
             checked={deflection.enabled}
             data-testid="viewer-deflection"
             onChange={(e) => {
-              const displacements = resultId ? analysis.results[resultId]?.displacements : undefined;
+              const displacements = columns?.displacements;
               const scale = deflection.scale || (displacements ? autoDeflectionScale(prepared.nodes, displacements) : 1);
               store.setDeflection({ enabled: e.target.checked, scale });
             }}

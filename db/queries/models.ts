@@ -1,10 +1,10 @@
 import "server-only";
 import { and, asc, desc, eq, max } from "drizzle-orm";
 import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
-import { analysisRuns, attachments, modelRevisions, projects, resultColumns, users, type AnalysisRun, type ModelRevision, type Project } from "@/db/schema";
-import type { ResultColumns, RunColumns } from "@/lib/models/result-columns";
+import { analysisRuns, attachments, modelRevisions, projects, users, type AnalysisRun, type ModelRevision, type Project } from "@/db/schema";
 import { recordAuditEvent } from "./audit";
 import { latestJobsOfRevisions, type JobView } from "./jobs";
+import { storeRunColumns, type StoredColumns } from "./result-columns";
 
 // The stored jsonb columns' types (db/schema), so this file needs nothing from the analysis code.
 type TrussModel = ModelRevision["model"];
@@ -128,8 +128,7 @@ export type NewRevisionInput = {
   createdBy: string | null;
 };
 
-/** The columns of a run (lib/models/result-columns.ts encodeResultColumns), stored beside its JSON. */
-export type StoredColumns = { results: ResultColumns[]; run: RunColumns };
+export type { StoredColumns };
 
 export type CreateRevisionInput = NewRevisionInput & { result: AnalysisResult; review: StoredReview | null; columns: StoredColumns };
 
@@ -162,38 +161,13 @@ export async function insertRevision(tx: Executor, input: NewRevisionInput): Pro
   return revision;
 }
 
-/** Rows per insert of result columns: a few hundred combinations of a big roof stay well under pg's parameter cap. */
-const COLUMN_ROWS_PER_INSERT = 50;
-
 /** Stores an analysis run (results and review as JSON, and the same as columns) of a revision. */
 export async function insertAnalysisRun(
   tx: Executor,
   input: { revisionId: string; result: AnalysisResult; review: StoredReview | null; columns: StoredColumns },
 ): Promise<{ id: string }> {
-  const { run: runColumns, results } = input.columns;
-  const [run] = await tx
-    .insert(analysisRuns)
-    .values({
-      revisionId: input.revisionId,
-      status: input.result.status,
-      result: input.result,
-      review: input.review,
-      utilisation: runColumns.utilisation ? new Uint8Array(runColumns.utilisation.buffer, runColumns.utilisation.byteOffset, runColumns.utilisation.byteLength) : null,
-      verdicts: runColumns.verdicts,
-      zeroInAll: runColumns.zeroInAll,
-    })
-    .returning({ id: analysisRuns.id });
-  const bytes = (values: Float32Array) => new Uint8Array(values.buffer, values.byteOffset, values.byteLength);
-  for (let start = 0; start < results.length; start += COLUMN_ROWS_PER_INSERT) {
-    const rows = results.slice(start, start + COLUMN_ROWS_PER_INSERT).map((columns) => ({
-      analysisRunId: run.id,
-      resultId: columns.resultId,
-      forces: bytes(columns.forces),
-      zero: columns.zero,
-      displacements: bytes(columns.displacements),
-    }));
-    await tx.insert(resultColumns).values(rows);
-  }
+  const [run] = await tx.insert(analysisRuns).values({ revisionId: input.revisionId, status: input.result.status, result: input.result, review: input.review }).returning({ id: analysisRuns.id });
+  await storeRunColumns(tx, { runId: run.id, columns: input.columns });
   return run;
 }
 

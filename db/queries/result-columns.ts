@@ -1,11 +1,54 @@
 import "server-only";
-import { and, desc, eq, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
-import { analysisRuns, modelRevisions, resultColumns, type AnalysisRun } from "@/db/schema";
+import { analysisRuns, modelRevisions, resultColumns, type AnalysisRun, type ModelRevision } from "@/db/schema";
 import type { StoredMemberReview } from "@/lib/models/analyse";
+import type { ResultColumns, RunColumns } from "@/lib/models/result-columns";
 
-// Typed by the stored column (db/schema), so this file needs nothing from the analysis code.
+// Typed by the stored columns (db/schema), so this file needs nothing from the analysis code.
 type EnvelopeEntry = AnalysisRun["result"]["envelope"][string];
+type TrussModel = ModelRevision["model"];
+type AnalysisResult = AnalysisRun["result"];
+type StoredReview = NonNullable<AnalysisRun["review"]>;
+
+/** The columns of a run (lib/models/result-columns.ts encodeResultColumns), stored beside its JSON. */
+export type StoredColumns = { results: ResultColumns[]; run: RunColumns };
+
+/** Rows per insert of result columns: a few hundred combinations of a big roof stay well under pg's parameter cap. */
+const COLUMN_ROWS_PER_INSERT = 50;
+const bytes = (values: Float32Array) => new Uint8Array(values.buffer, values.byteOffset, values.byteLength);
+
+/** Stores a run's columns: its own (utilisation, verdicts, zero-in-all) and one row per result. */
+export async function storeRunColumns(tx: Executor, { runId, columns }: { runId: string; columns: StoredColumns }): Promise<void> {
+  const { run, results } = columns;
+  await tx
+    .update(analysisRuns)
+    .set({ utilisation: run.utilisation ? bytes(run.utilisation) : null, verdicts: run.verdicts, zeroInAll: run.zeroInAll })
+    .where(eq(analysisRuns.id, runId));
+  for (let start = 0; start < results.length; start += COLUMN_ROWS_PER_INSERT) {
+    const rows = results.slice(start, start + COLUMN_ROWS_PER_INSERT).map((result) => ({
+      analysisRunId: runId,
+      resultId: result.resultId,
+      forces: bytes(result.forces),
+      zero: result.zero,
+      displacements: bytes(result.displacements),
+    }));
+    await tx.insert(resultColumns).values(rows);
+  }
+}
+
+/** The oldest run stored before results were kept as columns (its zero-in-all column is empty), with its model. */
+export async function getRunWithoutColumns({ db = getDb() }: { db?: Executor } = {}): Promise<{ runId: string; model: TrussModel; result: AnalysisResult; review: StoredReview | null } | null> {
+  const [row] = await db
+    .select({ runId: analysisRuns.id, model: modelRevisions.model, result: analysisRuns.result, review: analysisRuns.review })
+    .from(analysisRuns)
+    .innerJoin(modelRevisions, eq(modelRevisions.id, analysisRuns.revisionId))
+    .where(isNull(analysisRuns.zeroInAll))
+    .orderBy(asc(analysisRuns.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
 
 type RevisionKey = { projectId: string; number: number; db?: Executor };
 

@@ -37,3 +37,13 @@ export async function apiUpload<T>(url: string, file: Blob): Promise<T> {
   }
   return body as T;
 }
+
+/** Fetches a binary answer of our API (result columns); resolves with its bytes or throws an ApiError. */
+export async function apiFetchBytes(url: string): Promise<ArrayBuffer> {
+  const response = await fetch(url, { credentials: "same-origin" });
+  if (!response.ok) {
+    const body = await response.json().catch(() => null);
+    throw new ApiError(response.status, body?.error ?? `The server answered ${response.status}.`, body?.issues ?? []);
+  }
+  return response.arrayBuffer();
+}

@@ -67,8 +67,15 @@ describe("the 3D viewer on the demo roof", () => {
     await screenshot(page, "viewer-demo-roof");
   });
 
-  it("shows legend counts that match the stored results for every load case and combination", async () => {
+  it("draws every load case and combination from its columns, with legend counts that match the stored JSON results", async () => {
     const viewer = new ViewerPage(page);
+    // The viewer draws from the binary result columns (issue 13 item 4): each result chosen is fetched as
+    // application/octet-stream from its own endpoint (or was already fetched once, the answer being immutable).
+    const columnsFetched = new Set<string>();
+    page.on("response", (answer) => {
+      const match = /\/models\/1\/results\/([^/?]+)$/.exec(new URL(answer.url()).pathname);
+      if (match && answer.status() === 200 && answer.headers()["content-type"] === "application/octet-stream") columnsFetched.add(decodeURIComponent(match[1]));
+    });
     const response = await page.request.get(appUrl(`/api/projects/${projectId}/models/1`));
     expect(response.status()).toBe(200);
     const { revision } = (await response.json()) as { revision: Revision };
@@ -82,6 +89,8 @@ describe("the 3D viewer on the demo roof", () => {
       expect(expected.tension + expected.compression + expected.zero).toBe(memberIds.length);
       expect(await viewer.legendCounts()).toEqual(expected);
       expect(await viewer.hookCounts()).toEqual(expected);
+      // The first result was fetched when the page opened (before the listener); every other one now.
+      if (id !== ids[0]) expect(columnsFetched.has(id)).toBe(true);
     }
     await screenshot(page, "viewer-last-result");
   });

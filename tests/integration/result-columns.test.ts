@@ -12,6 +12,8 @@ import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
 import type { StoredReview } from "@/lib/models/analyse";
 import { bitAt, unpackWire, VERDICT_CODES } from "@/lib/models/result-columns";
+import { backfillResultColumns } from "@/lib/commands/backfill-result-columns";
+import { insertRevision } from "@/db/queries/models";
 import { runAnalysisJob } from "@/server/jobs/analysis";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
@@ -149,5 +151,25 @@ describe("one member's detail", () => {
       expect(body.caution).toMatch(/engineer of record/);
     }
     expect((await fetchMember("NO-SUCH-MEMBER", fx.users.architect)).status).toBe(404);
+  });
+});
+
+describe("runs stored before results were kept as columns", () => {
+  it("get their columns from the migrate step's backfill, equal to their JSON", async () => {
+    // A run as migration 0005 left it: JSON only, no columns.
+    const revision = await insertRevision(getDb(), { projectId: fx.projectId, name: "Before columns", model, source: "generated", createdBy: null });
+    await getDb().insert(analysisRuns).values({ revisionId: revision.id, status: "ok", result, review });
+    const resultId = Object.keys(result.results)[1];
+    const old = { projectId: fx.projectId, number: String(revision.number), resultId };
+    const request = async () => getColumns(await buildRequest(`/api/projects/${fx.projectId}/models/${revision.number}/results/${resultId}`, { user: fx.users.viewer }), routeContext(old));
+    expect((await request()).status).toBe(404);
+    expect(await backfillResultColumns()).toBeGreaterThanOrEqual(1);
+    const response = await request();
+    expect(response.status).toBe(200);
+    const columns = unpackWire(await response.arrayBuffer());
+    model.members.forEach((member, k) => expect(columns.forces[k]).toBe(Math.fround(result.results[resultId].memberForces[member.id])));
+    expect(columns.hasReview).toBe(true);
+    // Nothing left to fill: a second pass does nothing.
+    expect(await backfillResultColumns()).toBe(0);
   });
 });

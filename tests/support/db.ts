@@ -1,6 +1,6 @@
 // Integration tests use the real, migrated PostgreSQL at DATABASE_URL (scripts/test.mjs starts a throwaway one).
 // To run them alone: start a cluster with scripts/stack/postgres.mjs (throwaway: true), run
-// `DATABASE_URL=… npx tsx scripts/db-migrate.ts`, then `DATABASE_URL=… NEXTAUTH_SECRET=… npx vitest run --project integration`.
+// `DATABASE_URL=… npx tsx --conditions=react-server scripts/db-migrate.ts`, then `DATABASE_URL=… NEXTAUTH_SECRET=… npx vitest run --project integration`.
 import { closeDb, getDb } from "@/db/client";
 
 export { closeDb, getDb };

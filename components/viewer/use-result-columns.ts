@@ -1,0 +1,24 @@
+"use client";
+// One result's columns (lib/models/result-columns.ts), fetched once per revision and result and kept: the answer is
+// immutable, so switching back to a result already seen draws from memory without a request.
+import { useQuery } from "@tanstack/react-query";
+import { apiFetchBytes } from "@/lib/http/fetcher";
+import { unpackWire, type WireColumns } from "@/lib/models/result-columns";
+
+export const resultColumnsQueryKey = (projectId: string, number: number, resultId: string) => ["projects", projectId, "models", number, "columns", resultId] as const;
+
+/** The columns of `resultId` (undefined while loading, or when there is no result to fetch). */
+export function useResultColumns(projectId: string, number: number, resultId: string | null): { columns: WireColumns | undefined; error: Error | null; retry: () => void } {
+  const query = useQuery({
+    queryKey: resultColumnsQueryKey(projectId, number, resultId ?? ""),
+    queryFn: async () => {
+      const columns = unpackWire(await apiFetchBytes(`/api/projects/${projectId}/models/${number}/results/${encodeURIComponent(resultId!)}`));
+      performance.mark("viewer:columns-fetched");
+      return columns;
+    },
+    enabled: resultId !== null,
+    staleTime: Infinity,
+    gcTime: 30 * 60_000,
+  });
+  return { columns: query.data, error: query.error, retry: () => void query.refetch() };
+}
