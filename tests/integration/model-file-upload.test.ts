@@ -53,6 +53,20 @@ describe("model files through presigned uploads", () => {
     expect(await getDb().select().from(attachments).where(eq(attachments.projectId, fx.projectId))).toEqual([]);
   });
 
+  it("refuses a file with more nodes than a model may have with 413 naming the limit, counted before parsing; nothing is stored", async () => {
+    // 40,000 nodes in a 1.3 MB file: within the byte limit, over the 30,000-node cap (lib/limits.ts modelCounts).
+    const nodes = Array.from({ length: 40_000 }, (_, k) => `{"id":"N${k}","x":${k},"y":0,"z":0}`).join(",");
+    const text = `{"format":"truss-model/1","name":"Too many nodes","materials":[],"sections":[],"nodes":[${nodes}],"members":[],"supports":[],"loadCases":[],"combinations":[]}`;
+    const attachmentId = await uploadModelFile(fx.users.structural_engineer, "too-many-nodes.json", text);
+    const revisionsBefore = await getDb().select().from(modelRevisions).where(eq(modelRevisions.projectId, fx.projectId));
+    const response = await save(fx.users.structural_engineer, [attachmentId]);
+    expect(response.status).toBe(413);
+    expect((await response.json()).error).toBe('too-many-nodes.json has more than 30,000 nodes, the most one model may have (README, "Model size limits"). Split the roof or simplify it.');
+    expect(await getDb().select().from(modelRevisions).where(eq(modelRevisions.projectId, fx.projectId))).toEqual(revisionsBefore);
+    const [file] = await getDb().select().from(attachments).where(eq(attachments.id, attachmentId));
+    expect(file.revisionId).toBeNull();
+  });
+
   it("stores the revision from the uploaded file and keeps that file byte for byte as its original", async () => {
     const attachmentId = await uploadModelFile(fx.users.structural_engineer, "presigned-grid.json", roofText);
     const response = await save(fx.users.structural_engineer, [attachmentId]);
