@@ -1,28 +1,38 @@
 import "server-only";
+import { cache } from "react";
 import { forbidden, notFound } from "next/navigation";
 import { getProjectById } from "@/db/queries/projects";
-import { ForbiddenError, HttpError } from "@/lib/http/errors";
-import type { Action } from "@/lib/permissions";
+import { HttpError } from "@/lib/http/errors";
+import { authorize, type Action } from "@/lib/permissions";
 import { projectForMember, type ProjectForMember } from "@/lib/projects/for-member";
-import { requireProjectRole } from "./guard";
+import { requireMembership } from "./guard";
 import { requirePageUser, type SessionUser } from "./session";
 
 /**
- * For a project page: signed in (else the sign-in page), then the project guard. Outsiders see "not found", so a
- * page never tells them whether a project exists; members whose role lacks the action see "not allowed" (403,
- * app/forbidden.tsx), since they already know the project.
+ * The signed-in user, their membership and the project, read once per request (React cache): the project layout
+ * and the page below it both ask, and share one read. Outsiders and bad ids see "not found", so a page never tells
+ * them whether a project exists.
  */
-export async function requirePageProject(projectId: string, action: Action = "project.read"): Promise<{ user: SessionUser; project: ProjectForMember }> {
+const loadPageProject = cache(async (projectId: string): Promise<{ user: SessionUser; project: ProjectForMember }> => {
   const user = await requirePageUser(`/projects/${projectId}`);
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
   try {
-    const membership = await requireProjectRole(user, projectId, action);
+    const membership = await requireMembership(user, projectId);
     const project = await getProjectById({ projectId });
     if (!project) notFound();
     return { user, project: projectForMember(project, membership.role) };
   } catch (error) {
-    if (error instanceof ForbiddenError) forbidden();
     if (error instanceof HttpError) notFound();
     throw error;
   }
+});
+
+/**
+ * For a project page: signed in (else the sign-in page), then the project guard. Members whose role lacks the
+ * action see "not allowed" (403, app/forbidden.tsx), since they already know the project.
+ */
+export async function requirePageProject(projectId: string, action: Action = "project.read"): Promise<{ user: SessionUser; project: ProjectForMember }> {
+  const loaded = await loadPageProject(projectId);
+  if (!authorize({ role: loaded.project.role, userId: loaded.user.id }, action)) forbidden();
+  return loaded;
 }

@@ -1,6 +1,4 @@
 import type { Metadata } from "next";
-import { ProjectHeader } from "@/components/project/project-header";
-import { ProjectNav } from "@/components/project/project-nav";
 import { TeamPanel } from "@/components/project/team-panel";
 import { InvitePanel } from "@/components/project/invite-panel";
 import { ReviewStatePanel } from "@/components/project/review-state-panel";
@@ -17,8 +15,6 @@ export default async function ProjectOverviewPage({ params }: PageProps<"/projec
   const reviewState = await getReviewState({ db: getDb(), projectId: project.id });
   return (
     <div className="flex flex-col gap-6">
-      <ProjectHeader project={project} />
-      <ProjectNav projectId={project.id} />
       <ReviewStatePanel projectId={project.id} state={reviewState} />
       <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
         <TeamPanel projectId={project.id} canManage={canManage} currentUserId={user.id} />

@@ -3,8 +3,6 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ClashBoard } from "@/components/clashes/clash-board";
 import { ClashRevisionPicker } from "@/components/clashes/clash-revision-picker";
-import { ProjectHeader } from "@/components/project/project-header";
-import { ProjectNav } from "@/components/project/project-nav";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { listRevisionsByProject } from "@/db/queries/models";
 import { requirePageProject } from "@/lib/auth/page";
@@ -24,8 +22,6 @@ export default async function ClashesPage({ params, searchParams }: PageProps<"/
   const shown = revisions.find((r) => r.number === number);
   return (
     <div className="flex flex-col gap-4">
-      <ProjectHeader project={project} />
-      <ProjectNav projectId={project.id} current="clashes" />
       {number === null ? (
         <p className="text-sm text-board-700" data-testid="clashes-empty">
           This project has no model yet, so there is nothing for runs to clash with.{" "}

@@ -1,7 +1,5 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { ProjectHeader } from "@/components/project/project-header";
-import { ProjectNav } from "@/components/project/project-nav";
 import { requirePageProject } from "@/lib/auth/page";
 import { listSentMessageIds } from "@/db/queries/mail-outbox";
 import { capturedMailForProject, capturedMailPageEnabled } from "@/lib/mail/captured";
@@ -36,8 +34,6 @@ export default async function CapturedMailPage({ params }: PageProps<"/projects/
   const mails = await capturedMailForProject({ messageIds: await listSentMessageIds({ projectId: project.id }) });
   return (
     <div className="flex flex-col gap-6">
-      <ProjectHeader project={project} />
-      <ProjectNav projectId={project.id} />
       <section className="flex flex-col gap-4" data-testid="captured-mail">
         <div>
           <h2 className="text-lg font-semibold">Captured mail (development)</h2>

@@ -1,6 +1,4 @@
 import type { Metadata } from "next";
-import { ProjectHeader } from "@/components/project/project-header";
-import { ProjectNav } from "@/components/project/project-nav";
 import { ReportForm } from "@/components/report/report-form";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { getRevisionWithResults, listRevisionsByProject } from "@/db/queries/models";
@@ -26,8 +24,6 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
     : [];
   return (
     <div className="flex flex-col gap-6">
-      <ProjectHeader project={project} />
-      <ProjectNav projectId={project.id} current="report" />
       <section className="flex max-w-3xl flex-col gap-4" data-testid="report-page">
         <h2 className="flex items-center gap-2 text-lg font-semibold">
           Review report and exports {chosen ? <RevisionStageBadge revision={chosen} /> : null}

@@ -1,7 +1,5 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { ProjectHeader } from "@/components/project/project-header";
-import { ProjectNav } from "@/components/project/project-nav";
 import { BcfImportForm } from "@/components/session/bcf-import-form";
 import { listPinsByProject } from "@/db/queries/pins";
 import { getLiveSession } from "@/db/queries/review-sessions";
@@ -27,8 +25,6 @@ export default async function SessionsPage({ params, searchParams }: PageProps<"
 
   return (
     <div className="flex flex-col gap-4">
-      <ProjectHeader project={project} />
-      <ProjectNav projectId={project.id} current="sessions" />
       <section className="rounded-xl border border-board-200 bg-white p-4" data-testid="live-session-summary">
         {session ? (
           <p>

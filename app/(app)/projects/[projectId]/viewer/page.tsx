@@ -2,8 +2,6 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { listRevisionsByProject } from "@/db/queries/models";
-import { ProjectHeader } from "@/components/project/project-header";
-import { ProjectNav } from "@/components/project/project-nav";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { RevisionPicker } from "@/components/viewer/revision-picker";
 import { LiveReview } from "@/components/session/live-review";
@@ -24,8 +22,6 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
   const shown = revisions.find((r) => r.number === number);
   return (
     <div className="flex flex-col gap-4">
-      <ProjectHeader project={project} />
-      <ProjectNav projectId={project.id} current="viewer" />
       {number === null ? (
         <p className="text-sm text-board-700" data-testid="viewer-empty">
           This project has no model yet.{" "}

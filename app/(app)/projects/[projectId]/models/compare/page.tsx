@@ -1,8 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { RevisionComparisonView } from "@/components/models/revision-comparison";
-import { ProjectHeader } from "@/components/project/project-header";
-import { ProjectNav } from "@/components/project/project-nav";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { listRevisionsByProject } from "@/db/queries/models";
 import { requirePageProject } from "@/lib/auth/page";
@@ -39,8 +37,6 @@ export default async function CompareRevisionsPage({ params, searchParams }: Pag
   );
   return (
     <div className="flex flex-col gap-6">
-      <ProjectHeader project={project} />
-      <ProjectNav projectId={project.id} current="models" />
       <section className="flex flex-col gap-4" data-testid="compare-page">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h2 className="text-lg font-semibold">Compare revisions</h2>
