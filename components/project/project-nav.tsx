@@ -1,24 +1,9 @@
 "use client";
 import Link from "next/link";
 import { useSelectedLayoutSegment } from "next/navigation";
+import { PROJECT_SECTIONS, type ProjectSection } from "./project-sections";
 
-/**
- * The project's sections, shown by the project layout. Each area of the product adds its entry here (one line
- * each): the overview with the team is the foundation's; models and viewer, clashes, review sessions and the report
- * belong to their areas; the captured-mail tab appears for owners while local mail capture is on.
- */
-export const PROJECT_SECTIONS = [
-  { segment: "", label: "Overview" },
-  { segment: "models", label: "Models" },
-  { segment: "viewer", label: "3D viewer" },
-  { segment: "clashes", label: "Clashes" },
-  { segment: "sessions", label: "Review sessions" },
-  { segment: "report", label: "Report" },
-  { segment: "mail", label: "Mail" },
-] as const;
-
-export type ProjectSection = (typeof PROJECT_SECTIONS)[number]["segment"];
-
+/** The section tabs of a project (shown by the project layout); the current one from the layout segment. */
 export function ProjectNav({ projectId, sections }: { projectId: string; sections: readonly ProjectSection[] }) {
   const current = useSelectedLayoutSegment() ?? "";
   return (

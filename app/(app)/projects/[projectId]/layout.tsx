@@ -1,5 +1,6 @@
 import { ProjectHeader } from "@/components/project/project-header";
-import { PROJECT_SECTIONS, ProjectNav } from "@/components/project/project-nav";
+import { ProjectNav } from "@/components/project/project-nav";
+import { PROJECT_SECTIONS } from "@/components/project/project-sections";
 import { requirePageProject } from "@/lib/auth/page";
 import { capturedMailPageEnabled } from "@/lib/mail/captured";
 
