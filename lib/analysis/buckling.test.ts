@@ -8,7 +8,7 @@ import { generalizedSymmetricEigen, symmetricEigen } from "./dense-eigen";
 import { generateRoof } from "./generator";
 import type { TrussModel } from "./model";
 import { prepareStructure } from "./prepare";
-import { pointLoads, seededRandom, steelMaterial, tube, trussModel } from "./test-fixtures";
+import { pointLoads, seededRandom, steelMaterial, tube, trussModel } from "@/tests/support/fixtures/analysis-models";
 
 const EA = steelMaterial.E * tube.area; // 2e5 kN
 

@@ -3,7 +3,7 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { pointLoads, triangleModel } from "./test-fixtures";
+import { pointLoads, triangleModel } from "@/tests/support/fixtures/analysis-models";
 
 // Runs the real command line (scripts/analyze.ts through tsx) on files in a scratch folder.
 const dir = mkdtempSync(join(tmpdir(), "strutroom-analyze-"));

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { ultimateStrength } from "./grades";
 import { DEFAULT_FABRICATION, validateModel, type TrussModel } from "./model";
-import { pointLoads, triangleModel } from "./test-fixtures";
+import { pointLoads, triangleModel } from "@/tests/support/fixtures/analysis-models";
 
 const valid = (): TrussModel =>
   triangleModel({

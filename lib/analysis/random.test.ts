@@ -4,7 +4,7 @@ import { analyzeModel } from "./analyze";
 import { loadVectorForCase } from "./loads";
 import type { TrussModel } from "./model";
 import { prepareStructure } from "./prepare";
-import { seededRandom } from "./test-fixtures";
+import { seededRandom } from "@/tests/support/fixtures/analysis-models";
 
 /**
  * A random stable space truss built like a "simple space truss" (Henneberg growth): a pinned base triangle,

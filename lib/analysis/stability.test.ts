@@ -3,7 +3,7 @@ import { analyzeModel } from "./analyze";
 import { generateRoof } from "./generator";
 import { prepareStructure } from "./prepare";
 import type { TrussModel } from "./model";
-import { pointLoads, triangleModel, trussModel } from "./test-fixtures";
+import { pointLoads, triangleModel, trussModel } from "@/tests/support/fixtures/analysis-models";
 
 const pinned = (node: string): [string, boolean, boolean, boolean] => [node, true, true, true];
 

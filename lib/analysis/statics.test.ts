@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "./analyze";
-import { pointLoads, triangleModel, trussModel } from "./test-fixtures";
+import { pointLoads, triangleModel, trussModel } from "@/tests/support/fixtures/analysis-models";
 
 // Planar trusses drawn in the x-z plane are held out of plane (uy) at every node, as a 3D model needs.
 

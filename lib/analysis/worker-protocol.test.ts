@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { pointLoads, triangleModel } from "./test-fixtures";
+import { pointLoads, triangleModel } from "@/tests/support/fixtures/analysis-models";
 import { handleAnalysisRequest } from "./worker-protocol";
 
 describe("Web Worker protocol", () => {

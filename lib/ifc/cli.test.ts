@@ -3,9 +3,9 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { triangleModel } from "@/lib/analysis/test-fixtures";
+import { triangleModel } from "@/tests/support/fixtures/analysis-models";
 import { exportIfc } from "./export";
-import { StepText } from "./test-files";
+import { StepText } from "@/tests/support/fixtures/ifc-files";
 
 // Runs the real command line (scripts/ifc.ts through tsx) on files in a scratch folder.
 const dir = mkdtempSync(join(tmpdir(), "strutroom-ifc-"));

@@ -1,7 +1,7 @@
 import * as WebIFC from "web-ifc";
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "@/lib/analysis";
-import { pointLoads, triangleModel } from "@/lib/analysis/test-fixtures";
+import { pointLoads, triangleModel } from "@/tests/support/fixtures/analysis-models";
 import { exportIfc, forceState, memberGlobalId, readIfcRoof } from "./index";
 
 const model = triangleModel({ loadCases: [pointLoads("1a", [["C", 0, 0, -10]])] });

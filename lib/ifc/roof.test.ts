@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "@/lib/analysis";
 import { readIfcRoof } from "./index";
-import { ifcTriangleAnalysisFile, StepText } from "./test-files";
+import { ifcTriangleAnalysisFile, StepText } from "@/tests/support/fixtures/ifc-files";
 
 const encode = (text: string) => new TextEncoder().encode(text);
 

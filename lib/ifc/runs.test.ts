@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { readIfcRuns } from "./index";
-import { ifcDuctFile, StepText } from "./test-files";
+import { ifcDuctFile, StepText } from "@/tests/support/fixtures/ifc-files";
 
 const encode = (text: string) => new TextEncoder().encode(text);
 

@@ -1,7 +1,7 @@
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
 import { ENVELOPE_COLUMNS, envelopeCsv, MEMBER_FORCE_COLUMNS, memberForcesCsv, roundForce } from "./csv";
-import { tripodReport } from "./test-report";
+import { tripodReport } from "@/tests/support/fixtures/report";
 
 // Read back with papaparse (a general-purpose CSV parser) and compared with the analysis result itself.
 function parse(csv: string) {
@@ -21,7 +21,7 @@ describe("CSV exports", () => {
       expect(Number(row.axial_force_kN)).toBe(roundForce(result.results["ULS-1"].memberForces[row.member]));
       expect(row.axial_force_kN).toMatch(/^-?\d+(\.\d{1,2})?$/);
     }
-    // Hand statics of the tripod (see test-report.ts): 40.5 kN / (3 / sqrt(2)) = 19.09 kN in each leg, compression.
+    // Hand statics of the tripod (see tests/support/fixtures/report.ts): 40.5 kN / (3 / sqrt(2)) = 19.09 kN in each leg, compression.
     expect(data[0].axial_force_kN).toBe("-19.09");
     expect(data.map((row) => row.state)).toEqual(["compression", "compression", "compression", "zero-force"]);
     expect(data[0]).toMatchObject({ node_i: "A", node_j: "D", section: "CHS-88.9x4.0", result: "ULS-1" });

@@ -9,7 +9,7 @@ import { analyzeModel } from "../analysis/analyze";
 import { demoRoof } from "../analysis/demo-roof";
 import { STANDING_CAUTION } from "../review/caution";
 import { buildReportPdf } from "./pdf";
-import { tripodReport } from "./test-report";
+import { tripodReport } from "@/tests/support/fixtures/report";
 import type { ReportInput } from "./types";
 
 const work = mkdtempSync(path.join(tmpdir(), "strutroom-report-"));

@@ -4,7 +4,7 @@ import { analyzeModel } from "@/lib/analysis";
 import { idleForAnyLoad } from "./any-load";
 import { createReviewContext } from "./context";
 import { influenceMap } from "./influence";
-import { prattTruss, prattWithExtras } from "./test-models";
+import { prattTruss, prattWithExtras } from "@/tests/support/fixtures/review-models";
 import type { TrussModel } from "@/lib/analysis";
 
 function certificate(model: TrussModel, options: Parameters<typeof idleForAnyLoad>[1] = {}) {
@@ -46,7 +46,7 @@ describe("idle for any roof load", () => {
   });
 
   it("members to an unloaded joint held only by them, and a member in line with a support, never work", () => {
-    // prattWithExtras (test-models.ts): X is held by four members to fixed nodes and carries no load, so they stay
+    // prattWithExtras (tests/support/fixtures/review-models.ts): X is held by four members to fixed nodes and carries no load, so they stay
     // at zero unless X itself is loaded; U2W runs along y from U2, whose y is restrained, to a fixed node: its
     // elongation uy(W) − uy(U2) is always 0.
     const model = prattWithExtras();

@@ -4,8 +4,8 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { STANDING_CAUTION } from "./caution";
-import { pointLoads, trussModel } from "@/lib/analysis/test-fixtures";
-import { prattTruss } from "./test-models";
+import { pointLoads, trussModel } from "@/tests/support/fixtures/analysis-models";
+import { prattTruss } from "@/tests/support/fixtures/review-models";
 
 const dir = mkdtempSync(join(tmpdir(), "strutroom-review-cli-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "@/lib/analysis";
-import { pointLoads, triangleModel } from "@/lib/analysis/test-fixtures";
+import { pointLoads, triangleModel } from "@/tests/support/fixtures/analysis-models";
 import { checkDeflections } from "./deflection";
 import { designResultIds } from "./member-design";
 import { reviewModel } from "./review-model";

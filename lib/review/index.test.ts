@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "@/lib/analysis";
 import { createReviewContext, openingWhatIf, reviewModel, STANDING_CAUTION } from "./index";
-import { prattWithExtras } from "./test-models";
+import { prattWithExtras } from "@/tests/support/fixtures/review-models";
 
 describe("reviewModel", () => {
   const model = prattWithExtras();

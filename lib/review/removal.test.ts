@@ -4,7 +4,7 @@ import { STANDING_CAUTION } from "./caution";
 import { createReviewContext } from "./context";
 import { axialUtilisation } from "./design-checks/member-check";
 import { removalWhatIf } from "./removal";
-import { bracedColumn, prattTruss, prattWithExtras } from "./test-models";
+import { bracedColumn, prattTruss, prattWithExtras } from "@/tests/support/fixtures/review-models";
 
 const contextFor = (model: TrussModel) => createReviewContext(model, analyzeModel(model), { standard: "EN1993-1-1" });
 

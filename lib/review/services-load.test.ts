@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { analyzeModel, generateRoof } from "@/lib/analysis";
 import { createReviewContext } from "./context";
 import { compareServicesLoad, servicesLoadCase } from "./services-load";
-import { prattWithExtras } from "./test-models";
+import { prattWithExtras } from "@/tests/support/fixtures/review-models";
 
 describe("servicesLoadCase", () => {
   // Bottom nodes of this roof sit at the bay centres: x = 1.5, 4.5, …; y = 1.5, 4.5, …

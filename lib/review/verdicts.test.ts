@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { analyzeModel } from "@/lib/analysis";
 import { STANDING_CAUTION } from "./caution";
 import { createReviewContext } from "./context";
-import { bracedColumn, prattWithExtras } from "./test-models";
+import { bracedColumn, prattWithExtras } from "@/tests/support/fixtures/review-models";
 import { memberVerdicts } from "./verdicts";
 
 describe("memberVerdicts", () => {
@@ -26,7 +26,7 @@ describe("memberVerdicts", () => {
 });
 
 describe("bracing judged by stability (issue 15 item 3)", () => {
-  // bracedColumn (test-models.ts): a brace must give k ≥ 4P/L = 4·10/2 = 20 kN/m (restraint.ts: Winter's 2P/L doubled).
+  // bracedColumn (tests/support/fixtures/review-models.ts): a brace must give k ≥ 4P/L = 4·10/2 = 20 kN/m (restraint.ts: Winter's 2P/L doubled).
   const model = bracedColumn();
   const verdicts = new Map(memberVerdicts(createReviewContext(model, analyzeModel(model), { standard: "EN1993-1-1" })).map((v) => [v.member, v]));
 

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { analyzeModel, generateRoof, type TrussModel } from "@/lib/analysis";
-import { seededRandom } from "@/lib/analysis/test-fixtures";
+import { seededRandom } from "@/tests/support/fixtures/analysis-models";
 import { buildTopology } from "@/lib/analysis/topology";
-import { prattTruss } from "./test-models";
+import { prattTruss } from "@/tests/support/fixtures/review-models";
 import { explainZeroForces, inspectZeroForces, loadVectorForResult } from "./why-zero";
 
 /** A random planar truss in x–z (Pratt-, Howe- or mixed web), out-of-plane restraint at every node. */

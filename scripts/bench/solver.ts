@@ -23,7 +23,7 @@ import { analyzeModel, generateRoof, loadVectorForCase, PIVOT_TOLERANCE, prepare
 import { assembleStiffness } from "@/lib/analysis/assemble";
 import { SOLVE_BLOCK } from "@/lib/analysis/prepare";
 import { freeDofsPerNode } from "@/lib/analysis/symbolic";
-import { seededRandom } from "@/lib/analysis/test-fixtures";
+import { seededRandom } from "../../tests/support/fixtures/analysis-models";
 import { symbolicLdl } from "@/lib/analysis/sparse/ldl";
 import { fillReducingOrder } from "@/lib/analysis/sparse/ordering";
 import { solveSupernodalMany } from "@/lib/analysis/sparse/solve-many";

@@ -1,13 +1,13 @@
 // Issue 18 end to end: the import screens for IFC roofs (models page), IFC runs (clashes page) and BCF topics
 // (review sessions page), on a fresh project with one person per role. Every file is written by the test: IFC STEP
-// text from lib/ifc/test-files.ts (entity names and attribute lists of the buildingSMART IFC4 schema) and a BCF 3.0
+// text from tests/support/fixtures/ifc-files.ts (entity names and attribute lists of the buildingSMART IFC4 schema) and a BCF 3.0
 // archive from lib/bcf's writer (its XML is checked against the official BCF 3.0 schemas in lib/bcf/bcf.test.ts).
 import { randomUUID } from "node:crypto";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { readBcf, writeBcf, type BcfFile } from "@/lib/bcf";
 import { memberGlobalId } from "@/lib/ifc/guid";
-import { ifcDuctFile, ifcTriangleAnalysisFile } from "@/lib/ifc/test-files";
+import { ifcDuctFile, ifcTriangleAnalysisFile } from "@/tests/support/fixtures/ifc-files";
 import { launchBrowser, screenshot } from "../support/browser";
 import { closeDb } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
@@ -80,7 +80,7 @@ describe("IFC and BCF import screens", () => {
     const runs = new IfcRunsImport(page);
     await runs.open(fixture.projectId, 1);
     await runs.preview("services.ifc", ifcDuctFile());
-    // lib/ifc/test-files.ts ifcDuctFile: one supply-air run of three segments, one cable tray, an elbow, an ellipse pipe.
+    // tests/support/fixtures/ifc-files.ts ifcDuctFile: one supply-air run of three segments, one cable tray, an elbow, an ellipse pipe.
     expect(await runs.systems()).toEqual(["Supply air: 1", "cable tray: 1"]);
     expect(await runs.summary().textContent()).toContain("2 runs read (drawn in the 3D view above); 1 fitting skipped.");
     expect(await runs.problems()).toEqual([expect.stringMatching(/^2BadSegment00000000001: .*IfcEllipseProfileDef is not read/)]);

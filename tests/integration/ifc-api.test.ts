@@ -7,7 +7,7 @@ import { POST as importIfcRuns } from "@/app/api/projects/[projectId]/runs/ifc/r
 import { listRunsByRevision } from "@/db/queries/mep";
 import { getRevisionForMep } from "@/db/queries/mep";
 import { readIfcRoof } from "@/lib/ifc";
-import { StepText } from "@/lib/ifc/test-files";
+import { StepText } from "@/tests/support/fixtures/ifc-files";
 import { runAnalysisJob } from "@/server/jobs/analysis";
 import { closeDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";

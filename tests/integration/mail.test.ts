@@ -14,7 +14,7 @@ import { proposeClashOutcome } from "@/lib/commands/propose-clash-outcome";
 import { postComment } from "@/lib/commands/post-comment";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analyzeModel } from "@/lib/analysis/analyze";
-import { TRIPOD } from "@/lib/report/test-report";
+import { TRIPOD } from "@/tests/support/fixtures/report";
 import { listCapturedMail } from "@/lib/mail/captured";
 import { queueDailyDigests } from "@/lib/commands/queue-daily-digests";
 import { notifyMention } from "@/lib/commands/mail";

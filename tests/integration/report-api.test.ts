@@ -18,7 +18,7 @@ import { analysisRuns, clashes, pins, projects } from "@/db/schema";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import { STANDING_CAUTION } from "@/lib/review/caution";
-import { TRIPOD } from "@/lib/report/test-report";
+import { TRIPOD } from "@/tests/support/fixtures/report";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";

@@ -5,7 +5,7 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as requestUpload } from "@/app/api/projects/[projectId]/attachments/route";
 import { attachments, modelRevisions } from "@/db/schema";
-import { triangleModel } from "@/lib/analysis/test-fixtures";
+import { triangleModel } from "@/tests/support/fixtures/analysis-models";
 import { requireSameProject } from "@/lib/commands/require-same-project";
 import { HttpError } from "@/lib/http/errors";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";

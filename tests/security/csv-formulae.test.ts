@@ -8,7 +8,7 @@ import { GET as envelope } from "@/app/api/projects/[projectId]/exports/envelope
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
-import { TRIPOD } from "@/lib/report/test-report";
+import { TRIPOD } from "@/tests/support/fixtures/report";
 import { closeDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";

@@ -7,7 +7,7 @@ import { join, relative } from "node:path";
 import { eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { attachments, comments, invitations, jobs, modelRevisions, pins } from "@/db/schema";
-import { triangleModel } from "@/lib/analysis/test-fixtures";
+import { triangleModel } from "@/tests/support/fixtures/analysis-models";
 import type { RouteInputs } from "@/lib/http/route";
 import { database, requestBytes } from "@/lib/limits";
 import { ROLES } from "@/lib/permissions";

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { seededRandom } from "../test-fixtures";
+import { seededRandom } from "@/tests/support/fixtures/analysis-models";
 import { approximateMinimumDegree } from "./amd";
 import { symbolicLdl, type UpperCsc } from "./ldl";
 

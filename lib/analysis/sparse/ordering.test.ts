@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { assembleStiffness } from "../assemble";
 import { generateRoof } from "../generator";
 import { freeDofsPerNode } from "../symbolic";
-import { seededRandom } from "../test-fixtures";
+import { seededRandom } from "@/tests/support/fixtures/analysis-models";
 import { buildTopology } from "../topology";
 import { approximateMinimumDegree } from "./amd";
 import { symbolicLdl } from "./ldl";
