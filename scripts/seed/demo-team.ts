@@ -9,6 +9,7 @@ import { isRole, type Role } from "../../lib/permissions";
 
 export const DEMO_ORGANIZATION = "Northfield Design Collective";
 export const DEMO_PROJECT = "Northfield Community Sports Hall — roof";
+export const DEMO_DESIGN_STANDARD = "EN1993-1-1" as const;
 const DEMO_DESCRIPTION =
   "Double-layer steel grid roof over the main hall of the Northfield community sports hall: structural, architectural and MEP review.";
 
@@ -30,7 +31,7 @@ export async function seedDemoProject(db: Executor): Promise<{ organizationId: s
     .returning();
   const [project] = await db
     .insert(projects)
-    .values({ organizationId: organization.id, name: DEMO_PROJECT, description: DEMO_DESCRIPTION, designStandard: "EN1993-1-1", combinationStandard: "EN1990" })
+    .values({ organizationId: organization.id, name: DEMO_PROJECT, description: DEMO_DESCRIPTION, designStandard: DEMO_DESIGN_STANDARD, combinationStandard: "EN1990" })
     .onConflictDoUpdate({ target: [projects.organizationId, projects.name], set: { description: DEMO_DESCRIPTION } })
     .returning();
   return { organizationId: organization.id, projectId: project.id };
