@@ -98,7 +98,7 @@ async function main() {
     const apiBytes = (await page.evaluate(`(() => {
       const drawn = performance.getEntriesByName("viewer:colouring-drawn")[0].startTime;
       return performance.getEntriesByType("resource").filter((e) => e.name.includes("/api/") && e.responseEnd <= drawn)
-        .map((e) => ({ name: new URL(e.name).pathname.replace(/^\/api\/projects\/[^/]+/, ""), bytes: e.encodedBodySize }));
+        .map((e) => ({ name: new URL(e.name).pathname.split("/").slice(4).join("/"), bytes: e.encodedBodySize }));
     })()`)) as { name: string; bytes: number }[];
     const total = apiBytes.reduce((sum, entry) => sum + entry.bytes, 0);
     record("API bytes before the first drawn result", `${(total / 1e6).toFixed(2)} MB (${apiBytes.map((e) => `${e.name} ${(e.bytes / 1e6).toFixed(2)}`).join(", ")})`, "< 3 MB");
