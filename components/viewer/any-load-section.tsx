@@ -8,6 +8,14 @@ const perKn = (value: number) => `${value > 0 ? "+" : "−"}${Math.abs(value).to
 export function AnyLoadSection({ memberId, review }: { memberId: string; review: StoredReview }) {
   const row = review.members[memberId]?.anyLoad;
   const run = review.anyLoad;
+  if (!run && review.wholeRoofChecksLeftOut) {
+    return (
+      <section className="mb-3 text-xs" data-testid="member-panel-any-load">
+        <h3 className="mb-1 font-semibold">Under any roof load</h3>
+        <p>Not checked: {review.wholeRoofChecksLeftOut}</p>
+      </section>
+    );
+  }
   if (!row || !run) return null;
   const idleVerdict = review.members[memberId].verdict === "idle";
   return (

@@ -16,7 +16,7 @@ export function StabilityPanel({ review, nodeIds }: { review: StoredReview | nul
   const label = entry ? `Buckling mode of ${entry.result}` : "";
   const drawn = mode !== null && mode.label === label;
   let body;
-  if (!stability) body = <p>Not computed for this revision: its review was stored before the overall stability check existed.</p>;
+  if (!stability) body = <p>{review.wholeRoofChecksLeftOut ?? "Not computed for this revision: its review was stored before the overall stability check existed."}</p>;
   else if (!entry) body = <p>Checked for the design results only ({stability.results.map((r) => r.result).join(", ") || "none"}); choose one of them.</p>;
   else if (entry.alphaCr === null) body = <p>{entry.converged ? "No load factor buckles the roof under this result: no member force can destabilise it." : entry.warning}</p>;
   else {

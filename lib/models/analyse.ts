@@ -2,6 +2,7 @@
 // solve. The review keeps per member: verdict (load-bearing / stabilising / bracing / idle) and the governing
 // design check with its arithmetic; what-ifs and why-zero explanations are computed on demand in the browser.
 import { analyzeModel, type AnalysisResult, type TrussModel } from "@/lib/analysis";
+import { wholeRoofCheckMembers } from "@/lib/limits";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { createReviewContext } from "@/lib/review/context";
 import { idleForAnyLoad, type AnyLoadCertificate, type InfluencePeak } from "@/lib/review/any-load";
@@ -41,13 +42,17 @@ export type StoredStability = Omit<OverallStability, "results"> & {
 /** The "idle for any roof load" run, without the per-member rows (those are on each member). */
 export type StoredAnyLoad = Omit<AnyLoadCertificate, "members"> & { patterns: { id: string; name: string }[] };
 
-/** `stability` and `anyLoad` are absent on reviews stored before those checks existed. */
+/**
+ * `stability` and `anyLoad` are absent on reviews stored before those checks existed, and on roofs too large for them
+ * (then `wholeRoofChecksLeftOut` says why).
+ */
 export type StoredReview = {
   standard: DesignStandard;
   caution: string;
   members: Record<string, StoredMemberReview>;
   stability?: StoredStability;
   anyLoad?: StoredAnyLoad;
+  wholeRoofChecksLeftOut?: string;
 };
 
 function storedStability(stability: OverallStability): StoredStability {
@@ -76,7 +81,8 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
   const context = createReviewContext(model, result, { standard });
   const verdicts = memberVerdicts(context);
   const design = designMembers(model, result, { standard });
-  const { members: anyLoadRows, ...anyLoad } = idleForAnyLoad(context);
+  const wholeRoof = model.members.length <= wholeRoofCheckMembers;
+  const certificate = wholeRoof ? idleForAnyLoad(context) : null;
   const members: Record<string, StoredMemberReview> = {};
   model.members.forEach((member, e) => {
     const v = verdicts[e];
@@ -89,10 +95,16 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
       governing: d.governing,
       checks: d.checks,
       warnings: d.warnings,
-      anyLoad: { idle: anyLoadRows[e].idleForAnyLoad, mattersMost: anyLoadRows[e].mattersMost },
+      ...(certificate ? { anyLoad: { idle: certificate.members[e].idleForAnyLoad, mattersMost: certificate.members[e].mattersMost } } : {}),
     };
   });
   // the patterns analysed, shown next to every "idle" verdict: idle depends on them
   const patterns = model.loadCases.map((c) => ({ id: c.id, name: c.name }));
-  return { standard, caution: STANDING_CAUTION, members, stability: storedStability(overallStability(context)), anyLoad: { ...anyLoad, patterns } };
+  if (!certificate) {
+    const leftOut = `Overall stability and "idle for any roof load" are checked for roofs of up to ${wholeRoofCheckMembers.toLocaleString("en")} members; this one has ${model.members.length.toLocaleString("en")}.`;
+    return { standard, caution: STANDING_CAUTION, members, wholeRoofChecksLeftOut: leftOut };
+  }
+  const { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads } = certificate;
+  const anyLoad: StoredAnyLoad = { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads, patterns };
+  return { standard, caution: STANDING_CAUTION, members, stability: storedStability(overallStability(context)), anyLoad };
 }
