@@ -6,7 +6,7 @@ import { readdirSync } from "node:fs";
 import { join, relative } from "node:path";
 import { eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { attachments, comments, invitations, jobs, modelRevisions, pins } from "@/db/schema";
+import { attachments, clashes, comments, invitations, jobs, mepRuns, modelRevisions, notifications, pins } from "@/db/schema";
 import { triangleModel } from "@/tests/support/fixtures/analysis-models";
 import type { RouteInputs } from "@/lib/http/route";
 import { database, requestBytes } from "@/lib/limits";
@@ -130,7 +130,18 @@ async function makeForeignRows() {
     .insert(invitations)
     .values({ projectId: other.projectId, email: `invitee-${randomUUID().slice(0, 8)}@fixture.test`, role: "viewer", tokenHash: randomUUID(), invitedBy: other.users.owner.id, expiresAt: new Date(Date.now() + 86_400_000) })
     .returning();
-  Object.assign(foreignIds, { pinId, commentId, attachmentId: attachment.id, jobId: job.id, invitationId: invitation.id, userId: author });
+  // A run and a clash on the other project's revision, and a notification of its member: ids the routes must not
+  // reach through this project (the run's tag is unique to it, so only its project could find it).
+  await db.insert(mepRuns).values({ revisionId: revision.id, runId: "FOREIGN-RUN-1", system: "supply air", profile: { shape: "round", diameter: 0.4 }, insulation: 0, clearance: 0.05, weightPerMetre: 0.3, points: [{ x: 0, y: 0, z: 1 }, { x: 4, y: 0, z: 1 }], createdBy: author });
+  const [clash] = await db
+    .insert(clashes)
+    .values({ projectId: other.projectId, revisionId: revision.id, clashKey: "foreign", memberId: "AB", runId: "FOREIGN-RUN-1", segmentIndex: 0, kind: "hard", gap: -0.01, depth: 0.01, requiredClearance: 0.05, pointX: 0, pointY: 0, pointZ: 1 })
+    .returning();
+  const [notification] = await db
+    .insert(notifications)
+    .values({ userId: author, kind: "mention", payload: { projectId: other.projectId, pinId, commentId, byName: "Other", excerpt: "Other comment" } })
+    .returning();
+  Object.assign(foreignIds, { pinId, commentId, attachmentId: attachment.id, jobId: job.id, invitationId: invitation.id, userId: author, runId: "FOREIGN-RUN-1", clashId: clash.id, notificationId: notification.id });
 }
 
 /** Rows in every table of the app's schema, summed: a refused request must not change it. */
@@ -208,9 +219,11 @@ describe("hostile input on every route handler (generated from app/api)", () => 
       }
     });
     // each kind of id in the path met at least one route (a renamed segment would silently skip its kind)
-    expect([...covered].sort()).toEqual(["attachmentId", "invitationId", "jobId", "pinId", "userId"]);
+    expect([...covered].sort()).toEqual(["attachmentId", "clashId", "invitationId", "jobId", "notificationId", "pinId", "runId", "userId"]);
     expect(await rowCount()).toBe(before);
     expect(await getDb().select().from(pins).where(eq(pins.id, foreignIds.pinId))).toEqual(pinBefore);
+    expect(await getDb().select().from(notifications).where(eq(notifications.id, foreignIds.notificationId))).toMatchObject([{ readAt: null }]);
+    expect(await getDb().select().from(clashes).where(eq(clashes.id, foreignIds.clashId))).toMatchObject([{ outcome: null, assigneeId: null }]);
   });
 
   it("another project's comment in a query finds nothing of it", async () => {
