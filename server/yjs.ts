@@ -10,7 +10,7 @@ import { writePermissionDenied } from "y-protocols/auth";
 import { docs, getYDoc, setPersistence, setupWSConnection, type WSSharedDoc } from "@y/websocket-server/utils";
 import { appendYjsUpdate, compactYjsUpdates, loadYjsUpdates, loadYjsUpdatesAfter } from "@/db/queries/live-documents";
 import { formatBytes, realtime } from "@/lib/limits";
-import { YJS_PATH_PREFIX } from "@/lib/realtime/events";
+import { DOCUMENT_FULL_CODE, YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { authorize } from "@/lib/permissions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
 import { readClientMessage } from "./yjs-messages";
@@ -110,8 +110,6 @@ async function storeChange(projectId: string, update: Uint8Array): Promise<void>
 
 /** y-websocket's top-level message type for auth messages (y-websocket's protocol: 0 sync, 1 awareness, 2 auth). */
 const MESSAGE_AUTH = 2;
-/** Close code for a change the document cannot take: y-websocket clients do not reconnect after 4400–4499. */
-export const DOCUMENT_FULL_CODE = 4413;
 export const DOCUMENT_FULL_REASON = `The shared notes are full (${formatBytes(realtime.yjsDocumentBytes)}): your last change was not stored.`;
 
 /**

@@ -22,7 +22,7 @@ function applyDiff(text: Y.Text, before: string, after: string) {
 }
 
 export function SessionNotes({ projectId, realtimeUrl, canEdit }: { projectId: string; realtimeUrl: string; canEdit: boolean }) {
-  const { doc, status, synced } = useLiveDocument(projectId, realtimeUrl);
+  const { doc, status, synced, refusal } = useLiveDocument(projectId, realtimeUrl);
   const [value, setValue] = useState("");
 
   useEffect(() => {
@@ -39,14 +39,19 @@ export function SessionNotes({ projectId, realtimeUrl, canEdit }: { projectId: s
       <div className="flex items-center justify-between">
         <h3 className="text-xs font-semibold uppercase tracking-wide text-board-700">Session notes</h3>
         <span className="text-xs text-board-600" data-testid="notes-status">
-          {status === "connected" ? (synced ? "saved live" : "syncing…") : status === "connecting" ? "connecting…" : "offline: edits will merge"}
+          {refusal ? "last change not saved" : status === "connected" ? (synced ? "saved live" : "syncing…") : status === "connecting" ? "connecting…" : "offline: edits will merge"}
         </span>
       </div>
+      {refusal ? (
+        <p role="alert" className="rounded-md border border-clash/40 bg-clash/5 p-2 text-xs text-board-900" data-testid="notes-refused">
+          {refusal} Copy your last change elsewhere and reload the page; remove older notes to make room.
+        </p>
+      ) : null}
       <textarea
         className="min-h-24 rounded-md border border-board-200 p-2 text-sm"
         data-testid="session-notes"
         value={value}
-        readOnly={!canEdit || !doc}
+        readOnly={!canEdit || !doc || refusal !== null}
         placeholder={canEdit ? "Agenda, actions, who does what…" : "Notes appear here as the team writes them."}
         onChange={(event) => {
           if (!doc) return;

@@ -225,6 +225,8 @@ export const clientEventsComplete: [MissingClientEvents] extends [never] ? true 
 /** The socket.io path and the Yjs path prefix of the realtime server (one port for both). */
 export const SOCKET_PATH = "/socket.io";
 export const YJS_PATH_PREFIX = "/yjs/";
+/** Close code of the Yjs endpoint for a change the shared notes cannot take (y-websocket does not reconnect after 4400–4499). */
+export const DOCUMENT_FULL_CODE = 4413;
 
 /** The Yjs document name of a project's live session. */
 export function yjsRoomPath(projectId: string): string {
