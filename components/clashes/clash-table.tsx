@@ -17,7 +17,7 @@ import {
 } from "@tanstack/react-table";
 import Link from "next/link";
 import { Fragment, useMemo, useState } from "react";
-import { FORCE_STATE_LABELS, type ForceState } from "@/lib/clash/member-state";
+import { ENVELOPE_STATE_LABELS, type EnvelopeState } from "@/lib/clash/envelope-state";
 import { CLASH_KIND_LABELS, CLASH_OUTCOME_LABELS, type ClashOutcome } from "@/lib/clash/outcomes";
 import { CLASH_GROUPINGS, CLASH_GROUPING_LABELS, groupKey, groupRows, type ClashGrouping } from "@/lib/clash/groups";
 import type { ClashRowData } from "./types";
@@ -42,16 +42,16 @@ const OUTCOME_LABELS: Record<string, string> = { ...CLASH_OUTCOME_LABELS, undeci
 const columns = helper.columns([
   helper.accessor("memberId", { id: "member", header: "Member", sortFn: "alphanumeric" }),
   helper.accessor((row) => row.verdict ?? "", { id: "verdict", header: "Verdict", sortFn: "alphanumeric" }),
-  helper.accessor((row) => row.forceState ?? "unknown", {
-    id: "forceState",
-    header: "Force state (all combinations)",
+  helper.accessor((row) => row.envelopeState ?? "unknown", {
+    id: "envelopeState",
+    header: "Loading over all combinations",
     filterFn: "equals",
     cell: (info) => {
       const row = info.row.original;
-      const state = row.forceState as ForceState | null;
+      const state = row.envelopeState as EnvelopeState | null;
       return (
         <span>
-          {state ? FORCE_STATE_LABELS[state] : "No results"}
+          {state ? ENVELOPE_STATE_LABELS[state] : "No results"}
           <span className="ml-1 font-mono text-xs text-board-700">
             T {kN(row.maxTension)} / C {kN(row.maxCompression)} kN
           </span>
@@ -73,13 +73,13 @@ const FILTERS = [
   { id: "system", label: "System" },
   { id: "state", label: "State" },
   { id: "outcome", label: "Outcome" },
-  { id: "forceState", label: "Force state" },
+  { id: "envelopeState", label: "Loading over all combinations" },
 ] as const;
 
 function labelFor(filter: string, value: string): string {
   if (filter === "state") return STATE_LABELS[value] ?? value;
   if (filter === "outcome") return OUTCOME_LABELS[value as ClashOutcome | "undecided"] ?? value;
-  if (filter === "forceState") return value === "unknown" ? "No results" : FORCE_STATE_LABELS[value as ForceState];
+  if (filter === "envelopeState") return value === "unknown" ? "No results" : ENVELOPE_STATE_LABELS[value as EnvelopeState];
   return value;
 }
 
@@ -92,7 +92,7 @@ export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: C
       system: values((r) => r.system ?? ""),
       state: values(stateOf),
       outcome: values(outcomeOf),
-      forceState: values((r) => r.forceState ?? "unknown"),
+      envelopeState: values((r) => r.envelopeState ?? "unknown"),
     } as Record<(typeof FILTERS)[number]["id"], string[]>;
   }, [rows]);
   const visible = table.getRowModel().rows;

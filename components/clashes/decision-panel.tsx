@@ -3,7 +3,7 @@
 // needing another look, closed), the forms the caller may use and the history on every revision. The standing
 // caution is always shown.
 import { useQueryClient } from "@tanstack/react-query";
-import { FORCE_STATE_LABELS } from "@/lib/clash/member-state";
+import { ENVELOPE_STATE_LABELS } from "@/lib/clash/envelope-state";
 import { CLASH_KIND_LABELS, CLASH_OUTCOME_LABELS } from "@/lib/clash/outcomes";
 import { clashDecisionRefusal } from "@/lib/permissions";
 import { AssignForm, DecideForm, ProposeForm, SupersedeForm } from "./clash-forms";
@@ -61,7 +61,7 @@ export function DecisionPanel({ projectId, clash, list }: { projectId: string; c
           {clash.status === "cleared" ? " · no longer found by the last detection" : ""}
         </p>
         <p className="text-sm text-board-700">
-          Member: {clash.forceState ? FORCE_STATE_LABELS[clash.forceState] : "no results"}
+          Member: {clash.envelopeState ? ENVELOPE_STATE_LABELS[clash.envelopeState] : "no results"}
           {clash.maxTension !== null ? ` · max tension ${clash.maxTension.toFixed(1)} kN · max compression ${(clash.maxCompression ?? 0).toFixed(1)} kN` : ""}
           {` · verdict: ${clash.verdict ?? "not reviewed"}`}
         </p>

@@ -29,8 +29,8 @@ const colourOf = (colours: Float32Array, k: number) => Array.from(colours.slice(
 describe("force state", () => {
   it("reads tension as positive and takes zero-force from the stored list", () => {
     const states = forceStates(result);
-    expect(Array.from(states)).toEqual([STATE_CODE.tension, STATE_CODE.compression, STATE_CODE.zero, STATE_CODE.tension]);
-    expect(countStates(states)).toEqual({ tension: 2, compression: 1, zero: 1 });
+    expect(Array.from(states)).toEqual([STATE_CODE.tension, STATE_CODE.compression, STATE_CODE["zero-force"], STATE_CODE.tension]);
+    expect(countStates(states)).toEqual({ tension: 2, compression: 1, "zero-force": 1 });
   });
 
   it("colours members with the palette, zero-force thin and translucent", () => {
@@ -39,8 +39,8 @@ describe("force state", () => {
     colourOf(look.colours, 1).forEach((c, a) => expect(c).toBeCloseTo(COMPRESSION[a], 5));
     colourOf(look.colours, 2).forEach((c, a) => expect(c).toBeCloseTo(ZERO[a], 5));
     expect(Array.from(look.translucent)).toEqual([0, 0, 1, 0]);
-    expect(look.legend.counts).toEqual({ tension: 2, compression: 1, zero: 1 });
-    expect(look.legend.entries.map((e) => [e.key, e.count])).toEqual([["tension", 2], ["compression", 1], ["zero", 1]]);
+    expect(look.legend.counts).toEqual({ tension: 2, compression: 1, "zero-force": 1 });
+    expect(look.legend.entries.map((e) => [e.key, e.count])).toEqual([["tension", 2], ["compression", 1], ["zero-force", 1]]);
   });
 
   it("makes thickness grow with |N| so the state reads without colour", () => {
@@ -60,7 +60,7 @@ describe("force state", () => {
     expect(entry?.count).toBe(1);
     expect(look.legend.entries.find((e) => e.key === "tension")?.count).toBe(1);
     // The legend's state counts stay the plain tension / compression / zero-force split.
-    expect(look.legend.counts).toEqual({ tension: 2, compression: 1, zero: 1 });
+    expect(look.legend.counts).toEqual({ tension: 2, compression: 1, "zero-force": 1 });
   });
 });
 

@@ -4,9 +4,9 @@
 import { bitAt, VERDICT_CODES, type WireColumns } from "@/lib/models/result-columns";
 import { memberLook, palette, utilisationScale, verdictColours } from "./config";
 import type { MemberVerdict } from "./types";
+import { FORCE_STATE_LABELS, forceStateOf, type ForceState } from "@/lib/vocabulary/force-state";
 
 export type ColourMode = "forceState" | "magnitude" | "utilisation" | "zeroInAll" | "verdict" | "compare";
-export type ForceState = "tension" | "compression" | "zero";
 export type Rgb = readonly [number, number, number];
 
 export const colourModeLabels: Record<ColourMode, string> = {
@@ -19,8 +19,8 @@ export const colourModeLabels: Record<ColourMode, string> = {
 };
 
 /** State codes stored per member in a Uint8Array. */
-export const STATE_CODE = { tension: 0, compression: 1, zero: 2 } as const;
-const STATE_BY_CODE: ForceState[] = ["tension", "compression", "zero"];
+export const STATE_CODE = { tension: 0, compression: 1, "zero-force": 2 } as const satisfies Record<ForceState, number>;
+const STATE_BY_CODE: ForceState[] = ["tension", "compression", "zero-force"];
 
 /** Parses "#rrggbb" into linear-free 0..1 sRGB components. */
 export function hexToRgb(hex: string): Rgb {
@@ -34,12 +34,6 @@ export function mixRgb(a: Rgb, b: Rgb, t: number): Rgb {
   return [a[0] + (b[0] - a[0]) * k, a[1] + (b[1] - a[1]) * k, a[2] + (b[2] - a[2]) * k];
 }
 
-/** Force state of one member: the stored zero-force list decides zero; otherwise the sign (tension positive). */
-export function forceStateOf(force: number, isZero: boolean): ForceState {
-  if (isZero) return "zero";
-  return force > 0 ? "tension" : "compression";
-}
-
 /** What the colourings read of a result: its columns (forces, zero bits, and the run's review columns). */
 export type ResultColumnsView = Pick<WireColumns, "memberCount" | "forces" | "zero" | "zeroInAll" | "utilisation" | "verdicts" | "hasReview">;
 
@@ -50,11 +44,11 @@ export function forceStates(columns: ResultColumnsView): Uint8Array {
   return states;
 }
 
-export interface StateCounts { tension: number; compression: number; zero: number }
+export type StateCounts = Record<ForceState, number>;
 
 /** How many members are in tension, compression and zero-force. */
 export function countStates(states: Uint8Array): StateCounts {
-  const counts: StateCounts = { tension: 0, compression: 0, zero: 0 };
+  const counts: StateCounts = { tension: 0, compression: 0, "zero-force": 0 };
   for (const code of states) counts[STATE_BY_CODE[code]] += 1;
   return counts;
 }
@@ -89,7 +83,7 @@ export function utilisationColour(utilisation: number): Rgb {
 
 /** Force-state colour, paled towards white for a low-force member (below the user's threshold). */
 export function stateColour(state: ForceState, lowForce: boolean): Rgb {
-  if (state === "zero") return hexToRgb(palette.zeroForce);
+  if (state === "zero-force") return hexToRgb(palette.zeroForce);
   const base = hexToRgb(state === "tension" ? palette.tension : palette.compression);
   return lowForce ? mixRgb([1, 1, 1], base, memberLook.lowForceTint) : base;
 }
@@ -145,7 +139,7 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
   for (let k = 0; k < count; k += 1) {
     const force = columns.forces[k];
     const state = STATE_BY_CODE[states[k]];
-    const isZero = state === "zero";
+    const isZero = state === "zero-force";
     radii[k] = memberRadius(force, maxAbs, isZero, unitLength);
     translucent[k] = isZero ? 1 : 0;
     let colour: Rgb;
@@ -204,9 +198,9 @@ function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<str
   switch (input.mode) {
     case "forceState": {
       const entries: LegendEntry[] = [
-        { key: "tension", label: "Tension", colour: palette.tension, count: n("tension") },
-        { key: "compression", label: "Compression", colour: palette.compression, count: n("compression") },
-        { key: "zero", label: "Zero-force", colour: palette.zeroForce, count: n("zero") },
+        { key: "tension", label: FORCE_STATE_LABELS.tension, colour: palette.tension, count: n("tension") },
+        { key: "compression", label: FORCE_STATE_LABELS.compression, colour: palette.compression, count: n("compression") },
+        { key: "zero-force", label: FORCE_STATE_LABELS["zero-force"], colour: palette.zeroForce, count: n("zero-force") },
       ];
       if (input.lowForceThreshold > 0) {
         entries.push(
@@ -219,7 +213,7 @@ function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<str
     case "magnitude":
       return {
         ...base,
-        entries: [{ key: "zero", label: "Zero-force", colour: palette.zeroForce, count: counts.zero }],
+        entries: [{ key: "zero-force", label: FORCE_STATE_LABELS["zero-force"], colour: palette.zeroForce, count: counts["zero-force"] }],
         scale: { min: -maxAbs, max: maxAbs, unit: "kN", fromColour: palette.compression, midColour: palette.neutral, toColour: palette.tension },
       };
     case "utilisation":

@@ -109,7 +109,7 @@ export function visibleMask(input: VisibilityInput): Uint8Array {
   for (let k = 0; k < memberIds.length; k += 1) {
     const group = groups[memberIds[k]];
     if (group && group !== "other" && !filters.groups[group]) continue;
-    if (filters.hideZeroForce && states[k] === STATE_CODE.zero) continue;
+    if (filters.hideZeroForce && states[k] === STATE_CODE["zero-force"]) continue;
     if (filters.sectionBox) {
       const a = ends[k * 2] * 3;
       const b = ends[k * 2 + 1] * 3;

@@ -48,7 +48,7 @@ export function Legend() {
         </div>
         <div>
           <dt className="text-board-700">Zero-force</dt>
-          <dd className="font-mono text-sm" data-testid="legend-count-zero">{counts.zero}</dd>
+          <dd className="font-mono text-sm" data-testid="legend-count-zero-force">{counts["zero-force"]}</dd>
         </div>
       </dl>
     </section>

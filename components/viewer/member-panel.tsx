@@ -7,6 +7,7 @@ import type { RevisionWithResults } from "@/db/queries/models";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import { apiFetch } from "@/lib/http/fetcher";
 import type { MemberDetail } from "@/lib/models/member-detail";
+import { forceStateOf } from "@/lib/vocabulary/force-state";
 import { InfluenceControl } from "./influence-control";
 import { MemberReviewSection } from "./member-review-section";
 import { resultLabel, type PreparedModel } from "./prepare";
@@ -15,10 +16,6 @@ import { useViewerStore } from "./viewer-store";
 
 const kN = (value: number) => `${value.toFixed(2)} kN`;
 
-function stateWord(force: number, zero: boolean) {
-  if (zero) return "zero-force";
-  return force > 0 ? "tension" : "compression";
-}
 
 export function MemberPanel({ projectId, prepared, analysis, revision }: { projectId: string; prepared: PreparedModel; analysis: AnalysisResult; revision: RevisionWithResults }) {
   const { ask, ready } = useWhatIfWorker(revision.model, analysis, revision.analysis?.review?.standard ?? null);
@@ -81,7 +78,7 @@ export function MemberPanel({ projectId, prepared, analysis, revision }: { proje
                   </button>
                 </td>
                 <td className="text-right font-mono tabular-nums">{kN(force)}</td>
-                <td className={`pl-2 ${zero ? "text-board-700" : force > 0 ? "text-tension" : "text-compression"}`}>{stateWord(force, zero)}</td>
+                <td className={`pl-2 ${zero ? "text-board-700" : force > 0 ? "text-tension" : "text-compression"}`}>{forceStateOf(force, zero)}</td>
               </tr>
             );
           })}

@@ -33,5 +33,8 @@ export interface ViewerAnalysis {
 /** Member classes of lib/analysis classifyMembers; "other" is never filtered out. */
 export type MemberGroup = "top_chord" | "bottom_chord" | "diagonal" | "other";
 export type FilterableGroup = Exclude<MemberGroup, "other">;
-export type MemberVerdict = "load-bearing" | "stabilising" | "bracing" | "idle";
+import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
+
+/** A member's verdict (lib/vocabulary/member-verdict.ts). */
+export type MemberVerdict = MemberVerdictKind;
 

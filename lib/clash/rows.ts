@@ -1,6 +1,6 @@
 import type { EnvelopeEntry } from "@/lib/analysis/analyze";
 import type { Run } from "@/lib/mep/schemas";
-import { memberForceState, type ForceState } from "./member-state";
+import { memberEnvelopeState, type EnvelopeState } from "./envelope-state";
 
 /** The fields of a stored clash the table needs (see db/queries/clashes.ts ClashView). */
 export interface StoredClash {
@@ -33,7 +33,7 @@ export interface StoredClash {
 /** One row of the clash table: the clash plus the run's system and the member's forces, state and verdict. */
 export type ClashTableRow<C extends StoredClash = StoredClash> = C & {
   system: string | null;
-  forceState: ForceState | null;
+  envelopeState: EnvelopeState | null;
   maxTension: number | null;
   maxCompression: number | null;
   verdict: string | null;
@@ -47,7 +47,7 @@ export function clashTableRows<C extends StoredClash>({ clashes, runs, envelope,
     return {
       ...clash,
       system: systems.get(clash.runId) ?? null,
-      forceState: memberForceState(entry, lowForceThreshold),
+      envelopeState: memberEnvelopeState(entry, lowForceThreshold),
       maxTension: entry?.maxTension ?? null,
       maxCompression: entry?.maxCompression ?? null,
       verdict: verdicts[clash.memberId] ?? null,

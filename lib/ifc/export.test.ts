@@ -2,7 +2,8 @@ import * as WebIFC from "web-ifc";
 import { describe, expect, it } from "vitest";
 import { analyzeModel } from "@/lib/analysis";
 import { pointLoads, triangleModel } from "@/tests/support/fixtures/analysis-models";
-import { exportIfc, forceState, memberGlobalId, readIfcRoof } from "./index";
+import { forceStateIn as forceState } from "@/lib/vocabulary/force-state";
+import { exportIfc, memberGlobalId, readIfcRoof } from "./index";
 
 const model = triangleModel({ loadCases: [pointLoads("1a", [["C", 0, 0, -10]])] });
 const analysis = analyzeModel(model);

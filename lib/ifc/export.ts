@@ -1,4 +1,5 @@
 import type { TrussModel } from "@/lib/analysis/model";
+import { forceStateIn } from "@/lib/vocabulary/force-state";
 import { memberGlobalId, stableGlobalId } from "./guid";
 import { cross, length, scale, sub, unit, type Vec3 } from "./placement";
 import { enumValue, list, real, StepWriter, str } from "./step";
@@ -38,11 +39,6 @@ export interface IfcExportInput {
 }
 
 /** The force state of a member in a result, in our words (zero-force as the model's classification says). */
-export function forceState(result: ExportResult, memberId: string): "tension" | "compression" | "zero-force" {
-  if (result.zeroForceMembers.includes(memberId)) return "zero-force";
-  return (result.memberForces[memberId] ?? 0) > 0 ? "tension" : "compression";
-}
-
 /** A reference direction not parallel to `axis`, as IfcAxis2Placement3D needs. */
 const refFor = (axis: Vec3): Vec3 => (Math.abs(axis[2]) < 0.9 ? unit(cross([0, 0, 1], axis)) : [1, 0, 0]);
 
@@ -116,7 +112,7 @@ export function exportIfc(input: IfcExportInput): string {
         w.add(`IFCPROPERTYSINGLEVALUE('ResultId',$,IFCIDENTIFIER(${str(r.id)}),$)`),
         w.add(`IFCPROPERTYSINGLEVALUE('ResultName',$,IFCLABEL(${str(r.name)}),$)`),
         w.add(`IFCPROPERTYSINGLEVALUE('AxialForce',$,IFCFORCEMEASURE(${real(r.memberForces[m.id] ?? 0)}),$)`),
-        w.add(`IFCPROPERTYSINGLEVALUE('ForceState',$,IFCLABEL(${str(forceState(r, m.id))}),$)`),
+        w.add(`IFCPROPERTYSINGLEVALUE('ForceState',$,IFCLABEL(${str(forceStateIn(r, m.id))}),$)`),
       ];
       const pset = w.add(`IFCPROPERTYSET(${gid(`force state ${m.id}`)},$,'Strutroom_ForceState',$,${list(props)})`);
       w.add(`IFCRELDEFINESBYPROPERTIES(${gid(`force state rel ${m.id}`)},$,$,$,(${member}),${pset})`);

@@ -5,7 +5,7 @@ import { readRuns, type IfcRunsResult } from "./runs";
 export { JOIN_TOLERANCE, runIdFromGlobalId, type IfcRunsResult } from "./runs";
 export { MAX_IFC_BYTES, type IfcProblem } from "./reader";
 export { NODE_TOLERANCE, type IfcRoofResult } from "./roof";
-export { exportIfc, forceState, type ExportOpening, type ExportResult, type IfcExportInput } from "./export";
+export { exportIfc, type ExportOpening, type ExportResult, type IfcExportInput } from "./export";
 export { memberGlobalId } from "./guid";
 
 /** Reads the duct, pipe and cable-tray runs of IFC bytes, or one file-level problem. */

@@ -9,10 +9,11 @@ import { idleForAnyLoad, type AnyLoadCertificate, type InfluencePeak } from "@/l
 import { overallStability, type OverallStability } from "@/lib/review/overall-stability";
 import type { DesignStandard } from "@/lib/review/design-checks/types";
 import { designMembers, type MemberDesign } from "@/lib/review/member-design";
-import { memberVerdicts, type VerdictKind } from "@/lib/review/verdicts";
+import { memberVerdicts } from "@/lib/review/verdicts";
+import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
 
 export type StoredMemberReview = {
-  verdict: VerdictKind;
+  verdict: MemberVerdictKind;
   reason: string;
   braces?: string[];
   /** Largest utilisation over the design results; null when the member never carries force. */

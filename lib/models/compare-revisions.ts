@@ -5,7 +5,7 @@ import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
 import type { StoredReview } from "@/lib/models/analyse";
 import { stateChanges, type StateChange } from "@/lib/report/states";
-import type { VerdictKind } from "@/lib/review/verdicts";
+import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
 
 export type ComparedRevision = {
   number: number;
@@ -39,7 +39,7 @@ export type RevisionComparison = {
   results: ResultComparison[];
   /** Results only one of the revisions has (renamed or added cases), named so nobody assumes they were compared. */
   resultsNotCompared: string[];
-  verdicts: { memberId: string; from: VerdictKind; to: VerdictKind }[];
+  verdicts: { memberId: string; from: MemberVerdictKind; to: MemberVerdictKind }[];
   clashes: {
     added: ComparedClash[];
     resolved: (ComparedClash & { why: string })[];

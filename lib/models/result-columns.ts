@@ -6,13 +6,13 @@
 // and the exports. Pure: no I/O.
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
-import type { VerdictKind } from "@/lib/review/verdicts";
+import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
 import type { StoredReview } from "./analyse";
 
 /** Verdict codes: 0 = no verdict (no review, or a member the review left out), then each verdict by its index + 1. */
-export const VERDICT_CODES = ["load-bearing", "stabilising", "bracing", "idle"] as const satisfies readonly VerdictKind[];
+export const VERDICT_CODES = ["load-bearing", "stabilising", "bracing", "idle"] as const satisfies readonly MemberVerdictKind[];
 // Compile-time check that every verdict has a code.
-const everyVerdictCoded: Exclude<VerdictKind, (typeof VERDICT_CODES)[number]> extends never ? true : false = true;
+const everyVerdictCoded: Exclude<MemberVerdictKind, (typeof VERDICT_CODES)[number]> extends never ? true : false = true;
 void everyVerdictCoded;
 
 /** One result's columns as stored. */

@@ -3,7 +3,7 @@
 import Papa from "papaparse";
 import type { AnalysisResult } from "../analysis/analyze";
 import type { TrussModel } from "../analysis/model";
-import { memberState } from "./states";
+import { forceStateIn } from "../vocabulary/force-state";
 
 // Cells starting with =, +, -, @, tab or CR are prefixed with a quote so a spreadsheet shows them as text (OWASP
 // "CSV Injection"). papaparse's own pattern for `escapeFormulae: true` ends in `.*$`, which misses a cell with a
@@ -32,7 +32,7 @@ export function memberForcesCsv(model: TrussModel, result: AnalysisResult, resul
     member.section,
     resultId,
     roundForce(caseResult.memberForces[member.id] ?? 0),
-    memberState(caseResult, member.id),
+    forceStateIn(caseResult, member.id),
   ]);
   return Papa.unparse({ fields: [...MEMBER_FORCE_COLUMNS], data: rows }, UNPARSE) + "\n";
 }

@@ -3,7 +3,8 @@
 import PDFDocument from "pdfkit";
 import type { CaseResult } from "../analysis/analyze";
 import { STANDING_CAUTION } from "../review/caution";
-import { memberState, stateChanges } from "./states";
+import { forceStateIn } from "../vocabulary/force-state";
+import { stateChanges } from "./states";
 import type { ReportInput } from "./types";
 
 const PAGE = { size: "A4", margin: 50, footer: 70 } as const;
@@ -220,7 +221,7 @@ function forces(w: ReportWriter, input: ReportInput, id: string, result: CaseRes
   w.doc.addPage();
   w.heading(`Member forces: ${resultName(input, id)}`);
   w.paragraph("Axial force N in kN, tension positive. State as classified by the analysis.", { color: COLOURS.muted, size: 8.5 });
-  const rows = input.model.members.map((m) => [m.id, kn(result.memberForces[m.id] ?? 0), memberState(result, m.id)]);
+  const rows = input.model.members.map((m) => [m.id, kn(result.memberForces[m.id] ?? 0), forceStateIn(result, m.id)]);
   w.groupedTable(
     [{ header: "Member", width: 70 }, { header: "N (kN)", width: 60, align: "right" }, { header: "State", width: 70 }],
     rows,

@@ -1,13 +1,14 @@
 import { describe, expect, it } from "vitest";
 import type { CaseResult } from "../analysis/analyze";
-import { memberState, stateChanges } from "./states";
+import { forceStateIn } from "../vocabulary/force-state";
+import { stateChanges } from "./states";
 
 const result = (memberForces: Record<string, number>, zeroForceMembers: string[]): CaseResult => ({ memberForces, zeroForceMembers, reactions: {}, displacements: {}, equilibriumResidual: 0 });
 
 describe("member states", () => {
   it("reads zero-force from the analysis' classification, else the sign (tension positive)", () => {
     const r = result({ a: 12, b: -3, c: 1e-12 }, ["c"]);
-    expect(["a", "b", "c"].map((id) => memberState(r, id))).toEqual(["tension", "compression", "zero-force"]);
+    expect(["a", "b", "c"].map((id) => forceStateIn(r, id))).toEqual(["tension", "compression", "zero-force"]);
   });
 
   it("lists only the members whose state changes, in member order", () => {

@@ -1,22 +1,15 @@
-// Member force states per result, and how they change between two results (pure).
+// How members' force states change between two results (pure); the force state itself is lib/vocabulary/force-state.ts.
 import type { CaseResult } from "../analysis/analyze";
+import { forceStateIn, type ForceState } from "../vocabulary/force-state";
 
-export type MemberState = "tension" | "compression" | "zero-force";
-
-/** The member's state in a result: zero-force as the analysis classified it (design.md), else by sign. */
-export function memberState(result: CaseResult, memberId: string): MemberState {
-  if (result.zeroForceMembers.includes(memberId)) return "zero-force";
-  return (result.memberForces[memberId] ?? 0) > 0 ? "tension" : "compression";
-}
-
-export type StateChange = { memberId: string; a: { state: MemberState; force: number }; b: { state: MemberState; force: number } };
+export type StateChange = { memberId: string; a: { state: ForceState; force: number }; b: { state: ForceState; force: number } };
 
 /** The members whose state differs between results a and b, in the model's member order. */
 export function stateChanges(memberIds: string[], a: CaseResult, b: CaseResult): StateChange[] {
   const changes: StateChange[] = [];
   for (const memberId of memberIds) {
-    const stateA = memberState(a, memberId);
-    const stateB = memberState(b, memberId);
+    const stateA = forceStateIn(a, memberId);
+    const stateB = forceStateIn(b, memberId);
     if (stateA !== stateB) {
       changes.push({ memberId, a: { state: stateA, force: a.memberForces[memberId] ?? 0 }, b: { state: stateB, force: b.memberForces[memberId] ?? 0 } });
     }

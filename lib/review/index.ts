@@ -15,7 +15,7 @@ export { removalWhatIf, type RemovalRequest, type RemovalOutcome, type ResultCha
 export { overallStability, STABILITY_TOLERANCE, type OverallStability, type ResultStability } from "./overall-stability";
 export { idleForAnyLoad, ANY_LOAD_RELATIVE, ANY_LOAD_ABSOLUTE, type AnyLoadCertificate, type AnyLoadOptions, type MemberAnyLoad, type InfluencePeak, type LoadAxis } from "./any-load";
 export { checkDeflections, deflectionSpan, DEFAULT_DEFLECTION_LIMIT, type DeflectionCheck } from "./deflection";
-export { memberVerdicts, type MemberVerdict, type VerdictKind } from "./verdicts";
+export { memberVerdicts, type MemberVerdict } from "./verdicts";
 export { explainZeroForces, inspectZeroForces, type WhyZero, type InspectionStep, type ZeroRule } from "./why-zero";
 export { influenceMap, topLayerNodes, type InfluenceMap } from "./influence";
 export { servicesLoadCase, compareServicesLoad, type ServiceRun, type Hanger, type ServicesLoad, type ServicesComparison, type ServicesLoadOptions } from "./services-load";

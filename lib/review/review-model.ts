@@ -6,11 +6,12 @@ import { EN_COMPRESSION_SLENDERNESS_LIMIT, EN_TENSION_SLENDERNESS_LIMIT } from "
 import { checkDeflections, DEFAULT_DEFLECTION_LIMIT, type DeflectionCheck } from "./deflection";
 import { designMembers, type MemberDesign } from "./member-design";
 import { overallStability, type OverallStability } from "./overall-stability";
-import { memberVerdicts, type VerdictKind } from "./verdicts";
+import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
+import { memberVerdicts } from "./verdicts";
 import { explainZeroForces, type WhyZero } from "./why-zero";
 
 export type MemberReview = MemberDesign & {
-  verdict: { verdict: VerdictKind; reason: string; braces?: string[]; caution: string };
+  verdict: { verdict: MemberVerdictKind; reason: string; braces?: string[]; caution: string };
   /** Results in which the member is low-force (below the threshold yet not zero-force). */
   lowForceIn: string[];
   /** Why the member is zero, per result in which it is zero-force. */
@@ -31,7 +32,7 @@ export type ModelReview = {
   loadCasesInNoCombination: string[];
   /** Critical load factor αcr of the whole truss per design result, its modes, and the warning below 10. */
   overallStability: OverallStability;
-  summary: { maxUtilisation: number; governingMember: string | null; overCapacity: string[]; verdicts: Record<VerdictKind, number> };
+  summary: { maxUtilisation: number; governingMember: string | null; overCapacity: string[]; verdicts: Record<MemberVerdictKind, number> };
   caution: string;
 };
 
@@ -93,7 +94,7 @@ export function reviewModel(model: TrussModel, result: AnalysisResult, options: 
 
   let maxUtilisation = 0;
   let governingMember: string | null = null;
-  const counts: Record<VerdictKind, number> = { "load-bearing": 0, stabilising: 0, bracing: 0, idle: 0 };
+  const counts: Record<MemberVerdictKind, number> = { "load-bearing": 0, stabilising: 0, bracing: 0, idle: 0 };
   for (const m of members) {
     counts[m.verdict.verdict]++;
     if (m.governing && m.governing.utilisation > maxUtilisation) {

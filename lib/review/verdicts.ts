@@ -6,7 +6,7 @@ import { fullyRestrained } from "./removal";
 import { BRACE_STIFFNESS_FACTOR, flexibilityBlock, weakestAcross } from "./restraint";
 import { holdingRank } from "./span";
 
-export type VerdictKind = "load-bearing" | "stabilising" | "bracing" | "idle";
+import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
 
 /** A joint of a compression member that would no longer be held across it without this member. */
 export type LostRestraint = {
@@ -22,7 +22,7 @@ export type LostRestraint = {
 
 export type MemberVerdict = {
   member: string;
-  verdict: VerdictKind;
+  verdict: MemberVerdictKind;
   reason: string;
   /** Compression members whose end joint only this member holds (bracing verdicts only). */
   braces?: string[];

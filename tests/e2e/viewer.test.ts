@@ -24,9 +24,9 @@ type Revision = {
 /** The counts the legend must show, computed here from the stored results (tension positive, design notes). */
 function expectedCounts(memberIds: string[], result: CaseResult) {
   const zero = new Set(result.zeroForceMembers);
-  const counts = { tension: 0, compression: 0, zero: 0 };
+  const counts = { tension: 0, compression: 0, "zero-force": 0 };
   for (const id of memberIds) {
-    if (zero.has(id)) counts.zero += 1;
+    if (zero.has(id)) counts["zero-force"] += 1;
     else if (result.memberForces[id] > 0) counts.tension += 1;
     else counts.compression += 1;
   }
@@ -86,7 +86,7 @@ describe("the 3D viewer on the demo roof", () => {
       await viewer.chooseResult(id);
       await expect.poll(() => viewer.legendResultLabel()).toContain(id);
       const expected = expectedCounts(memberIds, revision.analysis.result.results[id]);
-      expect(expected.tension + expected.compression + expected.zero).toBe(memberIds.length);
+      expect(expected.tension + expected.compression + expected["zero-force"]).toBe(memberIds.length);
       expect(await viewer.legendCounts()).toEqual(expected);
       expect(await viewer.hookCounts()).toEqual(expected);
       // The first result was fetched when the page opened (before the listener); every other one now.

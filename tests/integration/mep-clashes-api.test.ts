@@ -97,7 +97,7 @@ describe("clashes", () => {
     expect(body.clashes.map((c: { memberId: string }) => c.memberId).sort()).toEqual(["TCY-0-0", "TCY-1-0", "TCY-2-0", "TCY-3-0"]);
     for (const clash of body.clashes) {
       expect(clash).toMatchObject({ kind: "hard", status: "active", system: "supply air", runId: "SA-01", outcome: null });
-      expect(["zero_in_all", "low_force", "load_bearing"]).toContain(clash.forceState);
+      expect(["zero_in_all", "low_force", "load_bearing"]).toContain(clash.envelopeState);
       expect(["load-bearing", "stabilising", "bracing", "idle"]).toContain(clash.verdict);
     }
     expect((await list(fx.users.structural_engineer)).abilities).toEqual({ propose: true, decide: true, assign: true, editRuns: true, hangServices: true });

@@ -28,7 +28,7 @@ export class ClashesPage {
     return this.page.getByTestId("standing-caution").textContent();
   }
 
-  async filter(by: "system" | "state" | "outcome" | "forceState", value: string) {
+  async filter(by: "system" | "state" | "outcome" | "envelopeState", value: string) {
     await this.page.getByTestId(`clash-filter-${by}`).selectOption(value);
   }
 

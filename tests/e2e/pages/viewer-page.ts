@@ -1,7 +1,7 @@
 import type { Page } from "playwright-core";
 import { appUrl } from "../../support/browser";
 
-type Counts = { tension: number; compression: number; zero: number };
+type Counts = { tension: number; compression: number; "zero-force": number };
 
 /** The 3D viewer of a project. */
 export class ViewerPage {
@@ -31,7 +31,7 @@ export class ViewerPage {
   /** The tension / compression / zero-force counts the legend shows. */
   async legendCounts(): Promise<Counts> {
     const read = async (key: string) => Number(await this.page.getByTestId(`legend-count-${key}`).textContent());
-    return { tension: await read("tension"), compression: await read("compression"), zero: await read("zero") };
+    return { tension: await read("tension"), compression: await read("compression"), "zero-force": await read("zero-force") };
   }
 
   /** Selects a member through the test hook (clicking into a WebGL canvas is unreliable headless). */
