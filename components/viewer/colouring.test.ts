@@ -99,7 +99,7 @@ describe("other colourings", () => {
     const other = columnsOf({ A: 80, B: 10, C: -3, D: 2 }, []);
     const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "compare", unitLength: 1, lowForceThreshold: 0, compareColumns: other, compareLabel: "LC2" });
     // B: tension → compression, C: compression → zero; A and D unchanged.
-    expect(Object.fromEntries(look.legend.entries.map((e) => [e.key, e.count]))).toEqual({ "to-tension": 0, "to-compression": 1, "to-zero": 1, same: 2 });
+    expect(Object.fromEntries(look.legend.entries.map((e) => [e.key, e.count]))).toEqual({ "to-tension": 0, "to-compression": 1, "to-zero-force": 1, same: 2 });
     expect(Array.from(look.translucent)).toEqual([1, 0, 0, 1]);
   });
 });

@@ -249,7 +249,7 @@ function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<str
         entries: [
           { key: "to-tension", label: "Now tension", colour: palette.tension, count: n("to-tension") },
           { key: "to-compression", label: "Now compression", colour: palette.compression, count: n("to-compression") },
-          { key: "to-zero", label: "Now zero-force", colour: palette.zeroForce, count: n("to-zero") },
+          { key: "to-zero-force", label: "Now zero-force", colour: palette.zeroForce, count: n("to-zero-force") },
           { key: "same", label: "Unchanged", colour: palette.filteredOut, count: n("same") },
         ],
       };
