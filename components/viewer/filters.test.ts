@@ -24,7 +24,7 @@ const memberIds = model.members.map((m) => m.id);
 const nodes = buildNodeTable(model);
 const ends = buildMemberEnds(model, nodes);
 // B1 5 kN, B2 zero-force, D1 and D2 -3 kN.
-const states = Uint8Array.from([STATE_CODE.tension, STATE_CODE.zero, STATE_CODE.compression, STATE_CODE.compression]);
+const states = Uint8Array.from([STATE_CODE.tension, STATE_CODE["zero-force"], STATE_CODE.compression, STATE_CODE.compression]);
 
 describe("member filters", () => {
   it("shows everything by default", () => {

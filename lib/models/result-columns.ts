@@ -6,14 +6,11 @@
 // and the exports. Pure: no I/O.
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
-import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
+import { MEMBER_VERDICTS, type MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
 import type { StoredReview } from "./analyse";
 
 /** Verdict codes: 0 = no verdict (no review, or a member the review left out), then each verdict by its index + 1. */
-export const VERDICT_CODES = ["load-bearing", "stabilising", "bracing", "idle"] as const satisfies readonly MemberVerdictKind[];
-// Compile-time check that every verdict has a code.
-const everyVerdictCoded: Exclude<MemberVerdictKind, (typeof VERDICT_CODES)[number]> extends never ? true : false = true;
-void everyVerdictCoded;
+export const VERDICT_CODES: readonly MemberVerdictKind[] = MEMBER_VERDICTS;
 
 /** One result's columns as stored. */
 export type ResultColumns = { resultId: string; forces: Float32Array; zero: Uint8Array; displacements: Float32Array };
