@@ -16,5 +16,6 @@ describe("staleQueryKeys", () => {
     ]);
     expect(staleQueryKeys("p1", { kind: "revision", id: "r", revision: 3 })).toEqual([["projects", "p1", "models"]]);
     expect(staleQueryKeys("p1", { kind: "member", id: "u", revision: null })).toEqual([["projects", "p1", "members"]]);
+    expect(staleQueryKeys("p1", { kind: "pins", id: "p1", revision: null })).toEqual([["projects", "p1", "pins"]]);
   });
 });

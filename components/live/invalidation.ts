@@ -13,5 +13,7 @@ export function staleQueryKeys(projectId: string, { kind, id }: Invalidation): (
       return [[...project, "models"]];
     case "member":
       return [[...project, "members"]];
+    case "pins":
+      return [[...project, "pins"]];
   }
 }

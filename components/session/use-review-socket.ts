@@ -66,8 +66,16 @@ export function useReviewSocket(projectId: string, realtimeUrl: string): ReviewS
     client.on("comment:created", (comment) => store().addComments([comment]));
     client.on("notification:created", (notification) => store().addNotifications([notification]));
     // Changes made through the web app (a clash decided, runs imported, the team changed): refetch them.
-    client.on("live:invalidate", (invalidation) => {
+    client.on("live:invalidate", async (invalidation) => {
       for (const queryKey of staleQueryKeys(projectId, invalidation)) void queryClient.invalidateQueries({ queryKey });
+      // Pins and threads written over HTTP (a BCF import): the socket's own catch-up brings them into the board.
+      const since = store().lastServerTime;
+      if (invalidation.kind !== "pins" || !since) return;
+      const catchUp = await send<CatchUp>(client, "sync:since", { since });
+      if (!catchUp.ok) return;
+      store().upsertPins(catchUp.data.pins);
+      store().addComments(catchUp.data.comments);
+      store().setServerTime(catchUp.data.serverTime);
     });
     client.on("access:changed", (access) => store().welcome({ ...access, session: store().session, serverTime: store().lastServerTime ?? new Date().toISOString() }));
     client.on("access:revoked", ({ message }) => store().setConnection("refused", message));

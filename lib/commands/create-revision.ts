@@ -4,7 +4,7 @@ import { insertRevision } from "@/db/queries/models";
 import type { JobView } from "@/db/queries/jobs";
 import type { TrussModel } from "@/lib/analysis/model";
 import { ConflictError } from "@/lib/http/errors";
-import { withStoredFiles, type ReceivedFile } from "@/lib/storage/attachments";
+import { withStoredFiles, type ReceivedFile } from "@/lib/commands/stored-files";
 import { carryPreviousRunsForward } from "./carry-runs-forward";
 import { runRevisionCommand } from "./command";
 import { enqueueAnalysis } from "./enqueue-analysis";

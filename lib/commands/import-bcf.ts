@@ -4,7 +4,7 @@ import { getDb } from "@/db/client";
 import { findPinsByTopicGuids, insertImportedComments, insertImportedPin, listCommentGuids, touchPin } from "@/db/queries/bcf";
 import { listMembersByProject } from "@/db/queries/memberships";
 import { disciplineOf, fromBcfViewpoint, pinStateOf, type BcfFile, type BcfTopic, type PinViewpoint } from "@/lib/bcf";
-import { withStoredFiles } from "@/lib/storage/attachments";
+import { withStoredFiles } from "@/lib/commands/stored-files";
 import { runCommand } from "./command";
 
 export interface BcfImportSummary {
@@ -42,7 +42,7 @@ export async function importBcf({ projectId, actor, file, memberOf }: { projectI
   const withSnapshot = file.topics.filter((t) => !knownBefore.has(t.guid) && views.get(t.guid)?.snapshot);
   const files = withSnapshot.map((t) => ({ filename: `view-${t.guid}.png`, bytes: views.get(t.guid)!.snapshot! }));
   return withStoredFiles({ projectId, userId: actor.userId, purpose: "snapshot", files }, (record) =>
-    runCommand(async ({ tx, audit }) => {
+    runCommand(async ({ tx, audit, live }) => {
       const stored = await record(tx, {});
       const snapshotOf = new Map(withSnapshot.map((t, k) => [t.guid, stored[k].id]));
       const members = await listMembersByProject({ projectId, db: tx });
@@ -107,6 +107,8 @@ export async function importBcf({ projectId, actor, file, memberOf }: { projectI
         summary.commentsAdded += added;
       }
       await audit({ projectId, actorId: actor.userId, action: "bcf.import", subjectType: "project", subjectId: projectId, details: { ...summary, topics: file.topics.length, snapshots: stored.length } });
+      // Open review boards fetch the pins and threads again (they were written here, not over the socket).
+      if (summary.pinsCreated + summary.commentsAdded > 0) await live({ projectId, kind: "pins", subjectId: projectId });
       return summary;
     }),
   );

@@ -2,7 +2,7 @@ import "server-only";
 import { getPinViewpoint, setPinViewpoint } from "@/db/queries/pins";
 import type { PinViewpoint, StoredPinViewpoint } from "@/lib/bcf";
 import { NotFoundError } from "@/lib/http/errors";
-import { removeStoredFile, withStoredFiles } from "@/lib/storage/attachments";
+import { removeStoredFile, withStoredFiles } from "@/lib/commands/stored-files";
 import { runCommand } from "./command";
 
 /**

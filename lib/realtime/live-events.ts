@@ -2,8 +2,8 @@
 // Viewers refetch what changed (TanStack Query); nothing of the data itself travels this way.
 import { z } from "zod";
 
-/** What changed: a clash (outcome, decision), a revision (new model, analysis), a revision's runs, the team. */
-export const LIVE_EVENT_KINDS = ["clash", "revision", "runs", "member"] as const;
+/** What changed: a clash (outcome, decision), a revision (new model, analysis), a revision's runs, the team, pins and threads written over HTTP (BCF import, saved views). */
+export const LIVE_EVENT_KINDS = ["clash", "revision", "runs", "member", "pins"] as const;
 export type LiveEventKind = (typeof LIVE_EVENT_KINDS)[number];
 
 export const invalidationSchema = z.object({

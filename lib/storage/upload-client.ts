@@ -1,5 +1,5 @@
 // The browser's side of a presigned upload: ask for a ticket (the declared size is checked at once), put the bytes
-// straight into object storage, then have the server check the stored bytes (lib/storage/attachments.ts).
+// straight into object storage, then have the server check the stored bytes (lib/commands/stored-files.ts).
 import { apiFetch } from "@/lib/http/fetcher";
 import type { FilePurpose } from "./content-check";
 

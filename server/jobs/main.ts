@@ -9,7 +9,7 @@ import { closeDb } from "../../db/client";
 import { QUEUES, type AnalysisJobData } from "../../lib/jobs/queue";
 import { queueDailyDigests } from "../../lib/commands/queue-daily-digests";
 import { processOutbox } from "./mail-outbox";
-import { sweepStaleUploads } from "../../lib/storage/attachments";
+import { sweepStaleUploads } from "../../lib/commands/stored-files";
 import { runAnalysisJob } from "./analysis";
 import { serveHealth } from "./health";
 

@@ -8,7 +8,7 @@ import { GET as listAttachments, POST as requestUpload } from "@/app/api/project
 import { POST as confirm } from "@/app/api/projects/[projectId]/attachments/[attachmentId]/confirm/route";
 import { GET as download } from "@/app/api/projects/[projectId]/attachments/[attachmentId]/route";
 import { attachments, comments, pins } from "@/db/schema";
-import { sweepStaleUploads, storeFile } from "@/lib/storage/attachments";
+import { sweepStaleUploads, storeFile } from "@/lib/commands/stored-files";
 import { FILE_RULES } from "@/lib/storage/content-check";
 import { getObject, objectSize } from "@/lib/storage/s3";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";

@@ -9,7 +9,7 @@ import { POST as importBcf } from "@/app/api/projects/[projectId]/pins/bcf/route
 import { listPinsForBcf } from "@/db/queries/bcf";
 import { postComment } from "@/lib/commands/post-comment";
 import { createPin } from "@/lib/commands/create-pin";
-import { auditEvents, pins } from "@/db/schema";
+import { auditEvents, liveEvents, pins } from "@/db/schema";
 import { readBcf } from "@/lib/bcf";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture, type FixtureUser } from "../support/fixtures";
@@ -81,6 +81,8 @@ describe("BCF export and import", () => {
     expect(imported.pin.viewpoint?.sectionBox).toEqual(view.sectionBox);
     // Authors on the target team are matched by e-mail; the source team's people are kept by address.
     expect(imported.comments.map((c) => c.comment.externalAuthor)).toEqual([source.users.architect.email, source.users.structural_engineer.email]);
+    // Open review boards are told to fetch the pins and threads again (a "pins" live event in the same transaction).
+    expect(await getDb().select().from(liveEvents).where(eq(liveEvents.projectId, target.projectId))).toMatchObject([{ kind: "pins", subjectId: target.projectId }]);
     const again = readBcf(await exported(target)).file!;
     expect(again.topics.map((t) => t.guid)).toEqual(readBcf(bytes).file!.topics.map((t) => t.guid));
   });
@@ -95,6 +97,8 @@ describe("BCF export and import", () => {
     expect(await back.json()).toEqual({ pinsCreated: 0, commentsAdded: 0, topicsKnown: 2 });
     const audit = await getDb().select().from(auditEvents).where(eq(auditEvents.projectId, target.projectId));
     expect(audit.filter((e) => e.action === "bcf.import")).toHaveLength(2);
+    // Nothing new, nothing to tell: still only the first import's live event.
+    expect(await getDb().select().from(liveEvents).where(eq(liveEvents.projectId, target.projectId))).toHaveLength(1);
   });
 
   it("imports an official BCF 3.0 test case (buildingSMART, tests/fixtures/bcf) with its labels and comment", async () => {

@@ -14,7 +14,7 @@ import { createPin } from "@/lib/commands/create-pin";
 import { postComment } from "@/lib/commands/post-comment";
 import { readBcf, type BcfFile } from "@/lib/bcf";
 import { memberGlobalId } from "@/lib/ifc/guid";
-import { readSnapshot } from "@/lib/storage/attachments";
+import { readSnapshot } from "@/lib/commands/stored-files";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext, sessionCookie } from "../support/session";

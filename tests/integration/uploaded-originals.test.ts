@@ -9,7 +9,7 @@ import { GET as listRevisions, POST as createRevision } from "@/app/api/projects
 import { POST as importRuns } from "@/app/api/projects/[projectId]/runs/route";
 import { attachments, modelRevisions } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
-import { withStoredFiles } from "@/lib/storage/attachments";
+import { withStoredFiles } from "@/lib/commands/stored-files";
 import { bucket, s3 } from "@/lib/storage/s3";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";

@@ -3,7 +3,7 @@ import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { authorize, type Action } from "@/lib/permissions";
-import { requestUpload } from "@/lib/storage/attachments";
+import { requestUpload } from "@/lib/commands/stored-files";
 import type { UploadPurpose } from "@/lib/storage/content-check";
 import { listAttachmentsQuerySchema, uploadRequestSchema } from "@/lib/storage/schemas";
 

@@ -8,7 +8,7 @@ import { buildRevision } from "@/lib/models/build-revision";
 import { createRevisionSchema, type InlineRevisionRequest } from "@/lib/models/schemas";
 import { requestFromUploadedFiles } from "@/lib/models/uploaded-files";
 import { readModelFiles } from "@/app/api/projects/[projectId]/_lib/uploaded-model-files";
-import type { ReceivedFile } from "@/lib/storage/attachments";
+import type { ReceivedFile } from "@/lib/commands/stored-files";
 
 const encoder = new TextEncoder();
 

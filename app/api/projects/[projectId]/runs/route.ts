@@ -7,7 +7,7 @@ import { requestBytes } from "@/lib/limits";
 import { parseRunsFile } from "@/lib/mep/import";
 import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { importRunsSchema, revisionQuerySchema } from "@/lib/mep/schemas";
-import { withStoredFiles } from "@/lib/storage/attachments";
+import { withStoredFiles } from "@/lib/commands/stored-files";
 
 /** The runs of one revision (`?revision=N`). */
 export const GET = projectRoute({ params: projectParamsSchema, query: revisionQuerySchema, action: "project.read" }, async ({ params, query }) => {

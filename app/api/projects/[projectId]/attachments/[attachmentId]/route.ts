@@ -1,5 +1,5 @@
 import { projectRoute } from "@/lib/http/route";
-import { downloadUrl } from "@/lib/storage/attachments";
+import { downloadUrl } from "@/lib/commands/stored-files";
 import { attachmentParamsSchema } from "@/lib/storage/schemas";
 
 /** Downloads a file: a redirect to a short-lived presigned URL of the object store. */

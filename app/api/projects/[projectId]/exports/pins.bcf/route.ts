@@ -5,7 +5,7 @@ import { NotFoundError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { memberGlobalId } from "@/lib/ifc/guid";
-import { readSnapshot } from "@/lib/storage/attachments";
+import { readSnapshot } from "@/lib/commands/stored-files";
 
 /** Every pin of the project as a BCF 3.0 archive: topics, comments and saved views (camera, member, section box, snapshot). */
 export const GET = projectRoute({ params: projectParamsSchema, action: "report.export" }, async ({ params: { projectId } }) => {

@@ -1,6 +1,6 @@
 import { presentAttachment } from "@/db/queries/attachments";
 import { projectRoute } from "@/lib/http/route";
-import { confirmUpload } from "@/lib/storage/attachments";
+import { confirmUpload } from "@/lib/commands/stored-files";
 import { attachmentParamsSchema } from "@/lib/storage/schemas";
 
 /** Checks the uploaded bytes (size and content) and makes the attachment visible; a refused file is deleted. */

@@ -5,7 +5,7 @@ import { savePinViewpoint } from "@/lib/commands/save-pin-viewpoint";
 import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
 import { projectRoute } from "@/lib/http/route";
 import { authorize } from "@/lib/permissions";
-import { downloadUrl } from "@/lib/storage/attachments";
+import { downloadUrl } from "@/lib/commands/stored-files";
 
 const paramsSchema = z.object({ projectId: z.uuid(), pinId: z.uuid() });
 

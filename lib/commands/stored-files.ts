@@ -4,7 +4,7 @@ import "server-only";
 // final key and only then marks the record ready (or deletes both object and record). Server-side uploads check the bytes first, store them, and write the record
 // last. Pending records nobody confirmed are swept by the jobs process. So no ready record ever points at missing
 // or unchecked bytes, and a failed upload leaves nothing behind.
-import { requireSameProject } from "@/lib/commands/require-same-project";
+import { requireSameProject } from "./require-same-project";
 import { randomUUID } from "node:crypto";
 import {
   deleteAttachmentRecord,
@@ -12,12 +12,12 @@ import {
   insertAttachment,
   listStalePendingAttachments,
   markAttachmentReady,
-} from "../../db/queries/attachments";
-import { withTransaction, type Executor } from "../../db/client";
-import type { Attachment } from "../../db/schema";
-import { HttpError, NotFoundError, ValidationError } from "../http/errors";
-import { checkContent, checkSize, HEAD_BYTES, needsWholeFile, type ContentVerdict, type FilePurpose } from "./content-check";
-import { deleteObject, getObject, objectSize, PRESIGN_SECONDS, presignDownload, presignUpload, putObject } from "./s3";
+} from "@/db/queries/attachments";
+import { withTransaction, type Executor } from "@/db/client";
+import type { Attachment } from "@/db/schema";
+import { HttpError, NotFoundError, ValidationError } from "@/lib/http/errors";
+import { checkContent, checkSize, HEAD_BYTES, needsWholeFile, type ContentVerdict, type FilePurpose } from "@/lib/storage/content-check";
+import { deleteObject, getObject, objectSize, PRESIGN_SECONDS, presignDownload, presignUpload, putObject } from "@/lib/storage/s3";
 
 /** An upload that is refused; 413 when too large, 400 otherwise, with the reason beside the "file" field. */
 export class FileRefusedError extends HttpError {
