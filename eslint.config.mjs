@@ -2,8 +2,8 @@ import nextVitals from "eslint-config-next/core-web-vitals";
 import nextTs from "eslint-config-next/typescript";
 
 // Layering (issue 12): db/ holds SQL only and lib/ computation never touches the database. Commands
-// (lib/commands) and sign-in (lib/auth) are the lib/ code that may use db/; other lib/ files may import db/ types
-// only (no runtime coupling). db/queries and db/client import nothing, not even a type, from HTTP, mail, commands or
+// (lib/commands) and sign-in (lib/auth) are the lib/ code that may use db/; other lib/ files import
+// nothing of it. db/queries and db/client import nothing, not even a type, from HTTP, mail, commands or
 // computation: their types come from the stored columns (db/schema).
 const NOT_IN_DB = ["mail", "http", "commands", "clash", "review", "analysis"];
 
@@ -16,7 +16,7 @@ const config = [
     rules: {
       "no-restricted-imports": [
         "error",
-        { patterns: [{ group: ["@/db/*", "**/db/*", "@/db"], allowTypeImports: true, message: "lib/ computation never uses the database: write a command in lib/commands, or pass the data in." }] },
+        { patterns: [{ group: ["@/db/*", "**/db/*", "@/db"], message: "lib/ computation never uses the database, not even its types: write a command in lib/commands, or pass the data in." }] },
       ],
     },
   },

@@ -2,17 +2,9 @@ import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
 import { memberships, organizations, projects, type Membership, type Project } from "@/db/schema";
+import type { PresentedProject } from "@/lib/projects/for-member";
 
-export type PresentedProject = {
-  id: string;
-  name: string;
-  description: string;
-  organization: { id: string; name: string };
-  designStandard: Project["designStandard"];
-  combinationStandard: Project["combinationStandard"];
-  createdAt: string;
-};
-
+export type { PresentedProject };
 
 function present(project: Project, organization: { id: string; name: string }): PresentedProject {
   return {

@@ -3,8 +3,10 @@ import "server-only";
 // preamble every handler needs — cross-site writes refused, params, signed-in user, membership read once, the rule book, query and body
 // parsed with their zod schemas — then the handler, with every thrown error answered as `{ error, issues? }`.
 import { z } from "zod";
-import type { Membership } from "@/db/schema";
 import { requireMembership, requireUser } from "@/lib/auth/guard";
+
+/** The caller's membership of the project in the URL, as the guard reads it. */
+type Membership = Awaited<ReturnType<typeof requireMembership>>;
 import { getRequestUser, type SessionUser } from "@/lib/auth/session";
 import { authorize, type Action } from "@/lib/permissions";
 import { ForbiddenError, handleRoute } from "./errors";
