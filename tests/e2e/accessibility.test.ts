@@ -1,19 +1,14 @@
 // Issue 17 item 10: every page is checked with axe-core (Deque's accessibility engine, run in the page) against the
 // WCAG 2.1 A and AA rules it automates; no serious or critical violation may remain. The engine is evaluated through
 // the DevTools protocol, so the pages' Content-Security-Policy stays on and unchanged.
-import { readFileSync } from "node:fs";
 import axe from "axe-core";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { appUrl, baseUrl, launchBrowser } from "../support/browser";
+import { DEMO_PROJECT, demoAccount, demoAccounts } from "../support/demo";
 import { ProjectsPage } from "./pages/projects-page";
 import { SignInPage } from "./pages/sign-in-page";
 
-const accounts = JSON.parse(readFileSync(new URL("../../scripts/seed/demo-accounts.json", import.meta.url), "utf8")) as {
-  password: string;
-  users: { email: string; role: string }[];
-};
-const DEMO_PROJECT = "Northfield Community Sports Hall — roof";
 const WEBGL_FLAGS = ["--use-gl=angle", "--use-angle=swiftshader", "--enable-unsafe-swiftshader"];
 
 type Violation = { id: string; impact: string | null; help: string; nodes: { target: unknown[] }[] };
@@ -46,8 +41,7 @@ beforeAll(async () => {
   const signIn = new SignInPage(page);
   await signIn.open();
   expect(await seriousViolations(page), "sign-in page").toEqual([]);
-  const owner = accounts.users.find((u) => u.role === "owner")!;
-  await signIn.signIn(owner.email, accounts.password);
+  await signIn.signIn(demoAccount("owner").email, demoAccounts.password);
   const projects = new ProjectsPage(page);
   await projects.waitForList();
   projectId = await projects.open(DEMO_PROJECT);
