@@ -1,17 +1,22 @@
 /**
- * Command line analysis: `npm run analyze -- model.json` or `npm run analyze -- --csv DIR`.
+ * Command line analysis: `npm run analyze -- model.json`, `npm run analyze -- --csv DIR` or
+ * `npm run analyze -- --generate roof.json` (the roof generator's parameters).
  * Prints the analysis result JSON (design.md) to stdout. Exit codes: 0 analysed, 1 usage or read error,
  * 2 invalid model (each problem on its own stderr line), 3 unstable (the result JSON is still printed).
  */
 import { readdirSync, readFileSync } from "node:fs";
 import { basename, join } from "node:path";
 import { parseArgs } from "node:util";
-import { analyzeModel, modelFromCsv, validateModel, type ValidationResult } from "@/lib/analysis";
+import { analyzeModel, generateRoof, modelFromCsv, roofParamsSchema, validateModel, type ValidationResult } from "@/lib/analysis";
 import { createReviewContext, idleForAnyLoad, reviewModel, type AnyLoadCertificate, type DesignMethod, type DesignStandard, type ModelReview } from "@/lib/review";
 
 // Further flags (e.g. --review) are added to this table; values arrive typed in `args.values`.
 const options = {
   csv: { type: "string", description: "read CSV tables (nodes.csv, members.csv, ...) from this folder" },
+  generate: {
+    type: "string",
+    description: "generate the roof from the roof generator's parameters in this JSON file (spans, module, depth, loads: unbalancedSnow, snowDriftEdge/stepHeight/upperRoofWidth, windZones/windPeakPressure/roofHeight, ...)",
+  },
   threshold: { type: "string", description: "report members below this axial force (kN) as low-force" },
   pretty: { type: "boolean", description: "indent the JSON output" },
   review: { type: "boolean", description: "add design checks, member verdicts and why-zero explanations under \"review\"" },
@@ -31,7 +36,19 @@ const usage = () =>
 
 class UsageError extends Error {}
 
-function readModel(file: string | undefined, csvDir: string | undefined): ValidationResult {
+function readModel(file: string | undefined, csvDir: string | undefined, generateFrom: string | undefined): ValidationResult {
+  if (generateFrom !== undefined) {
+    let input: unknown;
+    try {
+      input = JSON.parse(readFileSync(generateFrom, "utf8"));
+    } catch (error) {
+      if (error instanceof SyntaxError) return { ok: false, problems: [{ where: generateFrom, message: `not valid JSON: ${error.message}` }] };
+      throw error;
+    }
+    const params = roofParamsSchema.safeParse(input);
+    if (!params.success) return { ok: false, problems: params.error.issues.map((i) => ({ where: `${generateFrom}: ${i.path.join(".") || "(parameters)"}`, message: i.message })) };
+    return validateModel(generateRoof(params.data));
+  }
   if (csvDir !== undefined) {
     const tables: Record<string, string> = {};
     for (const name of readdirSync(csvDir)) if (name.toLowerCase().endsWith(".csv")) tables[basename(name)] = readFileSync(join(csvDir, name), "utf8");
@@ -83,7 +100,7 @@ function main(argv: string[]): number {
   }
   let checked: ValidationResult;
   try {
-    checked = readModel(args.positionals[0], args.values.csv);
+    checked = readModel(args.positionals[0], args.values.csv, args.values.generate);
   } catch (error) {
     process.stderr.write(`${(error as Error).message}\n${error instanceof UsageError ? `${usage()}\n` : ""}`);
     return 1;

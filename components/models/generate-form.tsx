@@ -5,7 +5,7 @@ import { limitHints } from "@/lib/limit-hints";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
-import { Button, Field, FormMessage, showServerError } from "@/components/ui/form";
+import { Button, Field, FieldError, FormMessage, showServerError } from "@/components/ui/form";
 import { roofParamsSchema } from "@/lib/analysis/generator";
 import { ApiError, apiFetch } from "@/lib/http/fetcher";
 import { revisionsKey } from "./revision-list";
@@ -31,9 +31,11 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
   const queryClient = useQueryClient();
   const form = useForm<RoofInput, unknown, RoofValues>({
     resolver: zodResolver(roofParamsSchema),
-    defaultValues: { name: "Sports hall roof", pattern: "square_on_square_offset", spanX: 48, spanY: 36, module: 3, depth: 1.8, roofing: 0.6, snow: 0.8, windUplift: 0.7, services: 0.25, fabrication: "hot-finished", imposed: 0, pointLoad: 0, unbalancedSnow: false, combinationRule: "6.10" },
+    defaultValues: { name: "Sports hall roof", pattern: "square_on_square_offset", spanX: 48, spanY: 36, module: 3, depth: 1.8, roofing: 0.6, snow: 0.8, windUplift: 0.7, services: 0.25, fabrication: "hot-finished", imposed: 0, pointLoad: 0, unbalancedSnow: false, combinationRule: "6.10", snowDriftEdge: "none", stepHeight: 0, upperRoofWidth: 0, windZones: false, windPeakPressure: 0, roofHeight: 0 },
   });
   const pattern = useWatch({ control: form.control, name: "pattern" });
+  const driftEdge = useWatch({ control: form.control, name: "snowDriftEdge" });
+  const windZones = useWatch({ control: form.control, name: "windZones" });
   const { errors } = form.formState;
   const save = useMutation({
     mutationFn: (params: RoofValues) => apiFetch<{ revision: { number: number } }>(`/api/projects/${projectId}/models`, { method: "POST", body: { kind: "generate", params } }),
@@ -88,6 +90,36 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
         <input type="checkbox" {...form.register("unbalancedSnow")} data-testid="roof-unbalanced-snow" />
         Unbalanced snow as well: full on one half of the span, half on the other, each half in both directions
       </label>
+      <div className="flex flex-col gap-1">
+        <label htmlFor="roof-snowDriftEdge" className="text-sm font-medium text-board-800">
+          Snow drift at a step (EN 1991-1-3 5.3.6)
+        </label>
+        <select id="roof-snowDriftEdge" className="rounded-md border border-board-200 bg-white px-3 py-2" {...form.register("snowDriftEdge")} aria-describedby="roof-snowDriftEdge-error">
+          <option value="none">No higher roof beside this one</option>
+          <option value="west">A higher roof along the west edge (x = 0)</option>
+          <option value="east">A higher roof along the east edge</option>
+          <option value="south">A higher roof along the south edge (y = 0)</option>
+          <option value="north">A higher roof along the north edge</option>
+        </select>
+        <FieldError id="roof-snowDriftEdge-error" message={errors.snowDriftEdge?.message} />
+      </div>
+      {driftEdge !== "none" ? (
+        <div className="grid grid-cols-2 gap-3">
+          <Field id="roof-stepHeight" label="Height of the step (m)" type="number" step="any" error={errors.stepHeight?.message} {...form.register("stepHeight", { valueAsNumber: true })} />
+          <Field id="roof-upperRoofWidth" label="Width of the higher roof, b1 (m)" type="number" step="any" error={errors.upperRoofWidth?.message} {...form.register("upperRoofWidth", { valueAsNumber: true })} />
+        </div>
+      ) : null}
+      <label className="flex items-center gap-2 text-sm">
+        <input type="checkbox" {...form.register("windZones")} data-testid="roof-wind-zones" />
+        Wind zones F, G, H, I of EN 1991-1-4 7.2.3 from each edge, zone I in suction and in pressure
+      </label>
+      <FieldError id="roof-windZones-error" message={errors.windZones?.message} />
+      {windZones ? (
+        <div className="grid grid-cols-2 gap-3">
+          <Field id="roof-windPeakPressure" label="Peak velocity pressure qp (kN/m²)" type="number" step="any" error={errors.windPeakPressure?.message} {...form.register("windPeakPressure", { valueAsNumber: true })} />
+          <Field id="roof-roofHeight" label="Roof height above ground (m)" type="number" step="any" error={errors.roofHeight?.message} {...form.register("roofHeight", { valueAsNumber: true })} />
+        </div>
+      ) : null}
       <div className="flex flex-col gap-1">
         <label htmlFor="roof-combination-rule" className="text-sm font-medium text-board-800">
           EN 1990 combinations

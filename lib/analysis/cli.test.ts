@@ -69,6 +69,23 @@ describe("npm run analyze (scripts/analyze.ts)", () => {
     expect(bad.stderr).toMatch(/^loads\.csv line 3 \(X\): .*missing node "X"/m);
   }, 60_000);
 
+  it("--generate builds the roof from the generator's parameters, with the drift and wind zone cases; problems name the field", () => {
+    const file = join(dir, "roof.json");
+    writeFileSync(file, JSON.stringify({ spanX: 12, spanY: 9, module: 3, depth: 1.5, snow: 0.8, snowDriftEdge: "west", stepHeight: 2, upperRoofWidth: 10, windZones: true, windPeakPressure: 1, roofHeight: 10 }));
+    const ok = run("--generate", file);
+    expect(ok.code).toBe(0);
+    const result = JSON.parse(ok.stdout);
+    // the drift's total, 158.4 kN, is derived by hand in climatic-loads.test.ts (EN 1991-1-3 5.3.6): the reactions carry it
+    const reactions = Object.values(result.results["snow-drift"].reactions as Record<string, { fz: number }>).reduce((sum, r) => sum + r.fz, 0);
+    expect(reactions).toBeCloseTo(158.4, 6);
+    expect(Object.keys(result.results)).toEqual(expect.arrayContaining(["wind-west-uplift", "wind-north-downward", "ULS-wind-south-uplift"]));
+    writeFileSync(file, JSON.stringify({ spanX: 12, spanY: 9, module: 3, depth: 1.5, windZones: true }));
+    const bad = run("--generate", file);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/roof\.json: windPeakPressure: Give the peak velocity pressure/);
+    expect(bad.stderr).toMatch(/roof\.json: roofHeight: /);
+  }, 60_000);
+
   it("exit 1 for a usage error", () => {
     expect(run("--threshold", "-4", join(dir, "ok.json")).code).toBe(1);
     expect(run().code).toBe(1);

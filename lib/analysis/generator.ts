@@ -1,10 +1,12 @@
 import { z } from "zod";
 import { generator, physical, text } from "../limits";
 import { diagonalBays, diagonalBottomChords, squareOnDiagonalSize } from "./square-on-diagonal";
+import { edgeDimensions, ROOF_EDGES, snowDriftLoads, snowDriftShape, windZoneLoads, type ZoneISign } from "./climatic-loads";
 import { fabrications, type Combination, type Fabrication, type LoadCase, type TrussMember, type TrussModel, type TrussNode, type TrussSection, type TrussSupport } from "./model";
 
 /** Inputs of the double-layer grid roof generator (m, kN/m2); shared by the web form and the server. */
 const pressure = z.number().nonnegative().max(physical.pressure, `Use at most ${physical.pressure} kN/m2.`);
+const height = z.number().nonnegative().max(generator.span.max, `Use at most ${generator.span.max} m.`);
 const range = ({ min, max }: { min: number; max: number }) => z.number().min(min, `Use at least ${min} m.`).max(max, `Use at most ${max} m.`);
 
 /** The double-layer grid layouts the generator builds (names of the common classification of double-layer grids). */
@@ -44,6 +46,20 @@ export const roofParamsSchema = z
     /** Maintenance point load (kN, 0 for none) at one top node, T-i-j; the centre of the roof unless told. */
     pointLoad: z.number().nonnegative().max(physical.pressure * 100, `Use at most ${physical.pressure * 100} kN.`).default(0),
     pointLoadNode: z.string().regex(/^T-\d+-\d+$/, "Give a top node as T-i-j (i along x, j along y).").optional(),
+    /**
+     * Snow drift at a step (EN 1991-1-3 5.3.6): the edge of our roof along which a higher roof stands, "none" for
+     * no step; its height above our roof (m) and the higher roof's width away from the step (m, b1).
+     */
+    snowDriftEdge: z.enum(["none", ...ROOF_EDGES]).default("none"),
+    stepHeight: height.default(0),
+    upperRoofWidth: height.default(0),
+    /**
+     * Wind pressure and suction zones F/G/H/I on the flat roof (EN 1991-1-4 7.2.3), wind from each edge, with zone I
+     * both in suction and in pressure: the peak velocity pressure qp (kN/m2) and the roof's height above ground (m).
+     */
+    windZones: z.boolean().default(false),
+    windPeakPressure: pressure.default(0),
+    roofHeight: height.default(0),
     /** EN 1990 expression (6.10), or the pair (6.10a) and (6.10b) with ξ = 0.85 (Table A1.2(B)). */
     combinationRule: z.enum(["6.10", "6.10a/6.10b"]).default("6.10"),
     /** Which published strength combinations to generate. */
@@ -57,6 +73,20 @@ export const roofParamsSchema = z
       if (Math.abs(bays - Math.round(bays)) > 1e-6 || Math.round(bays) < 2) {
         ctx.addIssue({ code: "custom", path: [key], message: `span must be a whole number (at least 2) of ${p.module} m modules` });
       }
+    }
+    if (p.snowDriftEdge !== "none" && !(p.stepHeight > 0)) {
+      ctx.addIssue({ code: "custom", path: ["stepHeight"], message: "Give the height of the higher roof above this one (m), or choose no step." });
+    }
+    if (p.windZones && !(p.windPeakPressure > 0)) {
+      ctx.addIssue({ code: "custom", path: ["windPeakPressure"], message: "Give the peak velocity pressure qp (kN/m2) for the wind zones." });
+    }
+    if (p.windZones && !(p.roofHeight > 0)) {
+      ctx.addIssue({ code: "custom", path: ["roofHeight"], message: "Give the roof's height above ground (m): the zones' size e = min(b, 2h) depends on it." });
+    }
+    if (p.standard === "ASCE 7-22") {
+      // The shapes are those of EN 1991-1-3 and 1-4; mixing them with ASCE 7 factors would be neither standard.
+      if (p.snowDriftEdge !== "none") ctx.addIssue({ code: "custom", path: ["snowDriftEdge"], message: "Snow drift at a step follows EN 1991-1-3: choose the EN 1990 combinations, or no step." });
+      if (p.windZones) ctx.addIssue({ code: "custom", path: ["windZones"], message: "Wind zones follow EN 1991-1-4: choose the EN 1990 combinations, or leave the zones off." });
     }
     const node = p.pointLoadNode?.match(/^T-(\d+)-(\d+)$/);
     if (node && (Number(node[1]) > Math.round(p.spanX / p.module) || Number(node[2]) > Math.round(p.spanY / p.module))) {
@@ -227,7 +257,7 @@ export function generateRoof(input: RoofParams): TrussModel {
     { id: "snow", name: `Snow ${p.snow} kN/m2`, category: "snow", selfWeight: false, nodalLoads: topLoads(-p.snow) },
     { id: "wind-uplift", name: `Wind uplift ${p.windUplift} kN/m2`, category: "wind", selfWeight: false, nodalLoads: topLoads(p.windUplift) },
   ];
-  const extra: { id: string; kind: "snow" | "imposed" }[] = [];
+  const extra: Extra[] = [];
   if (p.unbalancedSnow) {
     const patterns = [
       { id: "snow-west", where: "full on the west half (low x), half on the east", share: (i: number) => half(i, nx, true) },
@@ -238,6 +268,25 @@ export function generateRoof(input: RoofParams): TrussModel {
     for (const pattern of patterns) {
       loadCases.push({ id: pattern.id, name: `Unbalanced snow ${p.snow} kN/m2, ${pattern.where}`, category: "snow", selfWeight: false, nodalLoads: topLoads(-p.snow, pattern.share) });
       extra.push({ id: pattern.id, kind: "snow" });
+    }
+  }
+  const grid = { nx, ny, a };
+  if (p.snowDriftEdge !== "none") {
+    const edge = p.snowDriftEdge;
+    const shape = snowDriftShape(p.snow, p.stepHeight, p.upperRoofWidth, edgeDimensions(grid, edge).depth);
+    const name = `Snow drift at a ${p.stepHeight} m step on the ${edge} edge: μ1 0.8, μ2 ${shape.mu2.toFixed(2)}, ls ${shape.ls.toFixed(1)} m (EN 1991-1-3 5.3.6)`;
+    loadCases.push({ id: "snow-drift", name, category: "snow", selfWeight: false, nodalLoads: snowDriftLoads(grid, edge, shape) });
+    extra.push({ id: "snow-drift", kind: "snow" });
+  }
+  if (p.windZones) {
+    const zoneI: Record<ZoneISign, string> = { suction: "I in suction (−0.2)", pressure: "I in pressure (+0.2)" };
+    for (const from of ROOF_EDGES) {
+      for (const sign of ["suction", "pressure"] as const) {
+        const id = `wind-${from}-${sign === "suction" ? "uplift" : "downward"}`;
+        const name = `Wind from the ${from}, qp ${p.windPeakPressure} kN/m2, zones F/G/H/I (EN 1991-1-4 7.2.3), ${zoneI[sign]}`;
+        loadCases.push({ id, name, category: "wind", selfWeight: false, nodalLoads: windZoneLoads(grid, from, p.windPeakPressure, p.roofHeight, sign) });
+        extra.push({ id, kind: sign === "suction" ? "wind-uplift" : "wind-downward" });
+      }
     }
   }
   if (p.imposed > 0) {
@@ -267,30 +316,46 @@ export function generateRoof(input: RoofParams): TrussModel {
   };
 }
 
+/** A generated load case beyond dead, services, balanced snow and uniform uplift, by how it combines. */
+type Extra = { id: string; kind: "snow" | "imposed" | "wind-uplift" | "wind-downward" };
+
 /**
  * EN 1990 Annex A1 with the recommended values of Table A1.2(B): γG,sup 1.35, γG,inf 1.00, γQ 1.50, ξ 0.85; ψ0 of
- * Table A1.1: snow 0.5 (sites below 1000 m), roof imposed (category H) 0. Roof imposed load is not combined with
- * snow or wind (EN 1991-1-1 3.3.2(1)), so each gravity variable action leads alone; wind uplift relieves gravity
- * and snow relieves uplift, so neither accompanies the other. (6.10a) with snow only accompanying is 1.35G + 0.75S,
- * (6.10b) with snow leading 1.15G + 1.5S.
+ * Table A1.1: snow 0.5 (sites below 1000 m), wind 0.6, roof imposed (category H) 0. Roof imposed load is not combined
+ * with snow or wind (EN 1991-1-1 3.3.2(1)), so each gravity variable action leads alone; wind uplift relieves
+ * gravity and snow relieves uplift, so neither accompanies the other. (6.10a) with snow only accompanying is
+ * 1.35G + 0.75S, (6.10b) with snow leading 1.15G + 1.5S. A wind zone case with zone I in suction is an uplift case
+ * (1.0G + 1.5W, services not relied upon); with zone I in pressure it leads with snow accompanying:
+ * 1.35G + 1.5W + 0.75S under (6.10), or (6.10a) 1.35G + 0.9W + 0.75S and (6.10b) 1.15G + 1.5W + 0.75S.
  */
-function en1990Combinations(rule: "6.10" | "6.10a/6.10b", extra: { id: string; kind: "snow" | "imposed" }[]): Combination[] {
+function en1990Combinations(rule: "6.10" | "6.10a/6.10b", extra: Extra[]): Combination[] {
   const G = (factor: number) => ({ dead: factor, services: factor });
   const uplift: Combination = { id: "ULS-3", name: "EN 1990 (6.10) wind uplift leading, G favourable: 1.0G + 1.5W", factors: { dead: 1.0, "wind-uplift": 1.5 }, kind: "ultimate" };
   const sls: Combination = { id: "SLS-1", name: "EN 1990 (6.14b) characteristic, snow leading: G + S", factors: { dead: 1.0, services: 1.0, snow: 1.0 }, kind: "serviceability" };
-  const leading = [{ id: "snow", kind: "snow" as const }, ...extra];
+  const wind = ({ id, kind }: Extra): Combination[] => {
+    if (kind === "wind-uplift") return [{ id: `ULS-${id}`, name: `EN 1990 (6.10) ${id} leading, G favourable: 1.0G + 1.5W`, factors: { dead: 1.0, [id]: 1.5 }, kind: "ultimate" }];
+    if (rule === "6.10") return [{ id: `ULS-${id}`, name: `EN 1990 (6.10) ${id} leading, snow accompanying: 1.35G + 1.5W + 1.5·0.5S`, factors: { ...G(1.35), [id]: 1.5, snow: 0.75 }, kind: "ultimate" }];
+    return [
+      { id: `ULS-${id}-a`, name: `EN 1990 (6.10a) ${id} and snow accompanying: 1.35G + 1.5·0.6W + 1.5·0.5S`, factors: { ...G(1.35), [id]: 0.9, snow: 0.75 }, kind: "ultimate" },
+      { id: `ULS-${id}-b`, name: `EN 1990 (6.10b) ${id} leading, snow accompanying: 0.85·1.35G + 1.5W + 1.5·0.5S`, factors: { ...G(1.1475), [id]: 1.5, snow: 0.75 }, kind: "ultimate" },
+    ];
+  };
+  const isWind = (e: Extra) => e.kind === "wind-uplift" || e.kind === "wind-downward";
+  const gravity = extra.filter((e) => !isWind(e));
+  const winds = extra.filter(isWind).flatMap(wind);
   if (rule === "6.10") {
     return [
       { id: "ULS-1", name: "EN 1990 (6.10) permanent only: 1.35G", factors: G(1.35), kind: "ultimate" },
       { id: "ULS-2", name: "EN 1990 (6.10) snow leading: 1.35G + 1.5S", factors: { ...G(1.35), snow: 1.5 }, kind: "ultimate" },
       uplift,
       sls,
-      ...extra.map(({ id }): Combination => ({ id: `ULS-${id}`, name: `EN 1990 (6.10) ${id} leading: 1.35G + 1.5Q`, factors: { ...G(1.35), [id]: 1.5 }, kind: "ultimate" })),
+      ...gravity.map(({ id }): Combination => ({ id: `ULS-${id}`, name: `EN 1990 (6.10) ${id} leading: 1.35G + 1.5Q`, factors: { ...G(1.35), [id]: 1.5 }, kind: "ultimate" })),
+      ...winds,
     ];
   }
   return [
     { id: "ULS-1", name: "EN 1990 (6.10a) permanent only: 1.35G", factors: G(1.35), kind: "ultimate" },
-    ...leading.flatMap(({ id, kind }): Combination[] =>
+    ...[{ id: "snow", kind: "snow" as const }, ...gravity].flatMap(({ id, kind }): Combination[] =>
       kind === "snow"
         ? [
             { id: `ULS-${id}-a`, name: `EN 1990 (6.10a) ${id} accompanying: 1.35G + 1.5·0.5S`, factors: { ...G(1.35), [id]: 0.75 }, kind: "ultimate" },
@@ -301,6 +366,7 @@ function en1990Combinations(rule: "6.10" | "6.10a/6.10b", extra: { id: string; k
     ),
     uplift,
     sls,
+    ...winds,
   ];
 }
 
@@ -309,16 +375,17 @@ function en1990Combinations(rule: "6.10" | "6.10a/6.10b", extra: { id: string; k
  * and W: 1.4D; 1.2D + 1.0S (the companion 0.5W is uplift here, which relieves, so it is left out); 0.9D + 1.0W
  * for uplift. Services are dead load but, as above, not relied upon against uplift. Roof live load: 1.2D + 1.6Lr.
  */
-function asce722Combinations(extra: { id: string; kind: "snow" | "imposed" }[]): Combination[] {
+function asce722Combinations(extra: Extra[]): Combination[] {
   return [
     { id: "LRFD-1", name: "ASCE 7-22 2.3.1: 1.4D", factors: { dead: 1.4, services: 1.4 }, kind: "ultimate" },
     { id: "LRFD-2", name: "ASCE 7-22 2.3.1: 1.2D + 1.0S", factors: { dead: 1.2, services: 1.2, snow: 1.0 }, kind: "ultimate" },
     { id: "LRFD-3", name: "ASCE 7-22 2.3.1: 0.9D + 1.0W (uplift)", factors: { dead: 0.9, "wind-uplift": 1.0 }, kind: "ultimate" },
-    ...extra.map(({ id, kind }): Combination =>
-      kind === "snow"
-        ? { id: `LRFD-${id}`, name: `ASCE 7-22 2.3.1: 1.2D + 1.0S (${id})`, factors: { dead: 1.2, services: 1.2, [id]: 1.0 }, kind: "ultimate" }
-        : { id: `LRFD-${id}`, name: `ASCE 7-22 2.3.1: 1.2D + 1.6Lr (${id})`, factors: { dead: 1.2, services: 1.2, [id]: 1.6 }, kind: "ultimate" },
-    ),
+    ...extra.map(({ id, kind }): Combination => {
+      if (kind === "snow") return { id: `LRFD-${id}`, name: `ASCE 7-22 2.3.1: 1.2D + 1.0S (${id})`, factors: { dead: 1.2, services: 1.2, [id]: 1.0 }, kind: "ultimate" };
+      if (kind === "imposed") return { id: `LRFD-${id}`, name: `ASCE 7-22 2.3.1: 1.2D + 1.6Lr (${id})`, factors: { dead: 1.2, services: 1.2, [id]: 1.6 }, kind: "ultimate" };
+      // roofParamsSchema refuses wind zones with ASCE 7-22 (their shapes are EN 1991-1-4's)
+      throw new Error(`load case ${id} has no ASCE 7-22 combination`);
+    }),
   ];
 }
 
