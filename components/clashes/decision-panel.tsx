@@ -6,6 +6,7 @@ import { useQueryClient } from "@tanstack/react-query";
 import { ENVELOPE_STATE_LABELS } from "@/lib/clash/envelope-state";
 import { CLASH_KIND_LABELS, CLASH_OUTCOME_LABELS } from "@/lib/clash/outcomes";
 import { clashDecisionRefusal } from "@/lib/permissions";
+import { idlePatternsText } from "@/lib/review/analysed-patterns";
 import { AssignForm, DecideForm, ProposeForm, SupersedeForm } from "./clash-forms";
 import { ClashHistory, clashHistoryKey } from "./clash-history";
 import type { ClashListResponse, ClashRowData } from "./types";
@@ -65,6 +66,11 @@ export function DecisionPanel({ projectId, clash, list }: { projectId: string; c
           {clash.maxTension !== null ? ` · max tension ${clash.maxTension.toFixed(1)} kN · max compression ${(clash.maxCompression ?? 0).toFixed(1)} kN` : ""}
           {` · verdict: ${clash.verdict ?? "not reviewed"}`}
         </p>
+        {clash.verdict === "idle" ? (
+          <p className="text-xs text-board-700" data-testid="clash-idle-patterns">
+            {idlePatternsText(list.analysedPatterns)}
+          </p>
+        ) : null}
         <p className="text-sm text-board-700" data-testid="clash-assignment">
           Assignee: {clash.assignee ?? "nobody"}
           {clash.dueOn ? ` · due ${clash.dueOn}` : ""}

@@ -1,6 +1,7 @@
 import type { ClashView } from "@/db/queries/clashes";
 import type { RunView } from "@/db/queries/mep";
 import type { ClashTableRow } from "@/lib/clash/rows";
+import type { AnalysedPattern } from "@/lib/review/analysed-patterns";
 import type { Role } from "@/lib/permissions";
 
 /** One row of GET /api/projects/[projectId]/clashes. */
@@ -13,6 +14,8 @@ export interface ClashListResponse {
   role: Role;
   team: { userId: string; name: string; role: Role }[];
   clashes: ClashRowData[];
+  /** The load cases the verdicts rest on, shown beside "idle"; null for a review that does not list them. */
+  analysedPatterns: AnalysedPattern[] | null;
   abilities: { propose: boolean; decide: boolean; assign: boolean; editRuns: boolean; hangServices: boolean };
   caution: string;
 }

@@ -2,29 +2,32 @@
 // "Under any roof load" in the member panel: whether any load at a loadable node could make the member work (stored
 // with the review), where most, and, beside an "idle" verdict, the load patterns that verdict rests on.
 import type { StoredReview } from "@/lib/models/analyse";
+import { analysedPatterns, idlePatternsText } from "@/lib/review/analysed-patterns";
 
 const perKn = (value: number) => `${value > 0 ? "+" : "−"}${Math.abs(value).toPrecision(3)} kN per kN`;
 
 export function AnyLoadSection({ memberId, review }: { memberId: string; review: StoredReview }) {
   const row = review.members[memberId]?.anyLoad;
   const run = review.anyLoad;
+  const idleVerdict = review.members[memberId]?.verdict === "idle";
+  const patterns = idleVerdict ? (
+    <p className="mb-1" data-testid="member-panel-patterns">
+      {idlePatternsText(analysedPatterns(review))}
+    </p>
+  ) : null;
   if (!run && review.wholeRoofChecksLeftOut) {
     return (
       <section className="mb-3 text-xs" data-testid="member-panel-any-load">
+        {patterns}
         <h3 className="mb-1 font-semibold">Under any roof load</h3>
         <p>Not checked: {review.wholeRoofChecksLeftOut}</p>
       </section>
     );
   }
-  if (!row || !run) return null;
-  const idleVerdict = review.members[memberId].verdict === "idle";
+  if (!row || !run) return patterns ? <section className="mb-3 text-xs">{patterns}</section> : null;
   return (
     <section className="mb-3 text-xs" data-testid="member-panel-any-load">
-      {idleVerdict ? (
-        <p className="mb-1" data-testid="member-panel-patterns">
-          “Idle” holds for the load patterns analysed: {run.patterns.map((p) => `${p.id} (${p.name})`).join("; ") || "none"}.
-        </p>
-      ) : null}
+      {patterns}
       <h3 className="mb-1 font-semibold">Under any roof load</h3>
       {row.idle ? (
         <p data-testid="any-load-verdict">

@@ -59,17 +59,19 @@ export async function getLatestAnalysisForRevision({ revisionId, db = getDb() }:
  * What the clash table needs from the newest analysis of a revision: each member's envelope and verdict. Picked
  * out in SQL because the stored result and review (every case, every check) are large to load and parse.
  */
-export async function getMemberStatesForRevision({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ envelope: Envelope | null; verdicts: unknown }> {
+export async function getMemberStatesForRevision({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ envelope: Envelope | null; verdicts: unknown; patterns: unknown }> {
   const [row] = await db
     .select({
       envelope: sql<Envelope | null>`${analysisRuns.result} -> 'envelope'`,
       verdicts: sql<unknown>`(select jsonb_object_agg(m.key, m.value -> 'verdict') from jsonb_each(${analysisRuns.review} -> 'members') as m)`,
+      // the load cases the verdicts rest on; older reviews kept them under anyLoad
+      patterns: sql<unknown>`coalesce(${analysisRuns.review} -> 'analysedPatterns', ${analysisRuns.review} -> 'anyLoad' -> 'patterns')`,
     })
     .from(analysisRuns)
     .where(eq(analysisRuns.revisionId, revisionId))
     .orderBy(desc(analysisRuns.createdAt))
     .limit(1);
-  return row ?? { envelope: null, verdicts: null };
+  return row ?? { envelope: null, verdicts: null, patterns: null };
 }
 
 /** Every run of a revision, in id order. */

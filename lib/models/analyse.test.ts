@@ -14,6 +14,9 @@ describe("analyseForStorage on a roof past the whole-roof check limit", () => {
     expect(review!.stability).toBeUndefined();
     expect(review!.anyLoad).toBeUndefined();
     expect(Object.values(review!.members).every((m) => m.anyLoad === undefined && typeof m.verdict === "string")).toBe(true);
+    // "idle" rests on the load patterns analysed: kept on the review itself, so they show beside every idle verdict
+    expect(review!.analysedPatterns).toEqual(model.loadCases.map((c) => ({ id: c.id, name: c.name })));
+    expect(review!.analysedPatterns!.map((p) => p.id)).toEqual(["dead", "services", "snow", "wind-uplift"]);
     expect(review!.wholeRoofChecksLeftOut).toBe(`Overall stability and "idle for any roof load" are checked for roofs of up to 10,000 members; this one has ${model.members.length.toLocaleString("en")}.`);
   }, 120_000);
 });

@@ -5,6 +5,7 @@ import { analyzeModel, type AnalysisResult, type TrussModel } from "@/lib/analys
 import { wholeRoofCheckMembers } from "@/lib/limits";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { createReviewContext } from "@/lib/review/context";
+import type { AnalysedPattern } from "@/lib/review/analysed-patterns";
 import { idleForAnyLoad, type AnyLoadCertificate, type InfluencePeak } from "@/lib/review/any-load";
 import { overallStability, type OverallStability } from "@/lib/review/overall-stability";
 import type { DesignStandard } from "@/lib/review/design-checks/types";
@@ -40,8 +41,11 @@ export type StoredStability = Omit<OverallStability, "results"> & {
   }[];
 };
 
-/** The "idle for any roof load" run, without the per-member rows (those are on each member). */
-export type StoredAnyLoad = Omit<AnyLoadCertificate, "members"> & { patterns: { id: string; name: string }[] };
+/**
+ * The "idle for any roof load" run, without the per-member rows (those are on each member). `patterns` only on
+ * reviews stored before the review kept them itself (`analysedPatterns`).
+ */
+export type StoredAnyLoad = Omit<AnyLoadCertificate, "members"> & { patterns?: AnalysedPattern[] };
 
 /**
  * `stability` and `anyLoad` are absent on reviews stored before those checks existed, and on roofs too large for them
@@ -50,6 +54,8 @@ export type StoredAnyLoad = Omit<AnyLoadCertificate, "members"> & { patterns: { 
 export type StoredReview = {
   standard: DesignStandard;
   caution: string;
+  /** Every load case analysed, kept at every roof size (absent on reviews stored before: lib/review/analysed-patterns.ts). */
+  analysedPatterns?: AnalysedPattern[];
   members: Record<string, StoredMemberReview>;
   stability?: StoredStability;
   anyLoad?: StoredAnyLoad;
@@ -99,13 +105,13 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
       ...(certificate ? { anyLoad: { idle: certificate.members[e].idleForAnyLoad, mattersMost: certificate.members[e].mattersMost } } : {}),
     };
   });
-  // the patterns analysed, shown next to every "idle" verdict: idle depends on them
-  const patterns = model.loadCases.map((c) => ({ id: c.id, name: c.name }));
+  // the patterns analysed, shown next to every "idle" verdict at any roof size: idle depends on them
+  const patterns: AnalysedPattern[] = model.loadCases.map((c) => ({ id: c.id, name: c.name }));
   if (!certificate) {
     const leftOut = `Overall stability and "idle for any roof load" are checked for roofs of up to ${wholeRoofCheckMembers.toLocaleString("en")} members; this one has ${model.members.length.toLocaleString("en")}.`;
-    return { standard, caution: STANDING_CAUTION, members, wholeRoofChecksLeftOut: leftOut };
+    return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, wholeRoofChecksLeftOut: leftOut };
   }
   const { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads } = certificate;
-  const anyLoad: StoredAnyLoad = { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads, patterns };
-  return { standard, caution: STANDING_CAUTION, members, stability: storedStability(overallStability(context)), anyLoad };
+  const anyLoad: StoredAnyLoad = { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads };
+  return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, stability: storedStability(overallStability(context)), anyLoad };
 }

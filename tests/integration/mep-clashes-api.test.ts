@@ -100,6 +100,8 @@ describe("clashes", () => {
       expect(["zero_in_all", "low_force", "load_bearing"]).toContain(clash.envelopeState);
       expect(["load-bearing", "stabilising", "bracing", "idle"]).toContain(clash.verdict);
     }
+    // the load patterns every "idle" verdict rests on, read from the stored review (issue 15 item 7)
+    expect(body.analysedPatterns.map((p: { id: string }) => p.id)).toEqual(["dead", "services", "snow", "wind-uplift"]);
     expect((await list(fx.users.structural_engineer)).abilities).toEqual({ propose: true, decide: true, assign: true, editRuns: true, hangServices: true });
   });
 

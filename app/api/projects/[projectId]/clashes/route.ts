@@ -5,7 +5,7 @@ import { copyRunsToRevision } from "@/lib/commands/copy-runs";
 import { redetectClashes } from "@/lib/commands/redetect-clashes";
 import { clashListQuerySchema, detectRequestSchema } from "@/lib/clash/outcomes";
 import { clashTableRows } from "@/lib/clash/rows";
-import { memberVerdicts } from "@/lib/clash/verdicts";
+import { analysedPatternsFrom, memberVerdicts } from "@/lib/clash/verdicts";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
@@ -14,7 +14,8 @@ import { STANDING_CAUTION } from "@/lib/review/caution";
 
 /**
  * The clashes of one revision (`?revision=N&lowForce=kN`) with each member's forces over all combinations, its
- * force state and verdict, plus what the caller may do and the standing caution.
+ * force state and verdict (with the load patterns analysed, which "idle" rests on), plus what the caller may do
+ * and the standing caution.
  */
 export const GET = projectRoute({ params: projectParamsSchema, query: clashListQuerySchema, action: "project.read" }, async ({ params, query, membership }) => {
   const revision = await requireRevision(params.projectId, query.revision);
@@ -31,6 +32,7 @@ export const GET = projectRoute({ params: projectParamsSchema, query: clashListQ
     role: membership.role,
     team: team.map((m) => ({ userId: m.userId, name: m.name, role: m.role })),
     clashes: rows,
+    analysedPatterns: analysedPatternsFrom(states.patterns),
     abilities: {
       propose: authorize(membership, "clash.propose"),
       decide: authorize(membership, "clash.decide"),
