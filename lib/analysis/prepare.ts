@@ -1,5 +1,6 @@
 import { assembleStiffness, type AssembledStiffness } from "./assemble";
 import type { TrussModel } from "./model";
+import { freeNow } from "./sparse/free-now";
 import { solveSupernodalMany } from "./sparse/solve-many";
 import { factorSupernodal, solveSupernodal, type SupernodalFactor } from "./sparse/supernodal";
 import { analyzePattern, canReuse, type SymbolicAnalysis } from "./symbolic";
@@ -52,8 +53,8 @@ export type PreparedStructure = {
   /** Internal nodal forces K u (full 3n), summed member by member from the member forces. */
   internalForces(u: Float64Array): Float64Array;
   /**
-   * Drops the factor (the largest allocation, ~100 MB on a 120 x 120 grid) once no more solves are needed, so
-   * that building results does not hold it; solves afterwards throw.
+   * Drops the factor (the largest allocation, ~100 MB on a 120 x 120 grid) once no more solves are needed and
+   * gives its memory back at once (freeNow), so that building results does not hold it; solves afterwards throw.
    */
   release(): void;
   /**
@@ -217,6 +218,7 @@ export function prepareStructure(model: TrussModel, options: { symbolic?: Symbol
     symbolic,
     symbolicReused: reused,
     release() {
+      if (factor) freeNow(factor.values, factor.inversePivot); // its own arrays; the symbolic structure is kept for reuse
       factor = undefined;
     },
     smallestPivot,
