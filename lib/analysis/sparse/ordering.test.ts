@@ -7,7 +7,7 @@ import { buildTopology } from "../topology";
 import { approximateMinimumDegree } from "./amd";
 import { symbolicLdl } from "./ldl";
 import { nestedDissection } from "./nested-dissection";
-import { fillReducingOrder, predictedFill } from "./ordering";
+import { BOTH_ORDERINGS_UP_TO, dissectionFillBound, fillReducingOrder, predictedFill } from "./ordering";
 
 /** 5-point k x k grid graph with unit spacing, vertex v labelled label(v). */
 function grid(k: number, label: (v: number) => number = (v) => v) {
@@ -54,7 +54,8 @@ describe("nested dissection", () => {
     // column, 2.0 M) exceeds the bound (1.75 M), so a dissection that degenerated into strips would fail here.
     const g = grid(127);
     const fill = predictedFill(g.n, g.adjStart, g.adj, nestedDissection(g.n, g.adjStart, g.adj, g.coords), g.weight);
-    expect(fill).toBeLessThan((31 / 4) * g.n * Math.log2(g.n));
+    expect(dissectionFillBound(g.n, g.weight)).toBe((31 / 4) * g.n * Math.log2(g.n));
+    expect(fill).toBeLessThan(dissectionFillBound(g.n, g.weight));
   });
 
   it("does not depend on how the nodes are numbered", () => {
@@ -84,8 +85,36 @@ describe("fill-reducing ordering", () => {
     const chosen = fillReducingOrder(n, roof.adjStart, roof.adj, roof.coords, weight);
     const amdFill = predictedFill(n, roof.adjStart, roof.adj, approximateMinimumDegree(n, roof.adjStart, roof.adj), weight);
     expect(chosen.method).toBe("nested dissection");
+    expect(chosen.candidates.map((c) => c.method)).toEqual(["nested dissection", "minimum degree"]); // 841 nodes: both compared
     expect(chosen.predictedNnzL).toBeLessThan(amdFill);
     expect(isPermutation(chosen.order, n)).toBe(true);
+  });
+
+  // A 40 x 40 bay roof: 3,281 nodes, more than BOTH_ORDERINGS_UP_TO.
+  const large = buildTopology(generateRoof({ spanX: 120, spanY: 120, module: 3, depth: 2 }));
+  const largeN = large.nodeIds.length;
+  const largeWeight = freeDofsPerNode(large);
+
+  it("takes nested dissection without minimum degree on a large roof that it separates well", () => {
+    expect(largeN).toBeGreaterThan(BOTH_ORDERINGS_UP_TO);
+    const chosen = fillReducingOrder(largeN, large.adjStart, large.adj, large.coords, largeWeight);
+    expect(chosen.method).toBe("nested dissection");
+    expect(chosen.candidates).toEqual([{ method: "nested dissection", predictedNnzL: chosen.predictedNnzL }]);
+    expect(chosen.predictedNnzL).toBeLessThanOrEqual(dissectionFillBound(largeN, largeWeight));
+    expect(isPermutation(chosen.order, largeN)).toBe(true);
+    // the minimum degree ordering that was skipped would have filled more
+    const amdFill = predictedFill(largeN, large.adjStart, large.adj, approximateMinimumDegree(largeN, large.adjStart, large.adj), largeWeight);
+    expect(amdFill).toBeGreaterThan(chosen.predictedNnzL);
+  });
+
+  it("compares with minimum degree when the coordinates do not separate the graph", () => {
+    const random = seededRandom(7);
+    const scrambled = Float64Array.from(large.coords, () => random());
+    const chosen = fillReducingOrder(largeN, large.adjStart, large.adj, scrambled, largeWeight);
+    expect(chosen.candidates.map((c) => c.method)).toEqual(["nested dissection", "minimum degree"]);
+    expect(chosen.candidates[0].predictedNnzL).toBeGreaterThan(dissectionFillBound(largeN, largeWeight));
+    expect(chosen.method).toBe("minimum degree");
+    expect([...chosen.order]).toEqual([...approximateMinimumDegree(largeN, large.adjStart, large.adj)]);
   });
 
   it("keeps minimum degree for a graph too small to dissect", () => {
