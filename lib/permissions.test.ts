@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ACTIONS, ROLES, abilitiesOf, can, authorize, canCloseThread, clashDecisionRefusal, isRole, mayMoveThread, type Action, type Role } from "./permissions";
+import { ACTIONS, ROLES, abilitiesOf, can, authorize, canCloseThread, clashDecisionRefusal, isRole, threadStepRefusal, mayMoveThread, type Action, type Role } from "./permissions";
 
 // The full role × action matrix, written out cell by cell from the team rules (the product owner's table), so a
 // change to lib/permissions.ts that is not also a deliberate change here fails.
@@ -64,6 +64,24 @@ describe("permission table", () => {
     expect(clashDecisionRefusal({ role: "mep_engineer", userId: "se1" }, { outcome: opening.outcome, proposerId: opening.proposerId })).toMatch(/Only the structural engineer/);
     // The rule is about openings: the structural engineer may confirm a reroute they proposed themselves.
     expect(authorize({ role: "structural_engineer", userId: "se1" }, "clash.decide", { kind: "proposal", outcome: "reroute_run", proposerId: "se1" })).toBe(true);
+  });
+
+  it("thread records: anyone who may comment proposes; the structural engineer decides, never their own proposal, and supersedes", () => {
+    const se1 = { role: "structural_engineer", userId: "se1" } as const;
+    const se2 = { role: "structural_engineer", userId: "se2" } as const;
+    const architect = { role: "architect", userId: "ar1" } as const;
+    const viewer = { role: "viewer", userId: "v1" } as const;
+    for (const kind of ["comment", "proposal", "decision", "supersession"] as const) expect(threadStepRefusal(viewer, kind, null)).not.toBeNull();
+    expect(threadStepRefusal(null, "comment", null)).not.toBeNull();
+    expect(threadStepRefusal(architect, "proposal", null)).toBeNull();
+    expect(threadStepRefusal(architect, "decision", null)).toBe("Only the structural engineer records decisions.");
+    expect(threadStepRefusal(architect, "supersession", null)).toMatch(/Only the structural engineer/);
+    expect(threadStepRefusal(se1, "decision", null)).toBeNull();
+    expect(threadStepRefusal(se1, "decision", "ar1")).toBeNull();
+    expect(threadStepRefusal(se1, "decision", "se1")).toMatch(/two people/);
+    expect(authorize(se1, "thread.decide", { kind: "proposal", outcome: null, proposerId: "se1" })).toBe(false);
+    expect(threadStepRefusal(se2, "decision", "se1")).toBeNull();
+    expect(threadStepRefusal(se1, "supersession", null)).toBeNull();
   });
 
   it("lets the same people move a thread as the socket server does: viewers never, closers close and reopen, commenters answer", () => {

@@ -1,6 +1,7 @@
 // The one rule book of Strutroom: the role table (`can`) and the rules that also look at the thing acted on
 // (`authorize`). Route handlers (projectRoute), server actions, socket events, the Yjs endpoint and the pages'
 // buttons all ask here; nothing else decides who may do what.
+import type { CommentKind } from "./realtime/events";
 
 /** Project roles, a closed enum ordered from most to least authority. */
 export const ROLES = ["owner", "structural_engineer", "architect", "mep_engineer", "viewer"] as const;
@@ -77,13 +78,29 @@ export function clashDecisionRefusal(asker: Asker, proposal: { outcome: string |
   return "You proposed this opening; another structural engineer must decide it (proposer and decider of an opening are two people).";
 }
 
+/**
+ * Why a member may not add this kind of comment to a pin's thread, or null when they may. Comments and proposals:
+ * whoever may comment; a decision: the structural engineer, never the proposer of the thread's open proposal (two
+ * people); a supersession: the structural engineer. The socket event, the command and the thread's form ask here.
+ */
+export function threadStepRefusal(asker: Asker, kind: CommentKind, openProposerId: string | null): string | null {
+  if (!authorize(asker, "comment.create")) return "Your role on this project does not allow this.";
+  if (kind === "decision") {
+    if (authorize(asker, "thread.decide", { kind: "proposal", outcome: null, proposerId: openProposerId })) return null;
+    if (!authorize(asker, "review.decide")) return "Only the structural engineer records decisions.";
+    return "You proposed this; another structural engineer must decide it (proposer and decider are two people).";
+  }
+  if (kind === "supersession" && !authorize(asker, "review.decide")) return "Only the structural engineer supersedes a decision.";
+  return null;
+}
+
 /** Every action the role may perform, for the UI to enable buttons from the server's answer. */
 export function abilitiesOf(role: Role | null | undefined): Record<Action, boolean> {
   return Object.fromEntries(ACTIONS.map((action) => [action, can(role, action)])) as Record<Action, boolean>;
 }
 
 /** Actions whose answer depends on the resource as well as the role (kept apart from the role table above). */
-export const RESOURCE_ACTIONS = ["thread.reopen", "session.steer", "session.drive", "notes.edit", "comment.attach", "pin.saveView"] as const;
+export const RESOURCE_ACTIONS = ["thread.reopen", "thread.decide", "session.steer", "session.drive", "notes.edit", "comment.attach", "pin.saveView"] as const;
 export type ResourceAction = (typeof RESOURCE_ACTIONS)[number];
 
 /** Who is asking: their role on the project and their user id (a membership row fits). */
@@ -116,7 +133,9 @@ function ownsResource(asker: NonNullable<Asker>, resource: Resource | undefined,
  * - `comment.attach`: the comment's author, while they may comment;
  * - `pin.saveView` (save the viewer's view and snapshot on a pin): whoever may comment, if they raised the pin or may
  *   close any thread (owner, structural engineer);
- * - `clash.decide` on a proposal: the structural engineer, but never the one who proposed that opening.
+ * - `clash.decide` on a proposal: the structural engineer, but never the one who proposed that opening;
+ * - `thread.decide` (record a decision in a pin's thread, given its open proposal if any): the structural engineer,
+ *   but never the one who proposed it (any proposal in a thread may be an opening or a removal).
  */
 export function authorize(asker: Asker, action: Action | ResourceAction, resource?: Resource): boolean {
   if (!asker) return false;
@@ -136,6 +155,8 @@ export function authorize(asker: Asker, action: Action | ResourceAction, resourc
       return can(asker.role, "comment.create") && (can(asker.role, "thread.close") || ownsResource(asker, resource, "pin"));
     case "clash.decide":
       return can(asker.role, "clash.decide") && !(resource?.kind === "proposal" && resource.outcome === "opening_proposed" && ownsResource(asker, resource, "proposal"));
+    case "thread.decide":
+      return can(asker.role, "review.decide") && !ownsResource(asker, resource, "proposal");
     default:
       return can(asker.role, action);
   }

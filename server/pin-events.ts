@@ -7,7 +7,7 @@ import type { WrittenComment } from "@/lib/commands/write-comment";
 import { getPinById, listPinsChangedSince, setPinState } from "@/db/queries/pins";
 import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
 import { commentCreateSchema, pinCreateSchema, pinSetStateSchema, syncSinceSchema } from "@/lib/realtime/events";
-import { authorize, mayMoveThread } from "@/lib/permissions";
+import { authorize, mayMoveThread, threadStepRefusal } from "@/lib/permissions";
 import { currentMember } from "./auth";
 import { projectRoom, userRoom, type RealtimeServer } from "./context";
 import { onEvent, type RealtimeSocket } from "./handle-event";
@@ -40,9 +40,9 @@ export function registerPinEvents(io: RealtimeServer, socket: RealtimeSocket): v
   });
 
   onEvent(socket, "comment:create", commentCreateSchema, async (input) => {
-    const member = await currentMember({ projectId, userId: user.id });
-    if (!authorize(member, "comment.create")) throw new ForbiddenError();
-    if (input.kind === "decision" && !authorize(member, "review.decide")) throw new ForbiddenError("Only the structural engineer records decisions.");
+    // Who may write this kind of step; the command asks again with the thread's open proposal (two people).
+    const refusal = threadStepRefusal(await currentMember({ projectId, userId: user.id }), input.kind, null);
+    if (refusal) throw new ForbiddenError(refusal);
     const written = await postComment({ ...input, projectId, authorId: user.id, authorName: user.name });
     if (!written) throw new NotFoundError("No such pin in this project.");
     if (written.created) {

@@ -1,13 +1,17 @@
 "use client";
-// One pin's thread: comments oldest first, a reply box (decisions for the structural engineer) and the
-// open / answered / closed state. Its buttons follow the rule book (mayMoveThread), as the server does.
+// One pin's thread: comments and the steps of its record (proposals, decisions, supersessions) oldest first, a
+// reply box and the open / answered / closed state. What the reply may be follows the rule book
+// (threadStepRefusal) and the thread's standing (lib/realtime/thread-record.ts), as the server does.
 import { useEffect, useState, type FormEvent } from "react";
 import { CommentAttachments } from "@/components/files/comment-attachments";
 import { Button, FieldError } from "@/components/ui/form";
 import { useViewerStore } from "@/components/viewer/viewer-store";
 import { apiFetch } from "@/lib/http/fetcher";
 import { mayMoveThread } from "@/lib/permissions";
-import type { PresentedComment, PresentedPin, PinState, Vec3 } from "@/lib/realtime/events";
+import type { CommentKind, PresentedComment, PresentedPin, PinState, Vec3 } from "@/lib/realtime/events";
+import { threadStanding } from "@/lib/realtime/thread-record";
+import { ThreadEntry } from "./thread-entry";
+import { ThreadReplyKind, replyKindsFor } from "./thread-reply-kind";
 import { PinView } from "./pin-view";
 import { useSessionStore } from "./session-store";
 import { send, type ReviewSocket } from "./use-review-socket";
@@ -21,8 +25,13 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
   const asker = me ? { role: me.role, userId: me.id } : null;
   const thread = { state: pin.state, authorId: pin.author.id };
   const [body, setBody] = useState("");
-  const [decision, setDecision] = useState(false);
+  const [kind, setKind] = useState<CommentKind>("comment");
+  const [conditions, setConditions] = useState("");
   const [message, setMessage] = useState<string | null>(null);
+  const standing = threadStanding(comments);
+  const replyKinds = replyKindsFor(asker, standing);
+  // A step the thread no longer takes (someone decided meanwhile) falls back to a comment.
+  const chosen = replyKinds.allowed.includes(kind) ? kind : "comment";
 
   useEffect(() => {
     let cancelled = false;
@@ -36,11 +45,13 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
 
   async function handleReply(event: FormEvent) {
     event.preventDefault();
-    const ack = await send<PresentedComment>(socket, "comment:create", { id: crypto.randomUUID(), pinId: pin.id, body, kind: decision ? "decision" : "comment" });
+    const withConditions = chosen === "decision" && conditions.trim() ? { conditions } : {};
+    const ack = await send<PresentedComment>(socket, "comment:create", { id: crypto.randomUUID(), pinId: pin.id, body, kind: chosen, ...withConditions });
     if (!ack.ok) return setMessage(ack.issues?.[0]?.message ?? ack.error);
     useSessionStore.getState().addComments([ack.data]);
     setBody("");
-    setDecision(false);
+    setKind("comment");
+    setConditions("");
     setMessage(null);
   }
 
@@ -73,24 +84,15 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
       <PinView projectId={projectId} pinId={pin.id} />
       <ol className="flex max-h-64 flex-col gap-2 overflow-y-auto" data-testid="comment-list">
         {comments.map((c) => (
-          <li key={c.id} className={`rounded px-2 py-1 text-sm ${c.kind === "decision" ? "border-l-4 border-tension bg-tension/5" : "bg-board-100"}`} data-testid="comment">
-            <span className="block text-xs text-board-700">
-              {c.author.name}
-              {c.kind === "decision" ? " · decision" : ""} · {new Date(c.createdAt).toLocaleString()}
-            </span>
-            <span className="whitespace-pre-wrap">{c.body}</span>
+          <ThreadEntry key={c.id} comment={c} superseded={comments.some((other) => other.supersedesId === c.id)}>
             <CommentAttachments projectId={projectId} commentId={c.id} canAttach={Boolean(abilities["comment.create"]) && c.author.id === me?.id} />
-          </li>
+          </ThreadEntry>
         ))}
       </ol>
       {abilities["comment.create"] ? (
         <form className="flex flex-col gap-1" onSubmit={handleReply}>
           <textarea className="rounded-md border border-board-200 px-2 py-1 text-sm" aria-label="Reply" placeholder="Reply (use @name to ask someone)" value={body} onChange={(e) => setBody(e.target.value)} data-testid="comment-body" />
-          {abilities["review.decide"] ? (
-            <label className="flex items-center gap-1 text-xs">
-              <input type="checkbox" checked={decision} onChange={(e) => setDecision(e.target.checked)} /> record as a decision
-            </label>
-          ) : null}
+          <ThreadReplyKind kinds={replyKinds} kind={chosen} onKind={setKind} conditions={conditions} onConditions={setConditions} />
           <Button type="submit" data-testid="comment-submit">
             Reply
           </Button>

@@ -23,6 +23,12 @@ const comment = (id: string, createdAt: string): PresentedComment => ({
   kind: "comment",
   body: id,
   author: { id: "a", name: "Amara" },
+  role: null,
+  conditions: null,
+  revision: null,
+  analysisRunId: null,
+  caution: null,
+  supersedesId: null,
   mentions: [],
   createdAt,
 });

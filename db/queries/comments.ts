@@ -1,12 +1,12 @@
 import "server-only";
-import { and, asc, eq, gt } from "drizzle-orm";
+import { and, asc, eq, gt, ne } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
-import { comments, notifications, pins, users } from "../schema";
+import { comments, modelRevisions, notifications, pins, users } from "../schema";
 import type { PresentedComment } from "../../lib/realtime/events";
 
-type CommentRow = { comment: typeof comments.$inferSelect; authorName: string };
+type CommentRow = { comment: typeof comments.$inferSelect; authorName: string; revision: number | null };
 
-function presentComment({ comment, authorName }: CommentRow): PresentedComment {
+function presentComment({ comment, authorName, revision }: CommentRow): PresentedComment {
   return {
     id: comment.id,
     pinId: comment.pinId,
@@ -15,11 +15,21 @@ function presentComment({ comment, authorName }: CommentRow): PresentedComment {
     author: { id: comment.authorId, name: authorName },
     mentions: comment.mentions,
     createdAt: comment.createdAt.toISOString(),
+    role: comment.role,
+    conditions: comment.conditions,
+    revision,
+    analysisRunId: comment.analysisRunId,
+    caution: comment.caution,
+    supersedesId: comment.supersedesId,
   };
 }
 
 function selectComments(db: Executor) {
-  return db.select({ comment: comments, authorName: users.name }).from(comments).innerJoin(users, eq(users.id, comments.authorId));
+  return db
+    .select({ comment: comments, authorName: users.name, revision: modelRevisions.number })
+    .from(comments)
+    .innerJoin(users, eq(users.id, comments.authorId))
+    .leftJoin(modelRevisions, eq(modelRevisions.id, comments.revisionId));
 }
 
 /** The thread of a pin, oldest first (empty when the pin is not in the project). */
@@ -27,8 +37,18 @@ export async function listCommentsByPin({ projectId, pinId }: { projectId: strin
   const rows = await selectComments(getDb())
     .innerJoin(pins, eq(pins.id, comments.pinId))
     .where(and(eq(pins.projectId, projectId), eq(comments.pinId, pinId)))
-    .orderBy(asc(comments.createdAt));
+    .orderBy(asc(comments.createdAt), asc(comments.id));
   return rows.map(presentComment);
+}
+
+/** The steps of a thread's record (proposals, decisions, supersessions), oldest first: what its standing is read from. */
+export async function listThreadSteps({ db, pinId }: { db: Executor; pinId: string }) {
+  const rows = await db
+    .select({ id: comments.id, kind: comments.kind, authorId: comments.authorId })
+    .from(comments)
+    .where(and(eq(comments.pinId, pinId), ne(comments.kind, "comment")))
+    .orderBy(asc(comments.createdAt), asc(comments.id));
+  return rows.map((row) => ({ id: row.id, kind: row.kind, author: { id: row.authorId } }));
 }
 
 /** Comments written in the project after `since` (reconnect catch-up). */

@@ -222,6 +222,21 @@ export async function getDefaultRevisionNumber({ projectId, db = getDb() }: { pr
   return row?.number ?? null;
 }
 
+/**
+ * The revision pages open by default (the current one, else the newest) with its newest analysis (the result set),
+ * or null when the project has no revision: what a thread's proposal or decision is judged on.
+ */
+export async function getDefaultRevisionResultSet({ projectId, db = getDb() }: { projectId: string; db?: Executor }): Promise<{ revisionId: string; analysisRunId: string | null } | null> {
+  const [row] = await db
+    .select({ revisionId: modelRevisions.id, analysisRunId: analysisRuns.id })
+    .from(modelRevisions)
+    .leftJoin(analysisRuns, eq(analysisRuns.revisionId, modelRevisions.id))
+    .where(eq(modelRevisions.projectId, projectId))
+    .orderBy(desc(modelRevisions.isCurrent), desc(modelRevisions.number), desc(analysisRuns.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
 /** A revision's id and the status of its newest analysis (null while none is stored), or null when it does not exist. */
 export async function getRevisionAnalysisStatus(db: Executor, { projectId, number }: { projectId: string; number: number }): Promise<{ id: string; status: "ok" | "unstable" | null } | null> {
   const [row] = await db

@@ -89,9 +89,9 @@ export async function touchPin({ db, pinId }: { db: Executor; pinId: string }): 
   await db.update(pins).set({ updatedAt: new Date() }).where(eq(pins.id, pinId));
 }
 
-/** Whether the pin is in the project. */
-export async function pinInProject({ db, projectId, pinId }: { db: Executor; projectId: string; pinId: string }): Promise<boolean> {
-  const [pin] = await db.select({ id: pins.id }).from(pins).where(and(eq(pins.id, pinId), eq(pins.projectId, projectId)));
+/** Whether the pin is in the project; locks it for the rest of the transaction, so steps of its thread's record are written one at a time. */
+export async function lockPinInProject({ db, projectId, pinId }: { db: Executor; projectId: string; pinId: string }): Promise<boolean> {
+  const [pin] = await db.select({ id: pins.id }).from(pins).where(and(eq(pins.id, pinId), eq(pins.projectId, projectId))).for("update");
   return Boolean(pin);
 }
 

@@ -17,7 +17,8 @@ import {
 import type { StoredPinViewpoint } from "../../lib/bcf/viewpoint";
 import { ANCHOR_KINDS, COMMENT_KINDS, DISCIPLINES, PIN_STATES, type SessionView } from "../../lib/realtime/events";
 import { bytea } from "./bytea";
-import { projects, timestamps, users } from "./core";
+import { projectRole, projects, timestamps, users } from "./core";
+import { analysisRuns, modelRevisions } from "./models";
 
 export const pinState = pgEnum("pin_state", PIN_STATES);
 export const anchorKind = pgEnum("anchor_kind", ANCHOR_KINDS);
@@ -82,6 +83,17 @@ export const comments = pgTable(
     // The BCF comment GUID of an imported comment (a re-import skips it), and its author when not on the team.
     bcfGuid: text(),
     externalAuthor: text(),
+    // What a step of the thread's record (a proposal, decision or supersession; lib/realtime/thread-record.ts) keeps,
+    // append-only (a database trigger refuses changes and deletes): the author's role then, a decision's conditions,
+    // the revision and result set it was judged on (the project's current revision and its newest analysis), the
+    // standing caution shown, and for a supersession the decision it supersedes. Written for members' comments too
+    // (role); null on imported ones.
+    role: projectRole(),
+    conditions: text(),
+    revisionId: uuid().references(() => modelRevisions.id, { onDelete: "set null" }),
+    analysisRunId: uuid().references(() => analysisRuns.id, { onDelete: "set null" }),
+    caution: text(),
+    supersedesId: uuid(),
     ...timestamps,
   },
   (t) => [index("comments_pin_idx").on(t.pinId, t.createdAt), uniqueIndex("comments_bcf_guid_idx").on(t.pinId, t.bcfGuid)],

@@ -58,25 +58,45 @@ export async function notifyMention({
 }
 
 /**
- * Queues the decision mail for a decision recorded in a pin's thread (a comment of kind "decision") to the pin's
- * author and everyone who wrote in the thread, while still members of the project, never the decider.
+ * Queues the mail for a step of a pin's thread record (never to the actor, only to members still on the team): a
+ * proposal, said to be one, to the structural engineers who decide it; a decision, with its conditions, to the pin's
+ * author and everyone who wrote in the thread; a supersession, with its reason, to them and the previous decider.
  */
-export async function notifyThreadDecision({ db, projectId, pinId, commentId, deciderId, excerpt }: { db: Executor; projectId: string; pinId: string; commentId: string; deciderId: string; excerpt: string }): Promise<void> {
+export async function notifyThreadStep({
+  db,
+  projectId,
+  pinId,
+  commentId,
+  step,
+  actorId,
+  text,
+  conditions,
+}: {
+  db: Executor;
+  projectId: string;
+  pinId: string;
+  commentId: string;
+  step: "proposal" | "decision" | "supersession";
+  actorId: string;
+  /** The step's text (an excerpt): what is proposed or decided, or why a decision is superseded. */
+  text: string;
+  conditions: string | null;
+}): Promise<void> {
   const pin = await getPinMailFacts({ db, projectId, pinId });
   if (!pin) throw new Error(`Pin ${pinId} is not in project ${projectId}.`);
-  const involved = [...new Set([pin.authorId, ...(await listThreadWriterIds({ db, pinId }))])].filter((id) => id !== deciderId);
-  const recipients = await listMemberContacts({ db, projectId, userIds: involved });
+  const involved = step === "proposal" ? await structuralEngineerIds({ db, projectId }) : [pin.authorId, ...(await listThreadWriterIds({ db, pinId }))];
+  const recipients = await listMemberContacts({ db, projectId, userIds: [...new Set(involved)].filter((id) => id !== actorId) });
   if (recipients.length === 0) return;
-  const mail = decisionMail({
-    projectName: pin.projectName,
-    deciderName: (await getUserName({ db, userId: deciderId })) ?? "Someone",
-    subject: `the thread "${pin.title}"`,
-    outcome: excerpt,
-    note: null,
-    url: appUrl(`/projects/${projectId}/viewer?pin=${encodeURIComponent(pinId)}`),
-  });
+  const actorName = (await getUserName({ db, userId: actorId })) ?? "Someone";
+  const subject = `the thread "${pin.title}"`;
+  const url = appUrl(`/projects/${projectId}/viewer?pin=${encodeURIComponent(pinId)}`);
+  const mail =
+    step === "decision"
+      ? decisionMail({ projectName: pin.projectName, deciderName: actorName, subject, outcome: text, note: null, conditions, url })
+      : clashStepMail({ projectName: pin.projectName, actorName, step, subject, outcome: step === "proposal" ? text : null, details: step === "supersession" ? [`Reason: ${text}`] : [], url, linkLabel: "Open the thread" });
+  const kind = step === "proposal" ? "proposal" : "decision";
   for (const recipient of recipients) {
-    await enqueueMail({ db, mail: { projectId, kind: "decision", toAddress: recipient.email, ...outboxBodies(mail), dedupeKey: `decision:${commentId}:${recipient.userId}` } });
+    await enqueueMail({ db, mail: { projectId, kind, toAddress: recipient.email, ...outboxBodies(mail), dedupeKey: `${kind}:${commentId}:${recipient.userId}` } });
   }
 }
 

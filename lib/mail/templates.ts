@@ -63,11 +63,14 @@ export function decisionMail(input: {
   subject: string;
   outcome: string;
   note: string | null;
+  /** The conditions a decision was made on, when it has any. */
+  conditions?: string | null;
   url: string;
 }): RenderedMail {
   const blocks: Block[] = [
     { kind: "p", text: `${input.deciderName} recorded a decision on ${input.subject} in ${input.projectName}: ${input.outcome}.` },
   ];
+  if (input.conditions) blocks.push({ kind: "p", text: `Conditions: ${input.conditions}` });
   if (input.note) blocks.push({ kind: "p", text: `Note: ${input.note}` });
   blocks.push({ kind: "link", label: "See it in the model", url: input.url }, { kind: "note", text: STANDING_CAUTION });
   return render(`Decision on ${input.subject}: ${input.outcome} (${input.projectName})`, blocks);
@@ -85,9 +88,10 @@ const CLASH_STEP_VERBS: Record<ClashStep, string> = {
 
 /**
  * A step on a clash: a proposal (not yet a decision, and said so), a decision, a supersession or a re-check on a
- * newer revision. `actorName` is null for the re-check Strutroom makes itself.
+ * newer revision. `actorName` is null for the re-check Strutroom makes itself. A proposal or supersession in a
+ * pin's thread reads the same, with its own link label.
  */
-export function clashStepMail(input: { projectName: string; actorName: string | null; step: ClashStep; subject: string; outcome: string | null; details: string[]; url: string }): RenderedMail {
+export function clashStepMail(input: { projectName: string; actorName: string | null; step: ClashStep; subject: string; outcome: string | null; details: string[]; url: string; linkLabel?: string }): RenderedMail {
   const verb = CLASH_STEP_VERBS[input.step];
   const what = input.outcome ? `: ${input.outcome}` : "";
   const lead =
@@ -99,7 +103,7 @@ export function clashStepMail(input: { projectName: string; actorName: string | 
   const blocks: Block[] = [{ kind: "p", text: lead }];
   if (input.step === "proposal") blocks.push({ kind: "p", text: "This is a proposal, not a decision: the structural engineer decides it." });
   for (const line of input.details) blocks.push({ kind: "p", text: line });
-  blocks.push({ kind: "link", label: "See the clash", url: input.url }, { kind: "note", text: STANDING_CAUTION });
+  blocks.push({ kind: "link", label: input.linkLabel ?? "See the clash", url: input.url }, { kind: "note", text: STANDING_CAUTION });
   const heading = { proposal: "Proposed", decision: "Decided", supersession: "Decision superseded", recheck: "Needs another look" }[input.step];
   return render(`${heading} on ${input.subject}${what} (${input.projectName})`, blocks);
 }

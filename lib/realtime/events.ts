@@ -14,7 +14,11 @@ export type AnchorKind = (typeof ANCHOR_KINDS)[number];
 export const DISCIPLINES = ["structural", "architectural", "mep", "general"] as const;
 export type Discipline = (typeof DISCIPLINES)[number];
 
-export const COMMENT_KINDS = ["comment", "decision"] as const;
+/**
+ * What a comment of a thread is: a plain comment, or a step of the thread's record (a proposal, a decision, or the
+ * supersession of a decision), which is append-only (lib/realtime/thread-record.ts).
+ */
+export const COMMENT_KINDS = ["comment", "proposal", "decision", "supersession"] as const;
 export type CommentKind = (typeof COMMENT_KINDS)[number];
 
 const finite = z.number().finite();
@@ -69,12 +73,16 @@ export const pinCreateSchema = z.object({
 });
 export type PinCreateInput = z.infer<typeof pinCreateSchema>;
 
-export const commentCreateSchema = z.object({
-  id: z.uuid(),
-  pinId: z.uuid(),
-  body,
-  kind: z.enum(COMMENT_KINDS).default("comment"),
-});
+/** A comment or a step of the thread's record; a supersession's body is its reason, a decision may carry conditions. */
+export const commentCreateSchema = z
+  .object({
+    id: z.uuid(),
+    pinId: z.uuid(),
+    body,
+    kind: z.enum(COMMENT_KINDS).default("comment"),
+    conditions: z.string().trim().max(4000).optional(),
+  })
+  .refine((input) => !input.conditions || input.kind === "decision", { path: ["conditions"], message: "Only a decision carries conditions." });
 export type CommentCreateInput = z.infer<typeof commentCreateSchema>;
 
 export const pinSetStateSchema = z.object({ pinId: z.uuid(), state: z.enum(PIN_STATES) });
@@ -123,6 +131,15 @@ export const commentSchema = z.object({
   author: z.object({ id: z.uuid(), name: z.string() }),
   mentions: z.array(z.uuid()),
   createdAt: z.string(),
+  // The record a step keeps (null on plain comments and imported ones): the author's role then, a decision's
+  // conditions, the revision (number) and result set (analysis run) it was judged on, the caution shown, and for a
+  // supersession the decision it supersedes.
+  role: z.enum(ROLES).nullable(),
+  conditions: z.string().nullable(),
+  revision: z.number().int().nullable(),
+  analysisRunId: z.uuid().nullable(),
+  caution: z.string().nullable(),
+  supersedesId: z.uuid().nullable(),
 });
 export type PresentedComment = z.infer<typeof commentSchema>;
 

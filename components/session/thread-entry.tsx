@@ -1,0 +1,26 @@
+// One entry of a pin's thread: a comment, or a step of its record with who (and their role then), when, the
+// revision it was judged on, the conditions or reason, and the caution shown; a superseded decision says so.
+import type { ReactNode } from "react";
+import { ROLE_LABELS } from "@/lib/permissions";
+import type { PresentedComment } from "@/lib/realtime/events";
+import { isRecordStep, THREAD_STEP_LABELS } from "@/lib/realtime/thread-record";
+
+export function ThreadEntry({ comment: c, superseded, children }: { comment: PresentedComment; superseded: boolean; children?: ReactNode }) {
+  const step = isRecordStep(c.kind) ? c.kind : null;
+  const accent = c.kind === "decision" ? "border-l-4 border-tension bg-tension/5" : step ? "border-l-4 border-compression bg-board-100" : "bg-board-100";
+  return (
+    <li className={`rounded px-2 py-1 text-sm ${accent}`} data-testid="comment" data-kind={c.kind}>
+      <span className="block text-xs text-board-700">
+        {step ? <span className="font-medium">{THREAD_STEP_LABELS[step]} · </span> : null}
+        {c.author.name}
+        {c.role ? ` (${ROLE_LABELS[c.role]})` : ""} · {new Date(c.createdAt).toLocaleString()}
+        {step && c.revision !== null ? ` · judged on revision ${c.revision}` : ""}
+        {superseded ? <span className="ml-1 rounded bg-board-200 px-1">superseded</span> : null}
+      </span>
+      <span className="whitespace-pre-wrap">{c.kind === "supersession" ? `Reason: ${c.body}` : c.body}</span>
+      {c.conditions ? <span className="block text-board-700" data-testid="comment-conditions-shown">Conditions: {c.conditions}</span> : null}
+      {step && step !== "supersession" && c.caution ? <span className="block text-xs text-board-700">Caution shown: {c.caution}</span> : null}
+      {children}
+    </li>
+  );
+}
