@@ -13,6 +13,8 @@ const PHASE_LABELS: Record<string, string> = {
   analysis: "Solving every load case and combination",
   review: "Reviewing members (checks, verdicts)",
   storing: "Storing the results",
+  factorising: "Factorising the stiffness",
+  "unit loads": "Solving a unit load at every top-layer node",
   done: "Analysed",
   failed: "Failed",
 };
@@ -53,7 +55,7 @@ export function JobProgress({ projectId, job, canRetry }: { projectId: string; j
         </p>
         {canRetry ? (
           <Button type="button" variant="quiet" onClick={() => retry.mutate()} disabled={retry.isPending} data-testid="job-retry">
-            {retry.isPending ? "Queuing again…" : "Retry the analysis"}
+            {retry.isPending ? "Queuing again…" : job.kind === "any_load" ? "Retry the check" : "Retry the analysis"}
           </Button>
         ) : null}
         <FormMessage message={retry.error?.message} />

@@ -4,10 +4,9 @@
 import { useQuery } from "@tanstack/react-query";
 import { useSearchParams } from "next/navigation";
 import { useEffect, useMemo } from "react";
-import { ModelViewer, revisionQueryKey } from "@/components/viewer/model-viewer";
+import { fetchRevision, ModelViewer, revisionQueryKey } from "@/components/viewer/model-viewer";
 import { PinsLayer, type PinMarker } from "@/components/viewer/layers/pins-layer";
 import { MepViewerLayer } from "@/components/clashes/mep-viewer-layer";
-import type { RevisionWithResults } from "@/db/queries/models";
 import { apiFetch } from "@/lib/http/fetcher";
 import { resolveAnchor } from "@/lib/realtime/anchors";
 import type { Vec3 } from "@/lib/realtime/events";
@@ -48,7 +47,7 @@ export function LiveReview({ projectId, revisionNumber, realtimeUrl, focusClash 
   // Same key as the model viewer: the revision is fetched once and shared.
   const revision = useQuery({
     queryKey: revisionQueryKey(projectId, revisionNumber),
-    queryFn: async () => (await apiFetch<{ revision: RevisionWithResults }>(`/api/projects/${projectId}/models/${revisionNumber}`)).revision,
+    queryFn: () => fetchRevision(projectId, revisionNumber),
     staleTime: Infinity,
   }).data;
   const clashes = useQuery({

@@ -14,6 +14,7 @@ import { InfluenceLayer } from "./layers/influence-layer";
 import { InfluenceLegend, Legend } from "./legend";
 import { MemberPanel } from "./member-panel";
 import { prepareModel, resultIds } from "./prepare";
+import { AnyLoadJobPanel } from "./any-load-job-panel";
 import { StabilityPanel } from "./stability-panel";
 import { installTestHook } from "./test-hook";
 import { useResultColumns } from "./use-result-columns";
@@ -34,13 +35,22 @@ const ViewerCanvas = dynamic(loadCanvas, { ssr: false, loading: () => <CanvasPla
 /** Query key of a revision with its results; the answer never changes, so it is fetched once per session. */
 export const revisionQueryKey = (projectId: string, number: number) => ["projects", projectId, "models", number] as const;
 
+/** A revision as the viewer keeps it: with what the caller may start on it (the rule book's answer). */
+export type ViewedRevision = RevisionWithResults & { abilities: { runAnalysis: boolean } };
+
+/** The fetch behind revisionQueryKey (the viewer and the live review share it). */
+export async function fetchRevision(projectId: string, number: number): Promise<ViewedRevision> {
+  const body = await apiFetch<{ revision: RevisionWithResults; abilities: ViewedRevision["abilities"] }>(`/api/projects/${projectId}/models/${number}`);
+  return { ...body.revision, abilities: body.abilities };
+}
+
 export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: string; revisionNumber: number; layers?: ReactNode }) {
   const query = useQuery({
     queryKey: revisionQueryKey(projectId, revisionNumber),
     queryFn: async () => {
-      const body = await apiFetch<{ revision: RevisionWithResults }>(`/api/projects/${projectId}/models/${revisionNumber}`);
+      const revision = await fetchRevision(projectId, revisionNumber);
       performance.mark("viewer:results-fetched");
-      return body.revision;
+      return revision;
     },
     staleTime: Infinity,
     gcTime: 30 * 60_000,
@@ -97,6 +107,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
     <div className="flex flex-col">
       <ViewerToolbar prepared={prepared} columns={columns} ids={ids} hasReview={hasReview} fileName={`strutroom-${revision.name}-r${revision.number}.png`.replace(/\s+/g, "-")} />
       <StabilityPanel review={revision.analysis?.review} nodeIds={prepared.nodes.ids} />
+      <AnyLoadJobPanel projectId={projectId} revision={revision} onStored={() => void query.refetch()} />
       <div className="flex">
         <div className="relative h-[75vh] min-w-0 flex-1">
           {columnsError ? (

@@ -33,10 +33,14 @@ export async function getProjectJob({ projectId, jobId, db = getDb() }: { projec
   return row ? view(row) : null;
 }
 
-/** The newest job of each of the given revisions. */
-export async function latestJobsOfRevisions({ revisionIds, db = getDb() }: { revisionIds: string[]; db?: Executor }): Promise<Map<string, JobView>> {
+/** The newest job of each of the given revisions, of one kind (the analysis, which is the revision's status, unless told). */
+export async function latestJobsOfRevisions({ revisionIds, kind = "analysis", db = getDb() }: { revisionIds: string[]; kind?: Job["kind"]; db?: Executor }): Promise<Map<string, JobView>> {
   if (revisionIds.length === 0) return new Map();
-  const rows = await db.selectDistinctOn([jobs.revisionId]).from(jobs).where(inArray(jobs.revisionId, revisionIds)).orderBy(jobs.revisionId, desc(jobs.createdAt));
+  const rows = await db
+    .selectDistinctOn([jobs.revisionId])
+    .from(jobs)
+    .where(and(inArray(jobs.revisionId, revisionIds), eq(jobs.kind, kind)))
+    .orderBy(jobs.revisionId, desc(jobs.createdAt));
   return new Map(rows.map((row) => [row.revisionId, view(row)]));
 }
 
@@ -81,4 +85,14 @@ export async function requeueFailedJob(tx: Executor, { projectId, jobId }: { pro
     .where(and(eq(jobs.id, jobId), eq(jobs.projectId, projectId), eq(jobs.state, "failed")))
     .returning();
   return row ? view(row) : null;
+}
+
+/** Whether the revision has a queued or running job of this kind. */
+export async function hasActiveJob(db: Executor, { revisionId, kind }: { revisionId: string; kind: Job["kind"] }): Promise<boolean> {
+  const [row] = await db
+    .select({ id: jobs.id })
+    .from(jobs)
+    .where(and(eq(jobs.revisionId, revisionId), eq(jobs.kind, kind), inArray(jobs.state, ["queued", "running"])))
+    .limit(1);
+  return Boolean(row);
 }

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, max } from "drizzle-orm";
+import { and, asc, desc, eq, max, sql } from "drizzle-orm";
 import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
 import { analysisRuns, attachments, modelRevisions, projects, users, type AnalysisRun, type ModelRevision, type Project } from "@/db/schema";
 import { recordAuditEvent } from "./audit";
@@ -31,6 +31,8 @@ export type RevisionSummary = {
 
 /** A revision with its model and the stored analysis and review. */
 export type RevisionWithResults = Omit<RevisionSummary, "analysisStatus" | "originals" | "isCurrent"> & {
+  /** The newest whole-roof "idle for any roof load" job, while it runs or after (server/jobs/any-load.ts). */
+  anyLoadJob: JobView | null;
   model: TrussModel;
   analysis: { id: string; status: "ok" | "unstable"; result: AnalysisResult; review: StoredReview | null; createdAt: string } | null;
 };
@@ -106,6 +108,7 @@ export async function getRevisionWithResults({ projectId, number, db = getDb() }
     .limit(1);
   const r = revision.revision;
   const jobs = await latestJobsOfRevisions({ revisionIds: [r.id], db });
+  const anyLoadJobs = await latestJobsOfRevisions({ revisionIds: [r.id], kind: "any_load", db });
   return {
     id: r.id,
     number: r.number,
@@ -115,6 +118,7 @@ export async function getRevisionWithResults({ projectId, number, db = getDb() }
     createdBy: revision.createdBy,
     memberCount: r.memberCount,
     job: jobs.get(r.id) ?? null,
+    anyLoadJob: anyLoadJobs.get(r.id) ?? null,
     model: r.model,
     analysis: run ? { id: run.id, status: run.status, result: run.result, review: run.review, createdAt: run.createdAt.toISOString() } : null,
   };
@@ -238,6 +242,50 @@ export async function getDefaultRevisionResultSet({ projectId, db = getDb() }: {
 }
 
 /** A revision's id and the status of its newest analysis (null while none is stored), or null when it does not exist. */
+/**
+ * The newest analysis run of a revision by number, for the whole-roof any-load job: its id and status, and whether
+ * its review already holds the certificate.
+ */
+export async function getRevisionForAnyLoad(db: Executor, { projectId, number }: { projectId: string; number: number }) {
+  const [row] = await db
+    .select({ revisionId: modelRevisions.id, runId: analysisRuns.id, status: analysisRuns.status, certified: sql<boolean>`(${analysisRuns.review} -> 'anyLoad') is not null` })
+    .from(modelRevisions)
+    .leftJoin(analysisRuns, eq(analysisRuns.revisionId, modelRevisions.id))
+    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, number)))
+    .orderBy(desc(analysisRuns.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
+/** An analysis run with its review, for the any-load job; null when gone. */
+export async function getAnalysisRunForAnyLoad({ runId, db = getDb() }: { runId: string; db?: Executor }) {
+  const [row] = await db
+    .select({ result: analysisRuns.result, hasReview: sql<boolean>`${analysisRuns.review} is not null`, model: modelRevisions.model, standard: projects.designStandard })
+    .from(analysisRuns)
+    .innerJoin(modelRevisions, eq(modelRevisions.id, analysisRuns.revisionId))
+    .innerJoin(projects, eq(projects.id, modelRevisions.projectId))
+    .where(eq(analysisRuns.id, runId))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * Puts the any-load certificate into a stored review: the run's summary under `anyLoad` and each member's row under
+ * `members.<id>.anyLoad`, in one statement. False when the run or its review is gone.
+ */
+export async function setReviewAnyLoad(db: Executor, { runId, anyLoad, members }: { runId: string; anyLoad: unknown; members: Record<string, unknown> }): Promise<boolean> {
+  const rows = await db
+    .update(analysisRuns)
+    .set({
+      review: sql`jsonb_set(jsonb_set(${analysisRuns.review}, '{anyLoad}', ${JSON.stringify(anyLoad)}::jsonb), '{members}', (
+        select coalesce(jsonb_object_agg(m.key, m.value || jsonb_build_object('anyLoad', ${JSON.stringify(members)}::jsonb -> m.key)), '{}'::jsonb)
+        from jsonb_each(${analysisRuns.review} -> 'members') as m))`,
+    })
+    .where(and(eq(analysisRuns.id, runId), sql`${analysisRuns.review} is not null`))
+    .returning({ id: analysisRuns.id });
+  return rows.length === 1;
+}
+
 export async function getRevisionAnalysisStatus(db: Executor, { projectId, number }: { projectId: string; number: number }): Promise<{ id: string; status: "ok" | "unstable" | null } | null> {
   const [row] = await db
     .select({ id: modelRevisions.id, status: analysisRuns.status })

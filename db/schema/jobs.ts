@@ -5,7 +5,7 @@ import { index, integer, jsonb, pgEnum, pgTable, text, uuid } from "drizzle-orm/
 import { projects, timestamps, users } from "./core";
 import { modelRevisions } from "./models";
 
-export const JOB_KINDS = ["analysis"] as const;
+export const JOB_KINDS = ["analysis", "any_load"] as const;
 export const jobKind = pgEnum("job_kind", JOB_KINDS);
 export const JOB_STATES = ["queued", "running", "done", "failed"] as const;
 export const jobState = pgEnum("job_state", JOB_STATES);

@@ -7,12 +7,15 @@ import PgBoss from "pg-boss";
 export const QUEUES = {
   /** Analysis and member review of one revision: data { jobId } (a row of the jobs table). */
   analysis: "revision-analysis",
+  /** "Idle for any roof load" for a whole roof: data { jobId } (a jobs row of kind any_load). */
+  anyLoad: "any-load-certificate",
   /** The daily digest of open threads, on a schedule; pg-boss sends one per slot however many processes run. */
   digest: "mail-digest",
   /** Removal of uploads nobody confirmed, on a schedule. */
   uploadSweep: "upload-sweep",
 } as const;
 
+/** Data of the analysis and any-load jobs: the jobs row the browser watches. */
 export type AnalysisJobData = { jobId: string };
 
 /** Anything that runs a drizzle SQL query: the database or an open transaction. */

@@ -17,6 +17,6 @@ describe("analyseForStorage on a roof past the whole-roof check limit", () => {
     // "idle" rests on the load patterns analysed: kept on the review itself, so they show beside every idle verdict
     expect(review!.analysedPatterns).toEqual(model.loadCases.map((c) => ({ id: c.id, name: c.name })));
     expect(review!.analysedPatterns!.map((p) => p.id)).toEqual(["dead", "services", "snow", "wind-uplift"]);
-    expect(review!.wholeRoofChecksLeftOut).toBe(`Overall stability and "idle for any roof load" are checked for roofs of up to 10,000 members; this one has ${model.members.length.toLocaleString("en")}.`);
+    expect(review!.wholeRoofChecksLeftOut).toBe(`Overall stability and "idle for any roof load" are checked with the analysis for roofs of up to 10,000 members; this one has ${model.members.length.toLocaleString("en")}. "Idle for any roof load" can be run for the whole roof as a job from the viewer.`);
   }, 120_000);
 });

@@ -76,6 +76,14 @@ function storedStability(stability: OverallStability): StoredStability {
   };
 }
 
+/** The certificate as stored: its summary on the review, and each member's row on that member (keyed by id). */
+export function storedAnyLoad(model: TrussModel, certificate: AnyLoadCertificate): { anyLoad: StoredAnyLoad; members: Record<string, NonNullable<StoredMemberReview["anyLoad"]>> } {
+  const { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads } = certificate;
+  const members: Record<string, NonNullable<StoredMemberReview["anyLoad"]>> = {};
+  model.members.forEach((member, e) => (members[member.id] = { idle: certificate.members[e].idleForAnyLoad, mattersMost: certificate.members[e].mattersMost }));
+  return { anyLoad: { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads }, members };
+}
+
 /** Analyses a validated model and, when it is stable, reviews every member against the design standard. */
 export function analyseForStorage(model: TrussModel, standard: DesignStandard): { result: AnalysisResult; review: StoredReview | null } {
   const result = analyzeModel(model);
@@ -89,7 +97,7 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
   const verdicts = memberVerdicts(context);
   const design = designMembers(model, result, { standard });
   const wholeRoof = model.members.length <= wholeRoofCheckMembers;
-  const certificate = wholeRoof ? idleForAnyLoad(context) : null;
+  const certificate = wholeRoof ? storedAnyLoad(model, idleForAnyLoad(context)) : null;
   const members: Record<string, StoredMemberReview> = {};
   model.members.forEach((member, e) => {
     const v = verdicts[e];
@@ -102,16 +110,14 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
       governing: d.governing,
       checks: d.checks,
       warnings: d.warnings,
-      ...(certificate ? { anyLoad: { idle: certificate.members[e].idleForAnyLoad, mattersMost: certificate.members[e].mattersMost } } : {}),
+      ...(certificate ? { anyLoad: certificate.members[member.id] } : {}),
     };
   });
   // the patterns analysed, shown next to every "idle" verdict at any roof size: idle depends on them
   const patterns: AnalysedPattern[] = model.loadCases.map((c) => ({ id: c.id, name: c.name }));
   if (!certificate) {
-    const leftOut = `Overall stability and "idle for any roof load" are checked for roofs of up to ${wholeRoofCheckMembers.toLocaleString("en")} members; this one has ${model.members.length.toLocaleString("en")}.`;
+    const leftOut = `Overall stability and "idle for any roof load" are checked with the analysis for roofs of up to ${wholeRoofCheckMembers.toLocaleString("en")} members; this one has ${model.members.length.toLocaleString("en")}. "Idle for any roof load" can be run for the whole roof as a job from the viewer.`;
     return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, wholeRoofChecksLeftOut: leftOut };
   }
-  const { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads } = certificate;
-  const anyLoad: StoredAnyLoad = { loadable, tolerance, idleForAnyLoad: idle, idleOnlyForAnalysedLoads };
-  return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, stability: storedStability(overallStability(context)), anyLoad };
+  return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, stability: storedStability(overallStability(context)), anyLoad: certificate.anyLoad };
 }

@@ -65,6 +65,29 @@ const BLOCK = 32;
  * The certificate for every member. `onProgress` gets the fraction of unit loads solved (for the job's progress).
  */
 export function idleForAnyLoad(context: ReviewContext, options: AnyLoadOptions = {}, onProgress?: (fraction: number) => void): AnyLoadCertificate {
+  const steps = certify(context, options);
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+    onProgress?.(step.value);
+  }
+}
+
+/**
+ * The same certificate, awaiting `onProgress` after each block of unit loads: the whole-roof job writes its progress
+ * there, and the event loop gets its turn to send it while the solves run.
+ */
+export async function idleForAnyLoadAsync(context: ReviewContext, options: AnyLoadOptions, onProgress: (fraction: number) => Promise<void>): Promise<AnyLoadCertificate> {
+  const steps = certify(context, options);
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+    await onProgress(step.value);
+  }
+}
+
+/** Solves the unit loads block by block, yielding the fraction done after each block. */
+function* certify(context: ReviewContext, options: AnyLoadOptions): Generator<number, AnyLoadCertificate> {
   const { structure, model } = context;
   const { nodeIndex, restrained } = structure.topology;
   const chosen = options.nodes ? { nodes: options.nodes, which: "as configured" as const } : topLayer(context);
@@ -115,7 +138,7 @@ export function idleForAnyLoad(context: ReviewContext, options: AnyLoadOptions =
         }
       }
     });
-    onProgress?.(Math.min(1, (first + block.length) / loads.length));
+    yield Math.min(1, (first + block.length) / loads.length);
   }
 
   const zeroEverywhere = new Set(context.result.zeroInAll);

@@ -11,6 +11,7 @@ import { queueDailyDigests } from "../../lib/commands/queue-daily-digests";
 import { processOutbox } from "./mail-outbox";
 import { sweepStaleUploads } from "../../lib/commands/stored-files";
 import { runAnalysisJob } from "./analysis";
+import { runAnyLoadJob } from "./any-load";
 import { serveHealth } from "./health";
 
 const log = (message: string) => console.log(`[jobs] ${message}`);
@@ -28,6 +29,10 @@ await boss.start();
 await boss.work<AnalysisJobData>(QUEUES.analysis, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
   const state = await runAnalysisJob(job.data.jobId);
   log(`analysis job ${job.data.jobId}: ${state}`);
+});
+await boss.work<AnalysisJobData>(QUEUES.anyLoad, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
+  const state = await runAnyLoadJob(job.data.jobId);
+  log(`any-load job ${job.data.jobId}: ${state}`);
 });
 await boss.schedule(QUEUES.uploadSweep, "*/10 * * * *");
 await boss.work(QUEUES.uploadSweep, async () => {
