@@ -9,7 +9,7 @@ import { abilitiesOf } from "@/lib/permissions";
 import { SOCKET_PATH, YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { getLiveSession } from "@/db/queries/review-sessions";
 import { authenticate, isAllowedOrigin, isRefusal } from "./auth";
-import { clusterAdapter, connectRedis } from "./cluster";
+import { closeRedis, clusterAdapter, connectRedis } from "./cluster";
 import { createCursorBatcher } from "./cursor-batcher";
 import { projectRoom, userRoom, type RealtimeServer } from "./context";
 import { startLiveEventPublisher } from "./live-events";
@@ -105,7 +105,7 @@ export async function createRealtimeServer({ appUrl, databaseUrl, redisUrl }: { 
       await new Promise<void>((resolve) => io.close(() => resolve()));
       await flushViews();
       await relay?.stop();
-      await redis?.quit().catch(() => undefined);
+      if (redis) await closeRedis(redis);
     },
   };
 }

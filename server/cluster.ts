@@ -4,10 +4,16 @@
 import { randomBytes } from "node:crypto";
 import { createAdapter } from "@socket.io/redis-streams-adapter";
 import { createClient } from "redis";
+import { Adapter, MessageType, type BroadcastOptions } from "socket.io-adapter";
 import type { NodeToNodeEvents, RealtimeServer } from "./context";
 
+// While Redis is down node-redis queues commands and sends them once it is back (so other nodes get what was
+// broadcast meanwhile, late but in order); the cap bounds the memory a long outage can take (beyond it, commands
+// are refused and the other nodes' clients catch up from PostgreSQL when they reconnect).
+const OFFLINE_QUEUE_MAX = 10_000;
+
 function newClient(url: string) {
-  return createClient({ url });
+  return createClient({ url, commandsQueueMaxLength: OFFLINE_QUEUE_MAX });
 }
 export type RedisClient = ReturnType<typeof newClient>;
 
@@ -38,15 +44,45 @@ export async function connectRedis(url: string): Promise<RedisClient> {
 /** Set once this process runs as one node of several. */
 let clustered = false;
 
+type Broadcaster = Adapter & { publish(message: { type: MessageType.BROADCAST; data: unknown }): void };
+
+/**
+ * The library's broadcast waits until Redis has taken the message before it delivers to this node's own sockets:
+ * a round trip on every room event, and during a Redis outage every local client would hear nothing until Redis
+ * is back. Here this node's sockets get the packet at once and the message to the others is published beside it
+ * (queued by node-redis while Redis is down). The library offers no option for this, hence the override; the
+ * encoding of the options is the library's own (rooms and exceptions as arrays).
+ */
+function deliverLocallyFirst(adapter: Broadcaster): void {
+  adapter.broadcast = (packet: unknown, opts: BroadcastOptions) => {
+    if (!opts.flags?.local) {
+      adapter.publish({ type: MessageType.BROADCAST, data: { packet, opts: { rooms: [...opts.rooms], except: [...(opts.except ?? [])], flags: opts.flags } } });
+    }
+    Adapter.prototype.broadcast.call(adapter, packet, opts);
+  };
+}
+
 /** The socket.io adapter: rooms across nodes on a Redis stream (which, unlike pub/sub, survives a short disconnect). */
 export function clusterAdapter(client: RedisClient) {
   clustered = true;
-  return createAdapter(client, {
+  const create = createAdapter(client, {
     streamName: "strutroom:socket.io",
     channelPrefix: "strutroom:socket.io",
     heartbeatInterval: HEARTBEAT_MS,
     heartbeatTimeout: HEARTBEAT_TIMEOUT_MS,
   });
+  // socket.io calls this with `new`: a plain function (not an arrow) that returns the adapter it made.
+  return function localFirstAdapter(nsp: Parameters<typeof create>[0]) {
+    const adapter = create(nsp);
+    deliverLocallyFirst(adapter as unknown as Broadcaster);
+    return adapter;
+  };
+}
+
+/** Closes a Redis connection: waits for pending commands when Redis answers, drops them when it is down (shutdown must not hang on an outage). */
+export async function closeRedis(client: RedisClient): Promise<void> {
+  if (client.isReady) await client.close().catch(() => client.destroy());
+  else client.destroy();
 }
 
 /** Sends an event to the other nodes (in stream order with room broadcasts); a node running alone has none. */

@@ -6,7 +6,7 @@
 import * as awarenessProtocol from "y-protocols/awareness";
 import type { WSSharedDoc } from "@y/websocket-server/utils";
 import * as Y from "yjs";
-import { NODE_ID, type RedisClient } from "./cluster";
+import { closeRedis, NODE_ID, type RedisClient } from "./cluster";
 
 /** The origin of changes applied from another node: they are not published again. */
 export const RELAYED = Symbol("relayed from another node");
@@ -102,7 +102,7 @@ export async function createYjsRelay(client: RedisClient): Promise<YjsRelay> {
     },
     async stop() {
       for (const [projectId, entry] of open) close(projectId, entry.doc);
-      await subscriber.quit().catch(() => undefined);
+      await closeRedis(subscriber);
     },
   };
 }
