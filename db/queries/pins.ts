@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, gt, sql, type SQL } from "drizzle-orm";
+import { and, asc, eq, gt, inArray, sql, type SQL } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { comments, pins, users } from "../schema";
 import type { StoredPinViewpoint } from "../../lib/bcf/viewpoint";
@@ -84,9 +84,18 @@ export async function insertPin({ db, projectId, authorId, input }: { db: Execut
   return inserted.length > 0;
 }
 
-/** Marks a pin changed (its thread got a comment). */
+/**
+ * Marks a pin changed (its thread got a comment). A busy thread gets many comments at once: each would wait for the
+ * one before it to commit (the pin row's lock), so comments on one pin queued behind each other. A comment that
+ * finds the row being marked by another transaction skips it: that one stamps the same moment, give or take the
+ * milliseconds the catch-up margin covers, and the stamp never moves back.
+ */
 export async function touchPin({ db, pinId }: { db: Executor; pinId: string }): Promise<void> {
-  await db.update(pins).set({ updatedAt: new Date() }).where(eq(pins.id, pinId));
+  const free = db.select({ id: pins.id }).from(pins).where(eq(pins.id, pinId)).for("no key update", { skipLocked: true });
+  await db
+    .update(pins)
+    .set({ updatedAt: sql`greatest(${pins.updatedAt}, ${new Date().toISOString()}::timestamptz)` })
+    .where(inArray(pins.id, free));
 }
 
 /** Whether the pin is in the project; locks it for the rest of the transaction, so steps of its thread's record are written one at a time. */
