@@ -1,22 +1,22 @@
-// `npm run bench:realtime [-- --clients 50 --duration 60 --cursor-hz 10 --comment-every 3 --nodes 1]`: simulated
-// members in one project room on loopback, each moving a cursor and posting comments, against the real realtime
-// process and its own throwaway PostgreSQL. With --nodes N, N realtime processes share a throwaway Redis and the
-// clients are spread over them evenly. Reports fan-out latency percentiles, messages lost (must be 0), comments
-// persisted against comments sent, each server's memory, and the load average (the machine may be shared).
+// `npm run bench:realtime [-- --clients 50 --duration 60 --cursor-hz 10 --comment-every 3 --nodes 1 --threads 2]`:
+// simulated members in one project room on loopback, each moving a cursor and posting comments, against the real
+// realtime process and its own throwaway PostgreSQL. With --nodes N, N realtime processes share a throwaway Redis and
+// the clients are spread over them evenly. The clients run in --threads worker threads (realtime-clients.mjs), so
+// their CPU is their own and measured apart. Reports fan-out latency percentiles, messages lost (must be 0),
+// comments persisted against comments sent, each server's memory and CPU, the CPU of PostgreSQL, Redis and the
+// clients, and the load average (the machine may be shared).
 // Targets: cursor p95 under 100 ms, comment p95 under 150 ms on a 2-core machine.
-import { spawn } from "node:child_process";
+import { execFileSync, spawn } from "node:child_process";
 import { randomBytes, randomUUID } from "node:crypto";
-import { readFileSync, rmSync } from "node:fs";
+import { existsSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { parseArgs } from "node:util";
-import { io } from "socket.io-client";
+import { Worker } from "node:worker_threads";
 import { encode } from "next-auth/jwt";
 import { cpus, loadavg } from "node:os";
-import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
-import { removeRedisData, startRedis, stopRedis } from "../stack/redis.mjs";
+import { clusterDir, removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
+import { redisDir, removeRedisData, startRedis, stopRedis } from "../stack/redis.mjs";
 import { freePort, waitForPort } from "../stack/ports.mjs";
-import type { Ack, ClientToServerEvents, ServerToClientEvents } from "../../lib/realtime/events";
-import type { Socket } from "socket.io-client";
 
 const { values: flags } = parseArgs({
   options: {
@@ -25,6 +25,7 @@ const { values: flags } = parseArgs({
     "cursor-hz": { type: "string", default: "10" },
     "comment-every": { type: "string", default: "3" },
     nodes: { type: "string", default: "1" },
+    threads: { type: "string", default: "2" },
   },
 });
 const CLIENTS = Number(flags.clients);
@@ -32,13 +33,24 @@ const DURATION_S = Number(flags.duration);
 const CURSOR_HZ = Number(flags["cursor-hz"]);
 const COMMENT_EVERY_S = Number(flags["comment-every"]);
 const NODES = Math.max(1, Number(flags.nodes));
+const THREADS = Math.max(1, Math.min(CLIENTS, Number(flags.threads)));
 const DRAIN_MS = 3000;
 
-type Client = Socket<ServerToClientEvents, ClientToServerEvents>;
+/** What a client thread reports at the end (realtime-clients.mjs). */
+type ClientResults = {
+  type: string;
+  cursorLatencies: Float64Array;
+  commentLatencies: Float64Array;
+  cursorsSent: Record<string, number>;
+  commentsSent: number;
+  commentsAcked: number;
+  commentErrors: number;
+  commentEventsReceived: number;
+};
 const root = path.resolve(import.meta.dirname, "../..");
 const runDir = path.join(root, ".data", `bench-realtime-${process.pid}`);
 
-function percentile(sorted: number[], p: number): number {
+function percentile(sorted: ArrayLike<number>, p: number): number {
   if (sorted.length === 0) return NaN;
   return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))];
 }
@@ -47,6 +59,32 @@ function percentile(sorted: number[], p: number): number {
 function nodeChildOf(pid: number): number {
   const children = readFileSync(`/proc/${pid}/task/${pid}/children`, "utf8").trim().split(/\s+/).filter(Boolean).map(Number);
   return children[0] ?? pid;
+}
+
+const TICKS_PER_S = Number(execFileSync("getconf", ["CLK_TCK"]).toString().trim()) || 100;
+
+/** The processes under pid (PostgreSQL's backends under the postmaster), found through /proc. */
+function descendants(pid: number): number[] {
+  const children = existsSync(`/proc/${pid}/task/${pid}/children`)
+    ? readFileSync(`/proc/${pid}/task/${pid}/children`, "utf8").trim().split(/\s+/).filter(Boolean).map(Number)
+    : [];
+  return children.flatMap((child) => [child, ...descendants(child)]);
+}
+
+/** CPU seconds used by pid, its live descendants and the children it has already reaped. */
+function cpuSeconds(pid: number): number {
+  let ticks = 0;
+  for (const [i, p] of [pid, ...descendants(pid)].entries()) {
+    if (!existsSync(`/proc/${p}/stat`)) continue;
+    // Fields after the command name: state is 3rd; utime, stime, cutime, cstime are the 14th to 17th.
+    const fields = readFileSync(`/proc/${p}/stat`, "utf8").split(") ")[1].split(" ");
+    ticks += Number(fields[11]) + Number(fields[12]) + (i === 0 ? Number(fields[13]) + Number(fields[14]) : 0);
+  }
+  return ticks / TICKS_PER_S;
+}
+
+function pidFrom(file: string): number | null {
+  return existsSync(file) ? Number(readFileSync(file, "utf8").split("\n")[0].trim()) || null : null;
 }
 
 function rssMb(pid: number): number {
@@ -67,7 +105,7 @@ async function main() {
   const redisUrl = NODES > 1 ? await startRedis({ dataDir: path.join(runDir, "redis"), port: await freePort(), throwaway: true }) : "";
   const env = { ...process.env, DATABASE_URL: databaseUrl, NEXTAUTH_SECRET: secret, APP_URL: "http://127.0.0.1:1", ...(redisUrl ? { REDIS_URL: redisUrl } : {}) };
   Object.assign(process.env, env);
-  await run("node_modules/.bin/tsx", ["scripts/db-migrate.ts"], env);
+  await run("node_modules/.bin/tsx", ["--conditions=react-server", "scripts/db-migrate.ts"], env);
 
   // Fixtures through the data layer's tables: one project, CLIENTS members who may comment, one pin.
   const { getDb, closeDb } = await import("../../db/client");
@@ -97,118 +135,110 @@ async function main() {
   );
   await Promise.all(realtimePorts.map((port) => waitForPort(port, "The realtime server", 60_000)));
   const serverPids = servers.map((server) => nodeChildOf(server.pid!));
+  const postgresPid = pidFrom(path.join(clusterDir(path.join(runDir, "pg")), "postmaster.pid"));
+  const redisPid = redisUrl ? pidFrom(path.join(redisDir(path.join(runDir, "redis")), "redis.pid")) : null;
   const rssStart = serverPids.map(rssMb);
 
-  // Latency is measured within this one process: the send time of each (sender, seq) is kept until received.
-  const sentAt = new Map<string, number>();
-  const cursorLatencies: number[] = [];
-  const commentLatencies: number[] = [];
-  const commentSentAt = new Map<string, number>();
-  const received = new Map<string, number>(); // receiver|sender -> count
-  const cursorsSent = new Map<string, number>(); // sender socket id -> count
-  let commentsSent = 0;
-  let commentsAcked = 0;
-  let commentErrors = 0;
-  let commentEventsReceived = 0;
-
-  const clients: Client[] = await Promise.all(
-    people.map(async (person, index) => {
-      const token = await encode({ token: { sub: person.id, userId: person.id, email: person.email, name: person.name }, secret });
-      const client: Client = io(`http://127.0.0.1:${realtimePorts[index % NODES]}`, {
-        auth: { projectId: project.id },
-        transports: ["websocket"],
-        extraHeaders: { cookie: `next-auth.session-token=${token}` },
-        reconnection: false,
-        forceNew: true,
-      });
-      await new Promise<void>((resolve, reject) => {
-        client.once("welcome", () => resolve());
-        client.once("connect_error", reject);
-      });
-      client.on("cursors", (moves) => {
-        const now = performance.now();
-        for (const { socketId, seq } of moves) {
-          if (socketId === client.id) continue;
-          const t = sentAt.get(`${socketId}:${seq}`);
-          if (t !== undefined) cursorLatencies.push(now - t);
-          const key = `${client.id}|${socketId}`;
-          received.set(key, (received.get(key) ?? 0) + 1);
-        }
-      });
-      client.on("comment:created", (comment) => {
-        commentEventsReceived += 1;
-        const t = commentSentAt.get(comment.id);
-        if (t !== undefined) commentLatencies.push(performance.now() - t);
-      });
-      return client;
-    }),
+  // The simulated members run in worker threads (realtime-clients.mjs), sharing send times through shared memory.
+  const maxSeq = Math.ceil(DURATION_S * CURSOR_HZ) + 20;
+  const maxComments = Math.ceil(DURATION_S / (COMMENT_EVERY_S * 0.8)) + 2;
+  const shared = {
+    cursorSent: new SharedArrayBuffer(4 * CLIENTS * maxSeq),
+    commentSent: new SharedArrayBuffer(4 * CLIENTS * maxComments),
+    received: new SharedArrayBuffer(4 * CLIENTS * CLIENTS),
+  };
+  const userIndex = Object.fromEntries(people.map((p, i) => [p.id, i]));
+  const originMs = performance.timeOrigin + performance.now();
+  const everyone = await Promise.all(
+    people.map(async (person, index) => ({
+      index,
+      url: `http://127.0.0.1:${realtimePorts[index % NODES]}`,
+      token: await encode({ token: { sub: person.id, userId: person.id, email: person.email, name: person.name }, secret }),
+    })),
   );
-  console.log(`[bench] ${clients.length} clients in one room on ${NODES} node(s); ${CURSOR_HZ} cursor moves/s each, a comment every ~${COMMENT_EVERY_S} s, for ${DURATION_S} s…`);
+  const workers = Array.from({ length: THREADS }, (_, t) => {
+    const worker = new Worker(new URL("./realtime-clients.mjs", import.meta.url), {
+      workerData: {
+        clients: everyone.filter((c) => c.index % THREADS === t),
+        projectId: project.id,
+        pinId,
+        cursorHz: CURSOR_HZ,
+        commentEveryS: COMMENT_EVERY_S,
+        durationS: DURATION_S,
+        drainMs: DRAIN_MS,
+        originMs,
+        shared,
+        maxSeq,
+        maxComments,
+        userIndex,
+      },
+    });
+    worker.on("error", (error) => {
+      console.error("[bench] a client thread failed", error);
+      process.exit(1);
+    });
+    return worker;
+  });
+  const next = (worker: Worker, type: string) => new Promise<ClientResults>((resolve) => worker.on("message", (m: ClientResults) => m.type === type && resolve(m)));
+  await Promise.all(workers.map((w) => next(w, "connected")));
+  console.log(
+    `[bench] ${CLIENTS} clients in one room on ${NODES} node(s), run by ${THREADS} client thread(s); ${CURSOR_HZ} cursor moves/s each, a comment every ~${COMMENT_EVERY_S} s, for ${DURATION_S} s…`,
+  );
 
-  const timers: NodeJS.Timeout[] = [];
   const peakRss = [...rssStart];
   const loads: number[] = [];
-  timers.push(
-    setInterval(() => {
-      serverPids.forEach((pid, i) => (peakRss[i] = Math.max(peakRss[i], rssMb(pid))));
-      loads.push(loadavg()[0]);
-    }, 1000),
-  );
-  for (const client of clients) {
-    let seq = 0;
-    const id = client.id!;
-    // Spread the clients' phases so the load is even, as it would be with real people.
-    const start = setTimeout(() => {
-      timers.push(
-        setInterval(() => {
-          seq += 1;
-          sentAt.set(`${id}:${seq}`, performance.now());
-          cursorsSent.set(id, seq);
-          client.emit("cursor:move", { point: [Math.random() * 36, Math.random() * 24, 9], seq });
-        }, 1000 / CURSOR_HZ),
-      );
-      timers.push(
-        setInterval(() => {
-          const commentId = randomUUID();
-          commentsSent += 1;
-          commentSentAt.set(commentId, performance.now());
-          void (client.emitWithAck("comment:create", { id: commentId, pinId, body: `Bench comment from ${id}` }) as Promise<Ack<unknown>>).then(
-            (ack) => (ack.ok ? (commentsAcked += 1) : (commentErrors += 1)),
-            () => (commentErrors += 1),
-          );
-        }, COMMENT_EVERY_S * 1000 * (0.8 + Math.random() * 0.4)),
-      );
-    }, Math.random() * 1000);
-    timers.push(start);
-  }
-
+  const watched = { servers: serverPids, redis: redisPid ? [redisPid] : [], postgres: postgresPid ? [postgresPid] : [] };
+  const cpuStart = { servers: serverPids.map(cpuSeconds), redis: watched.redis.map(cpuSeconds), postgres: watched.postgres.map(cpuSeconds), clients: process.cpuUsage() };
+  const sampler = setInterval(() => {
+    serverPids.forEach((pid, i) => (peakRss[i] = Math.max(peakRss[i], rssMb(pid))));
+    loads.push(loadavg()[0]);
+  }, 1000);
+  const runStart = performance.now();
+  const results = Promise.all(workers.map((w) => next(w, "results")));
+  for (const worker of workers) worker.postMessage("go");
+  // CPU is read when the sending stops (the drain that follows is mostly idle).
   await new Promise((r) => setTimeout(r, DURATION_S * 1000));
-  for (const timer of timers) clearInterval(timer);
-  await new Promise((r) => setTimeout(r, DRAIN_MS));
+  const wallS = (performance.now() - runStart) / 1000;
+  const cpuEnd = { servers: serverPids.map(cpuSeconds), redis: watched.redis.map(cpuSeconds), postgres: watched.postgres.map(cpuSeconds), clients: process.cpuUsage(cpuStart.clients) };
+  const all = await results;
+  clearInterval(sampler);
   serverPids.forEach((pid, i) => (peakRss[i] = Math.max(peakRss[i], rssMb(pid))));
   const rssEnd = serverPids.map(rssMb);
 
+  const cursorsSent = new Map<number, number>();
+  for (const r of all) for (const [index, count] of Object.entries(r.cursorsSent)) cursorsSent.set(Number(index), count);
+  const received = new Int32Array(shared.received);
   let expected = 0;
   let got = 0;
-  for (const receiver of clients) {
-    for (const sender of clients) {
+  for (let receiver = 0; receiver < CLIENTS; receiver += 1) {
+    for (let sender = 0; sender < CLIENTS; sender += 1) {
       if (sender === receiver) continue;
-      expected += cursorsSent.get(sender.id!) ?? 0;
-      got += received.get(`${receiver.id}|${sender.id}`) ?? 0;
+      expected += cursorsSent.get(sender) ?? 0;
+      got += received[receiver * CLIENTS + sender];
     }
   }
+  const sum = (key: "commentsSent" | "commentsAcked" | "commentErrors" | "commentEventsReceived") => all.reduce((total, r) => total + r[key], 0);
+  const commentsSent = sum("commentsSent");
+  const commentsAcked = sum("commentsAcked");
+  const commentErrors = sum("commentErrors");
+  const commentEventsReceived = sum("commentEventsReceived");
+  const cursorLatencies = Float64Array.from(all.flatMap((r) => [...r.cursorLatencies])).sort();
+  const commentLatencies = Float64Array.from(all.flatMap((r) => [...r.commentLatencies])).sort();
   const stored = await listCommentsByPin({ projectId: project.id, pinId });
-  cursorLatencies.sort((a, b) => a - b);
-  commentLatencies.sort((a, b) => a - b);
   const ms = (v: number) => `${v.toFixed(1)} ms`;
+  const core = (seconds: number) => `${((100 * seconds) / wallS).toFixed(0)} %`;
   console.log("\n[bench] results");
   console.log(`  cursor fan-out     ${cursorLatencies.length} deliveries   p50 ${ms(percentile(cursorLatencies, 50))}   p95 ${ms(percentile(cursorLatencies, 95))}   p99 ${ms(percentile(cursorLatencies, 99))}`);
   console.log(`  comment fan-out    ${commentLatencies.length} deliveries   p50 ${ms(percentile(commentLatencies, 50))}   p95 ${ms(percentile(commentLatencies, 95))}   p99 ${ms(percentile(commentLatencies, 99))}`);
   console.log(`  cursor messages    expected ${expected}, received ${got}, lost ${expected - got}`);
   console.log(`  comments           sent ${commentsSent}, acknowledged ${commentsAcked}, refused ${commentErrors}, persisted ${stored.length}, fan-out events ${commentEventsReceived} (expected ${commentsAcked * (CLIENTS - 1)})`);
   serverPids.forEach((_, i) =>
-    console.log(`  node ${i + 1} memory      RSS start ${rssStart[i].toFixed(0)} MB, peak ${peakRss[i].toFixed(0)} MB, end ${rssEnd[i].toFixed(0)} MB (${Math.ceil((CLIENTS - i) / NODES)} clients)`),
+    console.log(
+      `  node ${i + 1}             RSS start ${rssStart[i].toFixed(0)} MB, peak ${peakRss[i].toFixed(0)} MB, end ${rssEnd[i].toFixed(0)} MB; CPU ${core(cpuEnd.servers[i] - cpuStart.servers[i])} of a core (${Math.ceil((CLIENTS - i) / NODES)} clients)`,
+    ),
   );
+  const tree = (key: "redis" | "postgres") => cpuEnd[key].reduce((total, v, i) => total + v - cpuStart[key][i], 0);
+  console.log(`  other CPU          PostgreSQL ${core(tree("postgres"))}, ${redisPid ? `Redis ${core(tree("redis"))}, ` : ""}bench clients ${core((cpuEnd.clients.user + cpuEnd.clients.system) / 1e6)} of a core`);
   console.log(`  load average       1-min ${Math.min(...loads).toFixed(1)} … ${Math.max(...loads).toFixed(1)} during the run (${cpus().length} cores)`);
   const p95 = percentile(cursorLatencies, 95);
   const commentP95 = percentile(commentLatencies, 95);
@@ -217,7 +247,7 @@ async function main() {
     `  verdict            ${ok ? "no message lost, every comment persisted" : "LOSS: see above"}; cursor p95 ${p95 < 100 ? "within" : "OVER"} the 100 ms target, comment p95 ${commentP95 < 150 ? "within" : "OVER"} the 150 ms target`,
   );
 
-  for (const client of clients) client.disconnect();
+  await Promise.all(workers.map((worker) => new Promise((resolve) => worker.once("exit", resolve).postMessage("close"))));
   await Promise.all(
     servers.map(
       (server) =>
