@@ -98,9 +98,17 @@ export async function touchPin({ db, pinId }: { db: Executor; pinId: string }): 
     .where(inArray(pins.id, free));
 }
 
-/** Whether the pin is in the project; locks it for the rest of the transaction, so steps of its thread's record are written one at a time. */
-export async function lockPinInProject({ db, projectId, pinId }: { db: Executor; projectId: string; pinId: string }): Promise<boolean> {
-  const [pin] = await db.select({ id: pins.id }).from(pins).where(and(eq(pins.id, pinId), eq(pins.projectId, projectId))).for("update");
+/**
+ * Whether the pin is in the project; holds it for the rest of the transaction. A step of the thread's record takes
+ * it exclusively, so steps are written one at a time; a plain comment only keeps it from changing under it (waits
+ * for a step, never for another comment: on a busy thread the comments would otherwise queue behind each other).
+ */
+export async function lockPinInProject({ db, projectId, pinId, exclusive }: { db: Executor; projectId: string; pinId: string; exclusive: boolean }): Promise<boolean> {
+  const [pin] = await db
+    .select({ id: pins.id })
+    .from(pins)
+    .where(and(eq(pins.id, pinId), eq(pins.projectId, projectId)))
+    .for(exclusive ? "update" : "key share");
   return Boolean(pin);
 }
 

@@ -1,12 +1,13 @@
-// Issue 14 (the comment fan-out target): comments on one busy thread must not queue behind each other. Each marks
-// its pin changed; with a plain UPDATE every comment waited for the pin row's lock until the comment before it
-// committed, so under load the queue grew without bound (bench:realtime, 100 clients on one thread). Here one
-// transaction marks the pin and stays open: a comment posted meanwhile must be stored without waiting for it, and
-// the pin still ends up marked no earlier than either.
+// Issue 14 (the comment fan-out target): plain comments on one busy thread must not queue behind each other. Each
+// holds its pin and marks it changed; when either took the pin row's lock exclusively, every comment waited for the
+// one before it to commit, and under load the queue grew without bound (bench:realtime, 100 clients on one thread).
+// Here a transaction does what a plain comment in flight does (holds the pin, marks it) and stays open: a comment
+// posted meanwhile must be stored without waiting for it, and the pin still ends up marked no earlier than before.
+// (Steps of the thread's record still go one at a time: tests/integration/thread-decisions.test.ts.)
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { withTransaction } from "@/db/client";
-import { getPinById, touchPin } from "@/db/queries/pins";
+import { getPinById, lockPinInProject, touchPin } from "@/db/queries/pins";
 import { createPin } from "@/lib/commands/create-pin";
 import { postComment } from "@/lib/commands/post-comment";
 import { closeDb, requireIntegrationEnv } from "../support/db";
@@ -33,6 +34,7 @@ describe("comments on a busy thread", () => {
     const holding = new Promise<void>((resolve) => (locked = resolve));
     const released = new Promise<void>((resolve) => (release = resolve));
     const other = withTransaction(async (tx) => {
+      await lockPinInProject({ db: tx, projectId: fx.projectId, pinId, exclusive: false });
       await touchPin({ db: tx, pinId });
       locked();
       await released;
