@@ -95,4 +95,17 @@ describe("carrying decisions to a new revision", () => {
     const closure = history.find((h) => h.kind === "closure" && h.revision === revision.number);
     expect(closure?.reason).toBe(`The decision does not carry: member ${MEMBER} changed section in revision ${revision.number} (${section.id} → CHS-TEST-BIGGER).`);
   });
+
+  it("closes the decision, with the reason, when the member is gone", async () => {
+    const without = structuredClone(base);
+    without.members = without.members.filter((m) => m.id !== MEMBER);
+    const revision = await derive("r5 without the chord", without);
+    expect((await listClashesByRevision({ revisionId: revision.id })).some((c) => c.memberId === MEMBER && c.status !== "closed")).toBe(false);
+    const [key] = (await listClashesByRevision({ revisionId: first.id })).filter((c) => c.memberId === MEMBER).map((c) => c.clashKey);
+    const history = await listClashHistory({ projectId: fx.projectId, clashKeys: [key] });
+    const closure = history.find((h) => h.kind === "closure" && h.revision === revision.number);
+    expect(closure?.reason).toBe(`The decision does not carry: member ${MEMBER} is not in revision ${revision.number}.`);
+    // The decision it closes stays in the history, unchanged.
+    expect(history.filter((h) => h.kind === "decision").map((h) => h.conditions)).toEqual(["Sleeved opening at mid-length, 250 mm."]);
+  });
 });
