@@ -96,6 +96,25 @@ describe("carrying decisions to a new revision", () => {
     expect(closure?.reason).toBe(`The decision does not carry: member ${MEMBER} changed section in revision ${revision.number} (${section.id} → CHS-TEST-BIGGER).`);
   });
 
+  it("names the opening check when an accepted opening's hole would now work differently", async () => {
+    // A 30 mm heating pipe (10 mm insulation) along x at y = 4.5 m through the y-direction top chords TCY-*-1: its
+    // opening through TCY-1-1 is accepted on revision 1, then the chord is pulled hard in a new combination.
+    const pipe = { ...duct, id: "HW-T1", system: "heating", profile: { shape: "round", diameter: 0.03 }, insulation: 0.01, clearance: 0.02, points: [{ x: -1, y: 4.5, z: 2 }, { x: 10, y: 4.5, z: 2 }] } as Run;
+    await importRuns({ projectId: fx.projectId, revision: { ...first, model: base }, runs: [pipe], mode: "upsert", actorId: fx.users.mep_engineer.id });
+    const onChord = async (revisionId: string) => (await listClashesByRevision({ revisionId })).find((c) => c.memberId === "TCY-1-1" && c.runId === "HW-T1")!;
+    const clash = await onChord(first.id);
+    await proposeClashOutcome({ projectId: fx.projectId, clashId: clash.id, actor: { userId: fx.users.mep_engineer.id, role: "mep_engineer" }, input: { outcome: "opening_proposed", note: "" } });
+    await decideClash({ projectId: fx.projectId, clashId: clash.id, actor: { userId: fx.users.structural_engineer.id, role: "structural_engineer" }, input: { outcome: "opening_accepted", conditions: "Sleeved hole of 50 mm at the clash point only." } });
+    const pulled = structuredClone(base);
+    const chord = pulled.members.find((m) => m.id === "TCY-1-1")!;
+    pulled.loadCases.push({ id: "PULL", name: "Test pull", category: "live", selfWeight: false, nodalLoads: [{ node: chord.j, fx: 0, fy: 200, fz: 0 }] } as TrussModel["loadCases"][number]);
+    pulled.combinations.push({ id: "C-PULL", name: "Pull only", factors: { PULL: 1 } });
+    const revision = await derive("r6 pipe pulled", pulled);
+    const carried = await onChord(revision.id);
+    expect(carried.outcome).toBe("opening_accepted");
+    expect(carried.recheckReason).toMatch(/the opening check \(a 50 mm hole at \d+\.\d\d m\) (was "within capacity on the checks made"; now "over capacity"|went from utilisation \d\.\d\d to \d+\.\d\d)/);
+  });
+
   it("closes the decision, with the reason, when the member is gone", async () => {
     const without = structuredClone(base);
     without.members = without.members.filter((m) => m.id !== MEMBER);
