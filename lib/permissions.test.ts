@@ -7,6 +7,7 @@ import { ACTIONS, ROLES, abilitiesOf, can, authorize, canCloseThread, clashDecis
 const MATRIX: Record<Action, [boolean, boolean, boolean, boolean, boolean]> = {
   "project.read":        [true,  true,  true,  true,  true],
   "report.export":       [true,  true,  true,  true,  true],
+  "report.make":         [true,  true,  true,  true,  false],
   "team.manage":         [true,  false, false, false, false],
   "mail.viewCaptured":   [true,  false, false, false, false],
   "model.edit":          [false, true,  false, false, false],

@@ -23,6 +23,7 @@ export const ACTIONS = [
   "revision.markCurrent",
   "runs.edit",
   "report.export",
+  "report.make",
   "mail.viewCaptured",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
@@ -41,6 +42,8 @@ const ALL: readonly Role[] = ROLES;
 const TABLE: Record<Action, readonly Role[]> = {
   "project.read": ALL,
   "report.export": ALL,
+  // Making a report runs a job and stores a file: a write, so not the viewer's (they download the reports made).
+  "report.make": ["owner", "structural_engineer", "architect", "mep_engineer"],
   "team.manage": ["owner"],
   "mail.viewCaptured": ["owner"],
   "model.edit": ["structural_engineer"],

@@ -1,6 +1,6 @@
 "use client";
-// What the browser shows of a queued job: a progress bar with the phase while it runs (polling the job's
-// endpoint once a second), the reason and a retry button when it failed.
+// What the browser shows of a queued job (an analysis or a report): a progress bar with the phase while it runs
+// (polling the job's endpoint once a second), the reason and a retry button when it failed.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect } from "react";
 import type { JobView } from "@/db/queries/jobs";
@@ -18,6 +18,14 @@ const PHASE_LABELS: Record<string, string> = {
   done: "Analysed",
   failed: "Failed",
 };
+/** Where a report job's words differ from an analysis's. */
+const REPORT_PHASE_LABELS: Record<string, string> = {
+  collecting: "Reading the revision, its review, clashes and questions",
+  drawing: "Drawing the pages",
+  storing: "Storing the PDF",
+  done: "Report ready",
+};
+const phaseLabel = (job: JobView) => (job.kind === "report" ? REPORT_PHASE_LABELS[job.phase] : undefined) ?? PHASE_LABELS[job.phase] ?? job.phase;
 
 export const jobKey = (projectId: string, jobId: string) => ["projects", projectId, "jobs", jobId] as const;
 const isActive = (job: JobView | undefined) => job?.state === "queued" || job?.state === "running";
@@ -39,14 +47,14 @@ export function useJob(projectId: string, initial: JobView, onSettled?: (job: Jo
   return job;
 }
 
-/** The job's progress bar, or its failure with a retry button for those who may run analyses. */
+/** The job's progress bar, or its failure with a retry button for those who may start that kind of job. */
 export function JobProgress({ projectId, job, canRetry }: { projectId: string; job: JobView; canRetry: boolean }) {
   const queryClient = useQueryClient();
   const retry = useMutation({
     mutationFn: () => apiFetch<{ job: JobView }>(`/api/projects/${projectId}/jobs/${job.id}/retry`, { method: "POST" }),
     onSuccess: ({ job: queued }) => queryClient.setQueryData(jobKey(projectId, job.id), queued),
   });
-  const label = PHASE_LABELS[job.phase] ?? job.phase;
+  const label = phaseLabel(job);
   if (job.state === "failed") {
     return (
       <div className="flex flex-col gap-1" data-testid="job-failed">
@@ -55,7 +63,7 @@ export function JobProgress({ projectId, job, canRetry }: { projectId: string; j
         </p>
         {canRetry ? (
           <Button type="button" variant="quiet" onClick={() => retry.mutate()} disabled={retry.isPending} data-testid="job-retry">
-            {retry.isPending ? "Queuing again…" : job.kind === "any_load" ? "Retry the check" : "Retry the analysis"}
+            {retry.isPending ? "Queuing again…" : job.kind === "any_load" ? "Retry the check" : job.kind === "report" ? "Retry the report" : "Retry the analysis"}
           </Button>
         ) : null}
         <FormMessage message={retry.error?.message} />

@@ -1,9 +1,10 @@
-// The report page's forms: plain GET forms to the report and export route handlers, so the browser downloads
-// the PDF or CSV itself; the revision picker reloads the page for the revision chosen.
+// The report page's forms: the PDF report is made by a job (ReportPdfForm follows it); the exports are plain GET
+// forms to their route handlers, so the browser downloads the CSV or IFC itself; the revision picker reloads the
+// page for the revision chosen.
+import { ReportPdfForm, type ResultOption } from "@/components/report/report-pdf-form";
 import { RevisionPicker } from "@/components/revision/revision-picker";
 import type { RevisionOption } from "@/components/revision/revision-select";
-
-type ResultOption = { id: string; name: string; kind: "combination" | "load case" };
+import type { ReportJobView } from "@/db/queries/jobs";
 
 const selectClass = "rounded-md border border-board-200 bg-white px-3 py-2 text-sm";
 const buttonClass = "inline-flex items-center justify-center rounded-md bg-board-800 px-4 py-2 text-sm font-medium text-white hover:bg-board-900";
@@ -23,50 +24,27 @@ export function ReportForm({
   revision,
   results,
   defaultChosen,
+  canMake,
+  recent,
 }: {
   projectId: string;
   revisions: RevisionOption[];
   revision: number;
   results: ResultOption[];
   defaultChosen: string[];
+  /** The rule book's report.make for this member. */
+  canMake: boolean;
+  recent: ReportJobView[];
 }) {
   const api = `/api/projects/${projectId}`;
   return (
     <div className="flex flex-col gap-6">
-      {/* Choosing a revision reloads the page for it, so the PDF and exports below always use the revision picked. */}
+      {/* Choosing a revision reloads the page for it, so the report and exports below always use the revision picked. */}
       <div data-testid="report-revision-form">
         <RevisionPicker projectId={projectId} page="report" revisions={revisions} current={revision} testId="report-revision" />
       </div>
 
-      <form method="get" action={`${api}/report`} target="_blank" className="flex flex-col gap-4 rounded-lg border border-board-200 bg-white p-4" data-testid="report-form">
-        <input type="hidden" name="revision" value={revision} />
-        <fieldset className="flex flex-col gap-2">
-          <legend className="mb-1 text-sm font-medium text-board-800">Results to tabulate</legend>
-          {results.map((r) => (
-            <label key={r.id} className="flex items-center gap-2 text-sm">
-              <input type="checkbox" name="combinations" value={r.id} defaultChecked={defaultChosen.includes(r.id)} />
-              <span className="font-mono text-xs">{r.id}</span> {r.name} <span className="text-board-700">({r.kind})</span>
-            </label>
-          ))}
-        </fieldset>
-        <fieldset className="flex flex-wrap items-end gap-3">
-          <legend className="mb-1 text-sm font-medium text-board-800">Compare member states between (optional)</legend>
-          {["first", "second"].map((which) => (
-            <label key={which} className="flex flex-col gap-1 text-sm">
-              {which === "first" ? "First result" : "Second result"}
-              <select name="compare" defaultValue="" className={selectClass} data-testid={`report-compare-${which}`}>
-                <option value="">none</option>
-                <ResultOptions results={results} />
-              </select>
-            </label>
-          ))}
-        </fieldset>
-        <div>
-          <button type="submit" className={buttonClass} data-testid="report-download">
-            Make the PDF report
-          </button>
-        </div>
-      </form>
+      <ReportPdfForm projectId={projectId} revision={revision} results={results} defaultChosen={defaultChosen} canMake={canMake} recent={recent} />
 
       <div className="flex flex-col gap-3 rounded-lg border border-board-200 bg-white p-4">
         <h3 className="text-sm font-medium text-board-800">CSV exports</h3>
@@ -80,6 +58,18 @@ export function ReportForm({
           </label>
           <button type="submit" className={buttonClass} data-testid="export-member-forces">
             Download member forces
+          </button>
+        </form>
+        <form method="get" action={`${api}/exports/node-results.csv`} className="flex flex-wrap items-end gap-3">
+          <input type="hidden" name="revision" value={revision} />
+          <label className="flex flex-col gap-1 text-sm">
+            Deflections and support reactions of
+            <select name="result" className={selectClass} defaultValue={defaultChosen[0]} data-testid="export-node-result">
+              <ResultOptions results={results} />
+            </select>
+          </label>
+          <button type="submit" className={buttonClass} data-testid="export-node-results">
+            Download node results
           </button>
         </form>
         <a className="text-sm text-tension underline" href={`${api}/exports/envelope.csv?revision=${revision}`} data-testid="export-envelope">

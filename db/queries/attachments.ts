@@ -95,3 +95,12 @@ export async function linkModelFiles(tx: Executor, { projectId, attachmentIds, r
     .returning({ id: attachments.id });
   return rows.length;
 }
+
+/** The ready files of a purpose linked to a revision (its uploaded model originals, its stored reports), by name. */
+export function listRevisionFiles({ projectId, revisionId, purpose, db = getDb() }: { projectId: string; revisionId: string; purpose: Attachment["purpose"]; db?: Executor }): Promise<Attachment[]> {
+  return db
+    .select()
+    .from(attachments)
+    .where(and(eq(attachments.projectId, projectId), eq(attachments.revisionId, revisionId), eq(attachments.purpose, purpose), eq(attachments.state, "ready")))
+    .orderBy(asc(attachments.filename));
+}

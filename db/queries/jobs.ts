@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
-import { jobs, type Job } from "@/db/schema";
+import { jobs, users, type Job } from "@/db/schema";
 
 /** What the browser sees of a job. */
 export type JobView = Pick<Job, "id" | "kind" | "state" | "phase" | "percent" | "error" | "outcome"> & { revisionId: string; updatedAt: string };
@@ -95,4 +95,19 @@ export async function hasActiveJob(db: Executor, { revisionId, kind }: { revisio
     .where(and(eq(jobs.revisionId, revisionId), eq(jobs.kind, kind), inArray(jobs.state, ["queued", "running"])))
     .limit(1);
   return Boolean(row);
+}
+
+/** A report job of a revision as the report page lists it. */
+export type ReportJobView = JobView & { requestedBy: string | null; createdAt: string };
+
+/** The newest report jobs of a revision (any state), newest first, with who asked for each. */
+export async function listReportJobs({ projectId, revisionId, limit = 5, db = getDb() }: { projectId: string; revisionId: string; limit?: number; db?: Executor }): Promise<ReportJobView[]> {
+  const rows = await db
+    .select({ job: jobs, requestedBy: users.name })
+    .from(jobs)
+    .leftJoin(users, eq(users.id, jobs.requestedBy))
+    .where(and(eq(jobs.projectId, projectId), eq(jobs.revisionId, revisionId), eq(jobs.kind, "report")))
+    .orderBy(desc(jobs.createdAt))
+    .limit(limit);
+  return rows.map(({ job, requestedBy }) => ({ ...view(job), requestedBy, createdAt: job.createdAt.toISOString() }));
 }

@@ -30,7 +30,7 @@ export type RevisionSummary = {
 };
 
 /** A revision with its model and the stored analysis and review. */
-export type RevisionWithResults = Omit<RevisionSummary, "analysisStatus" | "originals" | "isCurrent"> & {
+export type RevisionWithResults = Omit<RevisionSummary, "analysisStatus" | "originals"> & {
   /** The newest whole-roof "idle for any roof load" job, while it runs or after (server/jobs/any-load.ts). */
   anyLoadJob: JobView | null;
   model: TrussModel;
@@ -117,6 +117,7 @@ export async function getRevisionWithResults({ projectId, number, db = getDb() }
     createdAt: r.createdAt.toISOString(),
     createdBy: revision.createdBy,
     memberCount: r.memberCount,
+    isCurrent: r.isCurrent,
     job: jobs.get(r.id) ?? null,
     anyLoadJob: anyLoadJobs.get(r.id) ?? null,
     model: r.model,
@@ -295,4 +296,26 @@ export async function getRevisionAnalysisStatus(db: Executor, { projectId, numbe
     .orderBy(desc(analysisRuns.createdAt))
     .limit(1);
   return row ? { id: row.id, status: row.status ?? null } : null;
+}
+
+/** What a report request is checked against, without loading the model or results: the revision's id, its analysis status and its result ids. */
+export async function getRevisionResultIds({ projectId, number, db = getDb() }: { projectId: string; number: number; db?: Executor }): Promise<{
+  id: string;
+  status: "ok" | "unstable" | null;
+  loadCases: string[];
+  combinations: string[];
+} | null> {
+  const [row] = await db
+    .select({
+      id: modelRevisions.id,
+      status: analysisRuns.status,
+      loadCases: sql<string[]>`jsonb_path_query_array(${modelRevisions.model}, '$.loadCases[*].id')`,
+      combinations: sql<string[]>`jsonb_path_query_array(${modelRevisions.model}, '$.combinations[*].id')`,
+    })
+    .from(modelRevisions)
+    .leftJoin(analysisRuns, eq(analysisRuns.revisionId, modelRevisions.id))
+    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, number)))
+    .orderBy(desc(analysisRuns.createdAt))
+    .limit(1);
+  return row ? { ...row, status: row.status ?? null } : null;
 }

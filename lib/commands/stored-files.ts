@@ -10,6 +10,7 @@ import {
   deleteAttachmentRecord,
   getAttachment,
   insertAttachment,
+  listRevisionFiles,
   listStalePendingAttachments,
   markAttachmentReady,
 } from "@/db/queries/attachments";
@@ -208,4 +209,11 @@ export async function readSnapshot({ projectId, attachmentId }: { projectId: str
 export async function removeStoredFile({ projectId, attachmentId }: { projectId: string; attachmentId: string }): Promise<void> {
   const attachment = await getAttachment({ projectId, attachmentId });
   if (attachment) await removeEverywhere(attachment);
+}
+
+/** The bytes of a revision's uploaded model file(s), by name; a file whose object is gone is left out. */
+export async function readModelOriginals({ projectId, revisionId }: { projectId: string; revisionId: string }): Promise<ReceivedFile[]> {
+  const files = await listRevisionFiles({ projectId, revisionId, purpose: "model" });
+  const read = await Promise.all(files.map(async (file) => ({ filename: file.filename, bytes: await getObject(file.objectKey) })));
+  return read.filter((file): file is ReceivedFile => file.bytes !== null);
 }

@@ -9,6 +9,8 @@ export const QUEUES = {
   analysis: "revision-analysis",
   /** "Idle for any roof load" for a whole roof: data { jobId } (a jobs row of kind any_load). */
   anyLoad: "any-load-certificate",
+  /** The review report PDF of one revision: data { jobId } (a row of the jobs table, its input the report query). */
+  report: "review-report",
   /** The daily digest of open threads, on a schedule; pg-boss sends one per slot however many processes run. */
   digest: "mail-digest",
   /** Removal of uploads nobody confirmed, on a schedule. */
@@ -17,6 +19,8 @@ export const QUEUES = {
 
 /** Data of the analysis and any-load jobs: the jobs row the browser watches. */
 export type AnalysisJobData = { jobId: string };
+/** What a report job's pg-boss message carries: the jobs row, whose input holds the report query. */
+export type ReportJobData = { jobId: string };
 
 /** Anything that runs a drizzle SQL query: the database or an open transaction. */
 export type SqlRunner = { execute(query: SQL): Promise<{ rows: unknown[] }> };

@@ -1,6 +1,6 @@
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
-import { ENVELOPE_COLUMNS, envelopeCsv, MEMBER_FORCE_COLUMNS, memberForcesCsv, roundForce } from "./csv";
+import { ENVELOPE_COLUMNS, envelopeCsv, MEMBER_FORCE_COLUMNS, memberForcesCsv, NODE_RESULT_COLUMNS, nodeResultsCsv, roundForce } from "./csv";
 import { tripodReport } from "@/tests/support/fixtures/report";
 
 // Read back with papaparse (a general-purpose CSV parser) and compared with the analysis result itself.
@@ -46,5 +46,18 @@ describe("CSV exports", () => {
     expect(Number(ad.max_compression_kN)).toBe(roundForce(result.envelope.AD.maxCompression));
     expect(ad).toMatchObject({ zero_in_all: "false", governing_tension: "ULS-3", governing_compression: "ULS-1" });
     expect(data.find((row) => row.member === "AB")).toMatchObject({ zero_in_all: "true" });
+  });
+
+  it("node results: every node's displacement in mm and each support's reaction, matching hand statics", () => {
+    const { data, meta } = parse(nodeResultsCsv(model, result, "ULS-1"));
+    expect(meta.fields).toEqual([...NODE_RESULT_COLUMNS]);
+    expect(data.map((row) => row.node)).toEqual(["A", "B", "C", "D"]);
+    // Tripod statics: P = 40.5 kN down at D shared equally, Rz = 13.5 kN at each support; A's leg pushes it along +x
+    // with N cos a = 19.09 / sqrt(2) = 13.5 kN, so Rx at A = -13.5 kN.
+    expect(data[0]).toMatchObject({ supported: "true", reaction_fx_kN: "-13.5", reaction_fy_kN: "0", reaction_fz_kN: "13.5" });
+    expect(data[3]).toMatchObject({ supported: "false", reaction_fx_kN: "", reaction_fz_kN: "" });
+    expect(Number(data[3].uz_mm)).toBe(Math.round(result.results["ULS-1"].displacements.D.uz * 1e6) / 1000);
+    expect(Number(data[3].uz_mm)).toBeLessThan(0);
+    expect(() => nodeResultsCsv(model, result, "ULS-9")).toThrow(/no result "ULS-9"/);
   });
 });

@@ -1,5 +1,5 @@
-// CSV exports of stored analysis results: member forces of one result, and the envelope (pure; papaparse writes
-// the CSV so quoting follows RFC 4180).
+// CSV exports of stored analysis results: member forces of one result, node displacements and support reactions of
+// one result, and the envelope (pure; papaparse writes the CSV so quoting follows RFC 4180).
 import Papa from "papaparse";
 import type { AnalysisResult } from "../analysis/analyze";
 import type { TrussModel } from "../analysis/model";
@@ -16,6 +16,30 @@ export const UNPARSE = { newline: "\n", escapeFormulae: /^[=+\-@\t\r]/ } as cons
  */
 export function roundForce(kN: number): number {
   return Math.round(kN * 100) / 100 + 0;
+}
+
+/** Displacements to 0.001 mm (the model is in metres). */
+export function roundMillimetres(metres: number): number {
+  return Math.round(metres * 1e6) / 1000 + 0;
+}
+
+export const NODE_RESULT_COLUMNS = ["node", "x_m", "y_m", "z_m", "result", "ux_mm", "uy_mm", "uz_mm", "supported", "reaction_fx_kN", "reaction_fy_kN", "reaction_fz_kN"] as const;
+
+/** One row per node: its displacement in the result and, at a support, the reaction (empty cells elsewhere). */
+export function nodeResultsCsv(model: TrussModel, result: AnalysisResult, resultId: string): string {
+  const caseResult = result.results[resultId];
+  if (!caseResult) throw new Error(`The analysis has no result "${resultId}".`);
+  const rows = model.nodes.map((node) => {
+    const d = caseResult.displacements[node.id] ?? { ux: 0, uy: 0, uz: 0 };
+    const r = caseResult.reactions[node.id];
+    return [
+      node.id, node.x, node.y, node.z, resultId,
+      roundMillimetres(d.ux), roundMillimetres(d.uy), roundMillimetres(d.uz),
+      r ? "true" : "false",
+      r ? roundForce(r.fx) : "", r ? roundForce(r.fy) : "", r ? roundForce(r.fz) : "",
+    ];
+  });
+  return Papa.unparse({ fields: [...NODE_RESULT_COLUMNS], data: rows }, UNPARSE) + "\n";
 }
 
 export const MEMBER_FORCE_COLUMNS = ["member", "node_i", "node_j", "section", "result", "axial_force_kN", "state"] as const;

@@ -1,132 +1,13 @@
 // The review report as a PDF (pdfkit, built-in Helvetica: nothing is fetched). Built from plain data
 // (lib/report/types.ts), so it is tested without a database. Every page carries the standing caution.
-import PDFDocument from "pdfkit";
 import type { CaseResult } from "../analysis/analyze";
 import { STANDING_CAUTION } from "../review/caution";
 import { forceStateIn } from "../vocabulary/force-state";
+import { planPage, reactionsSection, utilisationSection } from "./engineering";
+import { COLOURS, FONT, PAGE, ReportWriter, kn, safe } from "./pdf-writer";
+import { drawClashSnippet } from "./plan-drawing";
 import { stateChanges } from "./states";
-import type { ReportInput } from "./types";
-
-const PAGE = { size: "A4", margin: 50, footer: 70 } as const;
-const COLOURS = { ink: "#0f172a", muted: "#475569", rule: "#cbd5e1", band: "#f1f5f9", tension: "#0f766e", compression: "#c2410c", zero: "#64748b" } as const;
-const FONT = { regular: "Helvetica", bold: "Helvetica-Bold" } as const;
-
-// pdfkit's built-in fonts use the WinAnsi code page: common typographic characters are mapped to their ASCII
-// forms and anything else outside Latin-1 becomes "?", so user text can never break the document.
-const REPLACEMENTS: Record<string, string> = { "≤": "<=", "≥": ">=", "−": "-", "→": "->", "≈": "~", "✓": "v" };
-function safe(text: string): string {
-  return text.replace(/[^\u0000-\u00ff\u2013\u2014\u2018\u2019\u201c\u201d\u2026\u2022\u20ac]/g, (ch) => REPLACEMENTS[ch] ?? "?");
-}
-
-function kn(value: number): string {
-  return (Math.abs(value) < 0.005 ? 0 : value).toFixed(2);
-}
-
-type Column = { header: string; width: number; align?: "left" | "right" };
-
-class ReportWriter {
-  readonly doc: PDFKit.PDFDocument;
-  private readonly bottom: number;
-  private readonly width: number;
-
-  constructor(title: string) {
-    this.doc = new PDFDocument({ size: PAGE.size, margins: { top: PAGE.margin, left: PAGE.margin, right: PAGE.margin, bottom: PAGE.margin + PAGE.footer }, bufferPages: true, info: { Title: safe(title), Creator: "Strutroom" } });
-    this.bottom = this.doc.page.height - PAGE.margin - PAGE.footer;
-    this.width = this.doc.page.width - 2 * PAGE.margin;
-  }
-
-  private ensure(height: number): void {
-    if (this.doc.y + height > this.bottom) this.doc.addPage();
-  }
-
-  heading(text: string, level: 1 | 2 = 1): void {
-    this.ensure(level === 1 ? 60 : 40);
-    this.doc.moveDown(level === 1 ? 0.8 : 0.5);
-    this.doc.font(FONT.bold).fontSize(level === 1 ? 15 : 11.5).fillColor(COLOURS.ink).text(safe(text), PAGE.margin, this.doc.y, { width: this.width });
-    this.doc.moveDown(0.3);
-  }
-
-  paragraph(text: string, options: { color?: string; size?: number } = {}): void {
-    this.doc.font(FONT.regular).fontSize(options.size ?? 9.5).fillColor(options.color ?? COLOURS.ink).text(safe(text), PAGE.margin, this.doc.y, { width: this.width });
-    this.doc.moveDown(0.4);
-  }
-
-  keyValues(pairs: [string, string][]): void {
-    for (const [key, value] of pairs) {
-      this.ensure(14);
-      const y = this.doc.y;
-      this.doc.font(FONT.bold).fontSize(9.5).fillColor(COLOURS.muted).text(safe(key), PAGE.margin, y, { width: 150 });
-      this.doc.font(FONT.regular).fillColor(COLOURS.ink).text(safe(value), PAGE.margin + 155, y, { width: this.width - 155 });
-      this.doc.moveDown(0.15);
-    }
-    this.doc.moveDown(0.3);
-  }
-
-  /** A table that breaks across pages, repeating its header; `colours` tints a cell's text. */
-  table(columns: Column[], rows: string[][], colours?: (row: number, column: number) => string | undefined): void {
-    const size = 8.5;
-    const pad = 3;
-    const header = () => {
-      this.ensure(30);
-      const y = this.doc.y;
-      const height = Math.max(...columns.map((c) => this.doc.font(FONT.bold).fontSize(size).heightOfString(safe(c.header), { width: c.width - 2 * pad }))) + 2 * pad;
-      this.doc.rect(PAGE.margin, y, this.width, height).fill(COLOURS.band);
-      let x = PAGE.margin;
-      for (const column of columns) {
-        this.doc.font(FONT.bold).fontSize(size).fillColor(COLOURS.ink).text(safe(column.header), x + pad, y + pad, { width: column.width - 2 * pad, align: column.align ?? "left" });
-        x += column.width;
-      }
-      this.doc.y = y + height;
-    };
-    header();
-    rows.forEach((row, r) => {
-      const height = Math.max(...row.map((cell, c) => this.doc.font(FONT.regular).fontSize(size).heightOfString(safe(cell), { width: columns[c].width - 2 * pad }))) + 2 * pad;
-      if (this.doc.y + height > this.bottom) {
-        this.doc.addPage();
-        header();
-      }
-      const y = this.doc.y;
-      let x = PAGE.margin;
-      row.forEach((cell, c) => {
-        this.doc.font(FONT.regular).fontSize(size).fillColor(colours?.(r, c) ?? COLOURS.ink).text(safe(cell), x + pad, y + pad, { width: columns[c].width - 2 * pad, align: columns[c].align ?? "left" });
-        x += columns[c].width;
-      });
-      this.doc.moveTo(PAGE.margin, y + height).lineTo(PAGE.margin + this.width, y + height).lineWidth(0.4).strokeColor(COLOURS.rule).stroke();
-      this.doc.y = y + height;
-    });
-    this.doc.x = PAGE.margin;
-    this.doc.moveDown(0.6);
-  }
-
-  /** A long member list laid out in `groups` side-by-side blocks of the same columns, to save pages. */
-  groupedTable(columns: Column[], rows: string[][], groups: number, colours?: (row: number, column: number) => string | undefined): void {
-    const perRow = Math.ceil(rows.length / groups) || 0;
-    const scale = this.width / groups / columns.reduce((sum, c) => sum + c.width, 0);
-    const scaled = columns.map((c) => ({ ...c, width: c.width * scale }));
-    const wide: Column[] = Array.from({ length: groups }, () => scaled).flat();
-    const merged: string[][] = [];
-    for (let k = 0; k < perRow; k++) {
-      merged.push(Array.from({ length: groups }, (_, g) => rows[g * perRow + k] ?? columns.map(() => "")).flat());
-    }
-    this.table(wide, merged, colours ? (r, c) => colours(Math.floor(c / columns.length) * perRow + r, c % columns.length) : undefined);
-  }
-
-  /** Draws the footer (standing caution, page x of y) on every page; call once, at the end. */
-  finish(label: string): void {
-    const range = this.doc.bufferedPageRange();
-    for (let i = range.start; i < range.start + range.count; i++) {
-      this.doc.switchToPage(i);
-      // Writing below the bottom margin would start a new page; lift the margin while the footer is drawn.
-      const margins = this.doc.page.margins;
-      this.doc.page.margins = { ...margins, bottom: 0 };
-      const top = this.doc.page.height - PAGE.margin - PAGE.footer + 12;
-      this.doc.moveTo(PAGE.margin, top).lineTo(PAGE.margin + this.width, top).lineWidth(0.6).strokeColor(COLOURS.compression).stroke();
-      this.doc.font(FONT.bold).fontSize(8).fillColor(COLOURS.ink).text(`Standing caution: ${STANDING_CAUTION}`, PAGE.margin, top + 6, { width: this.width });
-      this.doc.font(FONT.regular).fontSize(7.5).fillColor(COLOURS.muted).text(safe(`${label} — page ${i - range.start + 1} of ${range.count}`), PAGE.margin, this.doc.page.height - PAGE.margin - 10, { width: this.width, align: "right" });
-      this.doc.page.margins = margins;
-    }
-  }
-}
+import type { ReportClash, ReportInput } from "./types";
 
 function resultName(input: ReportInput, id: string): string {
   const combination = input.model.combinations.find((c) => c.id === id);
@@ -155,7 +36,15 @@ function cover(w: ReportWriter, input: ReportInput): void {
   if (input.project.description) w.paragraph(input.project.description);
   w.keyValues([
     ["Model", input.model.name],
+    ["Revision", `${input.revision.number}: ${input.revision.name}`],
     ["Revision created", `${input.revision.createdAt.slice(0, 10)}${input.revision.createdBy ? ` by ${input.revision.createdBy}` : ""}`],
+    [
+      "Made current",
+      input.identity.madeCurrent
+        ? `${input.identity.madeCurrent.at.slice(0, 16).replace("T", " ")} UTC by ${input.identity.madeCurrent.by ?? "a former member"}${input.identity.isCurrent ? "" : " (no longer the current revision)"}`
+        : "not marked current",
+    ],
+    ...input.identity.hashes.map((h): [string, string] => ["Content hash (SHA-256)", `${h.sha256} of ${h.of}`]),
     ["Analysis", input.result.status === "ok" ? "Analysed: stable" : "Unstable: no forces (see the model summary)"],
     ["Results in this report", input.combinations.map((id) => resultName(input, id)).join("; ") || "none chosen"],
     ["Compared", input.compare ? `${resultName(input, input.compare[0])} against ${resultName(input, input.compare[1])}` : "no comparison chosen"],
@@ -252,6 +141,44 @@ function comparison(w: ReportWriter, input: ReportInput, [a, b]: [string, string
   );
 }
 
+function historyText(clash: ReportClash): string[][] {
+  return clash.history.map((h) => [
+    h.at.slice(0, 16).replace("T", " "),
+    h.revision === null ? "-" : String(h.revision),
+    h.step,
+    h.outcome ?? "-",
+    [h.by ?? "a former member", h.role ? `(${h.role})` : ""].filter(Boolean).join(" "),
+    h.text || "-",
+  ]);
+}
+
+/** Each clash with a plan snippet around it (force state of the first chosen result) and its decision history. */
+function clashDetails(w: ReportWriter, input: ReportInput): void {
+  const shown = input.combinations.find((id) => input.result.results[id]);
+  const result = shown ? input.result.results[shown] : undefined;
+  w.heading("Clashes one by one: where, and what was decided");
+  if (result) w.paragraph(`Snippets show 6 m x 6 m of the roof in plan around each clash (circled), members coloured by force state under ${resultName(input, shown!)}.`, { color: COLOURS.muted, size: 8.5 });
+  const size = 130;
+  for (const clash of input.clashes) {
+    w.ensure(size + 40);
+    const top = w.doc.y;
+    if (result) drawClashSnippet(w.doc, input.model, result, clash.point, { x: PAGE.margin, y: top, width: size, height: size });
+    const x = PAGE.margin + (result ? size + 12 : 0);
+    const width = w.width - (x - PAGE.margin);
+    w.doc.font(FONT.bold).fontSize(10).fillColor(COLOURS.ink).text(`Clash ${clash.clashKey}: member ${clash.memberId}, run ${clash.runId} (${clash.kind})`, x, top, { width });
+    w.doc.font(FONT.regular).fontSize(8.5).fillColor(COLOURS.ink);
+    w.doc.text(`At x ${clash.point.x.toFixed(2)} m, y ${clash.point.y.toFixed(2)} m, z ${clash.point.z.toFixed(2)} m. Status ${clash.status}. Outcome now: ${clash.outcome ?? "open (nothing proposed)"}.`, x, w.doc.y + 2, { width });
+    w.doc.y = Math.max(w.doc.y + 4, result ? top + size + 6 : w.doc.y);
+    w.doc.x = PAGE.margin;
+    if (clash.history.length === 0) w.paragraph("No proposal or decision recorded yet.", { color: COLOURS.muted, size: 8.5 });
+    else
+      w.table(
+        [{ header: "When (UTC)", width: 72 }, { header: "Rev.", width: 30, align: "right" }, { header: "Step", width: 75 }, { header: "Outcome", width: 95 }, { header: "By", width: 95 }, { header: "Note, conditions or reason", width: 128 }],
+        historyText(clash),
+      );
+  }
+}
+
 function clashLog(w: ReportWriter, input: ReportInput): void {
   w.heading("Clash log");
   if (input.clashes.length === 0) {
@@ -284,8 +211,11 @@ function questions(w: ReportWriter, input: ReportInput): void {
   );
 }
 
-/** Builds the review report; resolves with the PDF bytes. */
-export function buildReportPdf(input: ReportInput): Promise<Buffer> {
+/** Called with the share of the report drawn so far (0 to 1); awaited, so progress can be stored between parts. */
+export type ReportProgress = (fraction: number) => void | Promise<void>;
+
+/** Builds the review report; resolves with the PDF bytes and the page count. */
+export async function buildReportPdf(input: ReportInput, onProgress: ReportProgress = () => {}): Promise<{ pdf: Buffer; pages: number }> {
   const w = new ReportWriter(`${input.project.name}: review report, revision ${input.revision.number}`);
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
@@ -293,18 +223,32 @@ export function buildReportPdf(input: ReportInput): Promise<Buffer> {
     w.doc.on("end", () => resolve(Buffer.concat(chunks)));
     w.doc.on("error", reject);
   });
+  const chosen = input.combinations.filter((id) => input.result.results[id]);
+  // cover and summary, one part per chosen result, the review, then clashes and questions
+  const parts = chosen.length + 3;
+  let part = 0;
+  const step = async () => onProgress(++part / parts);
   cover(w, input);
   modelSummary(w, input);
   loads(w, input);
-  for (const id of input.combinations) {
+  await step();
+  for (const id of chosen) {
     const result = input.result.results[id];
-    if (result) forces(w, input, id, result);
+    planPage(w, resultName(input, id), result, input);
+    reactionsSection(w, resultName(input, id), id, result, input);
+    forces(w, input, id, result);
+    await step();
   }
+  utilisationSection(w, input, (id) => resultName(input, id));
+  await step();
   w.doc.addPage();
   if (input.compare) comparison(w, input, input.compare);
   clashLog(w, input);
+  if (input.clashes.length) clashDetails(w, input);
   questions(w, input);
+  await step();
   w.finish(`${input.project.name}, revision ${input.revision.number}`);
+  const pages = w.doc.bufferedPageRange().count;
   w.doc.end();
-  return done;
+  return { pdf: await done, pages };
 }

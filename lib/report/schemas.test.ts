@@ -1,17 +1,21 @@
 import { describe, expect, it } from "vitest";
-import { reportQueryFrom, reportQuerySchema } from "./schemas";
+import { reportJobInputSchema, reportRequestSchema } from "./schemas";
 
-const parse = (query: string) => reportQuerySchema.safeParse(reportQueryFrom(new URLSearchParams(query)));
-
-describe("report query", () => {
-  it("reads comma lists and repeated keys (the report form's checkboxes) alike", () => {
-    expect(parse("revision=2&combinations=ULS-1,ULS-2&compare=ULS-1,ULS-3").data).toEqual({ revision: 2, combinations: ["ULS-1", "ULS-2"], compare: ["ULS-1", "ULS-3"] });
-    expect(parse("combinations=ULS-1&combinations=ULS-2&compare=ULS-1&compare=ULS-3&compare=").data).toEqual({ combinations: ["ULS-1", "ULS-2"], compare: ["ULS-1", "ULS-3"] });
-    expect(parse("").data).toEqual({});
+describe("report request", () => {
+  it("takes a revision, the results in order and an optional comparison", () => {
+    expect(reportRequestSchema.parse({ revision: 2, combinations: ["ULS-1", "ULS-2"], compare: ["ULS-1", "ULS-3"] })).toEqual({ revision: 2, combinations: ["ULS-1", "ULS-2"], compare: ["ULS-1", "ULS-3"] });
+    expect(reportRequestSchema.parse({})).toEqual({});
+    expect(reportRequestSchema.parse({ compare: null })).toEqual({ compare: null });
   });
 
-  it("refuses a comparison of anything but two results, and a bad revision", () => {
-    expect(parse("compare=ULS-1").error?.issues[0]).toMatchObject({ path: ["compare"], message: "Compare exactly two results, as compare=a,b." });
-    expect(parse("revision=0").error?.issues[0].path).toEqual(["revision"]);
+  it("refuses a comparison of anything but two results, a bad revision, an unknown key and a reserved name, each named", () => {
+    const failed = reportRequestSchema.safeParse({ revision: 0, compare: ["ULS-1"], combinations: ["__proto__"], extra: 1 });
+    expect(failed.error?.issues.map((i) => i.path.join("."))).toEqual(expect.arrayContaining(["revision", "compare", "combinations.0", ""]));
+    expect(failed.error?.issues.find((i) => i.path[0] === "compare")?.message).toBe("Compare exactly two results.");
+  });
+
+  it("stores a job's input resolved: the revision and results always present", () => {
+    expect(reportJobInputSchema.safeParse({ revision: 1, combinations: [] , compare: null }).success).toBe(true);
+    expect(reportJobInputSchema.safeParse({ revision: 1, combinations: [] }).success).toBe(false);
   });
 });

@@ -1,6 +1,6 @@
-// Query schemas of the report and export routes: shared by the report form and the route handlers.
+// Input schemas of the report and export routes: shared by the report form, the route handlers and the report job.
 import { z } from "zod";
-import { revisionNumberText } from "@/lib/fields";
+import { revisionNumber, revisionNumberText } from "@/lib/fields";
 import { text } from "@/lib/limits";
 import { RESERVED_NAMES, reservedNameMessage } from "@/lib/text";
 
@@ -11,29 +11,28 @@ const resultId = z
   .min(1)
   .max(text.resultId)
   .refine((id) => !RESERVED_NAMES.has(id), { error: (issue) => reservedNameMessage(String(issue.input)) });
-const idList = z
-  .string()
-  .transform((value) => value.split(",").map((id) => id.trim()).filter(Boolean))
-  .pipe(z.array(resultId).max(50, "Choose at most 50 results."));
+const resultList = z.array(resultId).max(50, "Choose at most 50 results.");
 
-/** GET /api/projects/[projectId]/report?revision=&combinations=a,b&compare=a,b */
-export const reportQuerySchema = z.object({
-  /** Revision number; the newest revision when absent. */
-  revision: revisionNumberText.optional(),
-  /** Result ids to tabulate (combinations or load cases); every combination when absent. */
-  combinations: idList.optional(),
+/** POST /api/projects/[projectId]/report: the report to make (a job; GET …/jobs/<id> follows it). */
+export const reportRequestSchema = z.strictObject({
+  /** Revision number; the current revision (else the newest) when absent. */
+  revision: revisionNumber.optional(),
+  /** Result ids to tabulate and draw (combinations or load cases), in this order; every combination when absent. */
+  combinations: resultList.optional(),
   /** Exactly two result ids whose member states are compared. */
-  compare: idList.pipe(z.array(resultId).length(2, "Compare exactly two results, as compare=a,b.")).optional(),
+  compare: z.array(resultId).length(2, "Compare exactly two results.").nullish(),
 });
-export type ReportQuery = z.output<typeof reportQuerySchema>;
+export type ReportRequest = z.output<typeof reportRequestSchema>;
 
-/** The raw report query from URL parameters, joining repeated list keys (a form's checkboxes) with commas. */
-export function reportQueryFrom(params: URLSearchParams): Record<string, string | undefined> {
-  const list = (key: string) => params.getAll(key).flatMap((value) => value.split(",")).map((id) => id.trim()).filter(Boolean).join(",") || undefined;
-  return { revision: params.get("revision") || undefined, combinations: list("combinations"), compare: list("compare") };
-}
+/** What a report job was asked for, resolved against the revision (stored as the job's input). */
+export const reportJobInputSchema = z.strictObject({
+  revision: revisionNumber,
+  combinations: resultList,
+  compare: z.tuple([resultId, resultId]).nullable(),
+});
+export type ReportJobInput = z.output<typeof reportJobInputSchema>;
 
-/** GET /api/projects/[projectId]/exports/member-forces.csv?revision=&result= */
+/** GET /api/projects/[projectId]/exports/member-forces.csv?revision=&result= (and node-results.csv, the same query) */
 export const memberForcesQuerySchema = z.object({
   revision: revisionNumberText.optional(),
   result: resultId,

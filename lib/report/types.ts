@@ -1,7 +1,22 @@
-// The plain data a review report is built from (lib/report/pdf.ts): read from PostgreSQL by
-// db/queries/report.ts, or made by hand in tests.
+// The plain data a review report is built from (lib/report/pdf.ts): read from PostgreSQL and object storage by the
+// report job (server/jobs/report-data.ts), or made by hand in tests.
 import type { AnalysisResult } from "../analysis/analyze";
 import type { TrussModel } from "../analysis/model";
+import type { StoredReview } from "../models/analyse";
+
+/** One step of a clash's history (clash_decisions), oldest first. */
+export type ReportClashStep = {
+  /** The step in our words: Proposed, Decided, Decision superseded, Needs another look, Closed. */
+  step: string;
+  outcome: string | null;
+  by: string | null;
+  role: string | null;
+  /** The revision the step was taken on (a carried decision names an earlier one). */
+  revision: number | null;
+  at: string;
+  /** Note, conditions or reason, in one line. */
+  text: string;
+};
 
 export type ReportClash = {
   clashKey: string;
@@ -16,6 +31,9 @@ export type ReportClash = {
   proposedBy: string | null;
   decidedBy: string | null;
   decidedAt: string | null;
+  /** Where the run meets the member (m), for the plan snippet. */
+  point: { x: number; y: number; z: number };
+  history: ReportClashStep[];
 };
 
 export type ReportQuestion = {
@@ -28,12 +46,24 @@ export type ReportQuestion = {
   comments: number;
 };
 
+/** What identifies the reported revision beyond its number: who made it current, and the stored bytes' hash. */
+export type ReportIdentity = {
+  isCurrent: boolean;
+  /** Who marked the revision current, and when; null when nobody has (yet). */
+  madeCurrent: { by: string | null; at: string } | null;
+  /** SHA-256 of each stored model file (the uploaded bytes), or of the stored model JSON for a generated revision. */
+  hashes: { of: string; sha256: string }[];
+};
+
 export type ReportInput = {
   project: { name: string; description: string };
   revision: { number: number; name: string; createdAt: string; createdBy: string | null };
+  identity: ReportIdentity;
   model: TrussModel;
   result: AnalysisResult;
-  /** Result ids (load cases or combinations) to tabulate, in the chosen order. */
+  /** The member review (design checks with arithmetic), or null when none is stored. */
+  review: StoredReview | null;
+  /** Result ids (load cases or combinations) to tabulate and draw, in the chosen order. */
   combinations: string[];
   /** Two result ids whose member states are compared, or null. */
   compare: [string, string] | null;

@@ -4,9 +4,9 @@ import Papa from "papaparse";
 import { modelFileBytes } from "@/lib/limits";
 
 /** What a stored file is for; each purpose accepts its own content types and size. */
-export const FILE_PURPOSES = ["comment", "model", "run", "snapshot"] as const;
+export const FILE_PURPOSES = ["comment", "model", "run", "snapshot", "report"] as const;
 export type FilePurpose = (typeof FILE_PURPOSES)[number];
-/** Purposes a browser may upload through a presigned URL; snapshots are only stored by the server itself. */
+/** Purposes a browser may upload through a presigned URL; snapshots and reports are only stored by the server itself. */
 export const UPLOAD_PURPOSES = ["comment", "model", "run"] as const satisfies readonly FilePurpose[];
 export type UploadPurpose = (typeof UPLOAD_PURPOSES)[number];
 
@@ -19,6 +19,8 @@ export const FILE_RULES = {
   run: { maxBytes: 10 * MB, types: ["application/json", "text/csv"] },
   // A saved view's canvas capture (and the snapshot of an imported BCF viewpoint).
   snapshot: { maxBytes: 5 * MB, types: ["image/png"] },
+  // A review report PDF the jobs process made.
+  report: { maxBytes: 50 * MB, types: ["application/pdf"] },
 } as const satisfies Record<FilePurpose, { maxBytes: number; types: readonly string[] }>;
 
 /** How many leading bytes a binary check needs (file-type reads at most this many for the kinds we accept). */
@@ -40,6 +42,7 @@ const LABELS: Record<FilePurpose, string> = {
   model: "a model file in JSON or a CSV table",
   run: "a run file in JSON or CSV",
   snapshot: "a PNG image",
+  report: "a PDF",
 };
 
 function formatMb(bytes: number): string {

@@ -103,15 +103,21 @@ describe("comment attachments", () => {
 });
 
 describe("review report", () => {
-  it("the report page makes a PDF with the caution on every page and the chosen combinations; the envelope CSV matches the stored results", async () => {
-    const page = await signedIn("viewer");
+  it("making the report shows its progress, then the stored PDF: the caution on every page, the chosen combinations; the envelope CSV matches the stored results", async () => {
+    const page = await signedIn("architect");
     const report = new ReportPage(page);
     await report.open(projectId);
     await report.chooseResults(["ULS-2", "ULS-3"]);
     await report.compare("ULS-2", "ULS-3");
     await screenshot(page, "report-page");
+    await report.make();
+    expect(await page.getByTestId("job-progress").getByRole("status").textContent()).toMatch(/%/);
+    await screenshot(page, "report-progress");
+    const link = await report.madeFile();
+    await expect.poll(() => link.evaluate((a) => { const box = a.getBoundingClientRect(); return box.top >= 0 && box.bottom <= window.innerHeight; })).toBe(true);
+    await screenshot(page, "report-made");
 
-    const response = await page.request.get(await report.reportUrl());
+    const response = await page.request.get((await link.getAttribute("href"))!);
     expect(response.status()).toBe(200);
     expect(response.headers()["content-type"]).toBe("application/pdf");
     const file = path.join(work, "report.pdf");
@@ -129,6 +135,7 @@ describe("review report", () => {
     }
     expect(all).not.toContain("Member forces: EN 1990 (6.10) permanent only");
     expect(all).toContain("Members whose state differs");
+    for (const heading of ["Plan coloured by force state", "Support reactions and deflection", "Reactions balance:", "Utilisation: the most utilised members per check", "Content hash (SHA-256)"]) expect(all).toContain(heading);
 
     const csv = await page.request.get((await report.envelopeUrl())!);
     expect(csv.status()).toBe(200);
@@ -136,6 +143,21 @@ describe("review report", () => {
     expect(data).toHaveLength(revision.model.members.length);
     const envelope = revision.analysis!.result.envelope;
     for (const row of data) expect(Number(row.max_compression_kN)).toBeCloseTo(envelope[row.member].maxCompression, 2);
+    await page.context().close();
+  }, 240_000);
+
+  it("a viewer downloads the reports the team made but cannot make one (report.make)", async () => {
+    const page = await signedIn("viewer");
+    await page.goto(`/projects/${projectId}/report`);
+    await page.getByTestId("report-viewer-note").waitFor();
+    expect(await page.getByTestId("report-make").count()).toBe(0);
+    const made = page.getByTestId("report-recent-file").first();
+    await made.waitFor();
+    const response = await page.request.get((await made.getAttribute("href"))!);
+    expect(response.status()).toBe(200);
+    expect(response.headers()["content-type"]).toBe("application/pdf");
+    const refused = await page.request.post(`/api/projects/${projectId}/report`, { data: {} });
+    expect(refused.status()).toBe(403);
     await page.context().close();
   });
 });

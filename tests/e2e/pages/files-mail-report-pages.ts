@@ -66,12 +66,17 @@ export class ReportPage {
     await this.page.getByTestId("report-compare-second").selectOption(second);
   }
 
-  /** The URL the form would open (its action and fields), to fetch the PDF with the page's session. */
-  reportUrl(): Promise<string> {
-    return this.page.getByTestId("report-form").evaluate((form: HTMLFormElement) => {
-      const query = new URLSearchParams([...new FormData(form)].map(([key, value]) => [key, String(value)]));
-      return `${form.action}?${query}`;
-    });
+  /** Clicks "Make the PDF report"; resolves once the job's progress bar shows (queued or running). */
+  async make() {
+    await this.page.getByTestId("report-make").click();
+    await this.page.getByTestId("report-job").getByTestId("job-progress").waitFor();
+  }
+
+  /** The stored report's download link once the job is done (the jobs process draws it meanwhile). */
+  async madeFile(timeout = 120_000) {
+    const link = this.page.getByTestId("report-file");
+    await link.waitFor({ timeout });
+    return link;
   }
 
   envelopeUrl(): Promise<string | null> {

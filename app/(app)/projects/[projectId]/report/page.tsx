@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { ReportForm } from "@/components/report/report-form";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
+import { listReportJobs } from "@/db/queries/jobs";
 import { getRevisionWithResults, listRevisionsByProject } from "@/db/queries/models";
 import { requirePageProject } from "@/lib/auth/page";
 import { defaultRevision } from "@/lib/models/revision-stage";
@@ -16,6 +17,7 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
   const asked = Number((await searchParams).revision);
   const chosen = revisions.find((r) => r.number === asked) ?? defaultRevision(revisions);
   const revision = chosen ? await getRevisionWithResults({ projectId, number: chosen.number }) : null;
+  const recent = revision ? await listReportJobs({ projectId, revisionId: revision.id }) : [];
   const results = revision
     ? [
         ...revision.model.combinations.map((c) => ({ id: c.id, name: c.name, kind: "combination" as const })),
@@ -29,8 +31,10 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
           Review report and exports {chosen ? <RevisionStageBadge revision={chosen} /> : null}
         </h2>
         <p className="text-sm text-board-700">
-          A PDF of the chosen revision: model summary, load cases and combinations, member forces and zero-force members per result, the
-          members whose state differs between two results, the clash log and the open questions.
+          A PDF of the chosen revision, made in the background: its identity (who made it current, the hash of the stored model),
+          model summary, load cases and combinations; per result a plan coloured by force state, support reactions with the
+          balance check, member forces and zero-force members; the most utilised members per check with their arithmetic; the
+          members whose state differs between two results; every clash with a plan snippet and its decision history; the open questions.
         </p>
         <p className="rounded-md border border-compression/40 bg-compression/5 px-3 py-2 text-sm text-board-800">{STANDING_CAUTION}</p>
         {!revision ? (
@@ -48,6 +52,8 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
             revision={revision.number}
             results={results}
             defaultChosen={revision.model.combinations.length ? revision.model.combinations.map((c) => c.id) : revision.model.loadCases.map((c) => c.id)}
+            canMake={project.abilities["report.make"]}
+            recent={recent}
           />
         )}
         {project.abilities["mail.viewCaptured"] && capturedMailPageEnabled() ? (

@@ -1,21 +1,29 @@
+import { getDefaultRevisionNumber, getRevisionResultIds } from "@/db/queries/models";
+import { enqueueReport } from "@/lib/commands/enqueue-report";
+import { ConflictError, NotFoundError, ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { collectReport } from "@/app/api/projects/[projectId]/_lib/report-data";
-import { buildReportPdf } from "@/lib/report/pdf";
-import { reportQueryFrom, reportQuerySchema } from "@/lib/report/schemas";
+import { reportRequestSchema } from "@/lib/report/schemas";
 
 /**
- * The review report PDF: `?revision=` (newest when absent), `&combinations=a,b` (all when absent), `&compare=a,b`.
- * Lists may also come as repeated keys (`combinations=a&combinations=b`), as the report page's form sends them.
+ * Asks for the review report PDF of a revision (the current one when none is named): the jobs process makes and
+ * stores it; the answer is the job to follow (GET …/jobs/<id>), whose outcome names the stored file when done.
  */
-export const GET = projectRoute(
-  { params: projectParamsSchema, query: reportQuerySchema, readQuery: reportQueryFrom, action: "report.export" },
-  async ({ params, query, user }) => {
-    const input = await collectReport({ projectId: params.projectId, query, generatedBy: user.name, now: new Date() });
-    const pdf = await buildReportPdf(input);
-    const filename = `strutroom-review-rev${input.revision.number}.pdf`;
-    return new Response(new Uint8Array(pdf), {
-      headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${filename}"`, "cache-control": "private, no-store" },
-    });
-  },
-);
+export const POST = projectRoute({ params: projectParamsSchema, body: reportRequestSchema, action: "report.make" }, async ({ params: { projectId }, body, user }) => {
+  const number = body.revision ?? (await getDefaultRevisionNumber({ projectId }));
+  if (number === null) throw new NotFoundError("This project has no model revision yet.");
+  const revision = await getRevisionResultIds({ projectId, number });
+  if (!revision) throw new NotFoundError(`Revision ${number} does not exist in this project.`);
+  if (revision.status === null) throw new ConflictError(`Revision ${number} has not been analysed yet; make the report once its analysis is stored.`);
+  if (revision.status === "unstable") throw new ConflictError(`Revision ${number} is unstable: it has no forces to report.`);
+  const known = new Set([...revision.loadCases, ...revision.combinations]);
+  const issues = (["combinations", "compare"] as const).flatMap((field) => {
+    const unknown = (body[field] ?? []).filter((id) => !known.has(id));
+    return unknown.length ? [{ path: field, message: `Not a load case or combination of revision ${number}: ${unknown.join(", ")}.` }] : [];
+  });
+  if (issues.length) throw new ValidationError(issues, issues.map((i) => i.message).join(" "));
+  const combinations = body.combinations ?? (revision.combinations.length ? revision.combinations : revision.loadCases);
+  const compare = body.compare ? ([body.compare[0], body.compare[1]] as [string, string]) : null;
+  const job = await enqueueReport({ projectId, revisionId: revision.id, query: { revision: number, combinations, compare }, requestedBy: user.id });
+  return Response.json({ job }, { status: 202 });
+});

@@ -1,8 +1,15 @@
-import { retryAnalysis } from "@/lib/commands/retry-analysis";
+import { getProjectJob } from "@/db/queries/jobs";
+import { retryJob } from "@/lib/commands/retry-job";
+import { ForbiddenError, NotFoundError } from "@/lib/http/errors";
 import { jobParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
+import { JOB_ACTIONS } from "@/lib/jobs/actions";
+import { authorize } from "@/lib/permissions";
 
-/** Puts a failed analysis back in the queue (who may run an analysis may retry one). */
-export const POST = projectRoute({ params: jobParamsSchema, action: "analysis.run" }, async ({ params: { projectId, jobId }, user }) =>
-  Response.json({ job: await retryAnalysis({ projectId, jobId, userId: user.id }) }, { status: 202 }),
-);
+/** Puts a failed job back in the queue: who may start that kind of job (run an analysis, make a report) may retry it. */
+export const POST = projectRoute({ params: jobParamsSchema, action: "project.read" }, async ({ params: { projectId, jobId }, user, membership }) => {
+  const job = await getProjectJob({ projectId, jobId });
+  if (!job) throw new NotFoundError("No such job.");
+  if (!authorize(membership, JOB_ACTIONS[job.kind])) throw new ForbiddenError();
+  return Response.json({ job: await retryJob({ projectId, jobId, userId: user.id }) }, { status: 202 });
+});

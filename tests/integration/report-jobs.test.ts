@@ -1,0 +1,208 @@
+// The review report as a job (issue 13 item 1, issue 17 item 15): asking for it queues a job in one transaction;
+// the jobs process draws the PDF with progress and stores it (object storage and its record) with the job done;
+// a failure stores nothing and can be retried by those who may make reports; outsiders and viewers are refused as
+// the rule book says (report.make). The stored PDF is read back with poppler's pdfinfo and pdftotext.
+import { execFileSync } from "node:child_process";
+import { createHash, randomUUID } from "node:crypto";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { and, eq } from "drizzle-orm";
+import PgBoss from "pg-boss";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { GET as download } from "@/app/api/projects/[projectId]/attachments/[attachmentId]/route";
+import { GET as getJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/route";
+import { POST as retryJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/retry/route";
+import { POST as makeReport } from "@/app/api/projects/[projectId]/report/route";
+import { attachments, auditEvents, clashDecisions, clashes, jobs, modelRevisions, pins, projects } from "@/db/schema";
+import { analyzeModel } from "@/lib/analysis/analyze";
+import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
+import { markRevisionCurrent } from "@/lib/commands/mark-revision-current";
+import { QUEUES } from "@/lib/jobs/queue";
+import { reviewForStorage } from "@/lib/models/analyse";
+import { buildReportPdf } from "@/lib/report/pdf";
+import { STANDING_CAUTION } from "@/lib/review/caution";
+import { ListObjectsV2Command } from "@aws-sdk/client-s3";
+import { bucket, getObject, s3 } from "@/lib/storage/s3";
+import { runReportJob } from "@/server/jobs/report";
+import { TRIPOD } from "@/tests/support/fixtures/report";
+import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
+import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
+import { buildRequest, routeContext } from "../support/session";
+
+let fx: ProjectFixture;
+let boss: PgBoss;
+let revisionId: string;
+const work = mkdtempSync(path.join(tmpdir(), "strutroom-report-jobs-"));
+const reportPath = () => `/api/projects/${fx.projectId}/report`;
+const ask = async (user: FixtureUser | undefined, body: unknown) => makeReport(await buildRequest(reportPath(), { method: "POST", body, user }), routeContext({ projectId: fx.projectId }));
+const jobCtx = (jobId: string) => routeContext({ projectId: fx.projectId, jobId });
+const stateOf = async (jobId: string) => (await getDb().select().from(jobs).where(eq(jobs.id, jobId)))[0];
+const storedReportObjects = async () => ((await s3().send(new ListObjectsV2Command({ Bucket: bucket(), Prefix: `projects/${fx.projectId}/report/` }))).Contents ?? []).length;
+const reportFiles = () => getDb().select().from(attachments).where(and(eq(attachments.projectId, fx.projectId), eq(attachments.purpose, "report")));
+
+async function queued(user: FixtureUser, body: unknown = { revision: 1, combinations: ["ULS-1", "ULS-3"], compare: ["ULS-1", "ULS-3"] }) {
+  const response = await ask(user, body);
+  expect(response.status).toBe(202);
+  return ((await response.json()) as { job: { id: string; state: string; kind: string } }).job;
+}
+
+/** pdftotext of the PDF, one string per page. */
+function pagesOf(pdf: Uint8Array): string[] {
+  const file = path.join(work, `${randomUUID()}.pdf`);
+  writeFileSync(file, pdf);
+  const pages = Number(/^Pages:\s+(\d+)/m.exec(execFileSync("pdfinfo", [file]).toString())?.[1]);
+  return execFileSync("pdftotext", ["-raw", file, "-"]).toString().split("\f").slice(0, pages).map((p) => p.replace(/\s+/g, " "));
+}
+
+beforeAll(async () => {
+  requireIntegrationEnv();
+  fx = await createProjectFixture("report-jobs");
+  boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schedule: false, supervise: false, migrate: false });
+  await boss.start();
+  const result = analyzeModel(TRIPOD);
+  const revision = await createRevisionWithAnalysis({ projectId: fx.projectId, name: "Lantern added", model: TRIPOD, source: "generated", createdBy: fx.users.structural_engineer.id, result, review: reviewForStorage(TRIPOD, result, "EN1993-1-1") });
+  revisionId = revision.id;
+  await markRevisionCurrent({ projectId: fx.projectId, number: revision.number, actorId: fx.users.structural_engineer.id });
+  const [clash] = await getDb().insert(clashes).values({
+    projectId: fx.projectId, revisionId, clashKey: "c-5e1d", memberId: "AB", runId: "SA-01", segmentIndex: 0, kind: "hard",
+    gap: -0.02, depth: 0.02, requiredClearance: 0.05, pointX: 0.25, pointY: 0.43, pointZ: 0,
+    outcome: "opening_accepted", conditions: "Sleeve 100 mm at mid-length", proposedBy: fx.users.mep_engineer.id, decidedBy: fx.users.structural_engineer.id, decidedAt: new Date("2026-03-03T10:00:00Z"),
+  }).returning();
+  await getDb().insert(clashDecisions).values([
+    { clashId: clash.id, kind: "proposal", outcome: "opening_proposed", note: "Duct SA-01 needs a 100 mm opening", caution: STANDING_CAUTION, decidedBy: fx.users.mep_engineer.id, role: "mep_engineer", revisionId, createdAt: new Date("2026-03-02T16:00:00Z") },
+    { clashId: clash.id, kind: "decision", outcome: "opening_accepted", conditions: "Sleeve 100 mm at mid-length", caution: STANDING_CAUTION, decidedBy: fx.users.structural_engineer.id, role: "structural_engineer", revisionId, createdAt: new Date("2026-03-03T10:00:00Z") },
+  ]);
+  await getDb().insert(pins).values({ id: randomUUID(), projectId: fx.projectId, anchorKind: "member", anchorId: "AD", title: "Can the lantern ring drop 200 mm?", discipline: "architectural", authorId: fx.users.architect.id });
+});
+afterAll(async () => {
+  rmSync(work, { recursive: true, force: true });
+  await boss.stop({ graceful: false, wait: true });
+  await closeDb();
+});
+
+describe("asking for a report", () => {
+  it("refuses the signed-out (401), outsiders (404), viewers (403: report.make) and unknown results (400, every field named), queuing nothing", async () => {
+    const before = (await getDb().select().from(jobs).where(eq(jobs.projectId, fx.projectId))).length;
+    expect((await ask(undefined, {})).status).toBe(401);
+    expect((await ask(fx.users.outsider, {})).status).toBe(404);
+    expect((await ask(fx.users.viewer, {})).status).toBe(403);
+    const bad = await ask(fx.users.architect, { combinations: ["ULS-1", "NOPE"], compare: ["ULS-1", "ALSO-NOPE"] });
+    expect(bad.status).toBe(400);
+    const answer = await bad.json();
+    expect(answer.issues.map((i: { path: string }) => i.path)).toEqual(["combinations", "compare"]);
+    expect(answer.error).toContain("NOPE");
+    expect((await ask(fx.users.architect, { revision: 9 })).status).toBe(404);
+    expect((await ask(fx.users.architect, { compare: ["ULS-1"] })).status).toBe(400);
+    expect((await getDb().select().from(jobs).where(eq(jobs.projectId, fx.projectId))).length).toBe(before);
+  });
+
+  it("queues one report job naming the jobs row, with an audit event; every team member may follow it", async () => {
+    const job = await queued(fx.users.architect);
+    expect(job).toMatchObject({ kind: "report", state: "queued" });
+    const sent = await boss.fetch<{ jobId: string }>(QUEUES.report, { batchSize: 50 });
+    expect(sent.filter((q) => q.data.jobId === job.id)).toHaveLength(1);
+    expect(await stateOf(job.id)).toMatchObject({ revisionId, input: { revision: 1, combinations: ["ULS-1", "ULS-3"], compare: ["ULS-1", "ULS-3"] } });
+    const events = await getDb().select().from(auditEvents).where(and(eq(auditEvents.projectId, fx.projectId), eq(auditEvents.action, "report.request")));
+    expect(events.map((e) => e.details)).toContainEqual(expect.objectContaining({ jobId: job.id }));
+    expect((await getJob(await buildRequest(`/api/projects/${fx.projectId}/jobs/${job.id}`, { user: fx.users.viewer }), jobCtx(job.id))).status).toBe(200);
+    expect((await getJob(await buildRequest(`/api/projects/${fx.projectId}/jobs/${job.id}`, { user: fx.users.outsider }), jobCtx(job.id))).status).toBe(404);
+  });
+});
+
+describe("the report job", () => {
+  it("draws with progress, stores the PDF with the job done, and the team downloads it", async () => {
+    const job = await queued(fx.users.architect);
+    const seen: string[] = [];
+    const build: typeof buildReportPdf = async (input, onProgress) =>
+      buildReportPdf(input, async (fraction) => {
+        await onProgress?.(fraction);
+        const row = await stateOf(job.id);
+        seen.push(`${row.phase}:${row.percent}`);
+      });
+    expect(await runReportJob(job.id, { build })).toBe("done");
+    // Drawing reports its share (10 % to 90 %) between parts, as the browser's progress bar shows it.
+    expect(seen.length).toBeGreaterThanOrEqual(3);
+    expect(seen.every((s) => s.startsWith("drawing:"))).toBe(true);
+    const percents = seen.map((s) => Number(s.split(":")[1]));
+    expect(percents).toEqual([...percents].sort((a, b) => a - b));
+    expect(percents.at(-1)).toBe(90);
+
+    const done = await stateOf(job.id);
+    expect(done).toMatchObject({ state: "done", phase: "done", percent: 100, error: null });
+    const outcome = done.outcome as { attachmentId: string; filename: string; pages: number; bytes: number };
+    expect(outcome.filename).toBe("strutroom-review-rev1.pdf");
+    const [file] = (await reportFiles()).filter((f) => f.id === outcome.attachmentId);
+    expect(file).toMatchObject({ state: "ready", contentType: "application/pdf", revisionId, uploadedBy: fx.users.architect.id, sizeBytes: outcome.bytes });
+    const bytes = (await getObject(file.objectKey))!;
+    expect(bytes.byteLength).toBe(outcome.bytes);
+
+    const text = pagesOf(bytes);
+    expect(text).toHaveLength(outcome.pages);
+    text.forEach((page, k) => expect(page, `page ${k + 1}`).toContain(STANDING_CAUTION));
+    const all = text.join("\n").replace(/\s/g, "");
+    const [project] = await getDb().select().from(projects).where(eq(projects.id, fx.projectId));
+    const [revision] = await getDb().select().from(modelRevisions).where(eq(modelRevisions.id, revisionId));
+    expect(text[0]).toContain(project.name);
+    expect(text[0]).toContain("Revision 1: Lantern added");
+    // Identity: who made it current (the audit event of markRevisionCurrent) and the hash of the stored model JSON.
+    expect(all).toMatch(new RegExp(`Madecurrent\\d{4}-\\d{2}-\\d{2}\\d{2}:\\d{2}UTCby${fx.users.structural_engineer.name.replace(/\s/g, "")}`));
+    expect(all).toContain(createHash("sha256").update(JSON.stringify(revision.model)).digest("hex"));
+    // The decision history of the clash, both steps with who took them, and the reactions balance line.
+    expect(all).toContain("ProposedOpeningproposed");
+    expect(all).toContain("DecidedOpeningacceptedwithconditions");
+    expect(all).toContain("DuctSA-01needsa100mmopening");
+    expect(all).toContain("Reactionsbalance:");
+    expect(all).toContain("Canthelanternringdrop200mm?");
+
+    const response = await download(await buildRequest(`/api/projects/${fx.projectId}/attachments/${file.id}`, { user: fx.users.viewer }), routeContext({ projectId: fx.projectId, attachmentId: file.id }));
+    expect(response.status).toBe(302);
+    expect((await download(await buildRequest(`/api/projects/${fx.projectId}/attachments/${file.id}`, { user: fx.users.outsider }), routeContext({ projectId: fx.projectId, attachmentId: file.id }))).status).toBe(404);
+    // Delivered twice: the second delivery does nothing and stores no second file.
+    const files = (await reportFiles()).length;
+    expect(await runReportJob(job.id)).toBe("skipped");
+    expect((await reportFiles()).length).toBe(files);
+  });
+
+  it("fails without storing anything, shows the reason, and runs again when someone who may make reports retries", async () => {
+    const job = await queued(fx.users.mep_engineer);
+    const before = (await reportFiles()).length;
+    const objects = await storedReportObjects();
+    const failing = { build: async () => { throw new Error("the plan drawing ran out of memory"); } };
+    expect(await runReportJob(job.id, failing)).toBe("failed");
+    expect((await reportFiles()).length).toBe(before);
+    expect(await storedReportObjects()).toBe(objects);
+    const failed = await (await getJob(await buildRequest(`/api/projects/${fx.projectId}/jobs/${job.id}`, { user: fx.users.viewer }), jobCtx(job.id))).json();
+    expect(failed.job).toMatchObject({ kind: "report", state: "failed", error: expect.stringContaining("the plan drawing ran out of memory") });
+
+    const retry = async (user: FixtureUser) => retryJob(await buildRequest(`/api/projects/${fx.projectId}/jobs/${job.id}/retry`, { method: "POST", user }), jobCtx(job.id));
+    expect((await retry(fx.users.viewer)).status).toBe(403);
+    expect((await retry(fx.users.outsider)).status).toBe(404);
+    const retried = await retry(fx.users.owner);
+    expect(retried.status).toBe(202);
+    expect((await retried.json()).job).toMatchObject({ state: "queued", error: null });
+    expect((await retry(fx.users.owner)).status).toBe(409);
+    const sent = await boss.fetch<{ jobId: string }>(QUEUES.report, { batchSize: 50 });
+    expect(sent.filter((q) => q.data.jobId === job.id).length).toBeGreaterThanOrEqual(1);
+    const events = await getDb().select().from(auditEvents).where(eq(auditEvents.projectId, fx.projectId));
+    expect(events).toContainEqual(expect.objectContaining({ action: "report.retry", actorId: fx.users.owner.id, subjectId: revisionId }));
+
+    expect(await runReportJob(job.id)).toBe("done");
+    expect((await reportFiles()).length).toBe(before + 1);
+  });
+
+  it("stores nothing when the job stopped running before storing (retried elsewhere): the stored object is removed too", async () => {
+    const job = await queued(fx.users.owner);
+    const before = (await reportFiles()).length;
+    const objects = await storedReportObjects();
+    // The job is marked failed by another worker while this one draws: finishing must not store a file.
+    const build: typeof buildReportPdf = async (input, onProgress) => {
+      const built = await buildReportPdf(input, onProgress);
+      await getDb().update(jobs).set({ state: "failed", error: "taken over" }).where(eq(jobs.id, job.id));
+      return built;
+    };
+    expect(await runReportJob(job.id, { build })).toBe("skipped");
+    expect((await reportFiles()).length).toBe(before);
+    expect(await storedReportObjects()).toBe(objects);
+  });
+});
