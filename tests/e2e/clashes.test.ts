@@ -5,25 +5,23 @@ import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, screenshot } from "../support/browser";
 import { closeDb } from "../support/db";
-import { demoAccount, demoAccounts, demoProjectId } from "../support/demo";
+import { openDemoProjectAs } from "../support/demo";
 import { ClashesPage } from "./pages/clashes-page";
-import { signedInPage } from "./pages/sign-in-page";
 
 // Copied from glossary.md (the standing caution), so the test does not read ../shared.
 const CAUTION = "Advisory results for coordination. Any removal, opening or change to a structural member needs the written approval of the engineer of record under the applicable local codes.";
 
 let browser: Browser;
-let projectId: string;
 
 async function clashesAs(role: string): Promise<ClashesPage> {
-  const clashes = new ClashesPage(await signedInPage(browser, demoAccount(role).email, demoAccounts.password));
+  const { page, projectId } = await openDemoProjectAs(browser, role);
+  const clashes = new ClashesPage(page);
   await clashes.open(projectId, 1);
   return clashes;
 }
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  projectId = await demoProjectId();
 });
 afterAll(async () => {
   await browser?.close();

@@ -8,16 +8,15 @@ import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, screenshot } from "../support/browser";
 import { closeDb } from "../support/db";
-import { demoAccount, demoAccounts, demoProjectId } from "../support/demo";
+import { demoAccount, openDemoProjectAs } from "../support/demo";
 import { ClashesPage } from "./pages/clashes-page";
-import { signedInPage } from "./pages/sign-in-page";
 
 let browser: Browser;
-let projectId: string;
 const LIVE = { timeout: 30_000 };
 
 async function clashesAs(role: string): Promise<ClashesPage> {
-  const page = new ClashesPage(await signedInPage(browser, demoAccount(role).email, demoAccounts.password));
+  const { page: signedIn, projectId } = await openDemoProjectAs(browser, role);
+  const page = new ClashesPage(signedIn);
   // No ?revision=: the page opens the current revision (the demo's revision 1).
   await page.openDefault(projectId);
   return page;
@@ -25,7 +24,6 @@ async function clashesAs(role: string): Promise<ClashesPage> {
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  projectId = await demoProjectId();
 });
 afterAll(async () => {
   await browser?.close();

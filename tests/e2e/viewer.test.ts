@@ -2,16 +2,11 @@ import { readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { appUrl, baseUrl, launchBrowser, screenshot } from "../support/browser";
-import { ProjectsPage } from "./pages/projects-page";
-import { SignInPage } from "./pages/sign-in-page";
+import { appUrl, launchBrowser, screenshot } from "../support/browser";
+import { closeDb } from "../support/db";
+import { openDemoProjectAs } from "../support/demo";
 import { ViewerPage } from "./pages/viewer-page";
 
-const accounts = JSON.parse(readFileSync(new URL("../../scripts/seed/demo-accounts.json", import.meta.url), "utf8")) as {
-  password: string;
-  users: { email: string; role: string }[];
-};
-const DEMO_PROJECT = "Northfield Community Sports Hall — roof";
 // WebGL needs a software rasteriser in headless chromium without a GPU: ANGLE on SwiftShader.
 const WEBGL_FLAGS = ["--use-gl=angle", "--use-angle=swiftshader", "--enable-unsafe-swiftshader"];
 
@@ -39,18 +34,11 @@ let projectId: string;
 
 beforeAll(async () => {
   browser = await launchBrowser({ extraArgs: WEBGL_FLAGS });
-  const context = await browser.newContext({ baseURL: baseUrl(), viewport: { width: 1440, height: 900 } });
-  page = await context.newPage();
-  const structural = accounts.users.find((u) => u.role === "structural_engineer")!;
-  const signIn = new SignInPage(page);
-  await signIn.open();
-  await signIn.signIn(structural.email, accounts.password);
-  const projects = new ProjectsPage(page);
-  await projects.waitForList();
-  projectId = await projects.open(DEMO_PROJECT);
+  ({ page, projectId } = await openDemoProjectAs(browser, "structural_engineer", { viewport: { width: 1440, height: 900 } }));
 });
 afterAll(async () => {
   await browser?.close();
+  await closeDb();
 });
 
 describe("the 3D viewer on the demo roof", () => {
@@ -103,7 +91,8 @@ describe("the 3D viewer on the demo roof", () => {
     await viewer.selectMember(member);
     expect(await page.getByTestId("member-panel-id").textContent()).toBe(`Member ${member}`);
     const rows = page.getByTestId("member-panel-forces").locator("tr");
-    expect(await rows.count()).toBe(revision.model.loadCases.length + revision.model.combinations.length);
+    // The forces come from the member's own endpoint after the panel opens.
+    await expect.poll(() => rows.count(), { timeout: 30_000 }).toBe(revision.model.loadCases.length + revision.model.combinations.length);
     await page.getByTestId("member-panel-verdict").waitFor();
     expect(await page.getByTestId("standing-caution").textContent()).toContain("engineer of record");
     await page.getByTestId("whatif-remove").click();
