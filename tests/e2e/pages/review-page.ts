@@ -45,9 +45,17 @@ export class ReviewPage {
     return this.page.getByTestId("pin-item").filter({ hasText: title });
   }
 
-  async reply(body: string) {
+  /** Replies in the open thread: a comment, or a step of its record (a decision may carry conditions). */
+  async reply(body: string, kind?: "proposal" | "decision" | "supersession", conditions?: string) {
     await this.page.getByTestId("comment-body").fill(body);
+    if (kind) await this.page.getByTestId("comment-kind").selectOption(kind);
+    if (conditions) await this.page.getByTestId("comment-conditions").fill(conditions);
     await this.page.getByTestId("comment-submit").click();
+  }
+
+  /** The kinds of reply the open thread offers (none listed when only a comment is possible). */
+  replyKinds() {
+    return this.page.getByTestId("comment-kind").locator("option");
   }
 
   comment(text: string) {
