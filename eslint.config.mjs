@@ -54,7 +54,7 @@ const config = [
       ],
     },
   },
-  { ignores: [".next/**", "node_modules/**", ".data/**", ".artifacts/**", "drizzle/**", "next-env.d.ts"] },
+  { ignores: [".next/**", "node_modules/**", ".data/**", ".artifacts/**", ".build/**", "drizzle/**", "next-env.d.ts"] },
 ];
 
 export default config;

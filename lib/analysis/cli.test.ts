@@ -1,18 +1,18 @@
-import { spawnSync } from "node:child_process";
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
+import { runAnalyzeCli } from "@/tests/support/analyze-cli";
 import { pointLoads, triangleModel } from "@/tests/support/fixtures/analysis-models";
+import { analyzeModel } from "./analyze";
+import { generateRoof } from "./generator";
 
-// Runs the real command line (scripts/analyze.ts through tsx) on files in a scratch folder.
+// Runs the real command line (scripts/analyze.ts, built to plain JS as `npm run analyze` runs it) on files in a
+// scratch folder.
 const dir = mkdtempSync(join(tmpdir(), "strutroom-analyze-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-function run(...args: string[]) {
-  const out = spawnSync(join(process.cwd(), "node_modules/.bin/tsx"), ["scripts/analyze.ts", ...args], { encoding: "utf8", timeout: 60_000 });
-  return { code: out.status, stdout: out.stdout, stderr: out.stderr };
-}
+const run = runAnalyzeCli;
 
 const triangle = (supports?: [string, boolean, boolean, boolean][]) => triangleModel({ supports, loadCases: [pointLoads("G", [["C", 0, 0, -10]])] });
 const stable = triangle();
@@ -89,5 +89,15 @@ describe("npm run analyze (scripts/analyze.ts)", () => {
   it("exit 1 for a usage error", () => {
     expect(run("--threshold", "-4", join(dir, "ok.json")).code).toBe(1);
     expect(run().code).toBe(1);
+  }, 60_000);
+
+  it("prints byte for byte what the library computes (design.md's format), on a generated grid", () => {
+    // The built file must not change the output: the same JSON text as analyzeModel's result, plus a newline.
+    const model = generateRoof({ name: "CLI grid", spanX: 12, spanY: 9, module: 3, depth: 1.5 });
+    const file = join(dir, "grid.json");
+    writeFileSync(file, JSON.stringify(model));
+    const { code, stdout } = run(file);
+    expect(code).toBe(0);
+    expect(stdout).toBe(`${JSON.stringify(analyzeModel(model))}\n`);
   }, 60_000);
 });

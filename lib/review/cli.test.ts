@@ -1,8 +1,8 @@
-import { spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
+import { runAnalyzeCli } from "@/tests/support/analyze-cli";
 import { STANDING_CAUTION } from "./caution";
 import { pointLoads, trussModel } from "@/tests/support/fixtures/analysis-models";
 import { prattTruss } from "@/tests/support/fixtures/review-models";
@@ -10,10 +10,7 @@ import { prattTruss } from "@/tests/support/fixtures/review-models";
 const dir = mkdtempSync(join(tmpdir(), "strutroom-review-cli-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-function analyze(...args: string[]) {
-  const out = spawnSync(join(process.cwd(), "node_modules/.bin/tsx"), ["scripts/analyze.ts", ...args], { encoding: "utf8", timeout: 60_000 });
-  return { code: out.status, stdout: out.stdout, stderr: out.stderr };
-}
+const analyze = runAnalyzeCli;
 
 describe("npm run analyze -- --review", { timeout: 60_000 }, () => {
   const file = join(dir, "pratt.json");
