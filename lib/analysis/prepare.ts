@@ -20,9 +20,11 @@ export const directions: readonly Direction[] = ["ux", "uy", "uz"];
 
 /**
  * Right-hand sides solved together by solveColumns: enough to load each entry of L once for many columns,
- * few enough that the block of X (equations x 32 doubles, 22 MB on a 120 x 120 grid) stays modest.
+ * few enough that the block of X (equations x 64 doubles, 44 MB on a 120 x 120 grid) stays modest. The 60 x 60
+ * certificate workload (bench:solver) projected 25-28 CPU s with 64, 33 s with 32, 27-28 s with 96 and 128
+ * (interleaved runs, load average 20).
  */
-export const SOLVE_BLOCK = 32;
+export const SOLVE_BLOCK = 64;
 
 /** One assembled and factored structure: every load vector is solved against the same factor. */
 export type PreparedStructure = {
