@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { STATE_CODE } from "./colouring";
-import { autoDeflectionScale, buildMemberEnds, buildNodeTable, defaultFilters, deflectedPositions, modePositions, visibleMask } from "./filters";
+import { autoDeflectionScale, buildMemberEnds, buildNodeTable, defaultFilters, deflectedPositions, modePositions, nodesInBox, roundedModelBox, visibleMask } from "./filters";
 import type { MemberGroup } from "./types";
 
 // A one-bay pyramid: four bottom nodes on a 2 m square, one top node 1 m above the centre (hand-made geometry).
@@ -77,5 +77,22 @@ describe("a drawn mode", () => {
     expect(moved[t + 2] - nodes.positions[t + 2]).toBeCloseTo(0.2, 6);
     expect(moved[n2] - nodes.positions[n2]).toBeCloseTo(0.1, 6);
     expect(moved[0]).toBe(nodes.positions[0]);
+  });
+});
+
+describe("section box", () => {
+  it("hides the nodes outside the box too (their supports, load arrows and labels go with them)", () => {
+    expect(nodesInBox(nodes.positions, null)).toBeNull();
+    const box = { min: [0, 0, 0] as [number, number, number], max: [2, 2, 0.5] as [number, number, number] };
+    expect(Array.from(nodesInBox(nodes.positions, box)!)).toEqual([1, 1, 1, 1, 0]);
+  });
+
+  it("offers the model's box rounded to the centimetre, still holding every node", () => {
+    // 1.8 and -0.3 are not exact in binary: as 32-bit floats they read back as 1.7999999523… and -0.30000001192…
+    const positions = Float32Array.from([-0.3, 0, 0, 12.5, 1.8, 2.345]);
+    expect(positions[4]).not.toBe(1.8);
+    const box = roundedModelBox(positions);
+    expect(box).toEqual({ min: [-0.3, 0, 0], max: [12.5, 1.8, 2.35] });
+    expect(Array.from(nodesInBox(positions, box)!)).toEqual([1, 1]);
   });
 });

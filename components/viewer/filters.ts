@@ -88,8 +88,44 @@ export function modelSpan(positions: Float32Array): number {
   return positions.length ? Math.max(max[0] - min[0], max[1] - min[1], max[2] - min[2]) : 0;
 }
 
+/** Half a millimetre: a box typed to the centimetre holds a node on its face though coordinates are 32-bit floats. */
+const BOX_SLACK = 5e-4;
+
 function insideBox(box: SectionBox, x: number, y: number, z: number): boolean {
-  return x >= box.min[0] && x <= box.max[0] && y >= box.min[1] && y <= box.max[1] && z >= box.min[2] && z <= box.max[2];
+  const { min, max } = box;
+  const e = BOX_SLACK;
+  return x >= min[0] - e && x <= max[0] + e && y >= min[1] - e && y <= max[1] + e && z >= min[2] - e && z <= max[2] + e;
+}
+
+/** 1 for each node inside the section box (node order); null when there is no box (every node is drawn). */
+export function nodesInBox(positions: Float32Array, box: SectionBox | null): Uint8Array | null {
+  if (!box) return null;
+  const mask = new Uint8Array(positions.length / 3);
+  for (let k = 0; k < mask.length; k += 1) mask[k] = insideBox(box, positions[k * 3], positions[k * 3 + 1], positions[k * 3 + 2]) ? 1 : 0;
+  return mask;
+}
+
+/**
+ * The model's bounding box rounded outwards to the centimetre, for the section box fields: node coordinates are
+ * stored as 32-bit floats (1.8 reads back as 1.7999999523…), and a field should say 1.80 and still hold that node.
+ */
+export function roundedModelBox(positions: Float32Array): SectionBox {
+  const box: SectionBox = { min: [0, 0, 0], max: [0, 0, 0] };
+  if (positions.length === 0) return box;
+  const min = [Infinity, Infinity, Infinity];
+  const max = [-Infinity, -Infinity, -Infinity];
+  for (let k = 0; k < positions.length; k += 3) {
+    for (let a = 0; a < 3; a += 1) {
+      min[a] = Math.min(min[a], positions[k + a]);
+      max[a] = Math.max(max[a], positions[k + a]);
+    }
+  }
+  // The 1e-4 slack keeps a float32 that is a hair off a round value on that value, not the next centimetre out.
+  for (let a = 0; a < 3; a += 1) {
+    box.min[a] = Math.floor(min[a] * 100 + 1e-4) / 100;
+    box.max[a] = Math.ceil(max[a] * 100 - 1e-4) / 100;
+  }
+  return box;
 }
 
 export interface VisibilityInput {

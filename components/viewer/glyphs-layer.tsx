@@ -34,25 +34,36 @@ function commitInstances(mesh: InstancedMesh, count: number) {
   if (mesh.instanceColor) mesh.instanceColor.needsUpdate = true;
 }
 
-/** Small spheres at the nodes, following the deflected shape when it is on. */
-export function NodesLayer({ prepared, positions }: { prepared: PreparedModel; positions: Float32Array }) {
+const nodeRgb = new Color(palette.node);
+const selectedRgb = new Color(palette.selection);
+
+/** Small octahedra at the nodes (inside the section box), following the deflected shape; the selected node in violet. */
+export function NodesLayer({ prepared, positions, nodeMask }: { prepared: PreparedModel; positions: Float32Array; nodeMask: Uint8Array | null }) {
   const invalidate = useThree((s) => s.invalidate);
+  const selectedNodeId = useViewerStore((s) => s.selectedNodeId);
   const geometry = useMemo(() => new OctahedronGeometry(1, 0), []);
-  const mesh = useInstanced(geometry, palette.node, prepared.nodes.ids.length);
+  const mesh = useInstanced(geometry, "#ffffff", prepared.nodes.ids.length);
   useLayoutEffect(() => {
+    const selected = selectedNodeId ? (prepared.nodes.index.get(selectedNodeId) ?? -1) : -1;
     const r = glyphLook.nodeRadius * prepared.unitLength;
+    let n = 0;
     for (let k = 0; k < prepared.nodes.ids.length; k += 1) {
-      matrix.makeScale(r, r, r).setPosition(positions[k * 3], positions[k * 3 + 1], positions[k * 3 + 2]);
-      mesh.setMatrixAt(k, matrix);
+      if (nodeMask && !nodeMask[k]) continue;
+      // The selected node is drawn larger too, so it reads without colour.
+      const size = k === selected ? r * 2 : r;
+      matrix.makeScale(size, size, size).setPosition(positions[k * 3], positions[k * 3 + 1], positions[k * 3 + 2]);
+      mesh.setMatrixAt(n, matrix);
+      mesh.setColorAt(n, k === selected ? selectedRgb : nodeRgb);
+      n += 1;
     }
-    commitInstances(mesh, prepared.nodes.ids.length);
+    commitInstances(mesh, n);
     invalidate();
-  }, [mesh, positions, prepared, invalidate]);
+  }, [mesh, positions, prepared, nodeMask, selectedNodeId, invalidate]);
   return <primitive object={mesh} />;
 }
 
 /** A pyramid under each supported node: dark when all three translations are held, light when some are free. */
-export function SupportsLayer({ prepared }: { prepared: PreparedModel }) {
+export function SupportsLayer({ prepared, nodeMask }: { prepared: PreparedModel; nodeMask: Uint8Array | null }) {
   const invalidate = useThree((s) => s.invalidate);
   const geometry = useMemo(() => new ConeGeometry(0.5, 1, 4).translate(0, -0.5, 0).rotateX(Math.PI / 2), []);
   const supports = prepared.model.supports;
@@ -64,7 +75,7 @@ export function SupportsLayer({ prepared }: { prepared: PreparedModel }) {
     let n = 0;
     for (const support of supports) {
       const k = prepared.nodes.index.get(support.node);
-      if (k === undefined) continue;
+      if (k === undefined || (nodeMask && !nodeMask[k])) continue;
       // The cone's apex is at its origin with the base below it, so the apex touches the node from below.
       matrix.makeScale(size, size, size).setPosition(prepared.nodes.positions[k * 3], prepared.nodes.positions[k * 3 + 1], prepared.nodes.positions[k * 3 + 2]);
       mesh.setMatrixAt(n, matrix);
@@ -73,12 +84,12 @@ export function SupportsLayer({ prepared }: { prepared: PreparedModel }) {
     }
     commitInstances(mesh, n);
     invalidate();
-  }, [mesh, supports, prepared, invalidate]);
+  }, [mesh, supports, prepared, nodeMask, invalidate]);
   return <primitive object={mesh} />;
 }
 
 /** Arrows for the nodal loads of the chosen load case (factored and summed for a combination), ending at the node. */
-export function LoadsLayer({ prepared }: { prepared: PreparedModel }) {
+export function LoadsLayer({ prepared, nodeMask }: { prepared: PreparedModel; nodeMask: Uint8Array | null }) {
   const invalidate = useThree((s) => s.invalidate);
   const resultId = useViewerStore((s) => s.resultId);
   const loads = useMemo(() => (resultId ? nodalLoadsFor(prepared.model, resultId) : []), [prepared, resultId]);
@@ -95,7 +106,7 @@ export function LoadsLayer({ prepared }: { prepared: PreparedModel }) {
     for (const load of loads) {
       const k = prepared.nodes.index.get(load.node);
       const magnitude = Math.hypot(load.fx, load.fy, load.fz);
-      if (k === undefined || magnitude === 0 || largest === 0) continue;
+      if (k === undefined || magnitude === 0 || largest === 0 || (nodeMask && !nodeMask[k])) continue;
       const length = Math.max(0.25, magnitude / largest) * longest;
       const head = Math.min(length * 0.35, prepared.unitLength * 0.15);
       // Unit geometry has its tip at the origin and its body along -y: turn +y to the force direction so the
@@ -113,7 +124,7 @@ export function LoadsLayer({ prepared }: { prepared: PreparedModel }) {
     commitInstances(shafts, n);
     commitInstances(heads, n);
     invalidate();
-  }, [loads, prepared, shafts, heads, invalidate]);
+  }, [loads, prepared, nodeMask, shafts, heads, invalidate]);
   return (
     <group>
       <primitive object={shafts} />

@@ -2,7 +2,7 @@
 // All members as two instanced meshes (opaque, and thin translucent for zero-force): two draw calls whatever the
 // member count. Switching result, colouring or filter rewrites the instance buffers in place, from the result's
 // columns (typed arrays in member order) without looking any member up by id.
-import { useFrame, useThree, type ThreeEvent } from "@react-three/fiber";
+import { useFrame, useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo, useRef } from "react";
 import { CylinderGeometry, DynamicDrawUsage, InstancedBufferAttribute, InstancedMesh, MeshBasicMaterial, MeshLambertMaterial } from "three";
 import type { WireColumns } from "@/lib/models/result-columns";
@@ -82,7 +82,7 @@ interface MembersLayerProps {
   positions: Float32Array;
 }
 
-/** Draws, colours and picks members; publishes the legend to the viewer store. */
+/** Draws and colours members; publishes the legend and the members drawn (for picking) to the viewer store. */
 export function MembersLayer({ prepared, columns, compareColumns, positions }: MembersLayerProps) {
   const invalidate = useThree((s) => s.invalidate);
   const resultId = useViewerStore((s) => s.resultId);
@@ -134,6 +134,7 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
     if (!look) return;
     const mask = visibleMask({ memberIds: prepared.memberIds, ends: prepared.ends, positions, groups: prepared.groups, states: look.states, filters });
     writeMatrices(layers, look, mask, positions, prepared.ends);
+    useViewerStore.getState().setVisibleMembers(mask);
     invalidate();
   }, [look, filters, positions, prepared, layers, invalidate]);
 
@@ -147,27 +148,11 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
     invalidate();
   }, [look, filters, positions, selectedId, hoveredId, prepared, layers, invalidate]);
 
-  const pick = (layer: Layer) => (e: ThreeEvent<PointerEvent | MouseEvent>) => {
-    if (e.instanceId === undefined) return null;
-    e.stopPropagation();
-    return prepared.memberIds[layer.order[e.instanceId]] ?? null;
-  };
-
+  // No pointer handlers here: picking is done in screen space with a pixel tolerance (picker.tsx).
   return (
     <>
       {[layers.solid, layers.faint].map((layer, n) => (
-        <primitive
-          key={n}
-          object={layer.mesh}
-          onPointerMove={(e: ThreeEvent<PointerEvent>) => useViewerStore.getState().hoverMember(pick(layer)(e))}
-          onPointerOut={() => useViewerStore.getState().hoverMember(null)}
-          onClick={(e: ThreeEvent<MouseEvent>) => {
-            // A drag that ends on a member orbits the camera; only a still click selects.
-            if (e.delta > 4) return;
-            const id = pick(layer)(e);
-            if (id) useViewerStore.getState().selectMember(id);
-          }}
-        />
+        <primitive key={n} object={layer.mesh} />
       ))}
     </>
   );

@@ -13,6 +13,13 @@ export interface StrutroomTestHook {
   memberCount: number;
   /** Label of the buckling or mechanism mode drawn, or null. */
   shownMode(): string | null;
+  /**
+   * Client coordinates where a node, or the point at fraction t along a member (0 at its first node), is drawn
+   * now; null when it is behind the camera. Browser tests click there with the real mouse.
+   */
+  screenOf(kind: "member" | "node", id: string, t?: number): { x: number; y: number } | null;
+  /** What is selected now. */
+  selection(): { member: string | null; node: string | null };
 }
 
 declare global {
@@ -30,6 +37,24 @@ export function installTestHook(prepared: PreparedModel): () => void {
     measureFrame: () => useViewerStore.getState().controller?.measureFrame() ?? null,
     memberCount: prepared.memberIds.length,
     shownMode: () => useViewerStore.getState().mode?.label ?? null,
+    screenOf: (kind, id, t = 0.5) => {
+      const picker = useViewerStore.getState().picker;
+      const p = prepared.nodes.positions;
+      if (!picker) return null;
+      if (kind === "node") {
+        const k = prepared.nodes.index.get(id);
+        return k === undefined ? null : picker.screenOf([p[k * 3], p[k * 3 + 1], p[k * 3 + 2]]);
+      }
+      const k = prepared.memberIndex.get(id);
+      if (k === undefined) return null;
+      const a = prepared.ends[k * 2] * 3;
+      const b = prepared.ends[k * 2 + 1] * 3;
+      return picker.screenOf([p[a] + (p[b] - p[a]) * t, p[a + 1] + (p[b + 1] - p[a + 1]) * t, p[a + 2] + (p[b + 2] - p[a + 2]) * t]);
+    },
+    selection: () => {
+      const s = useViewerStore.getState();
+      return { member: s.selectedMemberId, node: s.selectedNodeId };
+    },
   };
   return () => {
     delete window.__strutroom;

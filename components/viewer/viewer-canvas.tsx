@@ -7,9 +7,10 @@ import { Canvas } from "@react-three/fiber";
 import { useMemo, type ReactNode } from "react";
 import { CameraRig } from "./camera-rig";
 import { cameraLook, memberLook, palette } from "./config";
-import { deflectedPositions, modePositions } from "./filters";
+import { deflectedPositions, modePositions, nodesInBox } from "./filters";
 import { LoadsLayer, NodesLayer, SupportsLayer } from "./glyphs-layer";
 import { MembersLayer } from "./members-layer";
+import { PickerRig } from "./picker";
 import type { PreparedModel } from "./prepare";
 import type { WireColumns } from "@/lib/models/result-columns";
 import { useViewerStore } from "./viewer-store";
@@ -38,6 +39,7 @@ function GroundGrid({ prepared }: { prepared: PreparedModel }) {
 function Scene({ prepared, columns, compareColumns, children }: ViewerCanvasProps) {
   const deflection = useViewerStore((s) => s.deflection);
   const mode = useViewerStore((s) => s.mode);
+  const sectionBox = useViewerStore((s) => s.filters.sectionBox);
   const displacements = columns?.displacements;
   // a shown mode (buckling or mechanism) replaces the deflected shape until it is cleared
   const positions = useMemo(
@@ -49,6 +51,8 @@ function Scene({ prepared, columns, compareColumns, children }: ViewerCanvasProp
           : prepared.nodes.positions,
     [prepared, displacements, deflection, mode],
   );
+  // Nodes outside the section box are hidden with their supports and load arrows (by undeformed position).
+  const nodeMask = useMemo(() => nodesInBox(prepared.nodes.positions, sectionBox), [prepared, sectionBox]);
   return (
     <>
       {/* An opaque background, so the PNG export is not transparent. */}
@@ -57,10 +61,11 @@ function Scene({ prepared, columns, compareColumns, children }: ViewerCanvasProp
       <directionalLight position={[1, -2, 3]} intensity={1.4} />
       <GroundGrid prepared={prepared} />
       <MembersLayer prepared={prepared} columns={columns} compareColumns={compareColumns} positions={positions} />
-      <NodesLayer prepared={prepared} positions={positions} />
-      <SupportsLayer prepared={prepared} />
-      <LoadsLayer prepared={prepared} />
+      <NodesLayer prepared={prepared} positions={positions} nodeMask={nodeMask} />
+      <SupportsLayer prepared={prepared} nodeMask={nodeMask} />
+      <LoadsLayer prepared={prepared} nodeMask={nodeMask} />
       <CameraRig prepared={prepared} />
+      <PickerRig prepared={prepared} positions={positions} nodeMask={nodeMask} />
       {children}
     </>
   );
@@ -75,8 +80,10 @@ export default function ViewerCanvas(props: ViewerCanvasProps) {
       dpr={[1, 2]}
       gl={{ antialias: props.prepared.memberIds.length <= memberLook.largeModel }}
       camera={{ fov: cameraLook.fov, up: [0, 0, 1], near: far / 10_000, far, position: [0, -1, 1] }}
+      // Members and nodes carry no pointer handlers: a click that hits no pin or clash marker lands here and is
+      // picked in screen space (picker.tsx), so a click on empty space selects nothing and clears the selection.
       onPointerMissed={(e) => {
-        if (e.type === "click") useViewerStore.getState().selectMember(null);
+        if (e.type === "click") useViewerStore.getState().clickAt(e.clientX, e.clientY);
       }}
       style={{ background: palette.background }}
       data-testid="viewer-canvas"

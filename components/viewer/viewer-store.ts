@@ -8,12 +8,17 @@
 //                                                             cleared when the selection or the revision changes
 //   useViewerStore.getState().showMode(mode)                  draw a buckling or mechanism mode (null clears); it
 //                                                             is cleared when the result or the revision changes
+//   useViewerStore.getState().pickAt(clientX, clientY)        the node or member drawn under a screen point (exact,
+//                                                             with a pixel tolerance; picking.ts), or null
+//   useViewerStore.subscribe((s) => s.lastPick, …)            hear what the last click on the canvas picked (a node,
+//                                                             a member and the point on it), null after a miss
 // Components read it with selectors (`useViewerStore((s) => s.colourMode)`); per-frame code uses getState().
 import { create } from "zustand";
 import { subscribeWithSelector } from "zustand/middleware";
 import type { InfluenceMap } from "@/lib/review/influence";
 import type { ColourMode, Legend } from "./colouring";
 import { defaultFilters, type MemberFilters } from "./filters";
+import type { Vec3 as PickVec3 } from "./picking";
 
 export type Vec3 = [number, number, number];
 export interface CameraPose { position: Vec3; target: Vec3 }
@@ -32,6 +37,20 @@ export interface CameraController {
   measureFrame(): { calls: number; triangles: number; ms: number };
 }
 
+/** A node or member picked on screen, with the model point under the pointer (on the member's axis for a member). */
+export interface PickedThing { kind: "member" | "node"; id: string; point: PickVec3 }
+
+/** What the canvas registers so that picking can be asked from outside it (clicks, pins, tests). */
+export interface Picker {
+  /** The node or member drawn under a screen point (client coordinates), or null. */
+  pickAt(clientX: number, clientY: number): PickedThing | null;
+  /** Client coordinates of a model point as drawn now, or null when behind the camera. */
+  screenOf(point: Vec3): { x: number; y: number } | null;
+}
+
+/** What a click on the canvas does: select what is under it, or add a point to the distance being measured. */
+export type ViewerTool = "select" | "measure";
+
 export interface DeflectionSettings { enabled: boolean; scale: number }
 
 /** A mode to draw instead of the deflected shape: its motion per model node (3 each, largest component 1). */
@@ -40,6 +59,17 @@ export interface ShownMode { label: string; nodeIds: readonly string[]; shape: r
 export interface ViewerState {
   selectedMemberId: string | null;
   hoveredMemberId: string | null;
+  /** A selected node (a node and a member are never selected together). */
+  selectedNodeId: string | null;
+  hoveredNodeId: string | null;
+  /** What the last click on the canvas picked; null after a click on empty space. */
+  lastPick: PickedThing | null;
+  tool: ViewerTool;
+  /** Points picked for a distance: none, one, or two (the distance is shown). */
+  measurePoints: PickedThing[];
+  /** Members drawn now (1 each, member order), written by the members layer after every filter change. */
+  visibleMembers: Uint8Array | null;
+  picker: Picker | null;
   resultId: string | null;
   compareResultId: string | null;
   colourMode: ColourMode;
@@ -56,6 +86,15 @@ export interface ViewerState {
 
   selectMember(id: string | null): void;
   hoverMember(id: string | null): void;
+  selectNode(id: string | null): void;
+  /** Hover read-out: a member, a node, or nothing. */
+  hover(thing: Pick<PickedThing, "kind" | "id"> | null): void;
+  /** A click on the canvas at a screen point: picks, then selects (or clears) or adds a measuring point. */
+  clickAt(clientX: number, clientY: number): void;
+  pickAt(clientX: number, clientY: number): PickedThing | null;
+  registerPicker(picker: Picker | null): void;
+  setTool(tool: ViewerTool): void;
+  setVisibleMembers(mask: Uint8Array): void;
   setResult(id: string): void;
   setCompareResult(id: string | null): void;
   setColourMode(mode: ColourMode): void;
@@ -82,6 +121,11 @@ export interface ViewerState {
 const initial = {
   selectedMemberId: null,
   hoveredMemberId: null,
+  selectedNodeId: null,
+  hoveredNodeId: null,
+  lastPick: null,
+  tool: "select" as ViewerTool,
+  measurePoints: [],
   compareResultId: null,
   colourMode: "forceState" as ColourMode,
   lowForceThreshold: 0,
@@ -98,12 +142,44 @@ export const useViewerStore = create<ViewerState>()(
     resultId: null,
     cameraPose: null,
     controller: null,
+    picker: null,
+    visibleMembers: null,
     selectMember: (id) => {
       if (get().selectedMemberId !== id) set({ selectedMemberId: id, influence: null });
+      if (id !== null && get().selectedNodeId !== null) set({ selectedNodeId: null });
     },
     hoverMember: (id) => {
       if (get().hoveredMemberId !== id) set({ hoveredMemberId: id });
     },
+    selectNode: (id) => {
+      if (id !== null) get().selectMember(null);
+      if (get().selectedNodeId !== id) set({ selectedNodeId: id });
+    },
+    hover: (thing) => {
+      const member = thing?.kind === "member" ? thing.id : null;
+      const node = thing?.kind === "node" ? thing.id : null;
+      if (get().hoveredMemberId !== member || get().hoveredNodeId !== node) set({ hoveredMemberId: member, hoveredNodeId: node });
+    },
+    pickAt: (clientX, clientY) => get().picker?.pickAt(clientX, clientY) ?? null,
+    clickAt: (clientX, clientY) => {
+      const picked = get().pickAt(clientX, clientY);
+      set({ lastPick: picked });
+      if (get().tool === "measure") {
+        if (!picked) return;
+        const points = get().measurePoints;
+        set({ measurePoints: points.length >= 2 ? [picked] : [...points, picked] });
+        return;
+      }
+      // A miss clears the selection: in a live session everyone's selection follows the presenter's.
+      if (picked?.kind === "node") get().selectNode(picked.id);
+      else {
+        get().selectNode(null);
+        get().selectMember(picked?.id ?? null);
+      }
+    },
+    registerPicker: (picker) => set({ picker }),
+    setTool: (tool) => set({ tool, measurePoints: [] }),
+    setVisibleMembers: (mask) => set({ visibleMembers: mask }),
     setResult: (id) => set({ resultId: id, ...(id !== get().resultId ? { mode: null } : {}) }),
     setCompareResult: (id) => set({ compareResultId: id }),
     setColourMode: (mode) => set({ colourMode: mode }),
