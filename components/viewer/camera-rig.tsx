@@ -4,7 +4,7 @@
 import { CameraControls } from "@react-three/drei";
 import { useThree } from "@react-three/fiber";
 import { useEffect, useRef } from "react";
-import { Vector3 } from "three";
+import { InstancedMesh, Matrix4, Vector3 } from "three";
 import { cameraLook } from "./config";
 import type { PreparedModel } from "./prepare";
 import { useViewerStore, type CameraPose, type CameraPreset, type Vec3 } from "./viewer-store";
@@ -19,6 +19,8 @@ const presetDirections: Record<CameraPreset, Vec3> = {
 
 const scratchPosition = new Vector3();
 const scratchTarget = new Vector3();
+const scratchMatrix = new Matrix4();
+const identity = new Matrix4();
 
 export function CameraRig({ prepared }: { prepared: PreparedModel }) {
   const controls = useRef<CameraControls>(null);
@@ -76,6 +78,24 @@ export function CameraRig({ prepared }: { prepared: PreparedModel }) {
         context.readPixels(0, 0, 1, 1, context.RGBA, context.UNSIGNED_BYTE, pixel);
         const ms = performance.now() - start;
         return { calls: gl.info.render.calls, triangles: gl.info.render.triangles, ms };
+      },
+      unplacedInstances: () => {
+        const found: string[] = [];
+        scene.traverseVisible((object) => {
+          if (!(object instanceof InstancedMesh)) return;
+          const name = object.name || object.parent?.name || "unnamed";
+          // More instances drawn than the buffer holds: the GPU reads past it (WebGL's bufferSubData error).
+          if (object.count * 16 > object.instanceMatrix.array.length) {
+            found.push(`${name} (more instances than its buffer holds)`);
+            return;
+          }
+          for (let k = 0; k < object.count; k += 1) {
+            if (!object.getMatrixAt(k, scratchMatrix).equals(identity)) continue;
+            found.push(name);
+            return;
+          }
+        });
+        return found;
       },
     });
     const report = () => useViewerStore.getState().reportCameraPose(getPose());

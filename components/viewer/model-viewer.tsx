@@ -13,6 +13,7 @@ import { HoverTooltip } from "./hover-tooltip";
 import { InfluenceLayer } from "./layers/influence-layer";
 import { InfluenceLegend, Legend } from "./legend";
 import { MemberPanel } from "./member-panel";
+import { NodePanel } from "./node-panel";
 import { prepareModel, resultIds } from "./prepare";
 import { AnyLoadJobPanel } from "./any-load-job-panel";
 import { StabilityPanel } from "./stability-panel";
@@ -131,6 +132,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
           </div>
         </div>
         <MemberPanel projectId={projectId} prepared={prepared} analysis={analysis} revision={revision} />
+        <NodePanel prepared={prepared} columns={columns} />
       </div>
     </div>
   );

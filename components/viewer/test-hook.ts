@@ -20,6 +20,12 @@ export interface StrutroomTestHook {
   screenOf(kind: "member" | "node", id: string, t?: number): { x: number; y: number } | null;
   /** What is selected now. */
   selection(): { member: string | null; node: string | null };
+  /**
+   * Drawn instances whose matrix is still the identity (a unit glyph at the model origin): an instance drawn before
+   * its place was written, or more instances drawn than the mesh's buffer holds. Named by the mesh's name or its
+   * parent group's.
+   */
+  unplacedInstances(): string[];
 }
 
 declare global {
@@ -51,6 +57,7 @@ export function installTestHook(prepared: PreparedModel): () => void {
       const b = prepared.ends[k * 2 + 1] * 3;
       return picker.screenOf([p[a] + (p[b] - p[a]) * t, p[a + 1] + (p[b + 1] - p[a + 1]) * t, p[a + 2] + (p[b + 2] - p[a + 2]) * t]);
     },
+    unplacedInstances: () => useViewerStore.getState().controller?.unplacedInstances() ?? [],
     selection: () => {
       const s = useViewerStore.getState();
       return { member: s.selectedMemberId, node: s.selectedNodeId };

@@ -35,6 +35,8 @@ export interface CameraController {
   exportPng(): string;
   /** Renders one frame now and reports its draw calls, triangles and time (used by the benchmark). */
   measureFrame(): { calls: number; triangles: number; ms: number };
+  /** Names of instanced meshes drawing an instance with an identity matrix (see test-hook.ts). */
+  unplacedInstances(): string[];
 }
 
 /** A node or member picked on screen, with the model point under the pointer (on the member's axis for a member). */

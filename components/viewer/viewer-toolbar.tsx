@@ -2,7 +2,7 @@
 // Controls of the viewer: result, colouring, comparison, filters, section box, deflected shape, camera, PNG.
 import { useState } from "react";
 import { colourModeLabels, type ColourMode } from "./colouring";
-import { autoDeflectionScale, type SectionBox } from "./filters";
+import { autoDeflectionScale, roundedModelBox, type SectionBox } from "./filters";
 import { resultLabel, type PreparedModel } from "./prepare";
 import type { WireColumns } from "@/lib/models/result-columns";
 import type { FilterableGroup } from "./types";
@@ -11,18 +11,6 @@ import { useViewerStore, type CameraPreset } from "./viewer-store";
 const groupLabels: Record<FilterableGroup, string> = { top_chord: "Top chords", bottom_chord: "Bottom chords", diagonal: "Diagonals" };
 const presetLabels: Record<CameraPreset, string> = { plan: "Plan", elevationSouth: "South elevation", elevationEast: "East elevation", isometric: "Isometric" };
 const control = "rounded border border-board-200 bg-white px-2 py-1 text-sm";
-
-function modelBox(prepared: PreparedModel): SectionBox {
-  const p = prepared.nodes.positions;
-  const box: SectionBox = { min: [Infinity, Infinity, Infinity], max: [-Infinity, -Infinity, -Infinity] };
-  for (let k = 0; k < p.length; k += 3) {
-    for (let a = 0; a < 3; a += 1) {
-      box.min[a] = Math.min(box.min[a], p[k + a]);
-      box.max[a] = Math.max(box.max[a], p[k + a]);
-    }
-  }
-  return box;
-}
 
 function ResultSelect({ prepared, ids, value, onChange, testId, label }: { prepared: PreparedModel; ids: string[]; value: string | null; onChange: (id: string) => void; testId: string; label: string }) {
   const cases = prepared.model.loadCases.filter((c) => ids.includes(c.id));
@@ -54,7 +42,7 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
   const threshold = useViewerStore((s) => s.lowForceThreshold);
   const filters = useViewerStore((s) => s.filters);
   const deflection = useViewerStore((s) => s.deflection);
-  const [box, setBox] = useState<SectionBox>(() => modelBox(prepared));
+  const [box, setBox] = useState<SectionBox>(() => roundedModelBox(prepared.nodes.positions));
 
   const modes = (Object.keys(colourModeLabels) as ColourMode[]).filter((m) => hasReview || (m !== "utilisation" && m !== "verdict"));
   const updateBox = (end: "min" | "max", axis: number, value: number) => {

@@ -1,14 +1,13 @@
 "use client";
 // MEP layer of the viewer: runs drawn translucent in sky (#0284c7) with their real section (round = cylinder,
 // rectangular = box turned by its rotation, insulation included), and clashes as rose (#e11d48) markers. Each
-// kind of body is one instanced mesh (drei's Instances), so the layer costs at most four draw calls however many
+// kind of body is one instanced mesh (instanced-bodies.tsx), so the layer costs at most four draw calls however many
 // segments and clashes a project has.
-import { Instance, Instances } from "@react-three/drei";
-import { useThree } from "@react-three/fiber";
-import { useEffect, useMemo } from "react";
+import { useMemo } from "react";
 import { BoxGeometry, CylinderGeometry, Matrix4, Quaternion, SphereGeometry, Vector3 } from "three";
 import { sectionAxes } from "@/lib/clash/run-geometry";
 import type { Run } from "@/lib/mep/schemas";
+import { InstancedBodies, type Body } from "./instanced-bodies";
 
 export const mepLook = {
   run: "#0284c7",
@@ -68,47 +67,37 @@ function segmentPoses(runs: Run[]): SegmentPose[] {
   return poses;
 }
 
+// Hard clashes solid, clearance clashes as a wire cage: the kind reads without colour too. Drawn over the roof.
+const hardMaterial = { color: mepLook.clash, depthTest: false };
+const clearanceMaterial = { color: mepLook.clash, wireframe: true, depthTest: false };
+const runMaterial = { color: mepLook.run, transparent: true, opacity: mepLook.runOpacity, depthWrite: false };
+
 function ClashMarkers({ clashes, wireframe, selectedClashId, onSelectClash }: { clashes: ClashMarker[]; wireframe: boolean; selectedClashId: string | null; onSelectClash?: (id: string) => void }) {
+  const bodies = useMemo(
+    () => clashes.map((clash): Body => ({ position: [clash.point.x, clash.point.y, clash.point.z], scale: mepLook.clashRadius * (clash.id === selectedClashId ? mepLook.selectedScale : 1) })),
+    [clashes, selectedClashId],
+  );
   return (
-    <Instances limit={Math.max(1, clashes.length)} geometry={unitSphere} renderOrder={3}>
-      {/* Hard clashes solid, clearance clashes hollow-looking: the kind reads without colour too. */}
-      <meshStandardMaterial color={mepLook.clash} wireframe={wireframe} depthTest={false} />
-      {clashes.map((clash) => {
-        const size = mepLook.clashRadius * (clash.id === selectedClashId ? mepLook.selectedScale : 1);
-        return (
-          <Instance
-            key={clash.id}
-            position={[clash.point.x, clash.point.y, clash.point.z]}
-            scale={size}
-            onClick={(event) => {
-              event.stopPropagation();
-              onSelectClash?.(clash.id);
-            }}
-          />
-        );
-      })}
-    </Instances>
+    <InstancedBodies
+      name={wireframe ? "clash-markers-clearance" : "clash-markers-hard"}
+      geometry={unitSphere}
+      material={wireframe ? clearanceMaterial : hardMaterial}
+      bodies={bodies}
+      renderOrder={3}
+      onPick={(k) => onSelectClash?.(clashes[k].id)}
+    />
   );
 }
 
 function RunBodies({ poses, shape }: { poses: SegmentPose[]; shape: SegmentPose["shape"] }) {
-  const mine = poses.filter((pose) => pose.shape === shape);
-  return (
-    <Instances limit={Math.max(1, mine.length)} geometry={shape === "round" ? unitCylinder : unitBox} renderOrder={2}>
-      <meshStandardMaterial color={mepLook.run} transparent opacity={mepLook.runOpacity} depthWrite={false} />
-      {mine.map((pose) => (
-        <Instance key={pose.key} position={pose.position} quaternion={pose.quaternion} scale={pose.scale} />
-      ))}
-    </Instances>
-  );
+  const bodies = useMemo(() => poses.filter((pose) => pose.shape === shape).map((pose): Body => ({ position: pose.position, quaternion: pose.quaternion, scale: pose.scale })), [poses, shape]);
+  return <InstancedBodies name={`mep-runs-${shape}`} geometry={shape === "round" ? unitCylinder : unitBox} material={runMaterial} bodies={bodies} renderOrder={2} />;
 }
 
 export function MepRunsLayer({ runs, clashes, selectedClashId, onSelectClash }: { runs: Run[]; clashes: ClashMarker[]; selectedClashId: string | null; onSelectClash?: (id: string) => void }) {
-  const invalidate = useThree((s) => s.invalidate);
   const poses = useMemo(() => segmentPoses(runs), [runs]);
-  useEffect(() => invalidate(), [poses, clashes, selectedClashId, invalidate]);
-  const hard = clashes.filter((clash) => clash.kind === "hard");
-  const clearance = clashes.filter((clash) => clash.kind === "clearance");
+  const hard = useMemo(() => clashes.filter((clash) => clash.kind === "hard"), [clashes]);
+  const clearance = useMemo(() => clashes.filter((clash) => clash.kind === "clearance"), [clashes]);
   return (
     <group name="mep-runs">
       <RunBodies poses={poses} shape="round" />

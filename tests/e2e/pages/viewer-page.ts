@@ -45,6 +45,39 @@ export class ViewerPage {
     return this.page.evaluate(() => window.__strutroom!.getLegendCounts());
   }
 
+  /** Turns the camera to a preset view and waits until it has stopped moving. */
+  async preset(name: "plan" | "isometric" | "elevationSouth" | "elevationEast") {
+    await this.page.getByTestId(`viewer-preset-${name}`).click();
+    await this.settle();
+  }
+
+  /** Waits until the camera is still: a corner node is drawn at the same pixel twice, 200 ms apart. */
+  async settle() {
+    let last = "";
+    for (let attempt = 0; attempt < 50; attempt += 1) {
+      const now = JSON.stringify(await this.page.evaluate(() => window.__strutroom!.screenOf("node", "T-0-0")));
+      if (now === last) return;
+      last = now;
+      await this.page.waitForTimeout(200);
+    }
+    throw new Error("The camera did not come to rest.");
+  }
+
+  /** Client coordinates of a node, or of the point at fraction t along a member, as drawn now. */
+  async screenOf(kind: "member" | "node", id: string, t = 0.5): Promise<{ x: number; y: number }> {
+    const at = await this.page.evaluate(([k, i, f]) => window.__strutroom!.screenOf(k as "member" | "node", i as string, f as number), [kind, id, t] as const);
+    if (!at) throw new Error(`${kind} ${id} is not on screen.`);
+    return at;
+  }
+
+  selection() {
+    return this.page.evaluate(() => window.__strutroom!.selection());
+  }
+
+  async resultId(): Promise<string> {
+    return this.page.getByTestId("viewer-result").inputValue();
+  }
+
   measureFrame() {
     return this.page.evaluate(() => window.__strutroom!.measureFrame());
   }

@@ -1,0 +1,58 @@
+"use client";
+// The side panel of the selected node: where it is, how it is supported, the load on it and how far it moves in
+// the chosen result, and the members that meet there (a click selects one).
+import type { WireColumns } from "@/lib/models/result-columns";
+import { formatMetres } from "./measure";
+import { nodalLoadsFor, resultLabel, type PreparedModel } from "./prepare";
+import { useViewerStore } from "./viewer-store";
+
+const held = (value: boolean) => (value ? "held" : "free");
+
+export function NodePanel({ prepared, columns }: { prepared: PreparedModel; columns: WireColumns | undefined }) {
+  const selected = useViewerStore((s) => s.selectedNodeId);
+  const resultId = useViewerStore((s) => s.resultId);
+  const k = selected ? prepared.nodes.index.get(selected) : undefined;
+  if (!selected || k === undefined) return null;
+  const p = prepared.nodes.positions;
+  const support = prepared.model.supports.find((s) => s.node === selected);
+  const load = resultId ? nodalLoadsFor(prepared.model, resultId).find((l) => l.node === selected) : undefined;
+  const d = columns?.displacements;
+  const members = prepared.model.members.filter((m) => m.i === selected || m.j === selected);
+  return (
+    <aside data-testid="node-panel" aria-label={`Node ${selected}`} className="h-[75vh] w-80 shrink-0 overflow-y-auto border-l border-board-200 bg-white p-4 text-sm">
+      <header className="mb-3 flex items-start justify-between">
+        <div>
+          <h2 className="text-lg font-semibold" data-testid="node-panel-id">Node {selected}</h2>
+          <p className="font-mono text-xs text-board-700" data-testid="node-panel-position">
+            x {formatMetres(p[k * 3])} · y {formatMetres(p[k * 3 + 1])} · z {formatMetres(p[k * 3 + 2])}
+          </p>
+        </div>
+        <button type="button" className="rounded px-2 text-board-700 hover:bg-board-100" aria-label="Close the node panel" onClick={() => useViewerStore.getState().selectNode(null)}>
+          ×
+        </button>
+      </header>
+      <p>{support ? `Support: x ${held(support.ux)}, y ${held(support.uy)}, z ${held(support.uz)}` : "Not a support."}</p>
+      {resultId ? (
+        <>
+          <h3 className="mt-3 font-semibold">In {resultLabel(prepared.model, resultId)}</h3>
+          <p>{load ? `Nodal load: ${load.fx.toFixed(2)}, ${load.fy.toFixed(2)}, ${load.fz.toFixed(2)} kN (x, y, z)` : "No nodal load."}</p>
+          {d ? (
+            <p data-testid="node-panel-displacement">
+              Displacement: {(d[k * 3] * 1000).toFixed(1)}, {(d[k * 3 + 1] * 1000).toFixed(1)}, {(d[k * 3 + 2] * 1000).toFixed(1)} mm (x, y, z)
+            </p>
+          ) : null}
+        </>
+      ) : null}
+      <h3 className="mt-3 font-semibold">Members meeting here ({members.length})</h3>
+      <ul className="mt-1 flex flex-wrap gap-1">
+        {members.map((m) => (
+          <li key={m.id}>
+            <button type="button" className="rounded border border-board-200 px-1.5 font-mono text-xs hover:bg-board-100" onClick={() => useViewerStore.getState().selectMember(m.id)}>
+              {m.id}
+            </button>
+          </li>
+        ))}
+      </ul>
+    </aside>
+  );
+}
