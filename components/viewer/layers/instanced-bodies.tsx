@@ -25,6 +25,23 @@ const colour = new Color();
 /** Capacity in steps of powers of two, so a list that grows one by one rebuilds the mesh only now and then. */
 const capacityFor = (count: number) => 2 ** Math.ceil(Math.log2(Math.max(1, count)));
 
+/** Writes every body's matrix and colour and shows exactly that many instances. */
+function writeBodies(mesh: InstancedMesh, bodies: readonly Body[]) {
+  bodies.forEach((body, k) => {
+    const s = body.scale;
+    if (typeof s === "number") scale.set(s, s, s);
+    else scale.set(s[0], s[1], s[2]);
+    matrix.compose(position.set(body.position[0], body.position[1], body.position[2]), body.quaternion ?? noTurn, scale);
+    mesh.setMatrixAt(k, matrix);
+    mesh.setColorAt(k, colour.set(body.colour ?? "#ffffff"));
+  });
+  mesh.count = bodies.length;
+  mesh.instanceMatrix.needsUpdate = true;
+  mesh.instanceColor!.needsUpdate = true;
+  // Raycasting (clicks on pins and clash markers) tests this sphere first; it must follow the bodies.
+  mesh.computeBoundingSphere();
+}
+
 export function InstancedBodies({
   name,
   geometry,
@@ -58,19 +75,7 @@ export function InstancedBodies({
   useEffect(() => () => shading.dispose(), [shading]);
 
   useLayoutEffect(() => {
-    bodies.forEach((body, k) => {
-      const s = body.scale;
-      if (typeof s === "number") scale.set(s, s, s);
-      else scale.set(s[0], s[1], s[2]);
-      matrix.compose(position.set(body.position[0], body.position[1], body.position[2]), body.quaternion ?? noTurn, scale);
-      mesh.setMatrixAt(k, matrix);
-      mesh.setColorAt(k, colour.set(body.colour ?? "#ffffff"));
-    });
-    mesh.count = bodies.length;
-    mesh.instanceMatrix.needsUpdate = true;
-    mesh.instanceColor!.needsUpdate = true;
-    // Raycasting (clicks on pins and clash markers) tests this sphere first; it must follow the bodies.
-    mesh.computeBoundingSphere();
+    writeBodies(mesh, bodies);
     invalidate();
   }, [mesh, bodies, invalidate]);
 
