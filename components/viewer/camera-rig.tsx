@@ -58,6 +58,13 @@ export function CameraRig({ prepared }: { prepared: PreparedModel }) {
         const offset = scratchPosition.sub(scratchTarget);
         void cc.setLookAt(point[0] + offset.x, point[1] + offset.y, point[2] + offset.z, ...point, true);
       },
+      frameOn: (centre, radius) => {
+        cc.getPosition(scratchPosition, true);
+        cc.getTarget(scratchTarget, true);
+        const fov = ((cameraLook.fov / 2) * Math.PI) / 180;
+        const d = scratchPosition.sub(scratchTarget).normalize().multiplyScalar(Math.max(radius, 1e-3) / Math.sin(fov));
+        void cc.setLookAt(centre[0] + d.x, centre[1] + d.y, centre[2] + d.z, ...centre, true);
+      },
       preset: (name) => lookFrom(presetDirections[name], true),
       fit: () => {
         cc.getPosition(scratchPosition, true);
@@ -78,6 +85,13 @@ export function CameraRig({ prepared }: { prepared: PreparedModel }) {
         context.readPixels(0, 0, 1, 1, context.RGBA, context.UNSIGNED_BYTE, pixel);
         const ms = performance.now() - start;
         return { calls: gl.info.render.calls, triangles: gl.info.render.triangles, ms };
+      },
+      instanceCounts: () => {
+        const counts: Record<string, number> = {};
+        scene.traverseVisible((object) => {
+          if (object instanceof InstancedMesh && object.name) counts[object.name] = (counts[object.name] ?? 0) + object.count;
+        });
+        return counts;
       },
       unplacedInstances: () => {
         const found: string[] = [];

@@ -102,4 +102,12 @@ describe("other colourings", () => {
     expect(Object.fromEntries(look.legend.entries.map((e) => [e.key, e.count]))).toEqual({ "to-tension": 0, "to-compression": 1, "to-zero-force": 1, same: 2 });
     expect(Array.from(look.translucent)).toEqual([1, 0, 0, 1]);
   });
+
+  it("names the change it shows, from the compared result to the chosen one, and its largest change of force", () => {
+    const other = columnsOf({ A: 80, B: 10, C: -3, D: 2 }, []);
+    const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "compare", unitLength: 1, lowForceThreshold: 0, compareColumns: other, compareLabel: "LC2", memberIds: ids });
+    expect(look.legend.title).toBe("Change from LC2 to LC1");
+    // N(LC1) − N(LC2): A +20, B −60, C +3, D 0 (kN), so B changes most.
+    expect(look.legend.note).toBe("Largest change of force: B, −60.0 kN");
+  });
 });

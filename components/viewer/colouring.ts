@@ -96,6 +96,8 @@ export interface Legend {
   counts: StateCounts;
   entries: LegendEntry[];
   scale?: LegendScale;
+  /** A line under the entries (the comparison's largest change of force). */
+  note?: string;
 }
 
 export interface AppearanceInput {
@@ -105,9 +107,11 @@ export interface AppearanceInput {
   unitLength: number;
   /** |N| below this (kN) and not zero-force: drawn as low-force. 0 turns the tint off. */
   lowForceThreshold: number;
-  /** The other result for the "compare" colouring. */
+  /** The other result for the "compare" colouring: the change is from it to the chosen result. */
   compareColumns?: ResultColumnsView;
   compareLabel?: string;
+  /** Member ids in column order, to name the member of the largest change when comparing. */
+  memberIds?: readonly string[];
 }
 
 export interface MemberAppearance {
@@ -133,6 +137,8 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
   const radii = new Float32Array(count);
   const translucent = new Uint8Array(count);
   const compareStates = mode === "compare" && input.compareColumns ? forceStates(input.compareColumns) : null;
+  // Largest change of axial force between the two results (member index and N(chosen) − N(compared), kN).
+  let largestChange = { k: -1, delta: 0 };
   const tally = new Map<string, number>();
   const bump = (key: string) => tally.set(key, (tally.get(key) ?? 0) + 1);
 
@@ -178,6 +184,8 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
       }
       case "compare": {
         const changed = compareStates !== null && compareStates[k] !== states[k];
+        const delta = input.compareColumns ? force - input.compareColumns.forces[k] : 0;
+        if (Math.abs(delta) > Math.abs(largestChange.delta)) largestChange = { k, delta };
         colour = changed ? stateColour(state, false) : hexToRgb(palette.filteredOut);
         translucent[k] = changed ? 0 : 1;
         if (changed) bump(`to-${state}`);
@@ -188,7 +196,12 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
     colours.set(colour, k * 3);
   }
 
-  return { colours, radii, translucent, states, legend: buildLegend(input, counts, tally, maxAbs) };
+  const legend = buildLegend(input, counts, tally, maxAbs);
+  if (mode === "compare" && largestChange.k >= 0 && input.memberIds) {
+    const d = largestChange.delta;
+    legend.note = `Largest change of force: ${input.memberIds[largestChange.k]}, ${d > 0 ? "+" : "−"}${Math.abs(d).toFixed(1)} kN`;
+  }
+  return { colours, radii, translucent, states, legend };
 }
 
 function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<string, number>, maxAbs: number): Legend {
@@ -245,7 +258,7 @@ function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<str
     case "compare":
       return {
         ...base,
-        title: `${colourModeLabels.compare}: ${input.compareLabel ?? "?"} → ${input.resultLabel}`,
+        title: `Change from ${input.compareLabel ?? "?"} to ${input.resultLabel}`,
         entries: [
           { key: "to-tension", label: "Now tension", colour: palette.tension, count: n("to-tension") },
           { key: "to-compression", label: "Now compression", colour: palette.compression, count: n("to-compression") },

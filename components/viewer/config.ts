@@ -5,6 +5,8 @@ export const palette = {
   compression: "#c2410c",
   zeroForce: "#94a3b8",
   selection: "#7c3aed",
+  /** Measured points and the line between them: near-black, apart from every force colour. */
+  measure: "#111827",
   hover: "#a78bfa",
   neutral: "#f1f5f9",
   member: "#475569",

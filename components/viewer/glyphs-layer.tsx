@@ -9,13 +9,14 @@ import { disposeInstancedMesh } from "./dispose";
 import { nodalLoadsFor, type PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
-function useInstanced(geometry: BufferGeometry, colour: string, capacity: number): InstancedMesh {
+function useInstanced(name: string, geometry: BufferGeometry, colour: string, capacity: number): InstancedMesh {
   const mesh = useMemo(() => {
     const m = new InstancedMesh(geometry, new MeshLambertMaterial({ color: new Color(colour) }), Math.max(1, capacity));
     m.frustumCulled = false;
     m.count = 0;
+    m.name = name;
     return m;
-  }, [geometry, colour, capacity]);
+  }, [name, geometry, colour, capacity]);
   useEffect(() => () => disposeInstancedMesh(mesh), [mesh]);
   return mesh;
 }
@@ -42,7 +43,7 @@ export function NodesLayer({ prepared, positions, nodeMask }: { prepared: Prepar
   const invalidate = useThree((s) => s.invalidate);
   const selectedNodeId = useViewerStore((s) => s.selectedNodeId);
   const geometry = useMemo(() => new OctahedronGeometry(1, 0), []);
-  const mesh = useInstanced(geometry, "#ffffff", prepared.nodes.ids.length);
+  const mesh = useInstanced("nodes", geometry, "#ffffff", prepared.nodes.ids.length);
   useLayoutEffect(() => {
     const selected = selectedNodeId ? (prepared.nodes.index.get(selectedNodeId) ?? -1) : -1;
     const r = glyphLook.nodeRadius * prepared.unitLength;
@@ -67,7 +68,7 @@ export function SupportsLayer({ prepared, nodeMask }: { prepared: PreparedModel;
   const invalidate = useThree((s) => s.invalidate);
   const geometry = useMemo(() => new ConeGeometry(0.5, 1, 4).translate(0, -0.5, 0).rotateX(Math.PI / 2), []);
   const supports = prepared.model.supports;
-  const mesh = useInstanced(geometry, "#ffffff", supports.length);
+  const mesh = useInstanced("supports", geometry, "#ffffff", supports.length);
   useLayoutEffect(() => {
     const size = glyphLook.supportSize * prepared.unitLength;
     const held = new Color(palette.support);
@@ -96,8 +97,8 @@ export function LoadsLayer({ prepared, nodeMask }: { prepared: PreparedModel; no
   const capacity = prepared.model.nodes.length;
   const shaftGeometry = useMemo(() => new CylinderGeometry(1, 1, 1, 4, 1).translate(0, -0.5, 0), []);
   const headGeometry = useMemo(() => new ConeGeometry(1, 1, 6).translate(0, -0.5, 0), []);
-  const shafts = useInstanced(shaftGeometry, palette.load, capacity);
-  const heads = useInstanced(headGeometry, palette.load, capacity);
+  const shafts = useInstanced("load-arrow-shafts", shaftGeometry, palette.load, capacity);
+  const heads = useInstanced("load-arrow-heads", headGeometry, palette.load, capacity);
   useLayoutEffect(() => {
     let largest = 0;
     for (const load of loads) largest = Math.max(largest, Math.hypot(load.fx, load.fy, load.fz));

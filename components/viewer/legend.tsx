@@ -23,6 +23,11 @@ export function Legend() {
           </li>
         ))}
       </ul>
+      {legend.note ? (
+        <p className="mt-2 text-xs text-board-700" data-testid="legend-note">
+          {legend.note}
+        </p>
+      ) : null}
       {scale ? (
         <div className="mt-2">
           <div

@@ -104,11 +104,14 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
 
   const look = useMemo(() => {
     if (!columns || !resultId || columns.memberCount !== count) return null;
-    const compare = compareResultId ? compareColumns : undefined;
+    const compare = compareResultId && compareResultId !== resultId ? compareColumns : undefined;
+    // Comparing waits for the other result's columns rather than showing the force state under a compare heading.
+    if (mode === "compare" && (!compare || compare.memberCount !== count)) return null;
     return computeAppearance({
       columns,
       resultLabel: resultLabel(prepared.model, resultId),
-      mode: mode === "compare" && !compare ? "forceState" : mode,
+      mode,
+      memberIds: prepared.memberIds,
       unitLength: prepared.unitLength,
       lowForceThreshold: threshold,
       compareColumns: compare,

@@ -11,7 +11,9 @@ import { LiveJob } from "@/components/jobs/job-progress";
 import { apiFetch } from "@/lib/http/fetcher";
 import { HoverTooltip } from "./hover-tooltip";
 import { InfluenceLayer } from "./layers/influence-layer";
+import { LabelsOverlay } from "./labels-layer";
 import { InfluenceLegend, Legend } from "./legend";
+import { MeasureReadout } from "./measure-layer";
 import { MemberPanel } from "./member-panel";
 import { NodePanel } from "./node-panel";
 import { prepareModel, resultIds } from "./prepare";
@@ -123,11 +125,13 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
             <InfluenceLayer prepared={prepared} />
             {layers}
           </ViewerCanvas>
+          <LabelsOverlay />
           <div className="pointer-events-none absolute left-3 top-3">
             <Legend />
             <InfluenceLegend />
           </div>
-          <div className="absolute bottom-3 left-3">
+          <div className="pointer-events-none absolute bottom-3 left-3 flex flex-col items-start gap-1">
+            <MeasureReadout />
             <HoverTooltip prepared={prepared} columns={columns} />
           </div>
         </div>

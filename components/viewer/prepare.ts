@@ -77,3 +77,15 @@ export function resultLabel(model: ViewerModel, resultId: string): string {
 export function resultIds(model: ViewerModel, results: Record<string, ViewerCaseResult>): string[] {
   return [...model.loadCases.map((c) => c.id), ...model.combinations.map((c) => c.id)].filter((id) => id in results);
 }
+
+/**
+ * The result to compare the chosen one with when compare mode is entered: the next one in display order (the next
+ * combination after a combination), else the one before; null when there is no other result.
+ */
+export function defaultCompareResult(ids: readonly string[], current: string | null): string | null {
+  const others = ids.filter((id) => id !== current);
+  if (others.length === 0) return null;
+  const at = current === null ? -1 : ids.indexOf(current);
+  if (at < 0) return others[0];
+  return ids[at + 1] ?? ids[at - 1] ?? others[0];
+}

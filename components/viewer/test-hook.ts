@@ -18,6 +18,9 @@ export interface StrutroomTestHook {
    * now; null when it is behind the camera. Browser tests click there with the real mouse.
    */
   screenOf(kind: "member" | "node", id: string, t?: number): { x: number; y: number } | null;
+  selectNode(id: string | null): void;
+  /** Instances drawn now per named glyph mesh: "nodes", "supports", "load-arrow-heads", "pins", … */
+  instanceCounts(): Record<string, number>;
   /** What is selected now. */
   selection(): { member: string | null; node: string | null };
   /**
@@ -57,6 +60,8 @@ export function installTestHook(prepared: PreparedModel): () => void {
       const b = prepared.ends[k * 2 + 1] * 3;
       return picker.screenOf([p[a] + (p[b] - p[a]) * t, p[a + 1] + (p[b + 1] - p[a + 1]) * t, p[a + 2] + (p[b + 2] - p[a + 2]) * t]);
     },
+    selectNode: (id) => useViewerStore.getState().selectNode(id),
+    instanceCounts: () => useViewerStore.getState().controller?.instanceCounts() ?? {},
     unplacedInstances: () => useViewerStore.getState().controller?.unplacedInstances() ?? [],
     selection: () => {
       const s = useViewerStore.getState();

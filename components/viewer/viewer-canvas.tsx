@@ -10,6 +10,8 @@ import { cameraLook, memberLook, palette } from "./config";
 import { deflectedPositions, modePositions, nodesInBox } from "./filters";
 import { LoadsLayer, NodesLayer, SupportsLayer } from "./glyphs-layer";
 import { MembersLayer } from "./members-layer";
+import { LabelsLayer } from "./labels-layer";
+import { MeasureLayer } from "./measure-layer";
 import { PickerRig } from "./picker";
 import type { PreparedModel } from "./prepare";
 import type { WireColumns } from "@/lib/models/result-columns";
@@ -66,6 +68,8 @@ function Scene({ prepared, columns, compareColumns, children }: ViewerCanvasProp
       <LoadsLayer prepared={prepared} nodeMask={nodeMask} />
       <CameraRig prepared={prepared} />
       <PickerRig prepared={prepared} positions={positions} nodeMask={nodeMask} />
+      <LabelsLayer prepared={prepared} positions={positions} nodeMask={nodeMask} />
+      <MeasureLayer prepared={prepared} />
       {children}
     </>
   );

@@ -18,6 +18,7 @@ import { subscribeWithSelector } from "zustand/middleware";
 import type { InfluenceMap } from "@/lib/review/influence";
 import type { ColourMode, Legend } from "./colouring";
 import { defaultFilters, type MemberFilters } from "./filters";
+import type { LabelSpot } from "./labels";
 import type { Vec3 as PickVec3 } from "./picking";
 
 export type Vec3 = [number, number, number];
@@ -29,12 +30,15 @@ export interface CameraController {
   getPose(): CameraPose;
   setPose(pose: CameraPose, animate: boolean): void;
   flyTo(point: Vec3): void;
+  frameOn(centre: Vec3, radius: number): void;
   preset(name: CameraPreset): void;
   fit(): void;
   /** Renders the current view once and returns it as a PNG data URL. */
   exportPng(): string;
   /** Renders one frame now and reports its draw calls, triangles and time (used by the benchmark). */
   measureFrame(): { calls: number; triangles: number; ms: number };
+  /** Instances drawn now per named instanced mesh (nodes, supports, load arrows, pins, …). */
+  instanceCounts(): Record<string, number>;
   /** Names of instanced meshes drawing an instance with an identity matrix (see test-hook.ts). */
   unplacedInstances(): string[];
 }
@@ -69,6 +73,9 @@ export interface ViewerState {
   tool: ViewerTool;
   /** Points picked for a distance: none, one, or two (the distance is shown). */
   measurePoints: PickedThing[];
+  /** Member and node labels on; `labels` holds where the ones drawn now are (labels-layer.tsx). */
+  labelsOn: boolean;
+  labels: { spots: LabelSpot[]; inView: number } | null;
   /** Members drawn now (1 each, member order), written by the members layer after every filter change. */
   visibleMembers: Uint8Array | null;
   picker: Picker | null;
@@ -97,6 +104,10 @@ export interface ViewerState {
   registerPicker(picker: Picker | null): void;
   setTool(tool: ViewerTool): void;
   setVisibleMembers(mask: Uint8Array): void;
+  setLabelsOn(on: boolean): void;
+  setLabels(labels: { spots: LabelSpot[]; inView: number } | null): void;
+  /** Turns the camera to frame a sphere, keeping the direction it looks from. */
+  frameOn(centre: Vec3, radius: number): void;
   setResult(id: string): void;
   setCompareResult(id: string | null): void;
   setColourMode(mode: ColourMode): void;
@@ -128,6 +139,7 @@ const initial = {
   lastPick: null,
   tool: "select" as ViewerTool,
   measurePoints: [],
+  labels: null,
   compareResultId: null,
   colourMode: "forceState" as ColourMode,
   lowForceThreshold: 0,
@@ -182,6 +194,10 @@ export const useViewerStore = create<ViewerState>()(
     registerPicker: (picker) => set({ picker }),
     setTool: (tool) => set({ tool, measurePoints: [] }),
     setVisibleMembers: (mask) => set({ visibleMembers: mask }),
+    labelsOn: false,
+    setLabelsOn: (on) => set({ labelsOn: on }),
+    setLabels: (labels) => set({ labels }),
+    frameOn: (centre, radius) => get().controller?.frameOn(centre, radius),
     setResult: (id) => set({ resultId: id, ...(id !== get().resultId ? { mode: null } : {}) }),
     setCompareResult: (id) => set({ compareResultId: id }),
     setColourMode: (mode) => set({ colourMode: mode }),

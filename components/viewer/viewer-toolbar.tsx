@@ -1,9 +1,11 @@
 "use client";
-// Controls of the viewer: result, colouring, comparison, filters, section box, deflected shape, camera, PNG.
+// Controls of the viewer: result, colouring, comparison, filters, section box, deflected shape, find, labels,
+// measure, camera, PNG.
 import { useState } from "react";
 import { colourModeLabels, type ColourMode } from "./colouring";
 import { autoDeflectionScale, roundedModelBox, type SectionBox } from "./filters";
-import { resultLabel, type PreparedModel } from "./prepare";
+import { FindBox } from "./find-box";
+import { defaultCompareResult, resultLabel, type PreparedModel } from "./prepare";
 import type { WireColumns } from "@/lib/models/result-columns";
 import type { FilterableGroup } from "./types";
 import { useViewerStore, type CameraPreset } from "./viewer-store";
@@ -44,7 +46,19 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
   const deflection = useViewerStore((s) => s.deflection);
   const [box, setBox] = useState<SectionBox>(() => roundedModelBox(prepared.nodes.positions));
 
-  const modes = (Object.keys(colourModeLabels) as ColourMode[]).filter((m) => hasReview || (m !== "utilisation" && m !== "verdict"));
+  const labelsOn = useViewerStore((s) => s.labelsOn);
+  const tool = useViewerStore((s) => s.tool);
+  const modes = (Object.keys(colourModeLabels) as ColourMode[]).filter((m) => (hasReview || (m !== "utilisation" && m !== "verdict")) && (m !== "compare" || ids.length > 1));
+  // Compare mode compares at once: with the next result unless another one (not the chosen one) was picked before.
+  const chooseMode = (m: ColourMode) => {
+    const other = useViewerStore.getState().compareResultId;
+    if (m === "compare" && (!other || other === resultId || !ids.includes(other))) store.setCompareResult(defaultCompareResult(ids, resultId));
+    store.setColourMode(m);
+  };
+  const chooseResult = (id: string) => {
+    if (mode === "compare" && id === compareResultId) store.setCompareResult(defaultCompareResult(ids, id));
+    store.setResult(id);
+  };
   const updateBox = (end: "min" | "max", axis: number, value: number) => {
     const next: SectionBox = { min: [...box.min], max: [...box.max] };
     next[end][axis] = value;
@@ -62,10 +76,10 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
 
   return (
     <div className="flex flex-wrap items-end gap-3 border-b border-board-200 bg-white px-3 py-2" data-testid="viewer-toolbar">
-      <ResultSelect prepared={prepared} ids={ids} value={resultId} onChange={store.setResult} testId="viewer-result" label="Load case or combination" />
+      <ResultSelect prepared={prepared} ids={ids} value={resultId} onChange={chooseResult} testId="viewer-result" label="Load case or combination" />
       <label className="flex flex-col text-xs text-board-700">
         Colour by
-        <select className={control} data-testid="viewer-colour-mode" value={mode} onChange={(e) => store.setColourMode(e.target.value as ColourMode)}>
+        <select className={control} data-testid="viewer-colour-mode" value={mode} onChange={(e) => chooseMode(e.target.value as ColourMode)}>
           {modes.map((m) => (
             <option key={m} value={m}>{colourModeLabels[m]}</option>
           ))}
@@ -103,8 +117,8 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
           ? (["x", "y", "z"] as const).map((axis, a) => (
               <span key={axis} className="flex items-center gap-0.5 font-mono text-xs">
                 {axis}
-                <input aria-label={`${axis} from (m)`} className={`${control} w-16`} type="number" step="any" value={box.min[a]} onChange={(e) => updateBox("min", a, Number(e.target.value))} />
-                <input aria-label={`${axis} to (m)`} className={`${control} w-16`} type="number" step="any" value={box.max[a]} onChange={(e) => updateBox("max", a, Number(e.target.value))} />
+                <input aria-label={`${axis} from (m)`} className={`${control} w-16`} type="number" step="any" value={box.min[a]} onChange={(e) => updateBox("min", a, Number(e.target.value))} data-testid={`viewer-box-${axis}-min`} />
+                <input aria-label={`${axis} to (m)`} className={`${control} w-16`} type="number" step="any" value={box.max[a]} onChange={(e) => updateBox("max", a, Number(e.target.value))} data-testid={`viewer-box-${axis}-max`} />
               </span>
             ))
           : null}
@@ -126,6 +140,14 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
         </label>
         <input aria-label="Deflection scale factor" className={`${control} w-20`} type="number" min={0} step="any" value={deflection.scale} onChange={(e) => store.setDeflection({ scale: Math.max(0, Number(e.target.value) || 0) })} data-testid="viewer-deflection-scale" />
       </fieldset>
+      <FindBox prepared={prepared} />
+      <label className="flex items-center gap-1 text-sm">
+        <input type="checkbox" checked={labelsOn} onChange={(e) => store.setLabelsOn(e.target.checked)} data-testid="viewer-labels-toggle" />
+        Labels
+      </label>
+      <button type="button" className={`${control} ${tool === "measure" ? "border-selection bg-board-100" : ""}`} aria-pressed={tool === "measure"} onClick={() => store.setTool(tool === "measure" ? "select" : "measure")} data-testid="viewer-measure">
+        Measure
+      </button>
       <div className="flex items-center gap-1" role="group" aria-label="Camera">
         {(Object.keys(presetLabels) as CameraPreset[]).map((p) => (
           <button key={p} type="button" className={control} onClick={() => store.applyPreset(p)} data-testid={`viewer-preset-${p}`}>

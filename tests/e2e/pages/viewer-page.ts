@@ -51,8 +51,12 @@ export class ViewerPage {
     await this.settle();
   }
 
-  /** Waits until the camera is still: a corner node is drawn at the same pixel twice, 200 ms apart. */
+  /**
+   * Brings the canvas into the window (mouse clicks land only on what is inside it) and waits until the camera is
+   * still: a corner node is drawn at the same pixel twice, 200 ms apart (also after a panel resized the canvas).
+   */
   async settle() {
+    await this.page.getByTestId("viewer-canvas").scrollIntoViewIfNeeded();
     let last = "";
     for (let attempt = 0; attempt < 50; attempt += 1) {
       const now = JSON.stringify(await this.page.evaluate(() => window.__strutroom!.screenOf("node", "T-0-0")));

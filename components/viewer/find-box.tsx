@@ -1,0 +1,41 @@
+"use client";
+// Find a member or node by its id: selects it and turns the camera to frame it (issue 17 item 8).
+import { useState, type FormEvent } from "react";
+import { findById } from "./find";
+import type { PreparedModel } from "./prepare";
+import { useViewerStore } from "./viewer-store";
+
+export function FindBox({ prepared }: { prepared: PreparedModel }) {
+  const [query, setQuery] = useState("");
+  const [problem, setProblem] = useState<string | null>(null);
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    const found = findById(prepared, query);
+    if (!found) {
+      setProblem(query.trim() ? `No member or node called "${query.trim()}" in this revision.` : "Type a member or node id, e.g. " + (prepared.memberIds[0] ?? "") + ".");
+      return;
+    }
+    setProblem(null);
+    const store = useViewerStore.getState();
+    if (found.kind === "member") store.selectMember(found.id);
+    else store.selectNode(found.id);
+    // Frame it with some of the roof around it: at least two typical members across.
+    store.frameOn(found.centre, Math.max(found.radius, prepared.unitLength) * 2);
+  };
+  return (
+    <form className="flex flex-col text-xs text-board-700" onSubmit={submit} role="search" aria-label="Find a member or node">
+      <label htmlFor="viewer-find">Find member or node</label>
+      <span className="flex gap-1">
+        <input id="viewer-find" className="w-32 rounded border border-board-200 bg-white px-2 py-1 font-mono text-sm" value={query} onChange={(e) => setQuery(e.target.value)} placeholder={prepared.memberIds[0]} data-testid="viewer-find" autoComplete="off" />
+        <button type="submit" className="rounded border border-board-200 bg-white px-2 py-1 text-sm" data-testid="viewer-find-go">
+          Go
+        </button>
+      </span>
+      {problem ? (
+        <span role="alert" className="text-clash" data-testid="viewer-find-problem">
+          {problem}
+        </span>
+      ) : null}
+    </form>
+  );
+}
