@@ -61,12 +61,14 @@ describe("picking with the mouse (issue 17 item 1)", () => {
     expect(await page.getByTestId("member-panel-id").textContent()).toBe(`Member ${chord.id}`);
     await viewer.settle();
 
-    // Empty space: the ground grid beside the roof, 40 px beyond the corner node T-0-0 on the diagonal away from the roof.
-    const corner = await viewer.screenOf("node", "T-0-0");
-    const centre = await viewer.screenOf("node", `T-8-6`);
-    const away = { x: corner.x - centre.x, y: corner.y - centre.y };
-    const norm = Math.hypot(away.x, away.y);
-    await page.mouse.click(corner.x + (away.x / norm) * 40, corner.y + (away.y / norm) * 40);
+    // Empty space: the ground grid 30 px (about 2.5 m in plan) beyond the middle of the roof's south edge, away
+    // from the roof, where the canvas itself takes the click.
+    const edge = await viewer.screenOf("node", "T-8-0");
+    const middle = await viewer.screenOf("node", "T-8-6");
+    const out = Math.hypot(edge.x - middle.x, edge.y - middle.y);
+    const empty = { x: edge.x + ((edge.x - middle.x) / out) * 30, y: edge.y + ((edge.y - middle.y) / out) * 30 };
+    expect(await page.evaluate(([x, y]) => document.elementFromPoint(x, y)?.tagName, [empty.x, empty.y])).toBe("CANVAS");
+    await page.mouse.click(empty.x, empty.y);
     await expect.poll(() => viewer.selection()).toEqual({ member: null, node: null });
     expect(await viewer.panel.count()).toBe(0);
     await screenshot(page, "viewer-pick-miss-cleared");
@@ -82,7 +84,9 @@ describe("picking with the mouse (issue 17 item 1)", () => {
   });
 
   it("hits a thin zero-force diagonal at an angle within the pixel tolerance", async () => {
-    await viewer.preset("isometric");
+    // In plan a diagonal runs at 45° on screen from a top node to the bottom node half a bay across; the chords
+    // nearest its midpoint are a quarter bay (0.75 m, about 9 px) away.
+    await viewer.preset("plan");
     // A diagonal that is zero-force in the result on screen (drawn thin and translucent), away from the edges.
     const resultId = await viewer.resultId();
     const zero = new Set(revision.analysis.result.results[resultId].zeroForceMembers);
@@ -92,10 +96,10 @@ describe("picking with the mouse (issue 17 item 1)", () => {
     const b = await viewer.screenOf("member", thin.id, 0.55);
     const mid = await viewer.screenOf("member", thin.id, 0.5);
     const length = Math.hypot(b.x - a.x, b.y - a.y);
-    // 4 px square to the member on screen: off the drawn cylinder, inside the 6 px tolerance.
+    // 3 px square to the member on screen: off the drawn cylinder, inside the 6 px tolerance.
     const normal = { x: -(b.y - a.y) / length, y: (b.x - a.x) / length };
     expect(Math.abs(normal.x) > 0.1 && Math.abs(normal.y) > 0.1).toBe(true); // at an angle on screen
-    await page.mouse.click(mid.x + normal.x * 4, mid.y + normal.y * 4);
+    await page.mouse.click(mid.x + normal.x * 3, mid.y + normal.y * 3);
     await expect.poll(() => viewer.selection()).toEqual({ member: thin.id, node: null });
     await screenshot(page, "viewer-pick-thin-member");
     await viewer.settle();
@@ -236,24 +240,27 @@ describe("find, labels and measure (issue 17 item 8)", () => {
   });
 
   it("measures the distance between two nodes, and from a node to a point on a member, in metres", async () => {
+    const selectedBefore = await viewer.selection();
     await page.getByTestId("viewer-measure").click();
     expect(await page.getByTestId("measure-result").textContent()).toBe("Measure: click a node or a point on a member.");
-    // T-0-0 to T-1-0: one 3 m bay of the demo roof (lib/analysis/demo-roof.ts).
-    const a = await viewer.screenOf("node", "T-0-0");
+    // Clicking the toolbar button scrolled the page up to it: bring the canvas back.
+    await viewer.settle();
+    // T-8-6 to T-9-6: one 3 m bay of the demo roof (lib/analysis/demo-roof.ts), in the middle of the view.
+    const a = await viewer.screenOf("node", "T-8-6");
     await page.mouse.click(a.x, a.y);
-    const b = await viewer.screenOf("node", "T-1-0");
+    const b = await viewer.screenOf("node", "T-9-6");
     await page.mouse.click(b.x, b.y);
-    await expect.poll(() => page.getByTestId("measure-result").textContent()).toBe("3.00 m from node T-0-0 to node T-1-0 (Δx 3.00 m, Δy 0.00 m, Δz 0.00 m)");
-    // A third click starts again; then a point halfway along the chord TCY-1-0 (T-1-0 to T-1-1): 1.5 m further in y.
+    await expect.poll(() => page.getByTestId("measure-result").textContent()).toBe("3.00 m from node T-8-6 to node T-9-6 (Δx 3.00 m, Δy 0.00 m, Δz 0.00 m)");
+    // A third click starts again; then a point halfway along the chord TCY-9-6 (T-9-6 to T-9-7): 1.5 m further in y.
     await page.mouse.click(a.x, a.y);
-    const on = await viewer.screenOf("member", "TCY-1-0", 0.5);
+    const on = await viewer.screenOf("member", "TCY-9-6", 0.5);
     await page.mouse.click(on.x, on.y);
     const text = (await page.getByTestId("measure-result").textContent())!;
-    const [, metres] = /^(\d+\.\d\d) m from node T-0-0 to member TCY-1-0/.exec(text)!;
+    const [, metres] = /^(\d+\.\d\d) m from node T-8-6 to member TCY-9-6/.exec(text)!;
     // √(3² + 1.5²) = 3.354 m; the point under the pointer is within a pixel of the midpoint.
     expect(Math.abs(Number(metres) - Math.hypot(3, 1.5))).toBeLessThan(0.1);
-    // Measuring selects nothing.
-    expect(await viewer.selection()).toEqual({ member: null, node: null });
+    // Measuring leaves the selection alone.
+    expect(await viewer.selection()).toEqual(selectedBefore);
     await screenshot(page, "viewer-measure");
     await page.getByTestId("viewer-measure").click();
     expect(await page.getByTestId("measure-result").count()).toBe(0);
