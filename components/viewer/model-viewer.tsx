@@ -19,6 +19,7 @@ import { NodePanel } from "./node-panel";
 import { prepareModel, resultIds } from "./prepare";
 import { AnyLoadJobPanel } from "./any-load-job-panel";
 import { StabilityPanel } from "./stability-panel";
+import { drawMechanism, UnstableView } from "./unstable-view";
 import { installTestHook } from "./test-hook";
 import { useResultColumns } from "./use-result-columns";
 import { useViewerStore } from "./viewer-store";
@@ -78,7 +79,10 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
     if (!prepared) return;
     const combos = prepared.model.combinations.map((c) => c.id).filter((id) => ids.includes(id));
     useViewerStore.getState().reset(combos[0] ?? ids[0] ?? null);
-  }, [prepared, ids]);
+    // an unstable revision opens with its first mechanism drawn: how it would move is all there is to show
+    const first = analysis?.status === "unstable" ? analysis.info.mechanismModes?.[0] : undefined;
+    if (first) drawMechanism(0, first, prepared.nodes.ids);
+  }, [prepared, ids, analysis]);
 
   useEffect(() => (prepared ? installTestHook(prepared) : undefined), [prepared]);
 
@@ -95,14 +99,9 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
   }
   if (!analysis || analysis.status !== "ok") {
     return (
-      <div className="p-4" role="alert" data-testid="viewer-unstable">
-        <p className="font-semibold">This revision has no results to show: the structure is unstable (a mechanism).</p>
-        <ul className="mt-2 list-disc pl-6 text-sm">
-          {(analysis?.info.instabilityText ?? []).map((line) => (
-            <li key={line}>{line}</li>
-          ))}
-        </ul>
-      </div>
+      <UnstableView info={analysis?.info} nodeIds={prepared.nodes.ids}>
+        <ViewerCanvas prepared={prepared} columns={undefined} compareColumns={undefined} />
+      </UnstableView>
     );
   }
 

@@ -141,3 +141,56 @@ describe("the 3D viewer on the demo roof", () => {
     expect(statSync(file).size).toBeGreaterThan(10_000);
   });
 });
+
+describe("the 3D viewer on an unstable upload", () => {
+  it("lists every moving joint of the mechanism with its direction and draws the mode on the roof", async () => {
+    // A square panel in the x-z plane without its diagonal: A pinned, B on a roller along x, every joint held out
+    // of plane (y). Statics: 4 members + 6 reactions (A x y z, B y z, C y, D y → 7) against 3 × 4 = 12 unknowns,
+    // and the panel racks: C and D slide along x together while A and B stay (a mechanism; unit test of the same
+    // racking in lib/analysis/stability.test.ts).
+    const model = {
+      format: "truss-model/1",
+      name: "Panel without its diagonal",
+      materials: [{ id: "S355", E: 210e6, fy: 355e3, unitWeight: 78.5 }],
+      sections: [{ id: "CHS 88.9x4.0", material: "S355", area: 1.067e-3, radiusOfGyration: 0.03, outerDiameter: 0.0889, wallThickness: 0.004 }],
+      nodes: [
+        { id: "A", x: 0, y: 0, z: 0 },
+        { id: "B", x: 4, y: 0, z: 0 },
+        { id: "C", x: 4, y: 0, z: 3 },
+        { id: "D", x: 0, y: 0, z: 3 },
+      ],
+      members: ["A-B", "B-C", "C-D", "D-A"].map((id) => ({ id, i: id[0], j: id[2], section: "CHS 88.9x4.0" })),
+      supports: [
+        { node: "A", ux: true, uy: true, uz: true },
+        { node: "B", ux: false, uy: true, uz: true },
+        { node: "C", ux: false, uy: true, uz: false },
+        { node: "D", ux: false, uy: true, uz: false },
+      ],
+      loadCases: [{ id: "W", name: "Wind on the panel", category: "wind", selfWeight: false, nodalLoads: [{ node: "D", fx: 5, fy: 0, fz: 0 }] }],
+      combinations: [],
+    };
+    const number = await page.evaluate(async ({ projectId, model }) => {
+      const saved = await fetch(`/api/projects/${projectId}/models`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ kind: "uploadJson", name: "Panel without its diagonal", model }) });
+      if (saved.status !== 202) throw new Error(`upload answered ${saved.status}: ${await saved.text()}`);
+      return ((await saved.json()) as { revision: { number: number } }).revision.number;
+    }, { projectId, model });
+    // wait for the analysis job to store its (unstable) result
+    await expect
+      .poll(() => page.evaluate(async (url) => ((await (await fetch(url)).json()) as { revision: { analysis: { status: string } | null } }).revision.analysis?.status ?? null, `/api/projects/${projectId}/models/${number}`), { timeout: 90_000, interval: 1_000 })
+      .toBe("unstable");
+
+    await page.goto(appUrl(`/projects/${projectId}/viewer?revision=${number}`));
+    await page.getByTestId("viewer-unstable").waitFor({ timeout: 60_000 });
+    const rows = await page.getByTestId("mechanism-1-joints").locator("tbody tr").allTextContents();
+    expect(rows).toHaveLength(2);
+    expect(rows.join(" | ")).toMatch(/^(C|D)[+−]1\.00 x100 % \| (C|D)[+−]1\.00 x100 %$/);
+    expect(await page.getByTestId("mechanism-2").count()).toBe(0);
+    // opened with the mode drawn; the button clears it and draws it again
+    await expect.poll(() => page.evaluate(() => window.__strutroom?.shownMode() ?? null)).toBe("Mechanism 1 of this revision");
+    await screenshot(page, "viewer-unstable-mechanism");
+    await page.getByTestId("unstable-draw-mechanism-1").click();
+    await expect.poll(() => page.evaluate(() => window.__strutroom?.shownMode() ?? null)).toBeNull();
+    await page.getByTestId("unstable-draw-mechanism-1").click();
+    await expect.poll(() => page.evaluate(() => window.__strutroom?.shownMode() ?? null)).toBe("Mechanism 1 of this revision");
+  });
+});
