@@ -2,8 +2,9 @@ import { REVISION_STAGE_LABELS, revisionStage } from "@/lib/models/revision-stag
 
 const STAGE_CLASSES = {
   current: "border-board-800 bg-board-800 text-white",
-  // Unstable in the caution colour, never green.
-  unstable: "border-compression bg-compression/10 text-compression",
+  // Unstable in the caution colour (border and tint), never green; the text stays dark because the caution colour
+  // as text on its own tint fails WCAG 2.1 contrast (axe-core).
+  unstable: "border-compression bg-compression/10 text-board-900",
   draft: "border-board-200 bg-board-50 text-board-700",
 } as const;
 
