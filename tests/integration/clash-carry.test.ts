@@ -6,10 +6,12 @@ import { and, eq, like } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { listClashesByRevision, listClashHistory } from "@/db/queries/clashes";
 import { claimJob } from "@/db/queries/jobs";
+import { getMemberResults } from "@/db/queries/member-snapshots";
 import { importRuns } from "@/lib/commands/import-runs";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { mailOutbox } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
+import { UTILISATION_TOLERANCE } from "@/lib/clash/carry";
 import type { TrussModel } from "@/lib/analysis/model";
 import { decideClash } from "@/lib/commands/decide-clash";
 import { hangServicesRevision } from "@/lib/commands/hang-services";
@@ -35,6 +37,7 @@ async function derive(name: string, model: TrussModel) {
   expect(await storeAnalysis({ job: { id: job.id, projectId: fx.projectId, revisionId: revision.id }, model, result, review, outcome: null })).toBe(true);
   return revision;
 }
+const memberReview = async (revisionId: string) => (await getMemberResults({ db: getDb(), revisionId, memberIds: [MEMBER] })).get(MEMBER)!;
 const clashOn = async (revisionId: string) => (await listClashesByRevision({ revisionId })).find((c) => c.memberId === MEMBER)!;
 
 beforeAll(async () => {
@@ -62,14 +65,20 @@ describe("carrying decisions to a new revision", () => {
   it("marks it 'needs another look', with the reason in words, when the member's forces change; the decider is mailed", async () => {
     const loaded = structuredClone(base);
     const member = loaded.members.find((m) => m.id === MEMBER)!;
-    // A 200 kN pull along the chord at its far joint, as a new load case and combination: the chord must work.
-    loaded.loadCases.push({ id: "PULL", name: "Test pull", category: "live", selfWeight: false, nodalLoads: [{ node: member.j, fx: 0, fy: 200, fz: 0 }] } as TrussModel["loadCases"][number]);
+    // A 500 kN pull along the chord at its far joint, as a new load case and combination: the chord must work
+    // (200 kN moved its utilisation by 0.03 only, within the tolerance).
+    loaded.loadCases.push({ id: "PULL", name: "Test pull", category: "live", selfWeight: false, nodalLoads: [{ node: member.j, fx: 0, fy: 500, fz: 0 }] } as TrussModel["loadCases"][number]);
     loaded.combinations.push({ id: "C-PULL", name: "Pull only", factors: { PULL: 1 } });
     const revision = await derive("r3 pulled", loaded);
     const clash = await clashOn(revision.id);
     expect(clash.outcome).toBe("opening_accepted");
     expect(clash.recheckReason).toMatch(new RegExp(`^${MEMBER} `));
     expect(clash.recheckReason).toMatch(/kN/);
+    // The utilisation part of the reason, in words, from the member's stored review on each revision (the pull
+    // must move it beyond the tolerance, or this case tests nothing).
+    const [then, now] = [await memberReview(first.id), await memberReview(revision.id)];
+    expect(Math.abs(now.utilisation! - then.utilisation!)).toBeGreaterThan(UTILISATION_TOLERANCE);
+    expect(clash.recheckReason).toContain(`; utilisation went from ${then.utilisation!.toFixed(2)} to ${now.utilisation!.toFixed(2)}`);
     const history = await listClashHistory({ projectId: fx.projectId, clashKeys: [clash.clashKey] });
     const recheck = history.filter((h) => h.kind === "recheck" && h.revision === revision.number);
     expect(recheck).toHaveLength(1);
@@ -80,6 +89,18 @@ describe("carrying decisions to a new revision", () => {
       .where(and(eq(mailOutbox.kind, "recheck"), like(mailOutbox.subject, `%${clash.clashKey}%`)));
     expect(mails.map((m) => m.toAddress)).toEqual([fx.users.structural_engineer.email]);
     expect(mails[0].textBody).toContain(clash.recheckReason!);
+  });
+
+  it("names the verdict when the member's verdict changed (unloaded, the chord carries nothing)", async () => {
+    const unloaded = structuredClone(base);
+    for (const loadCase of unloaded.loadCases) Object.assign(loadCase, { selfWeight: false, nodalLoads: [] });
+    const revision = await derive("r7 unloaded", unloaded);
+    const clash = await clashOn(revision.id);
+    expect(clash.outcome).toBe("opening_accepted");
+    const [then, now] = [await memberReview(first.id), await memberReview(revision.id)];
+    expect(then.verdict).toBe("load-bearing");
+    expect(now.verdict).not.toBe("load-bearing");
+    expect(clash.recheckReason).toContain(`its verdict was load-bearing; now ${now.verdict}`);
   });
 
   it("closes the decision, with the reason, when the member changed section", async () => {
