@@ -1,9 +1,11 @@
 // One entry of a pin's thread: a comment, or a step of its record with who (and their role then), when, the
-// revision it was judged on, the conditions or reason, and the caution shown; a superseded decision says so.
+// revision it was judged on, the conditions or reason, and the caution shown; a superseded decision says so. Its
+// steps are named with the words of a clash's history (CLASH_ENTRY_LABELS): one word for one idea.
 import type { ReactNode } from "react";
+import { CLASH_ENTRY_LABELS } from "@/lib/clash/outcomes";
 import { ROLE_LABELS } from "@/lib/permissions";
 import type { PresentedComment } from "@/lib/realtime/events";
-import { isRecordStep, THREAD_STEP_LABELS } from "@/lib/realtime/thread-record";
+import { isRecordStep } from "@/lib/realtime/thread-record";
 
 export function ThreadEntry({ comment: c, superseded, children }: { comment: PresentedComment; superseded: boolean; children?: ReactNode }) {
   const step = isRecordStep(c.kind) ? c.kind : null;
@@ -11,7 +13,7 @@ export function ThreadEntry({ comment: c, superseded, children }: { comment: Pre
   return (
     <li className={`rounded px-2 py-1 text-sm ${accent}`} data-testid="comment" data-kind={c.kind}>
       <span className="block text-xs text-board-700">
-        {step ? <span className="font-medium">{THREAD_STEP_LABELS[step]} · </span> : null}
+        {step ? <span className="font-medium">{CLASH_ENTRY_LABELS[step]} · </span> : null}
         {c.author.name}
         {c.role ? ` (${ROLE_LABELS[c.role]})` : ""} · {new Date(c.createdAt).toLocaleString()}
         {step && c.revision !== null ? ` · judged on revision ${c.revision}` : ""}

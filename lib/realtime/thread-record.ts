@@ -2,13 +2,6 @@
 // the command that writes a step and the thread that shows its buttons read the thread's standing the same way.
 import type { CommentKind } from "./events";
 
-/** The steps of a thread's record, as the thread shows them (one word for each, like a clash's history). */
-export const THREAD_STEP_LABELS: Record<Exclude<CommentKind, "comment">, string> = {
-  proposal: "Proposed",
-  decision: "Decided",
-  supersession: "Decision superseded",
-};
-
 /** True for a comment kind that is a step of the record (never edited or deleted once stored). */
 export function isRecordStep(kind: CommentKind): kind is Exclude<CommentKind, "comment"> {
   return kind !== "comment";
