@@ -14,6 +14,11 @@ describe("report request", () => {
     expect(failed.error?.issues.find((i) => i.path[0] === "compare")?.message).toBe("Compare exactly two results.");
   });
 
+  it("refuses a result named twice (it would be drawn twice), naming it", () => {
+    const failed = reportRequestSchema.safeParse({ combinations: ["ULS-1", "ULS-2", "ULS-1", "ULS-1"] });
+    expect(failed.error?.issues.map((i) => [i.path.join("."), i.message])).toEqual([["combinations", "Name each result once: ULS-1 is named twice."]]);
+  });
+
   it("stores a job's input resolved: the revision and results always present", () => {
     expect(reportJobInputSchema.safeParse({ revision: 1, combinations: [] , compare: null }).success).toBe(true);
     expect(reportJobInputSchema.safeParse({ revision: 1, combinations: [] }).success).toBe(false);

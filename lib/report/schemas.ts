@@ -11,7 +11,15 @@ const resultId = z
   .min(1)
   .max(text.resultId)
   .refine((id) => !RESERVED_NAMES.has(id), { error: (issue) => reservedNameMessage(String(issue.input)) });
-const resultList = z.array(resultId).max(50, "Choose at most 50 results.");
+/** How many results one report draws and tabulates (a plan page and a member table each). */
+export const REPORT_RESULTS_MAX = 50;
+const resultList = z
+  .array(resultId)
+  .max(REPORT_RESULTS_MAX, `Choose at most ${REPORT_RESULTS_MAX} results.`)
+  .superRefine((ids, ctx) => {
+    const twice = [...new Set(ids.filter((id, k) => ids.indexOf(id) !== k))];
+    if (twice.length) ctx.addIssue({ code: "custom", message: `Name each result once: ${twice.join(", ")} ${twice.length === 1 ? "is" : "are"} named twice.` });
+  });
 
 /** POST /api/projects/[projectId]/report: the report to make (a job; GET …/jobs/<id> follows it). */
 export const reportRequestSchema = z.strictObject({

@@ -64,6 +64,10 @@ beforeAll(async () => {
   const revision = await createRevisionWithAnalysis({ projectId: fx.projectId, name: "Lantern added", model: TRIPOD, source: "generated", createdBy: fx.users.structural_engineer.id, result, review: reviewForStorage(TRIPOD, result, "EN1993-1-1") });
   revisionId = revision.id;
   await markRevisionCurrent({ projectId: fx.projectId, number: revision.number, actorId: fx.users.structural_engineer.id });
+  // Revision 2 (not current): 51 combinations, more than one report draws.
+  const many: typeof TRIPOD = { ...TRIPOD, combinations: Array.from({ length: 51 }, (_, k) => ({ id: `U${k + 1}`, name: `${1 + k / 100}G`, factors: { dead: 1 + k / 100 } })) };
+  const manyResult = analyzeModel(many);
+  await createRevisionWithAnalysis({ projectId: fx.projectId, name: "Every factor", model: many, source: "generated", createdBy: fx.users.structural_engineer.id, result: manyResult, review: reviewForStorage(many, manyResult, "EN1993-1-1") });
   const [clash] = await getDb().insert(clashes).values({
     projectId: fx.projectId, revisionId, clashKey: "c-5e1d", memberId: "AB", runId: "SA-01", segmentIndex: 0, kind: "hard",
     gap: -0.02, depth: 0.02, requiredClearance: 0.05, pointX: 0.25, pointY: 0.43, pointZ: 0,
@@ -94,6 +98,31 @@ describe("asking for a report", () => {
     expect(answer.error).toContain("NOPE");
     expect((await ask(fx.users.architect, { revision: 9 })).status).toBe(404);
     expect((await ask(fx.users.architect, { compare: ["ULS-1"] })).status).toBe(400);
+    expect((await getDb().select().from(jobs).where(eq(jobs.projectId, fx.projectId))).length).toBe(before);
+  });
+
+  it("refuses hostile bodies with a message, queuing nothing: a million ids, 51 results, a result twice, a revision id of another project, __proto__, 1e308", async () => {
+    const before = (await getDb().select().from(jobs).where(eq(jobs.projectId, fx.projectId))).length;
+    const refused = async (body: unknown, status: number) => {
+      const init = typeof body === "string" ? { method: "POST", rawBody: body, user: fx.users.architect } : { method: "POST", body, user: fx.users.architect };
+      const response = await makeReport(await buildRequest(reportPath(), init), routeContext({ projectId: fx.projectId }));
+      expect(response.status, JSON.stringify(body).slice(0, 80)).toBe(status);
+      // The message and every field's issue: what the form shows.
+      const answer = (await response.json()) as { error: string; issues?: { message: string }[] };
+      expect(answer.error.length).toBeGreaterThan(0);
+      return [answer.error, ...(answer.issues ?? []).map((i) => i.message)].join(" ");
+    };
+    // A million ids is far over the JSON body cap (lib/limits.ts requestBytes.json): refused before it is parsed.
+    expect(await refused({ combinations: Array.from({ length: 1_000_000 }, (_, k) => `C${k}`) }, 413)).toMatch(/\d/);
+    expect(await refused({ combinations: Array.from({ length: 51 }, () => "ULS-1") }, 400)).toContain("at most 50");
+    expect(await refused({ combinations: ["ULS-1", "ULS-3", "ULS-1"] }, 400)).toContain("ULS-1");
+    // The body names a revision by its number within this project; a row id (another project's or not) is not a field.
+    expect(await refused({ revisionId: randomUUID() }, 400)).toBeTruthy();
+    expect(await refused('{"__proto__": {"combinations": ["ULS-1"]}, "revision": 1}', 400)).toBeTruthy();
+    expect(await refused({ combinations: ["__proto__"] }, 400)).toContain("reserved");
+    expect(await refused({ revision: 1e308 }, 400)).toContain("Revision numbers");
+    // Every result of revision 2 by default: 51 combinations are more than a report draws, so the member chooses.
+    expect(await refused({ revision: 2 }, 400)).toMatch(/51 .*at most 50/);
     expect((await getDb().select().from(jobs).where(eq(jobs.projectId, fx.projectId))).length).toBe(before);
   });
 

@@ -6,6 +6,7 @@ import { getRevisionWithResults, listRevisionsByProject } from "@/db/queries/mod
 import { requirePageProject } from "@/lib/auth/page";
 import { defaultRevision } from "@/lib/models/revision-stage";
 import { capturedMailPageEnabled } from "@/lib/mail/captured";
+import { REPORT_RESULTS_MAX } from "@/lib/report/schemas";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 
 export const metadata: Metadata = { title: "Report" };
@@ -51,7 +52,7 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
             revisions={revisions.map(({ number, name, isCurrent, analysisStatus }) => ({ number, name, isCurrent, analysisStatus }))}
             revision={revision.number}
             results={results}
-            defaultChosen={revision.model.combinations.length ? revision.model.combinations.map((c) => c.id) : revision.model.loadCases.map((c) => c.id)}
+            defaultChosen={(revision.model.combinations.length ? revision.model.combinations : revision.model.loadCases).slice(0, REPORT_RESULTS_MAX).map((c) => c.id)}
             canMake={project.abilities["report.make"]}
             recent={recent}
           />

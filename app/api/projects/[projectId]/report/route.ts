@@ -3,7 +3,7 @@ import { enqueueReport } from "@/lib/commands/enqueue-report";
 import { ConflictError, NotFoundError, ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { reportRequestSchema } from "@/lib/report/schemas";
+import { REPORT_RESULTS_MAX, reportRequestSchema } from "@/lib/report/schemas";
 
 /**
  * Asks for the review report PDF of a revision (the current one when none is named): the jobs process makes and
@@ -21,8 +21,12 @@ export const POST = projectRoute({ params: projectParamsSchema, body: reportRequ
     const unknown = (body[field] ?? []).filter((id) => !known.has(id));
     return unknown.length ? [{ path: field, message: `Not a load case or combination of revision ${number}: ${unknown.join(", ")}.` }] : [];
   });
-  if (issues.length) throw new ValidationError(issues, issues.map((i) => i.message).join(" "));
+  // Every combination (else every load case) when none is named, as long as one report can draw them all.
   const combinations = body.combinations ?? (revision.combinations.length ? revision.combinations : revision.loadCases);
+  if (combinations.length > REPORT_RESULTS_MAX) {
+    issues.push({ path: "combinations", message: `Revision ${number} has ${combinations.length} results to report and one report draws at most ${REPORT_RESULTS_MAX}: choose them.` });
+  }
+  if (issues.length) throw new ValidationError(issues, issues.map((i) => i.message).join(" "));
   const compare = body.compare ? ([body.compare[0], body.compare[1]] as [string, string]) : null;
   const job = await enqueueReport({ projectId, revisionId: revision.id, query: { revision: number, combinations, compare }, requestedBy: user.id });
   return Response.json({ job }, { status: 202 });
