@@ -9,11 +9,21 @@ import { Button, FormMessage } from "@/components/ui/form";
 import type { JobView, ReportJobView } from "@/db/queries/jobs";
 import { apiFetch, type ApiError } from "@/lib/http/fetcher";
 import type { ReportRequest } from "@/lib/report/schemas";
+import { ResultOptions, selectClass, type ResultOption } from "./result-options";
 
-export type ResultOption = { id: string; name: string; kind: "combination" | "load case" };
 type ReportOutcome = { attachmentId: string; filename: string; bytes: number; pages: number };
 
-const selectClass = "rounded-md border border-board-200 bg-white px-3 py-2 text-sm";
+/** What the report page hands the PDF form (and, with the revisions, the whole report form). */
+export type ReportPdfFormProps = {
+  projectId: string;
+  revision: number;
+  results: ResultOption[];
+  /** The results ticked at first: every combination (else every load case), at most a report's worth. */
+  defaultChosen: string[];
+  /** The rule book's report.make for this member. */
+  canMake: boolean;
+  recent: ReportJobView[];
+};
 
 function fileLink(projectId: string, outcome: ReportOutcome) {
   return `/api/projects/${projectId}/attachments/${outcome.attachmentId}`;
@@ -41,21 +51,7 @@ function MadeReport({ projectId, job: initial, canRetry }: { projectId: string; 
   );
 }
 
-export function ReportPdfForm({
-  projectId,
-  revision,
-  results,
-  defaultChosen,
-  canMake,
-  recent,
-}: {
-  projectId: string;
-  revision: number;
-  results: ResultOption[];
-  defaultChosen: string[];
-  canMake: boolean;
-  recent: ReportJobView[];
-}) {
+export function ReportPdfForm({ projectId, revision, results, defaultChosen, canMake, recent }: ReportPdfFormProps) {
   const [chosen, setChosen] = useState<string[]>(defaultChosen);
   const [compare, setCompare] = useState<[string, string]>(["", ""]);
   const make = useMutation<{ job: JobView }, ApiError, ReportRequest>({
@@ -96,11 +92,7 @@ export function ReportPdfForm({
                   data-testid={`report-compare-${which}`}
                 >
                   <option value="">none</option>
-                  {results.map((r) => (
-                    <option key={r.id} value={r.id}>
-                      {r.id}: {r.name}
-                    </option>
-                  ))}
+                  <ResultOptions results={results} />
                 </select>
               </label>
             ))}
