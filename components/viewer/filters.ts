@@ -75,17 +75,24 @@ export function autoDeflectionScale(nodes: NodeTable, displacements: Float32Arra
   return Math.round((span * 0.1) / maxDisp);
 }
 
-/** Largest extent of the node cloud along x, y or z. */
-export function modelSpan(positions: Float32Array): number {
-  const min = [Infinity, Infinity, Infinity];
-  const max = [-Infinity, -Infinity, -Infinity];
+/** The node cloud's box (smallest and largest x, y, z); null for a model without nodes. */
+export function modelBounds(positions: Float32Array): SectionBox | null {
+  if (positions.length === 0) return null;
+  const min: [number, number, number] = [Infinity, Infinity, Infinity];
+  const max: [number, number, number] = [-Infinity, -Infinity, -Infinity];
   for (let k = 0; k < positions.length; k += 3) {
     for (let a = 0; a < 3; a += 1) {
       min[a] = Math.min(min[a], positions[k + a]);
       max[a] = Math.max(max[a], positions[k + a]);
     }
   }
-  return positions.length ? Math.max(max[0] - min[0], max[1] - min[1], max[2] - min[2]) : 0;
+  return { min, max };
+}
+
+/** Largest extent of the node cloud along x, y or z. */
+export function modelSpan(positions: Float32Array): number {
+  const bounds = modelBounds(positions);
+  return bounds ? Math.max(...bounds.max.map((m, a) => m - bounds.min[a])) : 0;
 }
 
 /** Half a millimetre: a box typed to the centimetre holds a node on its face though coordinates are 32-bit floats. */
@@ -110,22 +117,12 @@ export function nodesInBox(positions: Float32Array, box: SectionBox | null): Uin
  * stored as 32-bit floats (1.8 reads back as 1.7999999523…), and a field should say 1.80 and still hold that node.
  */
 export function roundedModelBox(positions: Float32Array): SectionBox {
-  const box: SectionBox = { min: [0, 0, 0], max: [0, 0, 0] };
-  if (positions.length === 0) return box;
-  const min = [Infinity, Infinity, Infinity];
-  const max = [-Infinity, -Infinity, -Infinity];
-  for (let k = 0; k < positions.length; k += 3) {
-    for (let a = 0; a < 3; a += 1) {
-      min[a] = Math.min(min[a], positions[k + a]);
-      max[a] = Math.max(max[a], positions[k + a]);
-    }
-  }
+  const bounds = modelBounds(positions);
+  if (!bounds) return { min: [0, 0, 0], max: [0, 0, 0] };
   // The 1e-4 slack keeps a float32 that is a hair off a round value on that value, not the next centimetre out.
-  for (let a = 0; a < 3; a += 1) {
-    box.min[a] = Math.floor(min[a] * 100 + 1e-4) / 100;
-    box.max[a] = Math.ceil(max[a] * 100 - 1e-4) / 100;
-  }
-  return box;
+  const down = (v: number) => Math.floor(v * 100 + 1e-4) / 100;
+  const up = (v: number) => Math.ceil(v * 100 - 1e-4) / 100;
+  return { min: [down(bounds.min[0]), down(bounds.min[1]), down(bounds.min[2])], max: [up(bounds.max[0]), up(bounds.max[1]), up(bounds.max[2])] };
 }
 
 export interface VisibilityInput {

@@ -1,5 +1,5 @@
 // Packs a model once per revision into the typed arrays the layers draw from.
-import { buildMemberEnds, buildNodeTable, modelSpan, type NodeTable } from "./filters";
+import { buildMemberEnds, buildNodeTable, modelBounds, modelSpan, type NodeTable } from "./filters";
 import { typicalMemberLength } from "./geometry";
 import type { MemberGroup, ViewerCaseResult, ViewerModel, ViewerNodalLoad } from "./types";
 
@@ -23,16 +23,11 @@ export function prepareModel(model: ViewerModel, groups: Record<string, MemberGr
   const nodes = buildNodeTable(model);
   const ends = buildMemberEnds(model, nodes);
   const p = nodes.positions;
-  const min = [Infinity, Infinity, Infinity];
-  const max = [-Infinity, -Infinity, -Infinity];
-  for (let k = 0; k < p.length; k += 3) {
-    for (let a = 0; a < 3; a += 1) {
-      min[a] = Math.min(min[a], p[k + a]);
-      max[a] = Math.max(max[a], p[k + a]);
-    }
-  }
-  const centre: [number, number, number] = p.length ? [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2] : [0, 0, 0];
-  const radius = p.length ? Math.max(1e-3, Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) / 2) : 1;
+  const bounds = modelBounds(p);
+  const min = bounds?.min ?? [0, 0, 0];
+  const max = bounds?.max ?? [0, 0, 0];
+  const centre: [number, number, number] = [(min[0] + max[0]) / 2, (min[1] + max[1]) / 2, (min[2] + max[2]) / 2];
+  const radius = bounds ? Math.max(1e-3, Math.hypot(max[0] - min[0], max[1] - min[1], max[2] - min[2]) / 2) : 1;
   return {
     model,
     memberIds: model.members.map((m) => m.id),
@@ -44,7 +39,7 @@ export function prepareModel(model: ViewerModel, groups: Record<string, MemberGr
     span: modelSpan(p) || 1,
     centre,
     radius,
-    minZ: p.length ? min[2] : 0,
+    minZ: min[2],
   };
 }
 
