@@ -1,7 +1,7 @@
 "use client";
 // Find a member or node by its id: selects it and turns the camera to frame it (issue 17 item 8).
 import { useState, type FormEvent } from "react";
-import { findById } from "./find";
+import { FIND_MAX_LENGTH, findById } from "./find";
 import type { PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
@@ -12,7 +12,10 @@ export function FindBox({ prepared }: { prepared: PreparedModel }) {
     event.preventDefault();
     const found = findById(prepared, query);
     if (!found) {
-      setProblem(query.trim() ? `No member or node called "${query.trim()}" in this revision.` : "Type a member or node id, e.g. " + (prepared.memberIds[0] ?? "") + ".");
+      const typed = query.trim();
+      // A pasted page of text is not echoed whole: the message quotes its start.
+      const quoted = typed.length > 40 ? `${typed.slice(0, 40)}…` : typed;
+      setProblem(typed ? `No member or node called "${quoted}" in this revision.` : "Type a member or node id, e.g. " + (prepared.memberIds[0] ?? "") + ".");
       return;
     }
     setProblem(null);
@@ -26,7 +29,7 @@ export function FindBox({ prepared }: { prepared: PreparedModel }) {
     <form className="flex flex-col text-xs text-board-700" onSubmit={submit} role="search" aria-label="Find a member or node">
       <label htmlFor="viewer-find">Find member or node</label>
       <span className="flex gap-1">
-        <input id="viewer-find" className="w-32 rounded border border-board-200 bg-white px-2 py-1 font-mono text-sm" value={query} onChange={(e) => setQuery(e.target.value)} placeholder={prepared.memberIds[0]} data-testid="viewer-find" autoComplete="off" />
+        <input id="viewer-find" className="w-32 rounded border border-board-200 bg-white px-2 py-1 font-mono text-sm" value={query} maxLength={FIND_MAX_LENGTH} onChange={(e) => setQuery(e.target.value)} placeholder={prepared.memberIds[0]} data-testid="viewer-find" autoComplete="off" />
         <button type="submit" className="rounded border border-board-200 bg-white px-2 py-1 text-sm" data-testid="viewer-find-go">
           Go
         </button>

@@ -32,4 +32,11 @@ describe("find a member or node by id", () => {
     expect(findById(prepared, "TCX-9-9")).toBeNull();
     expect(findById(prepared, "   ")).toBeNull();
   });
+
+  it("finds nothing, without throwing, for a hostile query (10 MB of text, a null byte, a lone surrogate)", () => {
+    expect(findById(prepared, "T".repeat(10 * 1024 * 1024))).toBeNull();
+    expect(findById(prepared, "TCX-0-0\u0000")).toBeNull();
+    expect(findById(prepared, "\ud800")).toBeNull();
+    expect(findById(prepared, "__proto__")).toBeNull();
+  });
 });

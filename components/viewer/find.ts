@@ -1,10 +1,14 @@
 // Finding a member or node by the id people read on drawings and in the panels (issue 17 item 8). Pure.
+import { ids } from "@/lib/limits";
 import type { PreparedModel } from "./prepare";
+
+/** Longest query worth looking up: no model id is longer, so a pasted page of text is refused without a scan. */
+export const FIND_MAX_LENGTH = ids.elementIdChars;
 
 /** The member or node with this id (exact first, then ignoring case), with the sphere that frames it. */
 export function findById(prepared: PreparedModel, query: string): { kind: "member" | "node"; id: string; centre: [number, number, number]; radius: number } | null {
   const wanted = query.trim();
-  if (!wanted) return null;
+  if (!wanted || wanted.length > FIND_MAX_LENGTH) return null;
   const lower = wanted.toLowerCase();
   const p = prepared.nodes.positions;
   const memberIndex = prepared.memberIndex.get(wanted) ?? prepared.memberIds.findIndex((id) => id.toLowerCase() === lower);
