@@ -12,11 +12,15 @@ const outDir = path.join(root, ".build", "cli");
 export const ANALYZE_CLI = path.join(outDir, "analyze.mjs");
 const metaFile = path.join(outDir, "analyze.meta.json");
 
-/** True when the built file exists and no input listed by its last build changed since. */
+// What shapes the output without being one of its inputs: this script's options, the path aliases, the installed
+// packages (an `npm ci` that changes a package's files may keep their paths, so the lock file is what tells).
+const BUILD_SETTINGS = ["scripts/build-cli.mjs", "tsconfig.json", "package-lock.json"];
+
+/** True when the built file exists and neither an input listed by its last build nor a build setting changed since. */
 function fresh() {
   if (!existsSync(ANALYZE_CLI) || !existsSync(metaFile)) return false;
   const built = statSync(ANALYZE_CLI).mtimeMs;
-  const inputs = Object.keys(JSON.parse(readFileSync(metaFile, "utf8")).inputs);
+  const inputs = [...Object.keys(JSON.parse(readFileSync(metaFile, "utf8")).inputs), ...BUILD_SETTINGS];
   return inputs.every((input) => {
     const file = path.join(root, input);
     return existsSync(file) && statSync(file).mtimeMs <= built;
