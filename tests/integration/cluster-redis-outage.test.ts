@@ -11,27 +11,14 @@ import { removeRedisData, startRedis, stopRedis } from "@/scripts/stack/redis.mj
 import type { PresentedComment, PresentedPin } from "@/lib/realtime/events";
 import { closeDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
-import {
-  connectClient,
-  nextEvent,
-  realtimeClient,
-  request,
-  startRealtimeServer,
-  whenSynced,
-  yjsClient,
-  type ClientSocket,
-  type RealtimeProcess,
-} from "../support/realtime";
-
-type Role = keyof ProjectFixture["users"];
+import { nextEvent, projectClients, request, startRealtimeServer, until, type ClientSocket, type RealtimeProcess } from "../support/realtime";
 
 const redisData = path.join(process.cwd(), ".data", `redis-outage-${process.pid}`);
 let redisPort: number;
 let nodeA: RealtimeProcess;
 let nodeB: RealtimeProcess;
 let project: ProjectFixture;
-const sockets: ClientSocket[] = [];
-const providers: { destroy: () => void }[] = [];
+const { on, notesOn, closeAll } = projectClients(() => project);
 
 beforeAll(async () => {
   requireIntegrationEnv();
@@ -42,35 +29,12 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  for (const provider of providers) provider.destroy();
-  for (const socket of sockets) socket.disconnect();
+  closeAll();
   await Promise.all([nodeA?.stop(), nodeB?.stop()]);
   await stopRedis(redisData).catch(() => undefined);
   removeRedisData(redisData);
   await closeDb();
 });
-
-async function on(node: RealtimeProcess, role: Role): Promise<ClientSocket> {
-  const socket = await realtimeClient(node.url, project.projectId, project.users[role]);
-  sockets.push(socket);
-  await connectClient(socket);
-  return socket;
-}
-
-async function notesOn(node: RealtimeProcess, role: Role) {
-  const client = await yjsClient(node.url, project.projectId, project.users[role]);
-  providers.push(client.provider);
-  await whenSynced(client.provider);
-  return client;
-}
-
-async function until(condition: () => boolean, what: string, timeoutMs = 10_000) {
-  const end = Date.now() + timeoutMs;
-  while (!condition()) {
-    if (Date.now() > end) throw new Error(`Timed out waiting until ${what}.`);
-    await new Promise((r) => setTimeout(r, 50));
-  }
-}
 
 async function comment(socket: ClientSocket, pinId: string, body: string): Promise<string> {
   const id = randomUUID();

@@ -15,27 +15,15 @@ import type { PresentedComment, PresentedPin, PresentedReviewSession, PresenceEn
 import { closeDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { startJobsProcess, type JobsProcess } from "../support/jobs-process";
-import {
-  connectClient,
-  nextEvent,
-  realtimeClient,
-  request,
-  startRealtimeServer,
-  whenSynced,
-  yjsClient,
-  type ClientSocket,
-  type RealtimeProcess,
-} from "../support/realtime";
+import { nextEvent, projectClients, request, startRealtimeServer, until, type RealtimeProcess } from "../support/realtime";
 import { buildRequest, routeContext } from "../support/session";
 
-type Role = keyof ProjectFixture["users"];
 const view = (x: number) => ({ camera: { position: [x, -30, 25], target: [18, 12, 0] }, selectedMemberId: "TC-12", resultId: "ULS-2" });
 
 let nodeA: RealtimeProcess;
 let nodeB: RealtimeProcess;
 let project: ProjectFixture;
-const sockets: ClientSocket[] = [];
-const providers: { destroy: () => void }[] = [];
+const { on, notesOn, closeAll } = projectClients(() => project);
 
 beforeAll(async () => {
   requireIntegrationEnv();
@@ -46,33 +34,10 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  for (const provider of providers) provider.destroy();
-  for (const socket of sockets) socket.disconnect();
+  closeAll();
   await Promise.all([nodeA?.stop(), nodeB?.stop()]);
   await closeDb();
 });
-
-async function on(node: RealtimeProcess, role: Role, fixture = project): Promise<ClientSocket> {
-  const socket = await realtimeClient(node.url, fixture.projectId, fixture.users[role]);
-  sockets.push(socket);
-  await connectClient(socket);
-  return socket;
-}
-
-async function notesOn(node: RealtimeProcess, role: Role, doc?: Y.Doc) {
-  const client = await yjsClient(node.url, project.projectId, project.users[role], doc);
-  providers.push(client.provider);
-  await whenSynced(client.provider);
-  return client;
-}
-
-async function until(condition: () => boolean, what: string, timeoutMs = 10_000) {
-  const end = Date.now() + timeoutMs;
-  while (!condition()) {
-    if (Date.now() > end) throw new Error(`Timed out waiting until ${what}.`);
-    await new Promise((r) => setTimeout(r, 50));
-  }
-}
 
 const lists = (...ids: string[]) => (entries: PresenceEntry[]) => ids.every((id) => entries.some((entry) => entry.id === id));
 

@@ -20,7 +20,7 @@ import { analyseForStorage } from "@/lib/models/analyse";
 import { YJS_PATH_PREFIX } from "@/lib/realtime/events";
 import { getDb } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
-import { connectClient, nextEvent, realtimeClient, request, whenSynced, yjsClient, type ClientSocket } from "../support/realtime";
+import { connectClient, nextEvent, realtimeClient, request, until, whenSynced, yjsClient, type ClientSocket } from "../support/realtime";
 import { realtimeProjectSuite } from "../support/realtime-suite";
 import { buildRequest, routeContext, sessionCookie } from "../support/session";
 
@@ -43,14 +43,6 @@ async function notes(project: ProjectFixture, role: keyof ProjectFixture["users"
   providers.push(client.provider);
   await whenSynced(client.provider);
   return client;
-}
-
-async function until(condition: () => boolean | Promise<boolean>, what: string, timeoutMs = 10_000) {
-  const end = Date.now() + timeoutMs;
-  while (!(await condition())) {
-    if (Date.now() > end) throw new Error(`Timed out waiting until ${what}.`);
-    await new Promise((r) => setTimeout(r, 50));
-  }
 }
 
 /** A project with one analysed revision and one duct crossing four top chords (as in mep-clashes-api.test.ts). */

@@ -8,43 +8,13 @@ import { comments, pins, yjsUpdates } from "@/db/schema";
 import type { CatchUp, PresentedPin } from "@/lib/realtime/events";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
-import {
-  connectClient,
-  realtimeClient,
-  request,
-  startRealtimeServer,
-  whenSynced,
-  yjsClient,
-  type ClientSocket,
-  type RealtimeProcess,
-} from "../support/realtime";
+import { projectClients, request, startRealtimeServer, until, yjsClient, type RealtimeProcess } from "../support/realtime";
 
 let server: RealtimeProcess;
 let project: ProjectFixture;
-const open: ClientSocket[] = [];
-const providers: { destroy: () => void }[] = [];
-
-async function signedIn(role: keyof ProjectFixture["users"]) {
-  const socket = await realtimeClient(server.url, project.projectId, project.users[role]);
-  open.push(socket);
-  await connectClient(socket);
-  return socket;
-}
-
-async function liveDoc(role: keyof ProjectFixture["users"]) {
-  const client = await yjsClient(server.url, project.projectId, project.users[role]);
-  providers.push(client.provider);
-  await whenSynced(client.provider);
-  return client;
-}
-
-async function until(condition: () => boolean | Promise<boolean>, what: string) {
-  for (let attempt = 0; attempt < 100; attempt += 1) {
-    if (await condition()) return;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`Timed out waiting until ${what}.`);
-}
+const { on, notesOn, keep, closeAll } = projectClients(() => project);
+const signedIn = (role: keyof ProjectFixture["users"]) => on(server, role);
+const liveDoc = (role: keyof ProjectFixture["users"]) => notesOn(server, role);
 
 beforeAll(async () => {
   requireIntegrationEnv();
@@ -53,8 +23,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  for (const socket of open) socket.disconnect();
-  for (const provider of providers) provider.destroy();
+  closeAll();
   await server?.stop();
   await closeDb();
 });
@@ -176,7 +145,7 @@ describe("the Yjs live document", () => {
     await until(() => viewer.doc.getMap("agenda").get("engineer") === "Check bay 3", "the viewer still receives edits");
 
     const outsider = await yjsClient(server.url, project.projectId, project.users.outsider);
-    providers.push(outsider.provider);
+    keep(outsider.provider);
     const closed = new Promise<number>((resolve) => outsider.provider.once("connection-error", () => resolve(1)));
     await expect(closed).resolves.toBe(1);
     expect(outsider.provider.synced).toBe(false);

@@ -7,6 +7,7 @@ import WebSocket from "ws";
 import { WebsocketProvider } from "y-websocket";
 import * as Y from "yjs";
 import type { Ack, ClientToServerEvents, ServerToClientEvents } from "@/lib/realtime/events";
+import type { ProjectFixture } from "./fixtures";
 import { sessionCookie, type Person } from "./session";
 
 export type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
@@ -167,4 +168,49 @@ export function whenSynced(provider: WebsocketProvider, timeoutMs = 10_000): Pro
     };
     provider.on("sync", handler);
   });
+}
+
+/** Polls `condition` every 50 ms until it holds; fails naming `what` after `timeoutMs`. */
+export async function until(condition: () => boolean | Promise<boolean>, what: string, timeoutMs = 10_000): Promise<void> {
+  const end = Date.now() + timeoutMs;
+  while (!(await condition())) {
+    if (Date.now() > end) throw new Error(`Timed out waiting until ${what}.`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+type Role = keyof ProjectFixture["users"];
+
+/**
+ * Signed-in socket.io and Yjs clients of a project on any realtime node (one server or several), remembered so
+ * `closeAll` ends every one after the file's tests. `project` is read when a client is opened (it is made in beforeAll).
+ */
+export function projectClients(project: () => ProjectFixture) {
+  const sockets: ClientSocket[] = [];
+  const providers: WebsocketProvider[] = [];
+  return {
+    /** A connected socket for the member with this role, on `node`. */
+    async on(node: RealtimeProcess, role: Role, fixture = project()): Promise<ClientSocket> {
+      const socket = await realtimeClient(node.url, fixture.projectId, fixture.users[role]);
+      sockets.push(socket);
+      await connectClient(socket);
+      return socket;
+    },
+    /** The project's live document for the member with this role, on `node`, after its first sync. */
+    async notesOn(node: RealtimeProcess, role: Role, doc?: Y.Doc) {
+      const fixture = project();
+      const client = await yjsClient(node.url, fixture.projectId, fixture.users[role], doc);
+      providers.push(client.provider);
+      await whenSynced(client.provider);
+      return client;
+    },
+    /** Remembers a provider opened another way, so it is closed with the rest. */
+    keep(provider: WebsocketProvider) {
+      providers.push(provider);
+    },
+    closeAll() {
+      for (const provider of providers) provider.destroy();
+      for (const socket of sockets) socket.disconnect();
+    },
+  };
 }
