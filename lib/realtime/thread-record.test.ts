@@ -24,15 +24,17 @@ describe("threadStanding", () => {
 describe("threadStepConflict", () => {
   const decided = { decisionId: "d", proposal: null };
   const open = { decisionId: null, proposal: null };
-  it("refuses a proposal or a second decision over a standing decision, and a supersession without one", () => {
+  const proposed = { decisionId: null, proposal: { id: "p", proposerId: "mep" } };
+  it("refuses a proposal or a second decision over a standing decision, a decision with nothing proposed, and a supersession without a decision", () => {
     expect(threadStepConflict("proposal", decided)).toMatch(/cannot replace a decision/);
     expect(threadStepConflict("decision", decided)).toMatch(/already decided/);
+    expect(threadStepConflict("decision", open)).toMatch(/Nothing is proposed/);
     expect(threadStepConflict("supersession", open)).toMatch(/no standing decision/);
   });
-  it("takes comments always, proposals and decisions on an undecided thread, a supersession of a standing decision", () => {
+  it("takes comments always, proposals on an undecided thread, a decision of an open proposal, a supersession of a standing decision", () => {
     expect(threadStepConflict("comment", decided)).toBeNull();
     expect(threadStepConflict("proposal", open)).toBeNull();
-    expect(threadStepConflict("decision", open)).toBeNull();
+    expect(threadStepConflict("decision", proposed)).toBeNull();
     expect(threadStepConflict("supersession", decided)).toBeNull();
   });
 });

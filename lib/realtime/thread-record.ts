@@ -25,11 +25,14 @@ export function threadStanding(comments: readonly Step[]): ThreadStanding {
 
 /**
  * Why this step cannot be added to the thread as it stands, or null when it can (the who is the rule book's, asked
- * before): a proposal or a second decision never replaces a standing decision, which only a supersession ends.
+ * before): a proposal or a second decision never replaces a standing decision, which only a supersession ends; a
+ * decision answers an open proposal, as a clash's does, so proposer and decider are always two people (deciding on
+ * a thread with nothing proposed would let the structural engineer accept their own opening).
  */
 export function threadStepConflict(kind: CommentKind, standing: ThreadStanding): string | null {
   if (kind === "proposal" && standing.decisionId) return "This thread is decided. A proposal cannot replace a decision; the structural engineer can supersede it, with a reason.";
   if (kind === "decision" && standing.decisionId) return "This thread is already decided; supersede the decision, with a reason, to decide it again.";
+  if (kind === "decision" && !standing.proposal) return "Nothing is proposed on this thread: a decision answers someone else's proposal (proposer and decider are two people).";
   if (kind === "supersession" && !standing.decisionId) return "There is no standing decision on this thread to supersede.";
   return null;
 }

@@ -104,7 +104,7 @@ describe("mention, decision and digest mails", () => {
     const threadPin = randomUUID();
     await getDb().insert(pins).values({ id: threadPin, projectId: fx.projectId, anchorKind: "member", anchorId: "B-41", title: "Opening in chord B-41", discipline: "mep", authorId: fx.users.architect.id });
     const decisionMails = async () => (await getDb().select().from(mailOutbox).where(and(eq(mailOutbox.projectId, fx.projectId), eq(mailOutbox.kind, "decision")))).length;
-    const say = (author: keyof ProjectFixture["users"], body: string, kind: "comment" | "decision") =>
+    const say = (author: keyof ProjectFixture["users"], body: string, kind: "comment" | "proposal" | "decision") =>
       postComment({ id: randomUUID(), projectId: fx.projectId, pinId: threadPin, authorId: fx.users[author].id, authorName: fx.users[author].name, body, kind });
 
     const before = await decisionMails();
@@ -113,6 +113,9 @@ describe("mention, decision and digest mails", () => {
     await say("mep_engineer", "Thanks.", "comment");
     expect(await decisionMails(), "plain comments queue no decision mail").toBe(before);
 
+    // A decision answers a proposal (the MEP engineer's); the proposal itself is mailed as a proposal, not a decision.
+    await say("mep_engineer", "A 300 mm opening in B-41 for the duct.", "proposal");
+    expect(await decisionMails()).toBe(before);
     const decision = await say("structural_engineer", "No opening in B-41; reroute the duct below the bottom chord.", "decision");
     const queued = await getDb().select().from(mailOutbox).where(like(mailOutbox.dedupeKey, `decision:${decision!.comment.id}:%`));
     // The pin's author (architect) and the other writer (MEP engineer), once each; not the decider, not the owner or

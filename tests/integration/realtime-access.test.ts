@@ -80,6 +80,10 @@ describe("writes by role", () => {
     const pinId = pin.ok ? pin.data.id : "";
     const byArchitect = await request(architect, "comment:create", { id: randomUUID(), pinId, body: "Opening accepted", kind: "decision" });
     expect(byArchitect).toEqual({ ok: false, error: "Only the structural engineer records decisions." });
+    // Nothing proposed yet: deciding now would be the engineer accepting their own opening.
+    const unproposed = await request(structural, "comment:create", { id: randomUUID(), pinId, body: "Opening accepted", kind: "decision" });
+    expect(unproposed).toEqual({ ok: false, error: "Nothing is proposed on this thread: a decision answers someone else's proposal (proposer and decider are two people)." });
+    expect(await request(architect, "comment:create", { id: randomUUID(), pinId, body: "A 200 mm opening for the duct", kind: "proposal" })).toMatchObject({ ok: true });
     const byEngineer = await request(structural, "comment:create", { id: randomUUID(), pinId, body: "Opening accepted with conditions", kind: "decision" });
     expect(byEngineer).toMatchObject({ ok: true, data: { kind: "decision", author: { id: rt.project.users.structural_engineer.id } } });
   });

@@ -77,9 +77,10 @@ describe("who may add to a thread's record", () => {
     const pinId = await newThread();
     await expect(say(pinId, fx.users.architect, "decision", "Accepted.")).rejects.toMatchObject({ status: 403, message: "Only the structural engineer records decisions." });
     await expect(say(pinId, fx.users.mep_engineer, "decision", "Accepted.")).rejects.toMatchObject({ status: 403 });
+    await say(pinId, fx.users.mep_engineer, "proposal", "Opening of 300 mm through BCX-1-1.");
     await say(pinId, fx.users.structural_engineer, "decision", "No opening in BCX-1-1.");
     await expect(say(pinId, fx.users.mep_engineer, "supersession", "We need it.")).rejects.toMatchObject({ status: 403, message: "Only the structural engineer supersedes a decision." });
-    expect((await stored(pinId)).map((c) => c.kind)).toEqual(["decision"]);
+    expect((await stored(pinId)).map((c) => c.kind)).toEqual(["proposal", "decision"]);
   });
 
   it("refuses self-acceptance: the proposer may not decide their own proposal; another structural engineer may", async () => {
@@ -91,6 +92,20 @@ describe("who may add to a thread's record", () => {
     });
     const decided = await say(pinId, secondEngineer, "decision", "Accepted.", "Sleeve 150 mm at mid-length only.");
     expect(decided?.comment).toMatchObject({ kind: "decision", author: { id: secondEngineer.id }, conditions: "Sleeve 150 mm at mid-length only." });
+  });
+
+  it("refuses self-acceptance with nothing proposed: a decision answers someone else's open proposal (409), nothing stored", async () => {
+    // Without this, the structural engineer could accept an opening on their own by deciding straight away.
+    const refused = { status: 409, message: "Nothing is proposed on this thread: a decision answers someone else's proposal (proposer and decider are two people)." };
+    const pinId = await newThread();
+    await expect(say(pinId, fx.users.structural_engineer, "decision", "Opening accepted.", "Sleeve 150 mm.")).rejects.toMatchObject(refused);
+    expect(await stored(pinId)).toEqual([]);
+    // A superseded decision answered its proposal: deciding again needs a new one.
+    await say(pinId, fx.users.mep_engineer, "proposal", "Opening of 150 mm through BCX-1-1.");
+    await say(pinId, secondEngineer, "decision", "Opening refused.");
+    await say(pinId, fx.users.structural_engineer, "supersession", "The duct was resized; the refusal was about the 300 mm one.");
+    await expect(say(pinId, fx.users.structural_engineer, "decision", "Opening accepted.")).rejects.toMatchObject(refused);
+    expect((await stored(pinId)).map((c) => c.kind)).toEqual(["proposal", "decision", "supersession"]);
   });
 });
 
@@ -118,14 +133,15 @@ describe("a proposal never replaces a decision", () => {
 
   it("the structural engineer supersedes with a reason; the history keeps both and proposals are taken again", async () => {
     const pinId = await newThread();
+    await say(pinId, fx.users.mep_engineer, "proposal", "Opening of 200 mm through BCX-1-1.");
     const decision = await say(pinId, fx.users.structural_engineer, "decision", "Opening accepted.", "Sleeved, 200 mm.");
     const supersession = await say(pinId, secondEngineer, "supersession", "Revision 2 moves the duct onto the node; the opening would cut the gusset.");
     expect(supersession?.comment).toMatchObject({ kind: "supersession", supersedesId: decision!.comment.id, role: "structural_engineer" });
     await expect(say(pinId, secondEngineer, "supersession", "Again.")).rejects.toMatchObject({ status: 409, message: "There is no standing decision on this thread to supersede." });
     await say(pinId, fx.users.mep_engineer, "proposal", "Reroute below the bottom chord.");
     const answer = await (await thread(pinId, fx.users.viewer)).json();
-    expect(answer.comments.map((c: PresentedComment) => c.kind)).toEqual(["decision", "supersession", "proposal"]);
-    expect(answer.comments[0]).toMatchObject({ body: "Opening accepted.", conditions: "Sleeved, 200 mm." });
+    expect(answer.comments.map((c: PresentedComment) => c.kind)).toEqual(["proposal", "decision", "supersession", "proposal"]);
+    expect(answer.comments[1]).toMatchObject({ body: "Opening accepted.", conditions: "Sleeved, 200 mm." });
   });
 });
 
@@ -140,6 +156,7 @@ function refusal(write: PromiseLike<unknown>): Promise<string> {
 describe("the database keeps the record", () => {
   it("refuses to change or delete a step, but not a plain comment; deleting the pin takes its thread", async () => {
     const pinId = await newThread();
+    await say(pinId, fx.users.mep_engineer, "proposal", "Opening of 150 mm through BCX-1-1.");
     const decision = await say(pinId, fx.users.structural_engineer, "decision", "Opening accepted.", "Sleeved, 150 mm.");
     const chat = await say(pinId, fx.users.mep_engineer, "comment", "Noted.");
     const id = decision!.comment.id;
@@ -151,6 +168,7 @@ describe("the database keeps the record", () => {
     expect(await refusal(db.execute(sql`delete from comments where id = ${id}`))).toMatch(/append-only/);
     await db.update(comments).set({ body: "Noted, thanks." }).where(eq(comments.id, chat!.comment.id));
     expect((await stored(pinId)).map((c) => [c.kind, c.body, c.conditions])).toEqual([
+      ["proposal", "Opening of 150 mm through BCX-1-1.", null],
       ["decision", "Opening accepted.", "Sleeved, 150 mm."],
       ["comment", "Noted, thanks.", null],
     ]);
