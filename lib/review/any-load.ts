@@ -10,6 +10,7 @@
 // result, or <= 1e-9 kN) under every unit load: then any roof load, a sum of unit loads, leaves it at zero within
 // that tolerance. The loads that make a member work most are the nodes where its influence is largest.
 import { classifyMembers } from "@/lib/analysis";
+import { SOLVE_BLOCK } from "@/lib/analysis/prepare";
 import type { ReviewContext } from "./context";
 
 /** design.md's zero-force rule, applied to each unit-load result. */
@@ -57,9 +58,6 @@ function topLayer(context: ReviewContext): { nodes: string[]; which: AnyLoadCert
   if (top.size === 0) return { nodes: context.model.nodes.map((n) => n.id), which: "every node" };
   return { nodes: context.model.nodes.filter((n) => top.has(n.id)).map((n) => n.id), which: "top layer" };
 }
-
-/** Columns solved per pass over the factor. */
-const BLOCK = 32;
 
 /**
  * The certificate for every member. `onProgress` gets the fraction of unit loads solved (for the job's progress).
@@ -114,8 +112,8 @@ function* certify(context: ReviewContext, options: AnyLoadOptions): Generator<nu
   const working = new Uint8Array(m);
   const largest = new Float64Array(m);
   const peaks: InfluencePeak[][] = Array.from({ length: m }, () => []);
-  for (let first = 0; first < loads.length; first += BLOCK) {
-    const block = loads.slice(first, first + BLOCK);
+  for (let first = 0; first < loads.length; first += SOLVE_BLOCK) {
+    const block = loads.slice(first, first + SOLVE_BLOCK);
     const f = new Float64Array(dofs * block.length);
     block.forEach(({ k, axis }, c) => (f[c * dofs + 3 * k + axis] = 1));
     const u = structure.solveColumns(f, block.length);

@@ -1,12 +1,12 @@
 // What each member is, for removal: load-bearing, stabilising, bracing or idle (glossary.md), over all results.
+import { SOLVE_BLOCK } from "@/lib/analysis/prepare";
+import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
 import { STANDING_CAUTION } from "./caution";
 import type { ReviewContext } from "./context";
 import { MECHANISM_TOLERANCE } from "./low-rank";
 import { fullyRestrained } from "./removal";
 import { BRACE_STIFFNESS_FACTOR, flexibilityBlock, weakestAcross } from "./restraint";
 import { holdingRank } from "./span";
-
-import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
 
 /** A joint of a compression member that would no longer be held across it without this member. */
 export type LostRestraint = {
@@ -29,9 +29,6 @@ export type MemberVerdict = {
   lostRestraints?: LostRestraint[];
   caution: string;
 };
-
-/** Columns solved per pass over the factor (bounds the workspace to BLOCK full vectors). */
-const BLOCK = 32;
 
 /**
  * Classifies every member. Load-bearing: force in some load case or combination. Of the rest (zero in every
@@ -68,14 +65,14 @@ export function memberVerdicts(context: ReviewContext, onProgress?: (fraction: n
     else candidates.push(e);
   }
 
-  // M_e and z_e at the two end joints, BLOCK candidates per pass
+  // M_e and z_e at the two end joints, one solver block of candidates per pass (the workspace holds SOLVE_BLOCK vectors)
   const pivot = new Float64Array(m).fill(1);
   const zEnds = new Map<number, Float64Array>(); // 6 values: z at joint i, then at joint j
-  const columns = new Float64Array(dofs * BLOCK);
+  const columns = new Float64Array(dofs * SOLVE_BLOCK);
   const total = candidates.length * 2 + 1;
   let done = 0;
-  for (let first = 0; first < candidates.length; first += BLOCK) {
-    const chunk = candidates.slice(first, first + BLOCK);
+  for (let first = 0; first < candidates.length; first += SOLVE_BLOCK) {
+    const chunk = candidates.slice(first, first + SOLVE_BLOCK);
     columns.fill(0);
     chunk.forEach((e, c) => {
       const scale = Math.sqrt(axialStiffness[e]);
@@ -122,7 +119,7 @@ export function memberVerdicts(context: ReviewContext, onProgress?: (fraction: n
   }
   const flexibility = new Map<number, Float64Array>();
   const jointList = [...joints];
-  const perPass = Math.floor(BLOCK / 3);
+  const perPass = Math.floor(SOLVE_BLOCK / 3);
   for (let first = 0; first < jointList.length; first += perPass) {
     const chunk = jointList.slice(first, first + perPass);
     columns.fill(0);
