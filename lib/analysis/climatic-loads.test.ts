@@ -50,7 +50,7 @@ describe("snow drift at a step (EN 1991-1-3 5.3.6)", () => {
 
   it("a low step on a snowy site: μw raised to its lower bound 0.8, so the drift is the balanced snow", () => {
     // s = 4 → sk = 5 kN/m2; h = 1 m: γh/sk = 0.4 → bounded up to 0.8 = μ1: total = 4 × 12 × 9 = 432 kN
-    const model = generateRoof({ ...base, snow: 4, snowDriftEdge: "south", stepHeight: 1 });
+    const model = generateRoof({ ...base, snow: 4, snowDriftEdge: "south", stepHeight: 1, upperRoofWidth: 10 });
     expect(total(model.loadCases.find((c) => c.id === "snow-drift")!.nodalLoads)).toBeCloseTo(-432, 9);
   });
 });
@@ -103,9 +103,24 @@ describe("wind pressure and suction zones on a flat roof (EN 1991-1-4 7.2.3)", (
       const parsed = roofParamsSchema.safeParse({ ...base, ...input });
       return parsed.success ? [] : parsed.error.issues.map((i) => i.path.join("."));
     };
-    expect(paths({ snowDriftEdge: "west" })).toEqual(["stepHeight"]);
+    expect(paths({ snowDriftEdge: "west" })).toEqual(["stepHeight", "upperRoofWidth"]);
     expect(paths({ windZones: true })).toEqual(["windPeakPressure", "roofHeight"]);
-    expect(paths({ standard: "ASCE 7-22", snowDriftEdge: "west", stepHeight: 2, windZones: true, windPeakPressure: 1, roofHeight: 8 })).toEqual(["snowDriftEdge", "windZones"]);
+    expect(paths({ standard: "ASCE 7-22", snowDriftEdge: "west", stepHeight: 2, upperRoofWidth: 10, windZones: true, windPeakPressure: 1, roofHeight: 8 })).toEqual(["snowDriftEdge", "windZones"]);
     expect(paths({ snowDriftEdge: "up", stepHeight: -1 })).toEqual(["snowDriftEdge", "stepHeight"]);
+  });
+
+  it("refuses hostile values of the new fields with a message each, before anything is built", () => {
+    // JSON cannot carry NaN or Infinity: they arrive as null; a number may arrive as a string, or be enormous
+    const drift = { snowDriftEdge: "east", upperRoofWidth: 10 };
+    const zones = { windZones: true, windPeakPressure: 1, roofHeight: 10 };
+    for (const bad of [1e308, 99999999999, -3, Number.NaN, Infinity, null, "2", "x".repeat(100_000)]) {
+      for (const [field, extra] of [["stepHeight", drift], ["upperRoofWidth", { ...drift, stepHeight: 2 }], ["windPeakPressure", zones], ["roofHeight", zones]] as const) {
+        const parsed = roofParamsSchema.safeParse({ ...base, ...extra, [field]: bad });
+        expect(parsed.success, `${field} = ${String(bad).slice(0, 20)}`).toBe(false);
+        expect(parsed.error!.issues.some((i) => i.path.join(".") === field && i.message.length > 0)).toBe(true);
+      }
+    }
+    for (const bad of ["__proto__", "constructor", "west\u0000", "\ud800", 1, null]) expect(roofParamsSchema.safeParse({ ...base, snowDriftEdge: bad }).success).toBe(false);
+    for (const bad of ["true", 1, null]) expect(roofParamsSchema.safeParse({ ...base, ...zones, windZones: bad }).success).toBe(false);
   });
 });

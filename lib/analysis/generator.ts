@@ -77,6 +77,10 @@ export const roofParamsSchema = z
     if (p.snowDriftEdge !== "none" && !(p.stepHeight > 0)) {
       ctx.addIssue({ code: "custom", path: ["stepHeight"], message: "Give the height of the higher roof above this one (m), or choose no step." });
     }
+    // μw = (b1 + b2) / 2h grows with b1: left at 0 it would understate the drift, so it must be given.
+    if (p.snowDriftEdge !== "none" && !(p.upperRoofWidth > 0)) {
+      ctx.addIssue({ code: "custom", path: ["upperRoofWidth"], message: "Give the width of the higher roof away from the step, b1 (m): the drift grows with it." });
+    }
     if (p.windZones && !(p.windPeakPressure > 0)) {
       ctx.addIssue({ code: "custom", path: ["windPeakPressure"], message: "Give the peak velocity pressure qp (kN/m2) for the wind zones." });
     }
