@@ -1,7 +1,7 @@
 // The analysis queue (issue 13): a new revision is stored with a queued job in the same transaction, the jobs
 // process analyses it with progress, a failure stores nothing and can be retried, and only the team sees the job.
 import { eq } from "drizzle-orm";
-import PgBoss from "pg-boss";
+import type PgBoss from "pg-boss";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as getJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/route";
 import { POST as retryJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/retry/route";
@@ -12,6 +12,7 @@ import { QUEUES } from "@/lib/jobs/queue";
 import { reviewForStorage } from "@/lib/models/analyse";
 import { runAnalysisJob } from "@/server/jobs/analysis";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
+import { jobRow, startQueueClient, stopQueueClient } from "../support/job-queue";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
 
@@ -21,7 +22,6 @@ const roof = { kind: "generate", params: { name: "Queued grid", spanX: 6, spanY:
 const jobCtx = (jobId: string) => routeContext({ projectId: fx.projectId, jobId });
 const jobPath = (jobId: string) => `/api/projects/${fx.projectId}/jobs/${jobId}`;
 const runsOf = async (revisionId: string) => getDb().select().from(analysisRuns).where(eq(analysisRuns.revisionId, revisionId));
-const stateOf = async (jobId: string) => (await getDb().select().from(jobs).where(eq(jobs.id, jobId)))[0];
 
 async function saveRoof() {
   const response = await createRevision(await buildRequest(`/api/projects/${fx.projectId}/models`, { method: "POST", body: roof, user: fx.users.structural_engineer }), routeContext({ projectId: fx.projectId }));
@@ -32,11 +32,10 @@ async function saveRoof() {
 beforeAll(async () => {
   requireIntegrationEnv();
   fx = await createProjectFixture("analysis-jobs");
-  boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schedule: false, supervise: false, migrate: false });
-  await boss.start();
+  boss = await startQueueClient();
 });
 afterAll(async () => {
-  await boss.stop({ graceful: false, wait: true });
+  await stopQueueClient(boss);
   await closeDb();
 });
 
@@ -67,7 +66,7 @@ describe("queued analysis", () => {
     const { revision, job } = await saveRoof();
     const phases: string[] = [];
     const watch = <A extends unknown[], R>(phase: string, step: (...args: A) => R) => async (...args: A): Promise<R> => {
-      phases.push(`${phase}:${(await stateOf(job.id)).phase}`);
+      phases.push(`${phase}:${(await jobRow(job.id)).phase}`);
       return step(...args);
     };
     // The steps see the phase the browser sees while they run.
@@ -77,7 +76,7 @@ describe("queued analysis", () => {
     const [run] = await runsOf(revision.id);
     expect(run.status).toBe("ok");
     expect(run.review?.members).toBeDefined();
-    expect(await stateOf(job.id)).toMatchObject({ state: "done", percent: 100, error: null });
+    expect(await jobRow(job.id)).toMatchObject({ state: "done", percent: 100, error: null });
     // Delivered twice (a crashed worker's job expiring): the second delivery does nothing.
     expect(await runAnalysisJob(job.id)).toBe("skipped");
     expect(await runsOf(revision.id)).toHaveLength(1);

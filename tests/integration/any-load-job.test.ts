@@ -4,12 +4,12 @@
 // The roof here is small; a roof past the whole-roof limit is stood in for by the same review with the certificate
 // left out, as reviewForStorage leaves it out past 10,000 members (lib/models/analyse.test.ts).
 import { eq } from "drizzle-orm";
-import PgBoss from "pg-boss";
+import type PgBoss from "pg-boss";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as retryJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/retry/route";
 import { POST as startAnyLoad } from "@/app/api/projects/[projectId]/models/[number]/any-load/route";
 import { GET as getRevision } from "@/app/api/projects/[projectId]/models/[number]/route";
-import { analysisRuns, auditEvents, jobs } from "@/db/schema";
+import { analysisRuns, auditEvents } from "@/db/schema";
 import { analyzeModel, generateRoof } from "@/lib/analysis";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { QUEUES } from "@/lib/jobs/queue";
@@ -18,6 +18,7 @@ import { idleForAnyLoad, idleForAnyLoadAsync } from "@/lib/review/any-load";
 import { createReviewContext } from "@/lib/review/context";
 import { runAnyLoadJob } from "@/server/jobs/any-load";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
+import { jobRow, startQueueClient, stopQueueClient } from "../support/job-queue";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { triangleModel } from "../support/fixtures/analysis-models";
 import { buildRequest, routeContext } from "../support/session";
@@ -36,16 +37,14 @@ async function saveUncertified(): Promise<{ id: string; number: number }> {
 const start = async (number: number, user = fx.users.structural_engineer) =>
   startAnyLoad(await buildRequest(`/api/projects/${fx.projectId}/models/${number}/any-load`, { method: "POST", user }), routeContext({ projectId: fx.projectId, number: String(number) }));
 const reviewOf = async (revisionId: string) => (await getDb().select().from(analysisRuns).where(eq(analysisRuns.revisionId, revisionId)))[0].review!;
-const stateOf = async (jobId: string) => (await getDb().select().from(jobs).where(eq(jobs.id, jobId)))[0];
 
 beforeAll(async () => {
   requireIntegrationEnv();
   fx = await createProjectFixture("any-load-job");
-  boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schedule: false, supervise: false, migrate: false });
-  await boss.start();
+  boss = await startQueueClient();
 });
 afterAll(async () => {
-  await boss.stop({ graceful: false, wait: true });
+  await stopQueueClient(boss);
   await closeDb();
 });
 
@@ -79,13 +78,13 @@ describe("the whole-roof any-load job", () => {
     const failing = {
       certify: async (...args: Parameters<typeof idleForAnyLoadAsync>) => {
         await args[2](0.5);
-        phases.push((await stateOf(job.id)).phase);
+        phases.push((await jobRow(job.id)).phase);
         throw new Error("out of memory in the unit loads");
       },
     };
     expect(await runAnyLoadJob(job.id, failing)).toBe("failed");
     expect(phases).toEqual(["unit loads"]);
-    expect(await stateOf(job.id)).toMatchObject({ state: "failed", error: expect.stringContaining("out of memory in the unit loads") });
+    expect(await jobRow(job.id)).toMatchObject({ state: "failed", error: expect.stringContaining("out of memory in the unit loads") });
     const untouched = await reviewOf(revision.id);
     expect(untouched.anyLoad).toBeUndefined();
     expect(Object.values(untouched.members).every((m) => m.anyLoad === undefined)).toBe(true);
@@ -95,7 +94,7 @@ describe("the whole-roof any-load job", () => {
     const requeued = await boss.fetch<{ jobId: string }>(QUEUES.anyLoad, { batchSize: 50 });
     expect(requeued.some((q) => q.data.jobId === job.id)).toBe(true);
     expect(await runAnyLoadJob(job.id)).toBe("done");
-    expect(await stateOf(job.id)).toMatchObject({ state: "done", percent: 100, outcome: { idleForAnyLoad: expect.any(Number) } });
+    expect(await jobRow(job.id)).toMatchObject({ state: "done", percent: 100, outcome: { idleForAnyLoad: expect.any(Number) } });
 
     // what was stored is the certificate of lib/review/any-load.ts on the same model (its own tests check statics)
     const expected = storedAnyLoad(model, idleForAnyLoad(createReviewContext(model, analyzeModel(model), { standard: "EN1993-1-1" })));

@@ -8,7 +8,7 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { and, eq } from "drizzle-orm";
-import PgBoss from "pg-boss";
+import type PgBoss from "pg-boss";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as download } from "@/app/api/projects/[projectId]/attachments/[attachmentId]/route";
 import { GET as getJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/route";
@@ -27,6 +27,7 @@ import { bucket, getObject, s3 } from "@/lib/storage/s3";
 import { runReportJob } from "@/server/jobs/report";
 import { TRIPOD } from "@/tests/support/fixtures/report";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
+import { jobRow, startQueueClient, stopQueueClient } from "../support/job-queue";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
 
@@ -37,7 +38,6 @@ const work = mkdtempSync(path.join(tmpdir(), "strutroom-report-jobs-"));
 const reportPath = () => `/api/projects/${fx.projectId}/report`;
 const ask = async (user: FixtureUser | undefined, body: unknown) => makeReport(await buildRequest(reportPath(), { method: "POST", body, user }), routeContext({ projectId: fx.projectId }));
 const jobCtx = (jobId: string) => routeContext({ projectId: fx.projectId, jobId });
-const stateOf = async (jobId: string) => (await getDb().select().from(jobs).where(eq(jobs.id, jobId)))[0];
 const storedReportObjects = async () => ((await s3().send(new ListObjectsV2Command({ Bucket: bucket(), Prefix: `projects/${fx.projectId}/report/` }))).Contents ?? []).length;
 const reportFiles = () => getDb().select().from(attachments).where(and(eq(attachments.projectId, fx.projectId), eq(attachments.purpose, "report")));
 
@@ -58,8 +58,7 @@ function pagesOf(pdf: Uint8Array): string[] {
 beforeAll(async () => {
   requireIntegrationEnv();
   fx = await createProjectFixture("report-jobs");
-  boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schedule: false, supervise: false, migrate: false });
-  await boss.start();
+  boss = await startQueueClient();
   const result = analyzeModel(TRIPOD);
   const revision = await createRevisionWithAnalysis({ projectId: fx.projectId, name: "Lantern added", model: TRIPOD, source: "generated", createdBy: fx.users.structural_engineer.id, result, review: reviewForStorage(TRIPOD, result, "EN1993-1-1") });
   revisionId = revision.id;
@@ -81,7 +80,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   rmSync(work, { recursive: true, force: true });
-  await boss.stop({ graceful: false, wait: true });
+  await stopQueueClient(boss);
   await closeDb();
 });
 
@@ -131,7 +130,7 @@ describe("asking for a report", () => {
     expect(job).toMatchObject({ kind: "report", state: "queued" });
     const sent = await boss.fetch<{ jobId: string }>(QUEUES.report, { batchSize: 50 });
     expect(sent.filter((q) => q.data.jobId === job.id)).toHaveLength(1);
-    expect(await stateOf(job.id)).toMatchObject({ revisionId, input: { revision: 1, combinations: ["ULS-1", "ULS-3"], compare: ["ULS-1", "ULS-3"] } });
+    expect(await jobRow(job.id)).toMatchObject({ revisionId, input: { revision: 1, combinations: ["ULS-1", "ULS-3"], compare: ["ULS-1", "ULS-3"] } });
     const events = await getDb().select().from(auditEvents).where(and(eq(auditEvents.projectId, fx.projectId), eq(auditEvents.action, "report.request")));
     expect(events.map((e) => e.details)).toContainEqual(expect.objectContaining({ jobId: job.id }));
     expect((await getJob(await buildRequest(`/api/projects/${fx.projectId}/jobs/${job.id}`, { user: fx.users.viewer }), jobCtx(job.id))).status).toBe(200);
@@ -146,7 +145,7 @@ describe("the report job", () => {
     const build: typeof buildReportPdf = async (input, onProgress) =>
       buildReportPdf(input, async (fraction) => {
         await onProgress?.(fraction);
-        const row = await stateOf(job.id);
+        const row = await jobRow(job.id);
         seen.push(`${row.phase}:${row.percent}`);
       });
     expect(await runReportJob(job.id, { build })).toBe("done");
@@ -157,7 +156,7 @@ describe("the report job", () => {
     expect(percents).toEqual([...percents].sort((a, b) => a - b));
     expect(percents.at(-1)).toBe(90);
 
-    const done = await stateOf(job.id);
+    const done = await jobRow(job.id);
     expect(done).toMatchObject({ state: "done", phase: "done", percent: 100, error: null });
     const outcome = done.outcome as { attachmentId: string; filename: string; pages: number; bytes: number };
     expect(outcome.filename).toBe("strutroom-review-rev1.pdf");
