@@ -3,13 +3,13 @@
 // transaction (a failure stores nothing and can be retried), refused for an unstable, certified or busy revision.
 // The roof here is small; a roof past the whole-roof limit is stood in for by the same review with the certificate
 // left out, as reviewForStorage leaves it out past 10,000 members (lib/models/analyse.test.ts).
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type PgBoss from "pg-boss";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as retryJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/retry/route";
 import { POST as startAnyLoad } from "@/app/api/projects/[projectId]/models/[number]/any-load/route";
 import { GET as getRevision } from "@/app/api/projects/[projectId]/models/[number]/route";
-import { analysisRuns, auditEvents } from "@/db/schema";
+import { analysisRuns, auditEvents, jobs, memberships } from "@/db/schema";
 import { analyzeModel, generateRoof } from "@/lib/analysis";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { QUEUES } from "@/lib/jobs/queue";
@@ -27,15 +27,15 @@ let fx: ProjectFixture;
 let boss: PgBoss;
 const model = generateRoof({ name: "Big roof stand-in", spanX: 9, spanY: 6, module: 3, depth: 1.5 });
 
-async function saveUncertified(): Promise<{ id: string; number: number }> {
+async function saveUncertified(project = fx): Promise<{ id: string; number: number }> {
   const { result, review } = analyseForStorage(model, "EN1993-1-1");
   const uncertified: StoredReview = { ...structuredClone(review!), wholeRoofChecksLeftOut: "left out (stand-in for a roof past the limit)" };
   delete uncertified.anyLoad;
   for (const member of Object.values(uncertified.members)) delete member.anyLoad;
-  return createRevisionWithAnalysis({ projectId: fx.projectId, name: "uncertified", model, source: "generated", createdBy: fx.users.structural_engineer.id, result, review: uncertified });
+  return createRevisionWithAnalysis({ projectId: project.projectId, name: "uncertified", model, source: "generated", createdBy: project.users.structural_engineer.id, result, review: uncertified });
 }
-const start = async (number: number, user = fx.users.structural_engineer) =>
-  startAnyLoad(await buildRequest(`/api/projects/${fx.projectId}/models/${number}/any-load`, { method: "POST", user }), routeContext({ projectId: fx.projectId, number: String(number) }));
+const start = async (number: number, user = fx.users.structural_engineer, project = fx) =>
+  startAnyLoad(await buildRequest(`/api/projects/${project.projectId}/models/${number}/any-load`, { method: "POST", user }), routeContext({ projectId: project.projectId, number: String(number) }));
 const reviewOf = async (revisionId: string) => (await getDb().select().from(analysisRuns).where(eq(analysisRuns.revisionId, revisionId)))[0].review!;
 
 beforeAll(async () => {
@@ -108,6 +108,17 @@ describe("the whole-roof any-load job", () => {
     // certified: nothing left to start, and a second delivery of the job does nothing
     expect((await start(revision.number)).status).toBe(409);
     expect(await runAnyLoadJob(job.id)).toBe("skipped");
+  });
+
+  it("a structural engineer removed a second ago cannot start it, and nothing is queued", async () => {
+    const team = await createProjectFixture("any-load-job-removed");
+    const revision = await saveUncertified(team);
+    const engineer = team.users.structural_engineer;
+    await getDb().delete(memberships).where(and(eq(memberships.projectId, team.projectId), eq(memberships.userId, engineer.id)));
+    const response = await start(revision.number, engineer, team);
+    expect(response.status).toBe(404);
+    expect(await getDb().select().from(jobs).where(eq(jobs.revisionId, revision.id))).toEqual([]);
+    expect((await reviewOf(revision.id)).anyLoad).toBeUndefined();
   });
 
   it("is refused for an unstable revision", async () => {
