@@ -1,8 +1,11 @@
 // The realtime server refuses signed-out, outsider and foreign-origin connections, refuses writes by roles the
 // permission table does not allow, and answers malformed payloads with errors without falling over.
 import { randomUUID } from "node:crypto";
+import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import WebSocket from "ws";
+import { comments } from "@/db/schema";
+import { getDb } from "../support/db";
 import { sessionCookie } from "../support/session";
 import { connectClient, nextEvent, realtimeClient, request } from "../support/realtime";
 import { realtimeProjectSuite } from "../support/realtime-suite";
@@ -116,6 +119,20 @@ describe("malformed payloads", () => {
     }
     const good = await request<PresentedPin>(architect, "pin:create", pinInput());
     expect(good.ok).toBe(true);
+    // A thread step's hostile fields: each answered with the field at fault, nothing stored.
+    const pinId = good.ok ? good.data.id : "";
+    const step = (extra: object) => request(architect, "comment:create", { id: randomUUID(), pinId, body: "A 200 mm opening", ...extra });
+    const fieldAtFault = async (extra: object) => {
+      const answer = await step(extra);
+      return answer.ok ? "stored" : answer.issues?.map((issue) => issue.path);
+    };
+    expect(await fieldAtFault({ kind: "decision", conditions: "x".repeat(4001) })).toEqual(["conditions"]);
+    expect(await fieldAtFault({ kind: "proposal", conditions: "Sleeved." })).toEqual(["conditions"]);
+    expect(await fieldAtFault({ kind: "__proto__" })).toEqual(["kind"]);
+    expect(await fieldAtFault({ kind: "decision", conditions: "Sleeved\u0000" })).toEqual(["conditions"]);
+    expect(await fieldAtFault({ kind: "proposal", body: "\ud800" })).toEqual(["body"]);
+    const thread = await getDb().select({ id: comments.id }).from(comments).where(eq(comments.pinId, pinId));
+    expect(thread).toEqual([]);
   });
 
   it("sends a realtime:error event when the sender gave no acknowledgement", async () => {

@@ -73,6 +73,16 @@ describe("who may add to a thread's record", () => {
     expect((await thread(pinId, fx.users.viewer)).status).toBe(200);
   });
 
+  it("finds no pin of another project: a step sent with its pin id answers nothing and stores nothing there", async () => {
+    const other = await createProjectFixture("thread-decisions-other");
+    const theirs = randomUUID();
+    await getDb().insert(pins).values({ id: theirs, projectId: other.projectId, anchorKind: "member", anchorId: "BCX-1-1", title: "Their thread", discipline: "mep", authorId: other.users.architect.id });
+    for (const kind of ["proposal", "decision", "supersession", "comment"] as const) {
+      expect(await postComment({ id: randomUUID(), projectId: fx.projectId, pinId: theirs, authorId: fx.users.structural_engineer.id, authorName: "x", body: "Opening accepted.", kind })).toBeNull();
+    }
+    expect(await stored(theirs)).toEqual([]);
+  });
+
   it("lets only the structural engineer decide and supersede", async () => {
     const pinId = await newThread();
     await expect(say(pinId, fx.users.architect, "decision", "Accepted.")).rejects.toMatchObject({ status: 403, message: "Only the structural engineer records decisions." });
