@@ -7,7 +7,8 @@ import Papa from "papaparse";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as memberForces } from "@/app/api/projects/[projectId]/exports/member-forces.csv/route";
 import { GET as envelope } from "@/app/api/projects/[projectId]/exports/envelope.csv/route";
-import { roundForce } from "@/lib/report/csv";
+import { GET as nodeResults } from "@/app/api/projects/[projectId]/exports/node-results.csv/route";
+import { roundForce, roundMillimetres } from "@/lib/report/csv";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analysisRuns, clashes, pins } from "@/db/schema";
 import { analyzeModel } from "@/lib/analysis/analyze";
@@ -52,6 +53,27 @@ describe("CSV exports", () => {
     expect(data.find((row) => row.member === "AD")?.state).toBe("tension");
     expect((await memberForces(await req(`/api/projects/${fx.projectId}/exports/member-forces.csv?result=X`, fx.users.architect), ctx())).status).toBe(400);
     expect((await memberForces(await req(`/api/projects/${fx.projectId}/exports/member-forces.csv?result=ULS-3`), ctx())).status).toBe(401);
+  });
+
+  it("node results of one result: the stored displacements and reactions, one row per node; refused to outsiders and the signed-out", async () => {
+    const url = (result: string) => `/api/projects/${fx.projectId}/exports/node-results.csv?revision=1&result=${result}`;
+    const response = await nodeResults(await req(url("ULS-1"), fx.users.viewer), ctx());
+    expect(response.status).toBe(200);
+    expect(response.headers.get("content-disposition")).toBe('attachment; filename="node-results-rev1-ULS-1.csv"');
+    const { data } = Papa.parse<Record<string, string>>(await response.text(), { header: true, skipEmptyLines: true });
+    expect(data.map((row) => row.node)).toEqual(TRIPOD.nodes.map((n) => n.id));
+    const uls1 = stored.results["ULS-1"];
+    for (const row of data) {
+      expect(Number(row.uz_mm), row.node).toBe(roundMillimetres(uls1.displacements[row.node]?.uz ?? 0));
+      const reaction = uls1.reactions[row.node];
+      expect(row.supported).toBe(String(Boolean(reaction)));
+      expect(row.reaction_fz_kN).toBe(reaction ? String(roundForce(reaction.fz)) : "");
+    }
+    // Hand statics of the symmetric tripod (tests/support/fixtures/report.ts): 1.35 x 30 kN at D shared by three supports.
+    expect(data.filter((row) => row.supported === "true").map((row) => Number(row.reaction_fz_kN))).toEqual([13.5, 13.5, 13.5]);
+    expect((await nodeResults(await req(url("X"), fx.users.architect), ctx())).status).toBe(400);
+    expect((await nodeResults(await req(url("ULS-1"), fx.users.outsider), ctx())).status).toBe(404);
+    expect((await nodeResults(await req(url("ULS-1")), ctx())).status).toBe(401);
   });
 
   it("envelope: the stored extremes per member", async () => {

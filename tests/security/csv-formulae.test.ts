@@ -5,6 +5,7 @@ import Papa from "papaparse";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as memberForces } from "@/app/api/projects/[projectId]/exports/member-forces.csv/route";
 import { GET as envelope } from "@/app/api/projects/[projectId]/exports/envelope.csv/route";
+import { GET as nodeResults } from "@/app/api/projects/[projectId]/exports/node-results.csv/route";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
@@ -68,6 +69,16 @@ describe("CSV exports escape spreadsheet formulae", () => {
     // Compression is negative: the force column must still read as a number, not as escaped text.
     for (const row of rows.slice(1)) expect(Number.isFinite(Number(row[5]))).toBe(true);
     expect(rows.slice(1).some((row) => Number(row[5]) < 0)).toBe(true);
+  });
+
+  it("node results: the node ids are prefixed with a quote; negative displacements stay plain numbers", async () => {
+    const rows = await cells(await nodeResults(await buildRequest(`/api/projects/${fx.projectId}/exports/node-results.csv?result=ULS-1`, { user: fx.users.viewer }), ctx()));
+    expect(rows).toHaveLength(1 + TRIPOD.nodes.length);
+    for (const row of rows.slice(1)) expect(row[0]).not.toMatch(FORMULA_START);
+    expect(rows.map((row) => row[0])).toContain(`'${HOSTILE_NODE}`);
+    // The apex goes down under 1.35 G: uz is negative and must read as a number, not as escaped text.
+    const apex = rows.find((row) => row[0] === `'${HOSTILE_NODE}`)!;
+    expect(Number(apex[7])).toBeLessThan(0);
   });
 
   it("envelope: the same", async () => {
