@@ -1,8 +1,9 @@
 import "server-only";
 // Route-side reading (a private folder of the project API; it reads stored rows, so it is not lib/): the revision
-// and results the CSV and IFC exports name, checked. The report PDF is a job (server/jobs/report-data.ts reads for it).
+// and results the CSV and IFC exports name, checked, and the one-result CSV download. The report PDF is a job (server/jobs/report-data.ts reads for it).
 import { getDefaultRevisionNumber, getRevisionWithResults, type RevisionWithResults } from "@/db/queries/models";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
+import type { TrussModel } from "@/lib/analysis/model";
 import { ConflictError, NotFoundError, ValidationError } from "@/lib/http/errors";
 
 type Analysed = RevisionWithResults & { analysis: NonNullable<RevisionWithResults["analysis"]> };
@@ -24,4 +25,19 @@ export function requireResults(result: AnalysisResult, ids: string[], field: str
     const message = result.status === "unstable" ? "The model is unstable, so it has no results to report." : `Not a load case or combination of this revision: ${unknown.join(", ")}.`;
     throw new ValidationError([{ path: field, message }], message);
   }
+}
+
+/**
+ * A CSV download of one result of a revision (member forces, node results): the revision and result checked, the
+ * file named `<name>-rev<n>-<result>.csv` with the result id reduced to characters safe in a header.
+ */
+export async function resultCsvResponse(
+  { projectId, query, name }: { projectId: string; query: { revision?: number; result: string }; name: string },
+  write: (model: TrussModel, result: AnalysisResult, resultId: string) => string,
+): Promise<Response> {
+  const revision = await loadAnalysedRevision({ projectId, revision: query.revision });
+  requireResults(revision.analysis.result, [query.result], "result");
+  const csv = write(revision.model, revision.analysis.result, query.result);
+  const filename = `${name}-rev${revision.number}-${query.result.replace(/[^A-Za-z0-9_.-]/g, "_")}.csv`;
+  return new Response(csv, { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="${filename}"` } });
 }
