@@ -22,6 +22,7 @@ export type ReportPdfFormProps = {
   defaultChosen: string[];
   /** The rule book's report.make for this member. */
   canMake: boolean;
+  /** The newest finished reports of the revision. */
   recent: ReportJobView[];
 };
 
@@ -64,7 +65,6 @@ export function ReportPdfForm({ projectId, revision, results, defaultChosen, can
     make.mutate({ revision, combinations: chosen, compare: comparing });
   };
   const issues = make.error?.issues ?? [];
-  const finished = recent.filter((job) => job.state === "done");
   return (
     <div className="flex flex-col gap-4 rounded-lg border border-board-200 bg-white p-4">
       {canMake ? (
@@ -114,11 +114,11 @@ export function ReportPdfForm({ projectId, revision, results, defaultChosen, can
       {make.data ? <MadeReport key={make.data.job.id} projectId={projectId} job={make.data.job} canRetry={canMake} /> : null}
       <div className="flex flex-col gap-1" data-testid="report-recent">
         <h3 className="text-sm font-medium text-board-800">Reports of this revision</h3>
-        {finished.length === 0 ? (
+        {recent.length === 0 ? (
           <p className="text-sm text-board-700">None made yet.</p>
         ) : (
           <ul className="flex flex-col gap-1 text-sm">
-            {finished.map((job) => (
+            {recent.map((job) => (
               <li key={job.id} className="flex flex-wrap items-baseline gap-2">
                 <ReportDownload projectId={projectId} job={job} testId="report-recent-file" />
                 <span className="text-board-700">

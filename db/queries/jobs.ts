@@ -87,12 +87,12 @@ export async function requeueFailedJob(tx: Executor, { projectId, jobId }: { pro
   return row ? view(row) : null;
 }
 
-/** Whether the revision has a queued or running job of this kind. */
-export async function hasActiveJob(db: Executor, { revisionId, kind }: { revisionId: string; kind: Job["kind"] }): Promise<boolean> {
+/** Whether the revision has a queued or running job of this kind (asked for by this user, when one is named). */
+export async function hasActiveJob(db: Executor, { revisionId, kind, requestedBy }: { revisionId: string; kind: Job["kind"]; requestedBy?: string }): Promise<boolean> {
   const [row] = await db
     .select({ id: jobs.id })
     .from(jobs)
-    .where(and(eq(jobs.revisionId, revisionId), eq(jobs.kind, kind), inArray(jobs.state, ["queued", "running"])))
+    .where(and(eq(jobs.revisionId, revisionId), eq(jobs.kind, kind), inArray(jobs.state, ["queued", "running"]), requestedBy ? eq(jobs.requestedBy, requestedBy) : undefined))
     .limit(1);
   return Boolean(row);
 }
@@ -100,13 +100,13 @@ export async function hasActiveJob(db: Executor, { revisionId, kind }: { revisio
 /** A report job of a revision as the report page lists it. */
 export type ReportJobView = JobView & { requestedBy: string | null; createdAt: string };
 
-/** The newest report jobs of a revision (any state), newest first, with who asked for each. */
+/** The newest finished report jobs of a revision (their outcome names the stored PDF), newest first, with who asked for each. */
 export async function listReportJobs({ projectId, revisionId, limit = 5, db = getDb() }: { projectId: string; revisionId: string; limit?: number; db?: Executor }): Promise<ReportJobView[]> {
   const rows = await db
     .select({ job: jobs, requestedBy: users.name })
     .from(jobs)
     .leftJoin(users, eq(users.id, jobs.requestedBy))
-    .where(and(eq(jobs.projectId, projectId), eq(jobs.revisionId, revisionId), eq(jobs.kind, "report")))
+    .where(and(eq(jobs.projectId, projectId), eq(jobs.revisionId, revisionId), eq(jobs.kind, "report"), eq(jobs.state, "done")))
     .orderBy(desc(jobs.createdAt))
     .limit(limit);
   return rows.map(({ job, requestedBy }) => ({ ...view(job), requestedBy, createdAt: job.createdAt.toISOString() }));

@@ -14,6 +14,7 @@ import { GET as download } from "@/app/api/projects/[projectId]/attachments/[att
 import { GET as getJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/route";
 import { POST as retryJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/retry/route";
 import { POST as makeReport } from "@/app/api/projects/[projectId]/report/route";
+import { listReportJobs } from "@/db/queries/jobs";
 import { attachments, auditEvents, clashDecisions, clashes, jobs, modelRevisions, pins, projects } from "@/db/schema";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
@@ -135,6 +136,18 @@ describe("asking for a report", () => {
     expect(events.map((e) => e.details)).toContainEqual(expect.objectContaining({ jobId: job.id }));
     expect((await getJob(await buildRequest(`/api/projects/${fx.projectId}/jobs/${job.id}`, { user: fx.users.viewer }), jobCtx(job.id))).status).toBe(200);
     expect((await getJob(await buildRequest(`/api/projects/${fx.projectId}/jobs/${job.id}`, { user: fx.users.outsider }), jobCtx(job.id))).status).toBe(404);
+
+    // One report at a time per member and revision: asking again while it is queued is a 409 that says to wait
+    // (a member clicking twice, or a script, cannot fill the job runner); another member is not held up by it.
+    const again = await ask(fx.users.architect, { revision: 1 });
+    expect(again.status).toBe(409);
+    expect((await again.json()).error).toMatch(/already being made.*wait/);
+    const other = await queued(fx.users.structural_engineer, { revision: 1 });
+    expect(await runReportJob(job.id)).toBe("done");
+    expect(await runReportJob(other.id)).toBe("done");
+    expect((await ask(fx.users.architect, { revision: 1, combinations: ["ULS-1"] })).status).toBe(202);
+    const last = (await getDb().select().from(jobs).where(and(eq(jobs.projectId, fx.projectId), eq(jobs.requestedBy, fx.users.architect.id), eq(jobs.state, "queued"))))[0];
+    expect(await runReportJob(last.id)).toBe("done");
   });
 });
 
@@ -232,5 +245,9 @@ describe("the report job", () => {
     expect(await runReportJob(job.id, { build })).toBe("skipped");
     expect((await reportFiles()).length).toBe(before);
     expect(await storedReportObjects()).toBe(objects);
+    // The report page lists the finished reports only: the newest jobs here failed, the list still shows the last five made.
+    const listed = await listReportJobs({ projectId: fx.projectId, revisionId });
+    expect(listed).toHaveLength(5);
+    expect(listed.every((j) => j.state === "done" && j.outcome)).toBe(true);
   });
 });
