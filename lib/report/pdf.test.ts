@@ -145,6 +145,15 @@ describe("review report PDF", () => {
     expect(colours[1].compression, "ULS-3 plan has no compression colour").toBe(0);
   });
 
+  it("writes user text outside the PDF font's code page as our spelling or '?', in the clash headings as in the tables", async () => {
+    const input = tripodReport();
+    input.clashes = input.clashes.map((c) => ({ ...c, runId: "Zuluft–Δ7" }));
+    const { text } = await readBack("tripod-code-page", input);
+    const all = text.join("\n");
+    expect(all).toContain("run Zuluft–Delta7 (hard)");
+    expect(all).not.toContain("Δ");
+  });
+
   it("keeps the caution on every page of a long report (the demo roof, 1538 members, four combinations)", async () => {
     const model = demoRoof();
     const input: ReportInput = {

@@ -165,9 +165,9 @@ function clashDetails(w: ReportWriter, input: ReportInput): void {
     if (result) drawClashSnippet(w.doc, input.model, result, clash.point, { x: PAGE.margin, y: top, width: size, height: size });
     const x = PAGE.margin + (result ? size + 12 : 0);
     const width = w.width - (x - PAGE.margin);
-    w.doc.font(FONT.bold).fontSize(10).fillColor(COLOURS.ink).text(`Clash ${clash.clashKey}: member ${clash.memberId}, run ${clash.runId} (${clash.kind})`, x, top, { width });
+    w.doc.font(FONT.bold).fontSize(10).fillColor(COLOURS.ink).text(safe(`Clash ${clash.clashKey}: member ${clash.memberId}, run ${clash.runId} (${clash.kind})`), x, top, { width });
     w.doc.font(FONT.regular).fontSize(8.5).fillColor(COLOURS.ink);
-    w.doc.text(`At x ${clash.point.x.toFixed(2)} m, y ${clash.point.y.toFixed(2)} m, z ${clash.point.z.toFixed(2)} m. Status ${clash.status}. Outcome now: ${clash.outcome ?? "open (nothing proposed)"}.`, x, w.doc.y + 2, { width });
+    w.doc.text(safe(`At x ${clash.point.x.toFixed(2)} m, y ${clash.point.y.toFixed(2)} m, z ${clash.point.z.toFixed(2)} m. Status ${clash.status}. Outcome now: ${clash.outcome ?? "open (nothing proposed)"}.`), x, w.doc.y + 2, { width });
     w.doc.y = Math.max(w.doc.y + 4, result ? top + size + 6 : w.doc.y);
     w.doc.x = PAGE.margin;
     if (clash.history.length === 0) w.paragraph("No proposal or decision recorded yet.", { color: COLOURS.muted, size: 8.5 });
