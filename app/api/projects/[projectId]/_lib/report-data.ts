@@ -1,6 +1,6 @@
 import "server-only";
 // Route-side reading (a private folder of the project API; it reads stored rows, so it is not lib/): the revision
-// and results the CSV and IFC exports name, checked, and the one-result CSV download. The report PDF is a job (server/jobs/report-data.ts reads for it).
+// and results the report request and the CSV and IFC exports name, checked, and the one-result CSV download. The report PDF is a job (server/jobs/report-data.ts reads for it).
 import { getDefaultRevisionNumber, getRevisionWithResults, type RevisionWithResults } from "@/db/queries/models";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
@@ -8,12 +8,21 @@ import { ConflictError, NotFoundError, ValidationError } from "@/lib/http/errors
 
 type Analysed = RevisionWithResults & { analysis: NonNullable<RevisionWithResults["analysis"]> };
 
-/** The revision (the current one, else the newest, when no number is given) with its stored analysis; 404 / 409 when there is none. */
-export async function loadAnalysedRevision({ projectId, revision }: { projectId: string; revision?: number }): Promise<Analysed> {
+/** The revision number asked for, else the current revision's (else the newest's); 404 when the project has none. */
+export async function chosenRevisionNumber({ projectId, revision }: { projectId: string; revision?: number }): Promise<number> {
   const number = revision ?? (await getDefaultRevisionNumber({ projectId }));
   if (number === null) throw new NotFoundError("This project has no model revision yet.");
+  return number;
+}
+
+/** A 404 naming a revision number that is not one of this project's. */
+export const noSuchRevision = (number: number) => new NotFoundError(`Revision ${number} does not exist in this project.`);
+
+/** The revision (the current one, else the newest, when no number is given) with its stored analysis; 404 / 409 when there is none. */
+export async function loadAnalysedRevision({ projectId, revision }: { projectId: string; revision?: number }): Promise<Analysed> {
+  const number = await chosenRevisionNumber({ projectId, revision });
   const found = await getRevisionWithResults({ projectId, number });
-  if (!found) throw new NotFoundError(`Revision ${number} does not exist in this project.`);
+  if (!found) throw noSuchRevision(number);
   if (!found.analysis) throw new ConflictError(`Revision ${number} has not been analysed yet.`);
   return found as Analysed;
 }

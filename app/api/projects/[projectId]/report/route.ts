@@ -1,19 +1,20 @@
-import { getDefaultRevisionNumber, getRevisionResultIds } from "@/db/queries/models";
+import { getRevisionResultIds } from "@/db/queries/models";
 import { enqueueReport } from "@/lib/commands/enqueue-report";
-import { ConflictError, NotFoundError, ValidationError } from "@/lib/http/errors";
+import { ConflictError, ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { REPORT_RESULTS_MAX, reportRequestSchema } from "@/lib/report/schemas";
+import { chosenRevisionNumber, noSuchRevision } from "@/app/api/projects/[projectId]/_lib/report-data";
 
 /**
  * Asks for the review report PDF of a revision (the current one when none is named): the jobs process makes and
  * stores it; the answer is the job to follow (GET …/jobs/<id>), whose outcome names the stored file when done.
  */
 export const POST = projectRoute({ params: projectParamsSchema, body: reportRequestSchema, action: "report.make" }, async ({ params: { projectId }, body, user }) => {
-  const number = body.revision ?? (await getDefaultRevisionNumber({ projectId }));
-  if (number === null) throw new NotFoundError("This project has no model revision yet.");
+  const number = await chosenRevisionNumber({ projectId, revision: body.revision });
+  // Only the result ids are read here (the stored analysis of a large roof is megabytes); the job reads the rest.
   const revision = await getRevisionResultIds({ projectId, number });
-  if (!revision) throw new NotFoundError(`Revision ${number} does not exist in this project.`);
+  if (!revision) throw noSuchRevision(number);
   if (revision.status === null) throw new ConflictError(`Revision ${number} has not been analysed yet; make the report once its analysis is stored.`);
   if (revision.status === "unstable") throw new ConflictError(`Revision ${number} is unstable: it has no forces to report.`);
   const known = new Set([...revision.loadCases, ...revision.combinations]);
