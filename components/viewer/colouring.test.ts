@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { packBits, VERDICT_CODES } from "@/lib/models/result-columns";
-import { computeAppearance, countStates, divergingColour, forceStates, hexToRgb, memberRadius, STATE_CODE, type ResultColumnsView } from "./colouring";
+import { computeAppearance, countStates, deltaForceColour, divergingColour, forceStates, hexToRgb, memberRadius, STATE_CODE, type ResultColumnsView } from "./colouring";
 import type { MemberVerdict } from "./types";
 
 // Palette values copied from the product glossary ("Words and colours on screen"): tension #0f766e,
@@ -109,5 +109,36 @@ describe("other colourings", () => {
     expect(look.legend.title).toBe("Change from LC2 to LC1");
     // N(LC1) − N(LC2): A +20, B −60, C +3, D 0 (kN), so B changes most.
     expect(look.legend.note).toBe("Largest change of force: B, −60.0 kN");
+  });
+});
+
+describe("ΔN between two results (compare mode's force scale)", () => {
+  // N(LC1) − N(LC2) by hand: A 100 − 80 = +20, B −50 − 10 = −60, C 0 − (−3) = +3, D 2 − 2 = 0 kN.
+  const other = columnsOf({ A: 80, B: 10, C: -3, D: 2 }, []);
+  const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "deltaForce", unitLength: 1, lowForceThreshold: 0, compareColumns: other, compareLabel: "LC2", memberIds: ids });
+  // The scale's colours (ours, components/viewer/config.ts deltaForceScale) and the neutral tint #f1f5f9.
+  const RISE = [0x1e / 255, 0x40 / 255, 0xaf / 255];
+  const FALL = [0x92 / 255, 0x40 / 255, 0x0e / 255];
+  const NEUTRAL = [0xf1 / 255, 0xf5 / 255, 0xf9 / 255];
+
+  it("draws the largest fall in the full fall colour, no change in the neutral tint, and a rise part of the way", () => {
+    colourOf(look.colours, 1).forEach((c, a) => expect(c).toBeCloseTo(FALL[a], 5));
+    colourOf(look.colours, 3).forEach((c, a) => expect(c).toBeCloseTo(NEUTRAL[a], 5));
+    // A: +20 of 60 kN, a third of the way from the neutral tint to the rise colour.
+    colourOf(look.colours, 0).forEach((c, a) => expect(c).toBeCloseTo(NEUTRAL[a] + (RISE[a] - NEUTRAL[a]) / 3, 5));
+    expect(Array.from(look.translucent)).toEqual([0, 0, 0, 1]);
+  });
+
+  it("gives the legend the scale's values, ±60 kN about 0, and counts each side", () => {
+    expect(look.legend.title).toBe("ΔN from LC2 to LC1");
+    expect(look.legend.scale).toMatchObject({ min: -60, max: 60, unit: "kN", fromColour: "#92400e", midColour: "#f1f5f9", toColour: "#1e40af" });
+    expect(Object.fromEntries(look.legend.entries.map((e) => [e.key, e.count]))).toEqual({ rise: 2, fall: 1, same: 1 });
+    expect(look.legend.note).toBe("Largest change of force: B, −60.0 kN");
+  });
+
+  it("takes Float32 noise for no change (design.md's zero-force rule applied to ΔN)", () => {
+    expect(deltaForceColour(1e-12, 0)).toEqual(hexToRgb("#f1f5f9"));
+    expect(deltaForceColour(5e-5, 100)).toEqual(hexToRgb("#f1f5f9"));
+    deltaForceColour(-100, 100).forEach((c, a) => expect(c).toBeCloseTo(FALL[a], 9));
   });
 });

@@ -2,11 +2,11 @@
 // lib/models/result-columns.ts): no member is looked up by id. The mesh layer copies the arrays returned here
 // straight into the instance buffers, so switching result or colouring never rebuilds geometry.
 import { bitAt, VERDICT_CODES, type WireColumns } from "@/lib/models/result-columns";
-import { memberLook, palette, utilisationScale, verdictColours } from "./config";
+import { deltaForceScale, memberLook, palette, utilisationScale, verdictColours } from "./config";
 import type { MemberVerdict } from "./types";
 import { FORCE_STATE_LABELS, forceStateOf, type ForceState } from "@/lib/vocabulary/force-state";
 
-export type ColourMode = "forceState" | "magnitude" | "utilisation" | "zeroInAll" | "verdict" | "compare";
+export type ColourMode = "forceState" | "magnitude" | "utilisation" | "zeroInAll" | "verdict" | "compare" | "deltaForce";
 export type Rgb = readonly [number, number, number];
 
 export const colourModeLabels: Record<ColourMode, string> = {
@@ -16,7 +16,35 @@ export const colourModeLabels: Record<ColourMode, string> = {
   zeroInAll: "Zero in every case and combination",
   verdict: "Member verdict",
   compare: "Change of state between two results",
+  deltaForce: "Change of axial force ΔN between two results",
 };
+
+/** The colourings that read a second result (the one compared with). */
+export function comparesTwoResults(mode: ColourMode): boolean {
+  return mode === "compare" || mode === "deltaForce";
+}
+
+/**
+ * Whether a change of force counts as none: the zero-force rule of design.md ("The model format") applied to ΔN,
+ * |ΔN| <= 1e-6 x the largest |ΔN| or <= 1e-9 kN, so Float32 noise between two results is not a change.
+ */
+export function isNoChange(delta: number, largestAbsDelta: number): boolean {
+  return Math.abs(delta) <= Math.max(1e-9, 1e-6 * largestAbsDelta);
+}
+
+/** Diverging ΔN scale: the fall colour at -max, the neutral tint at 0, the rise colour at +max. */
+export function deltaForceColour(delta: number, largestAbsDelta: number): Rgb {
+  const neutral = hexToRgb(palette.neutral);
+  if (isNoChange(delta, largestAbsDelta)) return neutral;
+  return mixRgb(neutral, hexToRgb(delta > 0 ? deltaForceScale.rise : deltaForceScale.fall), Math.abs(delta) / largestAbsDelta);
+}
+
+/** Largest |N(a) − N(b)| over the members (0 when nothing changed). */
+export function largestAbsDelta(a: Float32Array, b: Float32Array): number {
+  let max = 0;
+  for (let k = 0; k < a.length; k += 1) max = Math.max(max, Math.abs(a[k] - b[k]));
+  return max;
+}
 
 /** State codes stored per member in a Uint8Array. */
 export const STATE_CODE = { tension: 0, compression: 1, "zero-force": 2 } as const satisfies Record<ForceState, number>;
@@ -107,7 +135,7 @@ export interface AppearanceInput {
   unitLength: number;
   /** |N| below this (kN) and not zero-force: drawn as low-force. 0 turns the tint off. */
   lowForceThreshold: number;
-  /** The other result for the "compare" colouring: the change is from it to the chosen result. */
+  /** The other result for the colourings that compare two (comparesTwoResults): the change is from it to the chosen result. */
   compareColumns?: ResultColumnsView;
   compareLabel?: string;
   /** Member ids in column order, to name the member of the largest change when comparing. */
@@ -137,6 +165,7 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
   const radii = new Float32Array(count);
   const translucent = new Uint8Array(count);
   const compareStates = mode === "compare" && input.compareColumns ? forceStates(input.compareColumns) : null;
+  const maxDelta = mode === "deltaForce" && input.compareColumns ? largestAbsDelta(columns.forces, input.compareColumns.forces) : 0;
   // Largest change of axial force between the two results (member index and N(chosen) − N(compared), kN).
   let largestChange = { k: -1, delta: 0 };
   const tally = new Map<string, number>();
@@ -192,18 +221,28 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
         else bump("same");
         break;
       }
+      case "deltaForce": {
+        const delta = input.compareColumns ? force - input.compareColumns.forces[k] : 0;
+        if (Math.abs(delta) > Math.abs(largestChange.delta)) largestChange = { k, delta };
+        const same = isNoChange(delta, maxDelta);
+        colour = deltaForceColour(delta, maxDelta);
+        translucent[k] = same ? 1 : 0;
+        bump(same ? "same" : delta > 0 ? "rise" : "fall");
+        break;
+      }
     }
     colours.set(colour, k * 3);
   }
 
-  const legend = buildLegend(input, counts, tally, maxAbs);
-  if (mode === "compare" && largestChange.k >= 0 && input.memberIds) {
+  const legend = buildLegend(input, counts, tally, mode === "deltaForce" ? maxDelta : maxAbs);
+  if (comparesTwoResults(mode) && largestChange.k >= 0 && input.memberIds) {
     const d = largestChange.delta;
     legend.note = `Largest change of force: ${input.memberIds[largestChange.k]}, ${d > 0 ? "+" : "−"}${Math.abs(d).toFixed(1)} kN`;
   }
   return { colours, radii, translucent, states, legend };
 }
 
+/** The legend of a colouring; `maxAbs` is the scale's end: the largest |N|, or the largest |ΔN| when comparing forces. */
 function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<string, number>, maxAbs: number): Legend {
   const n = (key: string) => tally.get(key) ?? 0;
   const base = { title: colourModeLabels[input.mode], resultLabel: input.resultLabel, counts };
@@ -265,6 +304,17 @@ function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<str
           { key: "to-zero-force", label: "Now zero-force", colour: palette.zeroForce, count: n("to-zero-force") },
           { key: "same", label: "Unchanged", colour: palette.filteredOut, count: n("same") },
         ],
+      };
+    case "deltaForce":
+      return {
+        ...base,
+        title: `ΔN from ${input.compareLabel ?? "?"} to ${input.resultLabel}`,
+        entries: [
+          { key: "rise", label: "ΔN > 0: towards tension", colour: deltaForceScale.rise, count: n("rise") },
+          { key: "fall", label: "ΔN < 0: towards compression", colour: deltaForceScale.fall, count: n("fall") },
+          { key: "same", label: "No change", colour: palette.neutral, count: n("same") },
+        ],
+        scale: { min: -maxAbs, max: maxAbs, unit: "kN", fromColour: deltaForceScale.fall, midColour: palette.neutral, toColour: deltaForceScale.rise },
       };
   }
 }

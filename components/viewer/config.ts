@@ -27,6 +27,14 @@ export const verdictColours = {
   idle: "#db2777",
 } as const;
 
+/**
+ * ΔN ramp of the comparison (change of axial force from the compared result to the chosen one): deep blue where the
+ * force moved towards tension, dark amber where it moved towards compression, the neutral tint where it did not
+ * change. Ours, kept apart from the tension and compression colours (a rise in N is not tension); blue against amber
+ * stays apart for the common colour-vision types.
+ */
+export const deltaForceScale = { rise: "#1e40af", fall: "#92400e" } as const;
+
 /** Utilisation ramp: light at 0, deep navy at 1; anything over 1 is drawn in a warning red. */
 export const utilisationScale = { low: "#e2e8f0", high: "#1e3a8a", over: "#b91c1c" } as const;
 

@@ -6,7 +6,7 @@ import { useFrame, useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo, useRef } from "react";
 import { CylinderGeometry, DynamicDrawUsage, InstancedBufferAttribute, InstancedMesh, MeshBasicMaterial, MeshLambertMaterial } from "three";
 import type { WireColumns } from "@/lib/models/result-columns";
-import { computeAppearance, hexToRgb, type MemberAppearance } from "./colouring";
+import { comparesTwoResults, computeAppearance, hexToRgb, type MemberAppearance } from "./colouring";
 import { memberLook, palette } from "./config";
 import { disposeInstancedMesh } from "./dispose";
 import { visibleMask } from "./filters";
@@ -106,7 +106,7 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
     if (!columns || !resultId || columns.memberCount !== count) return null;
     const compare = compareResultId && compareResultId !== resultId ? compareColumns : undefined;
     // Comparing waits for the other result's columns rather than showing the force state under a compare heading.
-    if (mode === "compare" && (!compare || compare.memberCount !== count)) return null;
+    if (comparesTwoResults(mode) && (!compare || compare.memberCount !== count)) return null;
     return computeAppearance({
       columns,
       resultLabel: resultLabel(prepared.model, resultId),

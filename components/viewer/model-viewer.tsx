@@ -9,6 +9,7 @@ import type { RevisionWithResults } from "@/db/queries/models";
 import { classifyMembers } from "@/lib/analysis/classify";
 import { LiveJob } from "@/components/jobs/job-progress";
 import { apiFetch } from "@/lib/http/fetcher";
+import { comparesTwoResults } from "./colouring";
 import { HoverTooltip } from "./hover-tooltip";
 import { InfluenceLayer } from "./layers/influence-layer";
 import { LabelsOverlay } from "./labels-layer";
@@ -73,7 +74,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
   const colourMode = useViewerStore((s) => s.colourMode);
   const analysed = analysis?.status === "ok";
   const { columns, error: columnsError, retry: retryColumns } = useResultColumns(projectId, revisionNumber, analysed && resultId && ids.includes(resultId) ? resultId : null);
-  const compare = useResultColumns(projectId, revisionNumber, analysed && colourMode === "compare" && compareResultId && ids.includes(compareResultId) ? compareResultId : null);
+  const compare = useResultColumns(projectId, revisionNumber, analysed && comparesTwoResults(colourMode) && compareResultId && ids.includes(compareResultId) ? compareResultId : null);
 
   useEffect(() => {
     if (!prepared) return;

@@ -2,7 +2,7 @@
 // Controls of the viewer: result, colouring, comparison, filters, section box, deflected shape, find, labels,
 // measure, camera, PNG.
 import { useState } from "react";
-import { colourModeLabels, type ColourMode } from "./colouring";
+import { colourModeLabels, comparesTwoResults, type ColourMode } from "./colouring";
 import { autoDeflectionScale, roundedModelBox, type SectionBox } from "./filters";
 import { FindBox } from "./find-box";
 import { defaultCompareResult, resultLabel, type PreparedModel } from "./prepare";
@@ -48,15 +48,15 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
 
   const labelsOn = useViewerStore((s) => s.labelsOn);
   const tool = useViewerStore((s) => s.tool);
-  const modes = (Object.keys(colourModeLabels) as ColourMode[]).filter((m) => (hasReview || (m !== "utilisation" && m !== "verdict")) && (m !== "compare" || ids.length > 1));
+  const modes = (Object.keys(colourModeLabels) as ColourMode[]).filter((m) => (hasReview || (m !== "utilisation" && m !== "verdict")) && (!comparesTwoResults(m) || ids.length > 1));
   // Compare mode compares at once: with the next result unless another one (not the chosen one) was picked before.
   const chooseMode = (m: ColourMode) => {
     const other = useViewerStore.getState().compareResultId;
-    if (m === "compare" && (!other || other === resultId || !ids.includes(other))) store.setCompareResult(defaultCompareResult(ids, resultId));
+    if (comparesTwoResults(m) && (!other || other === resultId || !ids.includes(other))) store.setCompareResult(defaultCompareResult(ids, resultId));
     store.setColourMode(m);
   };
   const chooseResult = (id: string) => {
-    if (mode === "compare" && id === compareResultId) store.setCompareResult(defaultCompareResult(ids, id));
+    if (comparesTwoResults(mode) && id === compareResultId) store.setCompareResult(defaultCompareResult(ids, id));
     store.setResult(id);
   };
   const updateBox = (end: "min" | "max", axis: number, value: number) => {
@@ -85,7 +85,7 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
           ))}
         </select>
       </label>
-      {mode === "compare" ? (
+      {comparesTwoResults(mode) ? (
         <ResultSelect prepared={prepared} ids={ids} value={compareResultId} onChange={store.setCompareResult} testId="viewer-compare" label="Compared with" />
       ) : null}
       {mode === "forceState" ? (
