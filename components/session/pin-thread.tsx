@@ -12,7 +12,7 @@ import type { CommentKind, PresentedComment, PresentedPin, PinState, Vec3 } from
 import { threadStanding } from "@/lib/realtime/thread-record";
 import { ThreadEntry } from "./thread-entry";
 import { ThreadReplyKind, replyKindsFor } from "./thread-reply-kind";
-import { PinView } from "./pin-view";
+import { currentView, PinView } from "./pin-view";
 import { useSessionStore } from "./session-store";
 import { send, type ReviewSocket } from "./use-review-socket";
 
@@ -27,6 +27,7 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
   const [body, setBody] = useState("");
   const [kind, setKind] = useState<CommentKind>("comment");
   const [conditions, setConditions] = useState("");
+  const [attachView, setAttachView] = useState(false);
   const [message, setMessage] = useState<string | null>(null);
   const standing = threadStanding(comments);
   const replyKinds = replyKindsFor(asker, standing);
@@ -46,12 +47,15 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
   async function handleReply(event: FormEvent) {
     event.preventDefault();
     const withConditions = chosen === "decision" && conditions.trim() ? { conditions } : {};
-    const ack = await send<PresentedComment>(socket, "comment:create", { id: crypto.randomUUID(), pinId: pin.id, body, kind: chosen, ...withConditions });
+    const view = attachView ? currentView() : null;
+    if (attachView && !view) return setMessage("The 3D view is not ready yet; wait for the model to appear.");
+    const ack = await send<PresentedComment>(socket, "comment:create", { id: crypto.randomUUID(), pinId: pin.id, body, kind: chosen, ...withConditions, ...(view ? { viewpoint: view } : {}) });
     if (!ack.ok) return setMessage(ack.issues?.[0]?.message ?? ack.error);
     useSessionStore.getState().addComments([ack.data]);
     setBody("");
     setKind("comment");
     setConditions("");
+    setAttachView(false);
     setMessage(null);
   }
 
@@ -93,6 +97,10 @@ export function PinThread({ socket, projectId, pin, position }: { socket: Review
         <form className="flex flex-col gap-1" onSubmit={handleReply}>
           <textarea className="rounded-md border border-board-200 px-2 py-1 text-sm" aria-label="Reply" placeholder="Reply (use @name to ask someone)" value={body} onChange={(e) => setBody(e.target.value)} data-testid="comment-body" />
           <ThreadReplyKind kinds={replyKinds} kind={chosen} onKind={setKind} conditions={conditions} onConditions={setConditions} />
+          <label className="flex items-center gap-1 text-xs">
+            <input type="checkbox" checked={attachView} onChange={(e) => setAttachView(e.target.checked)} data-testid="comment-attach-view" />
+            Keep my current view with the reply (camera, result, colouring, section box)
+          </label>
           <Button type="submit" data-testid="comment-submit">
             Reply
           </Button>

@@ -6,19 +6,19 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { Button, FieldError } from "@/components/ui/form";
 import type { ColourMode } from "@/components/viewer/colouring";
 import { useViewerStore } from "@/components/viewer/viewer-store";
-import type { PinViewpoint, SavePinViewInput } from "@/lib/bcf";
+import type { Viewpoint, SavePinViewInput } from "@/lib/bcf";
 import { apiFetch } from "@/lib/http/fetcher";
 
 interface SavedView {
-  viewpoint: PinViewpoint | null;
+  viewpoint: Viewpoint | null;
   snapshotUrl: string | null;
   canSave: boolean;
 }
 
-const COLOUR_MODES: readonly ColourMode[] = ["forceState", "magnitude", "utilisation", "zeroInAll", "verdict", "compare"];
+const COLOUR_MODES: readonly ColourMode[] = ["forceState", "magnitude", "utilisation", "zeroInAll", "verdict", "compare", "deltaForce"];
 
 /** The viewer's current view as a pin keeps it, or null before the camera is up. */
-export function currentView(): PinViewpoint | null {
+export function currentView(): Viewpoint | null {
   const s = useViewerStore.getState();
   if (!s.cameraPose) return null;
   return {
@@ -31,7 +31,7 @@ export function currentView(): PinViewpoint | null {
 }
 
 /** Puts the viewer back into a saved view. */
-export function restoreView(view: PinViewpoint): void {
+export function restoreView(view: Viewpoint): void {
   const s = useViewerStore.getState();
   if (view.result) s.setResult(view.result);
   const colouring = COLOUR_MODES.find((m) => m === view.colouring);

@@ -29,6 +29,7 @@ const comment = (id: string, createdAt: string): PresentedComment => ({
   analysisRunId: null,
   caution: null,
   supersedesId: null,
+  viewpoint: null,
   mentions: [],
   createdAt,
 });

@@ -43,3 +43,37 @@ describe("influence map in the viewer store", () => {
     expect(useViewerStore.getState().influence).toBeNull();
   });
 });
+
+describe("placing a pin with a click", () => {
+  // A fake picker: member M7 is under x < 100, nothing elsewhere (the real one is tested in picking.test.ts).
+  const picker = {
+    pickAt: (x: number) => (x < 100 ? { kind: "member" as const, id: "M7", point: [1, 2, 3] as [number, number, number] } : null),
+    screenOf: () => null,
+  };
+  beforeEach(() => {
+    useViewerStore.getState().reset("C1");
+    useViewerStore.getState().registerPicker(picker);
+  });
+
+  it("keeps the member and the point clicked, goes back to selecting, and selects nothing meanwhile", () => {
+    const store = useViewerStore.getState();
+    store.setTool("pin");
+    store.clickAt(50, 50);
+    const s = useViewerStore.getState();
+    expect(s.pinSpot).toEqual({ kind: "member", id: "M7", point: [1, 2, 3] });
+    expect(s.tool).toBe("select");
+    expect(s.selectedMemberId).toBeNull();
+  });
+
+  it("says a miss was a miss and waits for another click", () => {
+    const store = useViewerStore.getState();
+    store.setTool("pin");
+    store.clickAt(500, 50);
+    expect(useViewerStore.getState().pinSpot).toBe("missed");
+    expect(useViewerStore.getState().tool).toBe("pin");
+    store.clickAt(20, 50);
+    expect(useViewerStore.getState().pinSpot).toMatchObject({ id: "M7" });
+    store.clearPinSpot();
+    expect(useViewerStore.getState().pinSpot).toBeNull();
+  });
+});

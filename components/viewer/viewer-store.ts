@@ -12,6 +12,8 @@
 //                                                             with a pixel tolerance; picking.ts), or null
 //   useViewerStore.subscribe((s) => s.lastPick, …)            hear what the last click on the canvas picked (a node,
 //                                                             a member and the point on it), null after a miss
+//   useViewerStore.getState().setTool("pin")                  the next click on a member or node is where a new pin
+//                                                             goes (`pinSpot`; "missed" after a click on empty space)
 // Components read it with selectors (`useViewerStore((s) => s.colourMode)`); per-frame code uses getState().
 import { create } from "zustand";
 import { subscribeWithSelector } from "zustand/middleware";
@@ -54,8 +56,11 @@ export interface Picker {
   screenOf(point: Vec3): { x: number; y: number } | null;
 }
 
-/** What a click on the canvas does: select what is under it, or add a point to the distance being measured. */
-export type ViewerTool = "select" | "measure";
+/**
+ * What a click on the canvas does: select what is under it, add a point to the distance being measured, or choose
+ * where a new pin goes.
+ */
+export type ViewerTool = "select" | "measure" | "pin";
 
 export interface DeflectionSettings { enabled: boolean; scale: number }
 
@@ -73,6 +78,8 @@ export interface ViewerState {
   tool: ViewerTool;
   /** Points picked for a distance: none, one, or two (the distance is shown). */
   measurePoints: PickedThing[];
+  /** Where the next pin goes, clicked with the "pin" tool; "missed" after a click on empty space in that mode. */
+  pinSpot: PickedThing | "missed" | null;
   /** Member and node labels on; `labels` holds where the ones drawn now are (labels-layer.tsx). */
   labelsOn: boolean;
   labels: { spots: LabelSpot[]; inView: number } | null;
@@ -103,6 +110,8 @@ export interface ViewerState {
   pickAt(clientX: number, clientY: number): PickedThing | null;
   registerPicker(picker: Picker | null): void;
   setTool(tool: ViewerTool): void;
+  /** Forgets the chosen pin spot (the pin was made, or the form was cleared). */
+  clearPinSpot(): void;
   setVisibleMembers(mask: Uint8Array): void;
   setLabelsOn(on: boolean): void;
   setLabels(labels: { spots: LabelSpot[]; inView: number } | null): void;
@@ -139,6 +148,7 @@ const initial = {
   lastPick: null,
   tool: "select" as ViewerTool,
   measurePoints: [],
+  pinSpot: null,
   labels: null,
   compareResultId: null,
   colourMode: "forceState" as ColourMode,
@@ -178,6 +188,11 @@ export const useViewerStore = create<ViewerState>()(
     clickAt: (clientX, clientY) => {
       const picked = get().pickAt(clientX, clientY);
       set({ lastPick: picked });
+      if (get().tool === "pin") {
+        // One click places the pin; a miss keeps the mode so the next click can try again.
+        set(picked ? { pinSpot: picked, tool: "select" } : { pinSpot: "missed" });
+        return;
+      }
       if (get().tool === "measure") {
         if (!picked) return;
         const points = get().measurePoints;
@@ -192,7 +207,8 @@ export const useViewerStore = create<ViewerState>()(
       }
     },
     registerPicker: (picker) => set({ picker }),
-    setTool: (tool) => set({ tool, measurePoints: [] }),
+    setTool: (tool) => set({ tool, measurePoints: [], ...(tool === "pin" ? { pinSpot: null } : {}) }),
+    clearPinSpot: () => set({ pinSpot: null }),
     setVisibleMembers: (mask) => set({ visibleMembers: mask }),
     labelsOn: false,
     setLabelsOn: (on) => set({ labelsOn: on }),

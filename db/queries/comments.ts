@@ -21,6 +21,7 @@ function presentComment({ comment, authorName, revision }: CommentRow): Presente
     analysisRunId: comment.analysisRunId,
     caution: comment.caution,
     supersedesId: comment.supersedesId,
+    viewpoint: comment.viewpoint,
   };
 }
 

@@ -3,7 +3,7 @@ import { and, asc, eq, gt, inArray, sql, type SQL } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
 import { comments, pins, users } from "../schema";
 import type { StoredPinViewpoint } from "../../lib/bcf/viewpoint";
-import type { Anchor, PinCreateInput, PinFilter, PinState, PresentedPin } from "../../lib/realtime/events";
+import type { Anchor, PinCreateInput, PinFilter, PinState, PresentedPin, Vec3 } from "../../lib/realtime/events";
 
 const pinColumns = {
   pin: pins,
@@ -14,8 +14,10 @@ const pinColumns = {
 type PinRow = { pin: typeof pins.$inferSelect; authorName: string; commentCount: number };
 
 function anchorOf(pin: typeof pins.$inferSelect): Anchor {
-  if (pin.anchorKind === "point") return { kind: "point", point: [pin.anchorX ?? 0, pin.anchorY ?? 0, pin.anchorZ ?? 0] };
-  return { kind: pin.anchorKind, id: pin.anchorId ?? "" };
+  const point: Vec3 | null = pin.anchorX === null || pin.anchorY === null || pin.anchorZ === null ? null : [pin.anchorX, pin.anchorY, pin.anchorZ];
+  if (pin.anchorKind === "point") return { kind: "point", point: point ?? [0, 0, 0] };
+  if (pin.anchorKind === "clash") return { kind: "clash", id: pin.anchorId ?? "" };
+  return { kind: pin.anchorKind, id: pin.anchorId ?? "", ...(point ? { point } : {}) };
 }
 
 /** The pin as sent to browsers: anchor as one object, author by name, times as ISO strings. */
@@ -64,6 +66,7 @@ export async function listPinsChangedSince({ projectId, since }: { projectId: st
 /** Stores a pin unless its id is already stored (a client retry); answers whether this call wrote it. */
 export async function insertPin({ db, projectId, authorId, input }: { db: Executor; projectId: string; authorId: string; input: PinCreateInput }): Promise<boolean> {
   const { anchor } = input;
+  const point = "point" in anchor ? anchor.point : undefined;
   const inserted = await db
     .insert(pins)
     .values({
@@ -71,9 +74,9 @@ export async function insertPin({ db, projectId, authorId, input }: { db: Execut
       projectId,
       anchorKind: anchor.kind,
       anchorId: anchor.kind === "point" ? null : anchor.id,
-      anchorX: anchor.kind === "point" ? anchor.point[0] : null,
-      anchorY: anchor.kind === "point" ? anchor.point[1] : null,
-      anchorZ: anchor.kind === "point" ? anchor.point[2] : null,
+      anchorX: point?.[0] ?? null,
+      anchorY: point?.[1] ?? null,
+      anchorZ: point?.[2] ?? null,
       revisionId: input.revisionId,
       title: input.title,
       discipline: input.discipline,

@@ -15,6 +15,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import type { StoredPinViewpoint } from "../../lib/bcf/viewpoint";
+import type { Viewpoint } from "../../lib/realtime/viewpoint";
 import { ANCHOR_KINDS, COMMENT_KINDS, DISCIPLINES, PIN_STATES, type SessionView } from "../../lib/realtime/events";
 import { bytea } from "./bytea";
 import { projectRole, projects, timestamps, users } from "./core";
@@ -38,6 +39,7 @@ export const pins = pgTable(
     anchorKind: anchorKind().notNull(),
     // Member, node or clash id (stable across revisions); null for a point anchor.
     anchorId: text(),
+    // A point anchor's point, or the point clicked on a member's axis or a node when the pin was placed in 3D (m).
     anchorX: doublePrecision(),
     anchorY: doublePrecision(),
     anchorZ: doublePrecision(),
@@ -94,6 +96,9 @@ export const comments = pgTable(
     analysisRunId: uuid().references(() => analysisRuns.id, { onDelete: "set null" }),
     caution: text(),
     supersedesId: uuid(),
+    // The writer's view when the comment was written (camera, selected member, result, colouring, section box);
+    // set once with the comment, never changed.
+    viewpoint: jsonb().$type<Viewpoint>(),
     ...timestamps,
   },
   (t) => [index("comments_pin_idx").on(t.pinId, t.createdAt), uniqueIndex("comments_bcf_guid_idx").on(t.pinId, t.bcfGuid)],

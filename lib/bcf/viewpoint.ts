@@ -1,29 +1,19 @@
 import { z } from "zod";
-import { vec3Schema } from "@/lib/realtime/events";
+import { viewpointSchema, type Viewpoint } from "@/lib/realtime/viewpoint";
 import type { BcfClippingPlane, BcfViewpoint, Vec3 } from "./types";
-
-/** What a pin remembers of the view it was made in: camera, selected member, result, colouring and section box. */
-export const pinViewpointSchema = z.object({
-  camera: z.object({ position: vec3Schema, target: vec3Schema, up: vec3Schema.optional(), fieldOfView: z.number().gt(0).lt(180).optional() }),
-  selectedMember: z.string().trim().min(1).max(120).optional(),
-  result: z.string().trim().min(1).max(120).optional(),
-  colouring: z.string().trim().min(1).max(60).optional(),
-  sectionBox: z.object({ min: vec3Schema, max: vec3Schema }).optional(),
-});
-export type PinViewpoint = z.infer<typeof pinViewpointSchema>;
 
 /**
  * A saved view as stored on the pin: the view, plus the id of its snapshot PNG in object storage. The id is set
- * only by the server (the input schema above strips it), so a client cannot point a view at another file.
+ * only by the server (viewpointSchema strips it), so a client cannot point a view at another file.
  */
-export type StoredPinViewpoint = PinViewpoint & { snapshotId?: string };
+export type StoredPinViewpoint = Viewpoint & { snapshotId?: string };
 
 /** Largest snapshot PNG a saved view takes (bytes); its base64 form is a third larger. */
 export const SNAPSHOT_BYTES = 5 * 1024 * 1024;
 
 /** PUT …/pins/<id>/viewpoint: the view, and the canvas capture as a PNG data URL (checked again from its bytes). */
 export const savePinViewSchema = z.object({
-  viewpoint: pinViewpointSchema,
+  viewpoint: viewpointSchema,
   snapshot: z
     .string()
     .max(Math.ceil((SNAPSHOT_BYTES * 4) / 3) + 32, "The snapshot is larger than 5 MB.")
@@ -43,7 +33,7 @@ const TARGET_DISTANCE = 10;
  * A BCF viewpoint from a pin's view. BCF clipping planes keep what lies behind the plane (the direction points to the
  * clipped side: BCF-XML documentation, from memory), so a section box becomes six planes pointing outwards.
  */
-export function toBcfViewpoint(guid: string, view: PinViewpoint, globalIdOf: (memberId: string) => string): BcfViewpoint {
+export function toBcfViewpoint(guid: string, view: Viewpoint, globalIdOf: (memberId: string) => string): BcfViewpoint {
   const direction = unit(sub(view.camera.target, view.camera.position));
   const upHint = view.camera.up ?? [0, 0, 1];
   // The up vector must be perpendicular to the direction; looking straight down, y is up.
@@ -67,20 +57,20 @@ export function toBcfViewpoint(guid: string, view: PinViewpoint, globalIdOf: (me
 }
 
 /** A pin's view from a BCF viewpoint; the section box is kept only when the planes are six axis-aligned faces. */
-export function fromBcfViewpoint(viewpoint: BcfViewpoint, memberOf: (globalId: string) => string | undefined): PinViewpoint | undefined {
+export function fromBcfViewpoint(viewpoint: BcfViewpoint, memberOf: (globalId: string) => string | undefined): Viewpoint | undefined {
   const camera = viewpoint.camera;
   if (!camera) return undefined;
   const d = unit(camera.direction);
   const target: Vec3 = [camera.position[0] + d[0] * TARGET_DISTANCE, camera.position[1] + d[1] * TARGET_DISTANCE, camera.position[2] + d[2] * TARGET_DISTANCE];
   const selectedMember = viewpoint.selection.map(memberOf).find((m) => m !== undefined);
-  const view: PinViewpoint = { camera: { position: camera.position, target, up: camera.up, ...(camera.kind === "perspective" ? { fieldOfView: camera.fieldOfView } : {}) } };
+  const view: Viewpoint = { camera: { position: camera.position, target, up: camera.up, ...(camera.kind === "perspective" ? { fieldOfView: camera.fieldOfView } : {}) } };
   if (selectedMember) view.selectedMember = selectedMember;
   const box = sectionBoxOf(viewpoint.clippingPlanes);
   if (box) view.sectionBox = box;
-  return pinViewpointSchema.safeParse(view).success ? view : undefined;
+  return viewpointSchema.safeParse(view).success ? view : undefined;
 }
 
-function sectionBoxOf(planes: BcfClippingPlane[]): PinViewpoint["sectionBox"] {
+function sectionBoxOf(planes: BcfClippingPlane[]): Viewpoint["sectionBox"] {
   if (planes.length !== 6) return undefined;
   const min: Vec3 = [Number.NaN, Number.NaN, Number.NaN];
   const max: Vec3 = [Number.NaN, Number.NaN, Number.NaN];

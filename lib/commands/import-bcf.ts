@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { getDb } from "@/db/client";
 import { findPinsByTopicGuids, insertImportedComments, insertImportedPin, listCommentGuids, touchPin } from "@/db/queries/bcf";
 import { listMembersByProject } from "@/db/queries/memberships";
-import { disciplineOf, fromBcfViewpoint, pinStateOf, type BcfFile, type BcfTopic, type PinViewpoint } from "@/lib/bcf";
+import { disciplineOf, fromBcfViewpoint, pinStateOf, type BcfFile, type BcfTopic, type Viewpoint } from "@/lib/bcf";
 import { withStoredFiles } from "@/lib/commands/stored-files";
 import { runCommand } from "./command";
 
@@ -19,7 +19,7 @@ const dateOr = (iso: string | undefined, fallback: Date) => {
 };
 
 /** The first viewpoint of a topic we can show (a camera), with its snapshot PNG when it has one. */
-function firstView(topic: BcfTopic, memberOf: (globalId: string) => string | undefined): { view: PinViewpoint; snapshot?: Uint8Array } | undefined {
+function firstView(topic: BcfTopic, memberOf: (globalId: string) => string | undefined): { view: Viewpoint; snapshot?: Uint8Array } | undefined {
   for (const viewpoint of topic.viewpoints) {
     const view = fromBcfViewpoint(viewpoint, memberOf);
     if (view) return { view, snapshot: viewpoint.snapshot };

@@ -1,6 +1,6 @@
 import "server-only";
 import { getPinViewpoint, setPinViewpoint } from "@/db/queries/pins";
-import type { PinViewpoint, StoredPinViewpoint } from "@/lib/bcf";
+import type { Viewpoint, StoredPinViewpoint } from "@/lib/bcf";
 import { NotFoundError } from "@/lib/http/errors";
 import { removeStoredFile, withStoredFiles } from "@/lib/commands/stored-files";
 import { runCommand } from "./command";
@@ -11,7 +11,7 @@ import { runCommand } from "./command";
  * record and the audit event then commit together, and a pin removed meanwhile leaves no file behind. The snapshot
  * it replaces is removed once the new view is committed.
  */
-export async function savePinViewpoint({ projectId, pinId, actorId, view, snapshot }: { projectId: string; pinId: string; actorId: string; view: PinViewpoint; snapshot?: Uint8Array }): Promise<StoredPinViewpoint> {
+export async function savePinViewpoint({ projectId, pinId, actorId, view, snapshot }: { projectId: string; pinId: string; actorId: string; view: Viewpoint; snapshot?: Uint8Array }): Promise<StoredPinViewpoint> {
   const files = snapshot ? [{ filename: `view-${pinId}.png`, bytes: snapshot }] : [];
   const saved = await withStoredFiles({ projectId, userId: actorId, purpose: "snapshot", files }, (record) =>
     runCommand(async ({ tx, audit }) => {

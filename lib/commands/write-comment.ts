@@ -10,6 +10,7 @@ import { ConflictError, ForbiddenError } from "@/lib/http/errors";
 import { threadStepRefusal } from "@/lib/permissions";
 import type { CommentKind, PresentedComment, PresentedNotification } from "@/lib/realtime/events";
 import { findMentions } from "@/lib/realtime/mentions";
+import type { Viewpoint } from "@/lib/realtime/viewpoint";
 import { isRecordStep, threadStanding, threadStepConflict } from "@/lib/realtime/thread-record";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { notifyMention, notifyThreadStep } from "./mail";
@@ -23,7 +24,7 @@ export type WrittenComment = {
   mentioned: { userId: string; email: string; name: string }[];
 };
 
-export type CommentInput = { id: string; projectId: string; pinId: string; authorId: string; authorName: string; body: string; kind: CommentKind; conditions?: string };
+export type CommentInput = { id: string; projectId: string; pinId: string; authorId: string; authorName: string; body: string; kind: CommentKind; conditions?: string; viewpoint?: Viewpoint };
 
 /**
  * A step of the post-comment and create-pin commands (runs in their transaction, the pin locked): asks the rule book
@@ -67,6 +68,7 @@ export async function writeComment(tx: Transaction, input: CommentInput): Promis
       analysisRunId: judgedOn?.analysisRunId ?? null,
       caution: step ? STANDING_CAUTION : null,
       supersedesId: input.kind === "supersession" ? (standing?.decisionId ?? null) : null,
+      viewpoint: input.viewpoint ?? null,
       // Taken after the pin's lock, so the record's order is the order its steps were admitted in.
       createdAt: new Date(),
     },

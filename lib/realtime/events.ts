@@ -3,6 +3,8 @@
 import { z } from "zod";
 import { ROLES } from "../permissions";
 import type { Invalidation } from "./live-events";
+import { vec3Schema, type Vec3 } from "./vec3";
+import { viewpointSchema } from "./viewpoint";
 
 export const PIN_STATES = ["open", "answered", "closed"] as const;
 export type PinState = (typeof PIN_STATES)[number];
@@ -21,16 +23,17 @@ export type Discipline = (typeof DISCIPLINES)[number];
 export const COMMENT_KINDS = ["comment", "proposal", "decision", "supersession"] as const;
 export type CommentKind = (typeof COMMENT_KINDS)[number];
 
-const finite = z.number().finite();
-export const vec3Schema = z.tuple([finite, finite, finite]);
-export type Vec3 = z.infer<typeof vec3Schema>;
+export { vec3Schema, type Vec3 };
 
 const elementId = z.string().trim().min(1).max(120);
 
-/** What a pin hangs on: a member, node or clash by its stable id, or a free point in model space (m). */
+/**
+ * What a pin hangs on: a member, node or clash by its stable id, or a free point in model space (m). A pin placed
+ * with a click in 3D also keeps the point clicked on the member's axis (or the node), so its marker sits there.
+ */
 export const anchorSchema = z.discriminatedUnion("kind", [
-  z.object({ kind: z.literal("member"), id: elementId }),
-  z.object({ kind: z.literal("node"), id: elementId }),
+  z.object({ kind: z.literal("member"), id: elementId, point: vec3Schema.optional() }),
+  z.object({ kind: z.literal("node"), id: elementId, point: vec3Schema.optional() }),
   z.object({ kind: z.literal("clash"), id: elementId }),
   z.object({ kind: z.literal("point"), point: vec3Schema }),
 ]);
@@ -73,7 +76,10 @@ export const pinCreateSchema = z.object({
 });
 export type PinCreateInput = z.infer<typeof pinCreateSchema>;
 
-/** A comment or a step of the thread's record; a supersession's body is its reason, a decision may carry conditions. */
+/**
+ * A comment or a step of the thread's record; a supersession's body is its reason, a decision may carry conditions;
+ * any of them may carry the writer's view.
+ */
 export const commentCreateSchema = z
   .object({
     id: z.uuid(),
@@ -81,6 +87,8 @@ export const commentCreateSchema = z
     body,
     kind: z.enum(COMMENT_KINDS).default("comment"),
     conditions: z.string().trim().max(4000).optional(),
+    /** The viewer's view when the comment was written, kept with it ("Show this view"). */
+    viewpoint: viewpointSchema.optional(),
   })
   .refine((input) => !input.conditions || input.kind === "decision", { path: ["conditions"], message: "Only a decision carries conditions." });
 export type CommentCreateInput = z.infer<typeof commentCreateSchema>;
@@ -140,6 +148,7 @@ export const commentSchema = z.object({
   analysisRunId: z.uuid().nullable(),
   caution: z.string().nullable(),
   supersedesId: z.uuid().nullable(),
+  viewpoint: viewpointSchema.nullable(),
 });
 export type PresentedComment = z.infer<typeof commentSchema>;
 
