@@ -5,6 +5,7 @@ import { solveSupernodalMany } from "./sparse/solve-many";
 import { factorSupernodal, solveSupernodal, type SupernodalFactor } from "./sparse/supernodal";
 import { analyzePattern, canReuse, type SymbolicAnalysis } from "./symbolic";
 import { buildTopology, type Topology } from "./topology";
+import { unitLoadForces, type UnitLoadBlock } from "./unit-load-forces";
 
 export type Direction = "ux" | "uy" | "uz";
 export type Instability = { node: string; directions: Direction[] };
@@ -44,6 +45,12 @@ export type PreparedStructure = {
    * `eliminationOrder` positions share most of their forward solve, which then skips untouched supernodes.
    */
   solveColumns(fs: Float64Array, count: number): Float64Array;
+  /**
+   * Member forces under a unit load at each of `loadDofs` (global dofs), SOLVE_BLOCK loads per pass, one block
+   * per step (unit-load-forces.ts): the certificate workload. Give the dofs in elimination order of their nodes
+   * so that each block shares its forward solve.
+   */
+  unitLoadForces(loadDofs: Int32Array): Generator<UnitLoadBlock, void>;
   /** Node indices in elimination order (the fill-reducing order the factor uses). */
   eliminationOrder: Int32Array;
   /** Axial forces N (kN, tension positive) from a full displacement vector. */
@@ -100,7 +107,7 @@ export function prepareStructure(model: TrussModel, options: { symbolic?: Symbol
   let factor: SupernodalFactor | undefined = factorSupernodal(assembled.matrix, symbolic.structure, assembled.pivotScale, PIVOT_TOLERANCE);
   const t4 = now();
 
-  const { dofOfEquation } = assembled;
+  const { dofOfEquation, equationOfDof } = assembled;
   const byNode = new Map<number, Direction[]>();
   for (const eq of factor.tinyPivots) {
     const dof = dofOfEquation[eq];
@@ -200,6 +207,7 @@ export function prepareStructure(model: TrussModel, options: { symbolic?: Symbol
       }
       return out;
     },
+    unitLoadForces: (loadDofs) => unitLoadForces(factored, topology, equationOfDof, loadDofs, SOLVE_BLOCK),
     eliminationOrder: nodeOrder,
     memberForces,
     memberForceVector(e) {
