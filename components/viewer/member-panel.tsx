@@ -10,6 +10,7 @@ import type { MemberDetail } from "@/lib/models/member-detail";
 import { forceStateOf } from "@/lib/vocabulary/force-state";
 import { InfluenceControl } from "./influence-control";
 import { MemberReviewSection } from "./member-review-section";
+import { EndDisplacementTable, ReactionTable } from "./node-results-tables";
 import { resultLabel, type PreparedModel } from "./prepare";
 import { useWhatIfWorker } from "./use-whatif-worker";
 import { useViewerStore } from "./viewer-store";
@@ -40,6 +41,7 @@ export function MemberPanel({ projectId, prepared, analysis, revision }: { proje
   const governing = detail?.governing;
   const ids = detail ? [...prepared.model.loadCases.map((c) => c.id), ...prepared.model.combinations.map((c) => c.id)].filter((id) => id in detail.results) : [];
   const isCombination = new Set(prepared.model.combinations.map((c) => c.id));
+  const supported = new Set(prepared.model.supports.map((s) => s.node));
 
   return (
     <aside data-testid="member-panel" aria-label={`Member ${member.id}`} className="h-[75vh] w-80 shrink-0 overflow-y-auto border-l border-board-200 bg-white p-4 text-sm">
@@ -84,6 +86,21 @@ export function MemberPanel({ projectId, prepared, analysis, revision }: { proje
           })}
         </tbody>
       </table>
+
+      {detail ? (
+        <section className="mb-3" data-testid="member-panel-ends">
+          <h3 className="mb-1 font-semibold">Displacement of its end nodes</h3>
+          <EndDisplacementTable model={prepared.model} rows={detail.ends} ends={member} testId="member-panel-end-displacements" />
+          {(["i", "j"] as const)
+            .filter((end) => supported.has(member[end]))
+            .map((end) => (
+              <div key={end}>
+                <h4 className="text-xs font-semibold">Support reaction at {member[end]} (kN, on the roof)</h4>
+                <ReactionTable model={prepared.model} rows={Object.fromEntries(Object.entries(detail.ends).map(([id, e]) => [id, e[end]]))} testId={`member-panel-reactions-${end}`} />
+              </div>
+            ))}
+        </section>
+      ) : null}
 
       {envelope ? (
         <section className="mb-3" data-testid="member-panel-envelope">

@@ -136,7 +136,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
           </div>
         </div>
         <MemberPanel projectId={projectId} prepared={prepared} analysis={analysis} revision={revision} />
-        <NodePanel prepared={prepared} columns={columns} />
+        <NodePanel projectId={projectId} revisionNumber={revisionNumber} prepared={prepared} />
       </div>
     </div>
   );

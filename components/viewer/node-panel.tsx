@@ -1,22 +1,32 @@
 "use client";
-// The side panel of the selected node: where it is, how it is supported, the load on it and how far it moves in
-// the chosen result, and the members that meet there (a click selects one).
-import type { WireColumns } from "@/lib/models/result-columns";
+// The side panel of the selected node: where it is, how it is supported, the load on it in the chosen result, its
+// displacement and (at a support) its reaction in every result from the node's own endpoint, and the members that
+// meet there (a click selects one).
+import { useQuery } from "@tanstack/react-query";
+import { apiFetch } from "@/lib/http/fetcher";
+import type { NodeDetail } from "@/lib/models/node-detail";
 import { formatMetres } from "./measure";
+import { DisplacementTable, ReactionTable } from "./node-results-tables";
 import { nodalLoadsFor, resultLabel, type PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
 const held = (value: boolean) => (value ? "held" : "free");
 
-export function NodePanel({ prepared, columns }: { prepared: PreparedModel; columns: WireColumns | undefined }) {
+export function NodePanel({ projectId, revisionNumber, prepared }: { projectId: string; revisionNumber: number; prepared: PreparedModel }) {
   const selected = useViewerStore((s) => s.selectedNodeId);
   const resultId = useViewerStore((s) => s.resultId);
   const k = selected ? prepared.nodes.index.get(selected) : undefined;
+  const detailQuery = useQuery({
+    queryKey: ["projects", projectId, "models", revisionNumber, "nodes", selected],
+    queryFn: () => apiFetch<NodeDetail>(`/api/projects/${projectId}/models/${revisionNumber}/nodes/${encodeURIComponent(selected!)}`),
+    enabled: selected !== null && k !== undefined,
+    staleTime: Infinity,
+  });
   if (!selected || k === undefined) return null;
   const p = prepared.nodes.positions;
   const support = prepared.model.supports.find((s) => s.node === selected);
   const load = resultId ? nodalLoadsFor(prepared.model, resultId).find((l) => l.node === selected) : undefined;
-  const d = columns?.displacements;
+  const detail = detailQuery.data;
   const members = prepared.model.members.filter((m) => m.i === selected || m.j === selected);
   return (
     <aside data-testid="node-panel" aria-label={`Node ${selected}`} className="h-[75vh] w-80 shrink-0 overflow-y-auto border-l border-board-200 bg-white p-4 text-sm">
@@ -33,14 +43,29 @@ export function NodePanel({ prepared, columns }: { prepared: PreparedModel; colu
       </header>
       <p>{support ? `Support: x ${held(support.ux)}, y ${held(support.uy)}, z ${held(support.uz)}` : "Not a support."}</p>
       {resultId ? (
+        <p className="mt-2">
+          {load ? `Nodal load in ${resultLabel(prepared.model, resultId)}: ${load.fx.toFixed(2)}, ${load.fy.toFixed(2)}, ${load.fz.toFixed(2)} kN (x, y, z)` : `No nodal load in ${resultLabel(prepared.model, resultId)}.`}
+        </p>
+      ) : null}
+      {detailQuery.isPending ? <p className="mt-2 text-xs text-board-700">Loading this node&apos;s results…</p> : null}
+      {detailQuery.isError ? (
+        <p role="alert" className="mt-2 text-xs text-clash">
+          {detailQuery.error.message}{" "}
+          <button type="button" className="underline" onClick={() => void detailQuery.refetch()}>
+            Try again
+          </button>
+        </p>
+      ) : null}
+      {detail ? (
         <>
-          <h3 className="mt-3 font-semibold">In {resultLabel(prepared.model, resultId)}</h3>
-          <p>{load ? `Nodal load: ${load.fx.toFixed(2)}, ${load.fy.toFixed(2)}, ${load.fz.toFixed(2)} kN (x, y, z)` : "No nodal load."}</p>
-          {d ? (
-            <p data-testid="node-panel-displacement">
-              Displacement: {(d[k * 3] * 1000).toFixed(1)}, {(d[k * 3 + 1] * 1000).toFixed(1)}, {(d[k * 3 + 2] * 1000).toFixed(1)} mm (x, y, z)
-            </p>
+          {detail.support ? (
+            <>
+              <h3 className="mt-3 font-semibold">Support reaction (kN, on the roof)</h3>
+              <ReactionTable model={prepared.model} rows={detail.results} testId="node-panel-reactions" />
+            </>
           ) : null}
+          <h3 className="mt-3 font-semibold">Displacement (mm)</h3>
+          <DisplacementTable model={prepared.model} rows={detail.results} testId="node-panel-displacements" />
         </>
       ) : null}
       <h3 className="mt-3 font-semibold">Members meeting here ({members.length})</h3>

@@ -53,7 +53,7 @@ export async function getRunWithoutColumns({ db = getDb() }: { db?: Executor } =
 type RevisionKey = { projectId: string; number: number; db?: Executor };
 
 /** The newest analysis run of a revision by number (id only), or null when the revision or run does not exist. */
-async function newestRun({ projectId, number, db = getDb() }: RevisionKey): Promise<{ runId: string; revisionId: string } | null> {
+export async function newestRun({ projectId, number, db = getDb() }: RevisionKey): Promise<{ runId: string; revisionId: string } | null> {
   const [row] = await db
     .select({ runId: analysisRuns.id, revisionId: modelRevisions.id })
     .from(modelRevisions)
@@ -87,8 +87,8 @@ export async function getResultColumns({ resultId, ...key }: RevisionKey & { res
 
 /**
  * One member's stored numbers: its place in the revision's member order, its force bytes (Float32) and zero bit in
- * every result (read by offset, so no whole column leaves the database), and its envelope, governing results and
- * review entry from the run's JSON. Null when the revision, its analysis or the member is missing.
+ * every result (read by offset, so no whole column leaves the database), its envelope, governing results and
+ * review entry from the run's JSON, and the displacement and reaction of its two end nodes in every result. Null when the revision, its analysis or the member is missing.
  */
 export async function getMemberColumns({ memberId, ...key }: RevisionKey & { memberId: string }) {
   const db = key.db ?? getDb();
@@ -118,5 +118,26 @@ export async function getMemberColumns({ memberId, ...key }: RevisionKey & { mem
     })
     .from(resultColumns)
     .where(eq(resultColumns.analysisRunId, run.runId));
-  return { ...run, ...member, index: k, results };
+  const ends = member.member ? await getNodeResults({ runId: run.runId, nodeIds: [member.member.i, member.member.j], db }) : [];
+  return { ...run, ...member, index: k, results, ends };
+}
+
+type Vector = { ux: number; uy: number; uz: number };
+type Force = { fx: number; fy: number; fz: number };
+
+/** What the analysis stored at one node in one result: its displacement (m) and, at a support, its reaction (kN). */
+export type StoredNodeResult = { resultId: string; nodeId: string; displacement: Vector | null; reaction: Force | null };
+
+/**
+ * The displacement and reaction of the named nodes in every result of a run, picked out of the stored JSON in SQL
+ * (full double precision; a large stored result never leaves the database whole).
+ */
+export async function getNodeResults({ runId, nodeIds, db = getDb() }: { runId: string; nodeIds: string[]; db?: Executor }): Promise<StoredNodeResult[]> {
+  if (nodeIds.length === 0) return [];
+  const ids = JSON.stringify(nodeIds);
+  const rows = await db.execute<StoredNodeResult>(sql`
+    select r.key as "resultId", n.id as "nodeId", r.value -> 'displacements' -> n.id as displacement, r.value -> 'reactions' -> n.id as reaction
+    from ${analysisRuns} a, jsonb_each(a.result -> 'results') r, jsonb_array_elements_text(${ids}::jsonb) as n(id)
+    where a.id = ${runId}`);
+  return rows.rows;
 }

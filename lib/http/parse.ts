@@ -60,8 +60,12 @@ async function readText(request: Request, maxBytes: number): Promise<string> {
   return new TextDecoder().decode(bytes);
 }
 
-/** Parses route params (already awaited) with the schema; malformed ids are a 404, not a 400. */
+/**
+ * Parses route params (already awaited) with the schema; malformed ids are a 404, not a 400. An id PostgreSQL cannot
+ * store (a null character, an unpaired surrogate) can name nothing, so it is a 404 before any query sees it.
+ */
 export function parseParams<S extends z.ZodType>(schema: S, params: unknown): z.output<S> {
+  if (findUnstorableText(params).length) throw new NotFoundError();
   const result = schema.safeParse(params);
   if (!result.success) throw new NotFoundError();
   return result.data;

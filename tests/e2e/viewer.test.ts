@@ -131,6 +131,41 @@ describe("the 3D viewer on the demo roof", () => {
     await screenshot(page, "viewer-any-load");
   });
 
+  it("opens a support node and reads its reaction in every result as stored, and the reaction at a member's supported end (issue 15 item 8)", async () => {
+    type Stored = {
+      model: Omit<Revision["model"], "members"> & { supports: { node: string }[]; members: { id: string; i: string; j: string }[] };
+      analysis: { result: { results: Record<string, { reactions: Record<string, { fx: number; fy: number; fz: number }>; displacements: Record<string, { ux: number; uy: number; uz: number }> }> } };
+    };
+    const response = await page.request.get(appUrl(`/api/projects/${projectId}/models/1`));
+    const { revision } = (await response.json()) as { revision: Stored };
+    const ids = [...revision.model.loadCases, ...revision.model.combinations].map((c) => c.id);
+    const node = revision.model.supports[0].node;
+    await page.evaluate((id) => window.__strutroom!.selectNode(id), node);
+    expect(await page.getByTestId("node-panel-id").textContent()).toBe(`Node ${node}`);
+    // The reactions come from the node's own endpoint after the panel opens: one row per load case and combination.
+    await expect.poll(() => page.getByTestId("node-panel-reactions").locator("tbody tr").count(), { timeout: 30_000 }).toBe(ids.length);
+    const kN = (r: { fx: number; fy: number; fz: number }) => [r.fx, r.fy, r.fz].map((v) => v.toFixed(2));
+    for (const id of ids) {
+      const cells = await page.getByTestId(`node-panel-reactions-${id}`).locator("td").allTextContents();
+      expect(cells.slice(1), id).toEqual(kN(revision.analysis.result.results[id].reactions[node]));
+    }
+    // a held node: no displacement in any result
+    expect(await page.getByTestId("node-panel-displacements").locator("tbody tr").count()).toBe(ids.length);
+    await screenshot(page, "viewer-node-panel-support");
+
+    // A member meeting there shows the same reaction at that end, and both ends' displacements in every result.
+    const member = revision.model.members.find((m) => m.i === node || m.j === node)!;
+    const end = member.i === node ? "i" : "j";
+    const other = member.i === node ? member.j : member.i;
+    await new ViewerPage(page).selectMember(member.id);
+    await expect.poll(() => page.getByTestId(`member-panel-reactions-${end}`).locator("tbody tr").count(), { timeout: 30_000 }).toBe(ids.length);
+    const last = ids[ids.length - 1];
+    expect((await page.getByTestId(`member-panel-reactions-${end}-${last}`).locator("td").allTextContents()).slice(1)).toEqual(kN(revision.analysis.result.results[last].reactions[node]));
+    const d = revision.analysis.result.results[last].displacements[other];
+    const column = end === "i" ? 2 : 1; // |u| at the member's other end
+    expect((await page.getByTestId(`member-panel-end-displacements-${last}`).locator("td").allTextContents())[column]).toBe((Math.hypot(d.ux, d.uy, d.uz) * 1000).toFixed(1));
+  });
+
   it("exports the current view as a PNG file", async () => {
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("viewer-export-png").click()]);
     expect(download.suggestedFilename()).toMatch(/\.png$/);
