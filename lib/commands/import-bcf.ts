@@ -18,19 +18,27 @@ const dateOr = (iso: string | undefined, fallback: Date) => {
   return d && !Number.isNaN(d.getTime()) ? d : fallback;
 };
 
-/** The first viewpoint of a topic we can show (a camera), with its snapshot PNG when it has one. */
-function firstView(topic: BcfTopic, memberOf: (globalId: string) => string | undefined): { view: Viewpoint; snapshot?: Uint8Array } | undefined {
+/** The first viewpoint of a topic we can show (a camera), with its GUID and its snapshot PNG when it has one. */
+function firstView(topic: BcfTopic, memberOf: (globalId: string) => string | undefined): { guid: string; view: Viewpoint; snapshot?: Uint8Array } | undefined {
   for (const viewpoint of topic.viewpoints) {
     const view = fromBcfViewpoint(viewpoint, memberOf);
-    if (view) return { view, snapshot: viewpoint.snapshot };
+    if (view) return { guid: viewpoint.guid, view, snapshot: viewpoint.snapshot };
   }
   return undefined;
+}
+
+/** The view a comment references, unless it is the topic's first (the pin's saved view) or has no camera. */
+function commentView(topic: BcfTopic, viewpointGuid: string | undefined, pinViewGuid: string | undefined, memberOf: (globalId: string) => string | undefined): Viewpoint | null {
+  if (!viewpointGuid || viewpointGuid === pinViewGuid) return null;
+  const viewpoint = topic.viewpoints.find((v) => v.guid === viewpointGuid);
+  return (viewpoint && fromBcfViewpoint(viewpoint, memberOf)) ?? null;
 }
 
 /**
  * Brings BCF topics into the project in one transaction: a topic not seen before becomes a pin (anchored on the
  * member its viewpoint selects, else on the camera's target point) with that viewpoint as its saved view and the
- * viewpoint's snapshot stored like a saved view's; a known topic gains only the comments it does not hold yet;
+ * viewpoint's snapshot stored like a saved view's; a known topic gains only the comments it does not hold yet, each
+ * with the view it references when that is another viewpoint of the topic (a comment's own view);
  * authors on the team are matched by e-mail, others are kept by name on the comment and the importer stands in as
  * the row's author. A second import of the same file changes nothing and stores no file.
  */
@@ -98,6 +106,7 @@ export async function importBcf({ projectId, actor, file, memberOf }: { projectI
               bcfGuid: c.guid,
               body: c.text.slice(0, 20_000),
               kind: "comment" as const,
+              viewpoint: commentView(topic, c.viewpointGuid, views.get(topic.guid)?.guid, memberOf),
               createdAt: dateOr(c.date, now),
               updatedAt: dateOr(c.date, now),
             };

@@ -8,15 +8,17 @@ import { describe, expect, it } from "vitest";
 import { GET as GET_THREAD } from "@/app/api/projects/[projectId]/pins/[pinId]/comments/route";
 import { GET as GET_PINS } from "@/app/api/projects/[projectId]/pins/route";
 import { GET as EXPORT_BCF } from "@/app/api/projects/[projectId]/exports/pins.bcf/route";
+import { POST as IMPORT_BCF } from "@/app/api/projects/[projectId]/pins/bcf/route";
 import { comments, pins } from "@/db/schema";
 import { readBcf } from "@/lib/bcf";
+import { savePinViewpoint } from "@/lib/commands/save-pin-viewpoint";
 import type { CatchUp, PresentedComment, PresentedPin } from "@/lib/realtime/events";
 import type { Viewpoint } from "@/lib/realtime/viewpoint";
 import { getDb } from "../support/db";
-import type { FixtureUser } from "../support/fixtures";
+import { createProjectFixture, type FixtureUser } from "../support/fixtures";
 import { nextEvent, request } from "../support/realtime";
 import { realtimeProjectSuite } from "../support/realtime-suite";
-import { buildRequest, routeContext } from "../support/session";
+import { buildRequest, routeContext, sessionCookie } from "../support/session";
 
 const suite = realtimeProjectSuite("pins-in-3d");
 
@@ -30,6 +32,7 @@ const view: Viewpoint = {
   sectionBox: { min: [3, 3, -0.5], max: [12, 9, 2.5] },
 };
 
+const pinView: Viewpoint = { camera: { position: [3, -20, 25], target: [3, 3, 1.8] } };
 const pinInput = (anchor: unknown) => ({ id: randomUUID(), anchor, revisionId: null, title: "Sprinkler main under this chord?", discipline: "mep" });
 async function thread(pinId: string, user: FixtureUser) {
   const { projectId } = suite.project;
@@ -96,10 +99,12 @@ describe("saved views on comments", () => {
     expect(plain.ok && plain.data.viewpoint).toBeNull();
   });
 
-  it("exports the comment's view as a BCF viewpoint that the comment references", async () => {
+  it("exports the comment's view as a BCF viewpoint that the comment references, and an import keeps it on the comment", async () => {
     const architect = await suite.signedIn("architect");
     const pin = await request<PresentedPin>(architect, "pin:create", pinInput({ kind: "node", id: "T-1-1", point: [3, 3, 1.8] }));
     if (!pin.ok) throw new Error(pin.error);
+    const { users } = suite.project;
+    await savePinViewpoint({ projectId: suite.project.projectId, pinId: pin.data.id, actorId: users.architect.id, view: pinView });
     const id = randomUUID();
     expect((await request(architect, "comment:create", { id, pinId: pin.data.id, body: "With my view.", viewpoint: view })).ok).toBe(true);
     const { projectId } = suite.project;
@@ -111,6 +116,20 @@ describe("saved views on comments", () => {
     const viewpoint = topic.viewpoints.find((v) => v.guid === comment.viewpointGuid)!;
     expect(viewpoint.camera?.position).toEqual(view.camera.position);
     expect(viewpoint.clippingPlanes).toHaveLength(6);
+
+    // Imported into a fresh project, the comment keeps its view (the camera target is rebuilt 10 m along the view
+    // direction, lib/bcf/viewpoint.ts; the section box and the camera's position come back as they were).
+    const fresh = await createProjectFixture("pins-in-3d-import");
+    const bytes = await EXPORT_BCF(await buildRequest(`/api/projects/${projectId}/exports/pins.bcf`, { user: suite.project.users.viewer }), routeContext({ projectId }));
+    const headers = new Headers({ "content-type": "application/octet-stream", cookie: await sessionCookie(fresh.users.structural_engineer) });
+    const imported = await IMPORT_BCF(new Request(new URL(`/api/projects/${fresh.projectId}/pins/bcf`, "http://127.0.0.1"), { method: "POST", headers, body: Buffer.from(await bytes.arrayBuffer()) }), routeContext({ projectId: fresh.projectId }));
+    expect(imported.status).toBe(201);
+    const [row] = await getDb().select().from(comments).where(eq(comments.bcfGuid, id));
+    expect(row.viewpoint?.camera.position).toEqual(view.camera.position);
+    expect(row.viewpoint?.sectionBox).toEqual(view.sectionBox);
+    // The topic's first viewpoint is the pin's own saved view, which stays the pin's.
+    const [importedPin] = await getDb().select().from(pins).where(eq(pins.id, row.pinId));
+    expect(importedPin.viewpoint?.camera.position).toEqual(pinView.camera.position);
   });
 
   it("refuses a viewer's comment with a view, and shows no thread to an outsider (404)", async () => {
