@@ -6,6 +6,7 @@ import { useState, type FormEvent } from "react";
 import { useClashStore } from "@/components/clashes/clash-store";
 import { Button, FormMessage } from "@/components/ui/form";
 import { useViewerStore, type PickedThing } from "@/components/viewer/viewer-store";
+import { roundToMillimetre } from "@/lib/realtime/anchors";
 import { DISCIPLINES, pinCreateSchema, type PresentedPin } from "@/lib/realtime/events";
 import { useSessionStore } from "./session-store";
 import { send, type ReviewSocket } from "./use-review-socket";
@@ -39,7 +40,7 @@ export function NewPinForm({ socket, revisionId }: { socket: ReviewSocket; revis
   async function handleSubmit(event: FormEvent) {
     event.preventDefault();
     const placed = spot && spot !== "missed" ? spot : null;
-    const anchor = placed ? { kind: placed.kind, id: placed.id, point: placed.point } : { kind, id: effectiveAnchorId };
+    const anchor = placed ? { kind: placed.kind, id: placed.id, point: roundToMillimetre(placed.point) } : { kind, id: effectiveAnchorId };
     const parsed = pinCreateSchema.safeParse({ id: crypto.randomUUID(), anchor, revisionId, title, discipline, body: body.trim() || undefined });
     if (!parsed.success) {
       setErrors(Object.fromEntries(parsed.error.issues.map((issue) => [issue.path[0] === "anchor" ? "anchor" : String(issue.path[0]), issue.message])));

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { anchorLabel, nearestOnSegment, resolveAnchor } from "./anchors";
+import { anchorLabel, nearestOnSegment, resolveAnchor, roundToMillimetre } from "./anchors";
 
 // A two-member fragment of a roof; revision 2 drops member D-2 and moves nothing else.
 const revision1 = {
@@ -58,6 +58,14 @@ describe("nearestOnSegment", () => {
     expect(nearestOnSegment([-3, 1, 0], [0, 0, 0], [2, 0, 0])).toEqual([0, 0, 0]);
     expect(nearestOnSegment([9, 1, 1], [0, 0, 0], [2, 0, 0])).toEqual([2, 0, 0]);
     expect(nearestOnSegment([4, 4, 4], [1, 1, 1], [1, 1, 1])).toEqual([1, 1, 1]);
+  });
+});
+
+describe("roundToMillimetre", () => {
+  it("gives back the model's coordinates from the viewer's Float32 ones", () => {
+    // Math.fround(1.8) is the Float32 nearest 1.8 (IEEE 754 single precision): 1.7999999523162842.
+    expect(roundToMillimetre([Math.fround(24), Math.fround(18), Math.fround(1.8)])).toEqual([24, 18, 1.8]);
+    expect(roundToMillimetre([7.49962, -0.0126, 2.0006])).toEqual([7.5, -0.013, 2.001]);
   });
 });
 

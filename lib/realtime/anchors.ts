@@ -19,6 +19,14 @@ export function nearestOnSegment(p: Vec3, a: Vec3, b: Vec3): Vec3 {
 }
 
 /**
+ * A point clicked in 3D as a pin keeps it: to the millimetre. The viewer draws from Float32 positions (a node at
+ * 1.8 m reads 1.7999999523…), and a click is no more precise than a pixel, so millimetres lose nothing real.
+ */
+export function roundToMillimetre(p: Vec3): Vec3 {
+  return [Math.round(p[0] * 1000) / 1000, Math.round(p[1] * 1000) / 1000, Math.round(p[2] * 1000) / 1000];
+}
+
+/**
  * Position of the anchor in model coordinates, or null when it is not in this model: a node pin on the node, a
  * member pin at the point clicked on it (its midpoint when none was kept).
  */
