@@ -28,6 +28,8 @@ export async function upsertClashes({ db, rows }: { db: Executor; rows: ClashIns
           pointX: sql`excluded.point_x`,
           pointY: sql`excluded.point_y`,
           pointZ: sql`excluded.point_z`,
+          // Found again: no longer closed (its closure stays in its history).
+          closedReason: sql`null`,
           updatedAt: sql`now()`,
         },
       });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { Run } from "../mep/schemas";
-import { carryDecision, recheckReasons, type MemberSnapshot } from "./carry";
+import { carryDecision, recheckReasons, runChangeReason, type MemberSnapshot } from "./carry";
 
 // Invented member data (the carry rules are ours, issue 16); the forces are not from an analysis here.
 const names = { DL: "Dead load", SN: "Snow", WU: "Wind uplift", C1: "1.35 G + 1.5 S", C2: "1.0 G + 1.5 W uplift" };
@@ -54,5 +54,13 @@ describe("carrying a decision to a new revision", () => {
     expect(carry({ ...zeroEverywhere, ends: [[0, 0, 0], [3, 0, 0.2]] })).toEqual({ action: "close", reason: "member D-8-5-SW moved in revision 3" });
     expect(carry(zeroEverywhere, null)).toEqual({ action: "close", reason: "run SA-01 is not on revision 3" });
     expect(carry(zeroEverywhere, { ...run, clearance: 0.2 })).toEqual({ action: "close", reason: "run SA-01 was moved or resized in revision 3" });
+  });
+
+  it("says why a decision no longer holds when its run is edited: moved, resized or removed, not renamed or reweighed", () => {
+    const moved = { ...run, points: [{ x: -1, y: 0, z: 0.05 }, { x: 4, y: 0, z: 0.05 }] };
+    expect(runChangeReason("SA-01", run, moved, 2)).toBe("run SA-01 was moved or resized in revision 2");
+    expect(runChangeReason("SA-01", run, { ...run, profile: { shape: "round", diameter: 0.5 } } as Run, 2)).toBe("run SA-01 was moved or resized in revision 2");
+    expect(runChangeReason("SA-01", run, null, 2)).toBe("run SA-01 is not on revision 2");
+    expect(runChangeReason("SA-01", run, { ...run, system: "extract air", weightPerMetre: 0.5 }, 2)).toBeNull();
   });
 });

@@ -92,9 +92,19 @@ export type MemberShape = Pick<MemberSnapshot, "section" | "ends">;
 export function carryDecision(input: { memberId: string; runId: string; revisionNumber: number; member: { before: MemberShape; after: MemberShape | null }; run: { before: Run; after: Run | null } }): CarryVerdict {
   const { memberId, runId, revisionNumber: n, member, run } = input;
   if (!member.after) return { action: "close", reason: `member ${memberId} is not in revision ${n}` };
-  if (!run.after) return { action: "close", reason: `run ${runId} is not on revision ${n}` };
+  const runChanged = runChangeReason(runId, run.before, run.after, n);
+  if (!run.after && runChanged) return { action: "close", reason: runChanged };
   if (member.before.section !== member.after.section) return { action: "close", reason: `member ${memberId} changed section in revision ${n} (${member.before.section} → ${member.after.section})` };
   if (!sameGeometry(member.before, member.after)) return { action: "close", reason: `member ${memberId} moved in revision ${n}` };
-  if (!sameRun(run.before, run.after)) return { action: "close", reason: `run ${runId} was moved or resized in revision ${n}` };
+  if (runChanged) return { action: "close", reason: runChanged };
   return { action: "keep" };
+}
+
+/**
+ * Why a decision about a run no longer holds once the run is edited or removed on revision `n` (moved, resized or
+ * gone: the decision was about the run as it was), or null when what decides its place and size is unchanged.
+ */
+export function runChangeReason(runId: string, before: Run, after: Run | null, n: number): string | null {
+  if (!after) return `run ${runId} is not on revision ${n}`;
+  return sameRun(before, after) ? null : `run ${runId} was moved or resized in revision ${n}`;
 }

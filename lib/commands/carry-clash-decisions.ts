@@ -8,6 +8,7 @@ import { clashes, mepRuns, modelRevisions, type ClashRow } from "@/db/schema";
 import type { TrussModel } from "@/lib/analysis/model";
 import { carryDecision, type MemberShape } from "@/lib/clash/carry";
 import type { Run } from "@/lib/mep/schemas";
+import { notifyClashStep } from "./mail";
 
 /** A member's section and end coordinates in a model, or null when the model has no such member. */
 export function memberShape(model: TrussModel, memberId: string): MemberShape | null {
@@ -24,7 +25,8 @@ export function memberShape(model: TrussModel, memberId: string): MemberShape | 
  * Carries every proposed or decided (or assigned) clash of the previous revision onto a new one, inside the
  * transaction that stores the new revision, after its clashes are detected: the decision is copied where the member
  * and run are unchanged (its results are re-checked when the analysis is stored: recheckCarriedDecisions), and
- * closed with the reason where the member or run changed or vanished. Closures are appended to the history.
+ * closed with the reason where the member or run changed or vanished. Closures are appended to the history and
+ * mailed to the decider (else the proposer) and the assignee.
  */
 export async function carryClashDecisions(tx: Transaction, input: { projectId: string; fromRevisionId: string; toRevision: { id: string; model: TrussModel }; actorId: string | null }): Promise<{ carried: number; closed: number }> {
   const { projectId, fromRevisionId, toRevision } = input;
@@ -61,7 +63,8 @@ export async function carryClashDecisions(tx: Transaction, input: { projectId: s
     if (verdict.action === "close" || !found) {
       const reason = verdict.action === "close" ? `The decision does not carry: ${verdict.reason}.` : `No longer found on revision ${to.number}.`;
       const clashId = found?.id ?? (await insertClosedCopy(tx, old, toRevision.id, reason));
-      await appendClashEntry(tx, { clashId, kind: "closure", outcome: old.outcome, reason, decidedBy: null, role: null, revisionId: toRevision.id, caution: STANDING_CAUTION });
+      const entryId = await appendClashEntry(tx, { clashId, kind: "closure", outcome: old.outcome, reason, decidedBy: null, role: null, revisionId: toRevision.id, caution: STANDING_CAUTION });
+      await notifyClashStep({ db: tx, projectId, clashId, entryId, step: "closure", outcome: old.outcome, details: [reason], actorId: input.actorId, recipientIds: [old.decidedBy ?? old.proposedBy, old.assigneeId] });
       summary.closed += 1;
       continue;
     }

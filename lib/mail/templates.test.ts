@@ -48,6 +48,10 @@ describe("mail templates", () => {
     expect(decision.text).toContain(STANDING_CAUTION);
     const recheck = clashStepMail({ ...base, actorName: null, step: "recheck", outcome: null, details: ["D-1 now carries 12.4 kN."] });
     expect(recheck.text).toContain("needs another look");
+    const closure = clashStepMail({ ...base, actorName: null, step: "closure", outcome: "opening accepted with conditions", details: ["The decision no longer holds: run SA-01 was moved or resized in revision 2."] });
+    expect(closure.subject).toBe("Decision closed on clash K1 (member D-1, run SA-01): opening accepted with conditions (P)");
+    expect(closure.text).toContain("The decision on clash K1 (member D-1, run SA-01) in P no longer holds: opening accepted with conditions.");
+    expect(closure.text).toContain(STANDING_CAUTION);
   });
 
   it("digest lists each thread with its state and age", () => {

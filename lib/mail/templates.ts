@@ -76,20 +76,22 @@ export function decisionMail(input: {
   return render(`Decision on ${input.subject}: ${input.outcome} (${input.projectName})`, blocks);
 }
 
-/** What happened to a clash, as a mail says it: proposed, decided, superseded, or flagged for another look. */
-export type ClashStep = "proposal" | "decision" | "supersession" | "recheck";
+/** What happened to a clash, as a mail says it: proposed, decided, superseded, flagged for another look, or closed. */
+export type ClashStep = "proposal" | "decision" | "supersession" | "recheck" | "closure";
 
 const CLASH_STEP_VERBS: Record<ClashStep, string> = {
   proposal: "proposed",
   decision: "decided",
   supersession: "superseded the decision on",
   recheck: "flagged for another look",
+  closure: "closed the decision on",
 };
 
 /**
- * A step on a clash: a proposal (not yet a decision, and said so), a decision, a supersession or a re-check on a
- * newer revision. `actorName` is null for the re-check Strutroom makes itself. A proposal or supersession in a
- * pin's thread reads the same, with its own link label.
+ * A step on a clash: a proposal (not yet a decision, and said so), a decision, a supersession, a re-check on a
+ * newer revision, or a closure (its member or run changed or vanished). `actorName` is null for the re-checks and
+ * closures Strutroom makes itself. A proposal or supersession in a pin's thread reads the same, with its own link
+ * label.
  */
 export function clashStepMail(input: { projectName: string; actorName: string | null; step: ClashStep; subject: string; outcome: string | null; details: string[]; url: string; linkLabel?: string }): RenderedMail {
   const verb = CLASH_STEP_VERBS[input.step];
@@ -97,14 +99,16 @@ export function clashStepMail(input: { projectName: string; actorName: string | 
   const lead =
     input.step === "recheck"
       ? `The decision on ${input.subject} in ${input.projectName} needs another look${what}.`
-      : input.step === "supersession"
-        ? `${input.actorName ?? "Someone"} ${verb} ${input.subject} in ${input.projectName}${what}.`
-        : `${input.actorName ?? "Someone"} ${verb} an outcome for ${input.subject} in ${input.projectName}${what}.`;
+      : input.step === "closure"
+        ? `The decision on ${input.subject} in ${input.projectName} no longer holds${what}.`
+        : input.step === "supersession"
+          ? `${input.actorName ?? "Someone"} ${verb} ${input.subject} in ${input.projectName}${what}.`
+          : `${input.actorName ?? "Someone"} ${verb} an outcome for ${input.subject} in ${input.projectName}${what}.`;
   const blocks: Block[] = [{ kind: "p", text: lead }];
   if (input.step === "proposal") blocks.push({ kind: "p", text: "This is a proposal, not a decision: the structural engineer decides it." });
   for (const line of input.details) blocks.push({ kind: "p", text: line });
   blocks.push({ kind: "link", label: input.linkLabel ?? "See the clash", url: input.url }, { kind: "note", text: STANDING_CAUTION });
-  const heading = { proposal: "Proposed", decision: "Decided", supersession: "Decision superseded", recheck: "Needs another look" }[input.step];
+  const heading = { proposal: "Proposed", decision: "Decided", supersession: "Decision superseded", recheck: "Needs another look", closure: "Decision closed" }[input.step];
   return render(`${heading} on ${input.subject}${what} (${input.projectName})`, blocks);
 }
 

@@ -154,7 +154,7 @@ describe("clashes", () => {
     expect(audits.map((a) => a.action).sort()).toEqual(["clash.decide", "clash.propose"]);
   });
 
-  it("keeps clash ids and decisions when the run moves a little, and clears clashes when it moves away", async () => {
+  it("keeps clash ids when the run moves a little (the decision, made on the run where it was, is closed with the reason), and clears clashes when it moves away", async () => {
     const before = (await list()).clashes;
     const runPath = `/api/projects/${fx.projectId}/runs/SA-01`;
     const rctx = routeContext({ projectId: fx.projectId, runId: "SA-01" });
@@ -162,9 +162,16 @@ describe("clashes", () => {
     expect(nudge.status).toBe(200);
     const after = (await list()).clashes;
     expect(after.map((c: { id: string; clashKey: string }) => [c.id, c.clashKey]).sort()).toEqual(before.map((c: { id: string; clashKey: string }) => [c.id, c.clashKey]).sort());
-    expect(after.filter((c: { outcome: string | null }) => c.outcome === "opening_accepted")).toHaveLength(1);
+    const decided = before.find((c: { outcome: string | null }) => c.outcome === "opening_accepted");
+    expect(after.filter((c: { outcome: string | null }) => c.outcome !== null)).toEqual([]);
+    const history = (await (await GET_CLASH(await buildRequest(`/api/projects/${fx.projectId}/clashes/${decided.id}`, { user: fx.users.viewer }), routeContext({ projectId: fx.projectId, clashId: decided.id }))).json()).history;
+    expect(history.map((d: { kind: string; reason: string | null }) => [d.kind, d.reason])).toEqual([
+      ["proposal", null],
+      ["decision", null],
+      ["closure", "The decision no longer holds: run SA-01 was moved or resized in revision 1."],
+    ]);
 
-    // Above the roof (z = 4): no clashes remain active; the decided one stays on record as cleared.
+    // Above the roof (z = 4): no clashes remain active; they stay on record as cleared.
     const away = await EDIT_RUN(await buildRequest(runPath, { method: "PATCH", body: { revision: 1, points: [{ x: -1, y: 1.5, z: 4 }, { x: 10, y: 1.5, z: 4 }] }, user: fx.users.mep_engineer }), rctx);
     expect((await away.json()).detection).toMatchObject({ found: 0, cleared: 4 });
     const cleared = (await list()).clashes;
