@@ -1,8 +1,9 @@
 import "server-only";
 import { and, asc, eq, gt, ne } from "drizzle-orm";
 import { getDb, type Executor } from "../client";
-import { comments, modelRevisions, notifications, pins, users } from "../schema";
+import { analysisRuns, comments, modelRevisions, notifications, pins, users } from "../schema";
 import type { PresentedComment } from "../../lib/realtime/events";
+import { isRecordStep } from "../../lib/realtime/thread-record";
 
 type CommentRow = { comment: typeof comments.$inferSelect; authorName: string; revision: number | null };
 
@@ -51,6 +52,37 @@ export async function listThreadSteps({ db, pinId }: { db: Executor; pinId: stri
     .orderBy(asc(comments.createdAt), asc(comments.id));
   return rows.map((row) => ({ id: row.id, kind: row.kind, author: { id: row.authorId } }));
 }
+
+/**
+ * Every step of the records of a project's threads (proposals, decisions, supersessions), oldest first: who (and
+ * their role then), the revision and stored analysis judged on, conditions, caution, and what a supersession ends.
+ */
+export async function listProjectThreadSteps({ projectId, db = getDb() }: { projectId: string; db?: Executor }) {
+  const rows = await db
+    .select({
+      id: comments.id,
+      pinId: comments.pinId,
+      kind: comments.kind,
+      body: comments.body,
+      conditions: comments.conditions,
+      role: comments.role,
+      caution: comments.caution,
+      supersedesId: comments.supersedesId,
+      createdAt: comments.createdAt,
+      author: users.name,
+      revision: modelRevisions.number,
+      analysedAt: analysisRuns.createdAt,
+    })
+    .from(comments)
+    .innerJoin(pins, eq(pins.id, comments.pinId))
+    .innerJoin(users, eq(users.id, comments.authorId))
+    .leftJoin(modelRevisions, eq(modelRevisions.id, comments.revisionId))
+    .leftJoin(analysisRuns, eq(analysisRuns.id, comments.analysisRunId))
+    .where(and(eq(pins.projectId, projectId), ne(comments.kind, "comment")))
+    .orderBy(asc(comments.createdAt), asc(comments.id));
+  return rows.flatMap(({ kind, ...r }) => (isRecordStep(kind) ? [{ ...r, kind, createdAt: r.createdAt.toISOString(), analysedAt: r.analysedAt?.toISOString() ?? null }] : []));
+}
+export type ThreadStepEntry = Awaited<ReturnType<typeof listProjectThreadSteps>>[number];
 
 /** Comments written in the project after `since` (reconnect catch-up). */
 export async function listCommentsSince({ projectId, since }: { projectId: string; since: Date }) {

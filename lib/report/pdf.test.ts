@@ -145,6 +145,20 @@ describe("review report PDF", () => {
     expect(colours[1].compression, "ULS-3 plan has no compression colour").toBe(0);
   });
 
+  it("shows each thread's record: proposal, decision with conditions, supersession with its reason; who, role, when, judged on what, the caution", async () => {
+    const { text } = await readBack("tripod-threads", tripodReport());
+    const all = text.join("\n");
+    expect(all).toContain('Decisions in threads');
+    expect(all).toContain('Thread "Cable tray through leg BD" on member BD (answered)');
+    expect(all).toMatch(/2026-03-02 12:00 Proposed Lucas Ferreira \(MEP engineer\) revision 2, results of 2026-03-01 17:45 UTC Tray CT-3 through leg BD at 0\.8 m\./);
+    expect(all).toMatch(/2026-03-02 14:10 Decided Tomasz Reiner \(Structural engineer\) revision 2, results of 2026-03-01 17:45 UTC Accepted for the tray only\. Conditions: Hole of 60 mm, edge distance 2 diameters/);
+    expect(all).toMatch(/2026-03-03 09:05 Decision superseded Tomasz Reiner \(Structural engineer\) revision 3, results of 2026-03-02 09:30 UTC Reason: the lantern load makes BD work harder in revision 3\. Supersedes the decision of Tomasz Reiner \(2026-03-02 14:10 UTC\)\./);
+    expect(all).toContain(`Caution shown with these steps: ${STANDING_CAUTION}`);
+    // Without threads the section is left out rather than printed empty.
+    const none = await readBack("tripod-no-threads", { ...tripodReport(), threads: [] });
+    expect(none.text.join("\n")).not.toContain("Decisions in threads");
+  });
+
   it("writes user text outside the PDF font's code page as our spelling or '?', in the clash headings as in the tables", async () => {
     const input = tripodReport();
     input.clashes = input.clashes.map((c) => ({ ...c, runId: "Zuluft–Δ7" }));

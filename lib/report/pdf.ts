@@ -7,7 +7,7 @@ import { planPage, reactionsSection, utilisationSection } from "./engineering";
 import { COLOURS, FONT, PAGE, ReportWriter, kn, safe } from "./pdf-writer";
 import { drawClashSnippet } from "./plan-drawing";
 import { stateChanges } from "./states";
-import type { ReportClash, ReportInput } from "./types";
+import type { ReportClash, ReportInput, ReportThreadStep } from "./types";
 
 function resultName(input: ReportInput, id: string): string {
   const combination = input.model.combinations.find((c) => c.id === id);
@@ -179,6 +179,32 @@ function clashDetails(w: ReportWriter, input: ReportInput): void {
   }
 }
 
+const stamp = (iso: string) => iso.slice(0, 16).replace("T", " ");
+
+function judgedOnText({ judgedOn }: ReportThreadStep): string {
+  if (judgedOn.revision === null) return "no revision was current";
+  return `revision ${judgedOn.revision}, ${judgedOn.analysedAt ? `results of ${stamp(judgedOn.analysedAt)} UTC` : "no results stored"}`;
+}
+
+function threadStepRow(s: ReportThreadStep): string[] {
+  const supersedes = s.supersedes ? `Supersedes the decision of ${s.supersedes.by} (${stamp(s.supersedes.at)} UTC).` : "";
+  return [stamp(s.at), s.step, [s.by, s.role ? `(${s.role})` : ""].filter(Boolean).join(" "), judgedOnText(s), [s.text, s.conditions ? `Conditions: ${s.conditions}` : "", supersedes].filter(Boolean).join(" ")];
+}
+
+/** The record of each thread with proposals or decisions: who, in which role, when, judged on what, and the caution shown. */
+function threadDecisions(w: ReportWriter, input: ReportInput): void {
+  w.heading("Decisions in threads");
+  w.paragraph("Each proposal, decision and supersession recorded in the team's threads (the record is append-only), with the revision and results it was judged on.", { color: COLOURS.muted, size: 8.5 });
+  for (const thread of input.threads) {
+    w.heading(`Thread "${thread.title}" on ${thread.anchor} (${thread.state})`, 2);
+    w.table(
+      [{ header: "When (UTC)", width: 72 }, { header: "Step", width: 70 }, { header: "By", width: 100 }, { header: "Judged on", width: 95 }, { header: "Text, conditions or reason", width: 158 }],
+      thread.steps.map(threadStepRow),
+    );
+    for (const caution of new Set(thread.steps.flatMap((s) => (s.caution ? [s.caution] : [])))) w.paragraph(`Caution shown with these steps: ${caution}`, { color: COLOURS.muted, size: 8.5 });
+  }
+}
+
 function clashLog(w: ReportWriter, input: ReportInput): void {
   w.heading("Clash log");
   if (input.clashes.length === 0) {
@@ -245,6 +271,7 @@ export async function buildReportPdf(input: ReportInput, onProgress: ReportProgr
   if (input.compare) comparison(w, input, input.compare);
   clashLog(w, input);
   if (input.clashes.length) clashDetails(w, input);
+  if (input.threads.length) threadDecisions(w, input);
   questions(w, input);
   await step();
   w.finish(`${input.project.name}, revision ${input.revision.number}`);

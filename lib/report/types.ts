@@ -36,6 +36,33 @@ export type ReportClash = {
   history: ReportClashStep[];
 };
 
+/** One step of a pin thread's record (proposal, decision, supersession), oldest first. */
+export type ReportThreadStep = {
+  /** The step in our words: Proposed, Decided, Decision superseded. */
+  step: string;
+  by: string;
+  /** The author's role when the step was taken, in our words. */
+  role: string | null;
+  at: string;
+  /** The revision and the stored analysis it was judged on (null when no revision was current then). */
+  judgedOn: { revision: number | null; analysedAt: string | null };
+  /** What is proposed or decided, or for a supersession "Reason: …". */
+  text: string;
+  conditions: string | null;
+  /** For a supersession: the decision it supersedes, as who decided it and when. */
+  supersedes: { by: string; at: string } | null;
+  /** The caution shown with the step when it was taken. */
+  caution: string | null;
+};
+
+/** A pin's thread that has proposals or decisions in its record. */
+export type ReportThread = {
+  title: string;
+  anchor: string;
+  state: string;
+  steps: ReportThreadStep[];
+};
+
 export type ReportQuestion = {
   title: string;
   /** What the pin hangs on, in words: "member B-12", "clash 3f9a…", "point (1.0, 2.0, 3.0)". */
@@ -68,6 +95,7 @@ export type ReportInput = {
   /** Two result ids whose member states are compared, or null. */
   compare: [string, string] | null;
   clashes: ReportClash[];
+  threads: ReportThread[];
   openQuestions: ReportQuestion[];
   generatedAt: string;
   generatedBy: string;

@@ -15,10 +15,11 @@ import { GET as getJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/route
 import { POST as retryJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/retry/route";
 import { POST as makeReport } from "@/app/api/projects/[projectId]/report/route";
 import { listReportJobs } from "@/db/queries/jobs";
-import { attachments, auditEvents, clashDecisions, clashes, jobs, modelRevisions, pins, projects } from "@/db/schema";
+import { analysisRuns, attachments, auditEvents, clashDecisions, clashes, jobs, modelRevisions, pins, projects } from "@/db/schema";
 import { analyzeModel } from "@/lib/analysis/analyze";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { markRevisionCurrent } from "@/lib/commands/mark-revision-current";
+import { postComment } from "@/lib/commands/post-comment";
 import { QUEUES } from "@/lib/jobs/queue";
 import { reviewForStorage } from "@/lib/models/analyse";
 import { buildReportPdf } from "@/lib/report/pdf";
@@ -78,6 +79,14 @@ beforeAll(async () => {
     { clashId: clash.id, kind: "decision", outcome: "opening_accepted", conditions: "Sleeve 100 mm at mid-length", caution: STANDING_CAUTION, decidedBy: fx.users.structural_engineer.id, role: "structural_engineer", revisionId, createdAt: new Date("2026-03-03T10:00:00Z") },
   ]);
   await getDb().insert(pins).values({ id: randomUUID(), projectId: fx.projectId, anchorKind: "member", anchorId: "AD", title: "Can the lantern ring drop 200 mm?", discipline: "architectural", authorId: fx.users.architect.id });
+  // A thread's record through the product's command: proposed, decided with conditions, superseded with a reason.
+  const threadId = randomUUID();
+  await getDb().insert(pins).values({ id: threadId, projectId: fx.projectId, anchorKind: "member", anchorId: "BD", title: "Cable tray through leg BD", discipline: "mep", authorId: fx.users.mep_engineer.id });
+  const say = (user: FixtureUser, kind: "proposal" | "decision" | "supersession", body: string, conditions?: string) =>
+    postComment({ id: randomUUID(), projectId: fx.projectId, pinId: threadId, authorId: user.id, authorName: user.name, body, kind, conditions });
+  await say(fx.users.mep_engineer, "proposal", "Tray CT-3 through leg BD at 0.8 m.");
+  await say(fx.users.structural_engineer, "decision", "Accepted for the tray only.", "Hole of 60 mm, edge distance 2 diameters");
+  await say(fx.users.structural_engineer, "supersession", "The lantern load makes BD work harder.");
 });
 afterAll(async () => {
   rmSync(work, { recursive: true, force: true });
@@ -195,6 +204,21 @@ describe("the report job", () => {
     expect(all).toContain("DuctSA-01needsa100mmopening");
     expect(all).toContain("Reactionsbalance:");
     expect(all).toContain("Canthelanternringdrop200mm?");
+    // The thread's record: each step with who, their role then, when, the current revision and its stored analysis
+    // it was judged on, the conditions, the supersession's reason and what it supersedes, and the caution shown.
+    const [analysis] = await getDb().select().from(analysisRuns).where(eq(analysisRuns.revisionId, revisionId));
+    const judged = `revision 1, results of ${analysis.createdAt.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+    // Compared without whitespace, as table cells wrap long fixture names.
+    const squeeze = (t: string) => t.replace(/\s/g, "");
+    const escape = (t: string) => squeeze(t).replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
+    const when = "\\d{4}-\\d{2}-\\d{2}\\d{2}:\\d{2}";
+    const [mep, structural] = [escape(`${fx.users.mep_engineer.name} (MEP engineer)`), escape(`${fx.users.structural_engineer.name} (Structural engineer)`)];
+    expect(all).toContain("Decisionsinthreads");
+    expect(all).toContain(squeeze('Thread "Cable tray through leg BD" on member BD (open)'));
+    expect(all).toMatch(new RegExp(`${when}Proposed${mep}${escape(judged)}${escape("Tray CT-3 through leg BD at 0.8 m.")}`));
+    expect(all).toMatch(new RegExp(`${when}Decided${structural}${escape(judged)}${escape("Accepted for the tray only. Conditions: Hole of 60 mm, edge distance 2 diameters")}`));
+    expect(all).toMatch(new RegExp(`${when}Decisionsuperseded${structural}${escape(judged)}${escape(`Reason: The lantern load makes BD work harder. Supersedes the decision of ${fx.users.structural_engineer.name}`)}\\(${when}UTC\\)\\.`));
+    expect(all).toContain(squeeze(`Caution shown with these steps: ${STANDING_CAUTION}`));
 
     const response = await download(await buildRequest(`/api/projects/${fx.projectId}/attachments/${file.id}`, { user: fx.users.viewer }), routeContext({ projectId: fx.projectId, attachmentId: file.id }));
     expect(response.status).toBe(302);
