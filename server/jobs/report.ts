@@ -4,6 +4,7 @@
 import { claimJob, failJob, setJobProgress } from "../../db/queries/jobs";
 import { storeReport } from "../../lib/commands/store-report";
 import { buildReportPdf, type ReportProgress } from "../../lib/report/pdf";
+import { readStoredJobInput } from "../../lib/jobs/stored-input";
 import { reportJobInputSchema } from "../../lib/report/schemas";
 import type { ReportInput } from "../../lib/report/types";
 import { collectReport } from "./report-data";
@@ -18,7 +19,7 @@ export async function runReportJob(jobId: string, steps: ReportSteps = defaultSt
   if (!job || job.kind !== "report") return "skipped";
   try {
     if (!job.requestedBy) throw new Error("the member who asked for it has left the project's users; ask for a new report.");
-    const query = reportJobInputSchema.parse(job.input);
+    const query = readStoredJobInput(reportJobInputSchema, job.input, "ask for a new report on the report page.");
     await setJobProgress({ jobId, phase: "collecting", percent: 5 });
     const input = await collectReport({ projectId: job.projectId, revisionId: job.revisionId, requestedBy: job.requestedBy }, query, now());
     // Drawing is 10 % to 90 %; progress rows are written at most every 5 %, so a long report is not a write storm.

@@ -256,6 +256,17 @@ describe("the report job", () => {
     expect((await reportFiles()).length).toBe(before + 1);
   });
 
+  it("fails in plain words, saying what to do, when its stored request cannot be read (no validation dump), storing nothing", async () => {
+    const job = await queued(fx.users.structural_engineer);
+    // A row written by an older version, or by hand: the results are a string, not a list.
+    await getDb().update(jobs).set({ input: { revision: 1, combinations: "ULS-1", compare: null } }).where(eq(jobs.id, job.id));
+    const before = (await reportFiles()).length;
+    expect(await runReportJob(job.id)).toBe("failed");
+    expect((await reportFiles()).length).toBe(before);
+    const failed = await (await getJob(await buildRequest(`/api/projects/${fx.projectId}/jobs/${job.id}`, { user: fx.users.viewer }), jobCtx(job.id))).json();
+    expect(failed.job.error).toBe("The report stopped: the request stored with this job cannot be read (wrong: combinations), so retrying it would fail the same way; ask for a new report on the report page.");
+  });
+
   it("stores nothing when the job stopped running before storing (retried elsewhere): the stored object is removed too", async () => {
     const job = await queued(fx.users.owner);
     const before = (await reportFiles()).length;
