@@ -4,7 +4,8 @@
 import { useQuery } from "@tanstack/react-query";
 import { useSearchParams } from "next/navigation";
 import { useEffect, useMemo } from "react";
-import { fetchRevision, ModelViewer, revisionQueryKey } from "@/components/viewer/model-viewer";
+import { ModelViewer } from "@/components/viewer/model-viewer";
+import { fetchRevision, revisionQueryKey } from "@/components/viewer/viewed-revision";
 import { PinsLayer, type PinMarker } from "@/components/viewer/layers/pins-layer";
 import { MepViewerLayer } from "@/components/clashes/mep-viewer-layer";
 import { apiFetch } from "@/lib/http/fetcher";

@@ -9,7 +9,7 @@ import type { JobView } from "@/db/queries/jobs";
 import { LiveJob } from "@/components/jobs/job-progress";
 import { Button, FormMessage } from "@/components/ui/form";
 import { apiFetch } from "@/lib/http/fetcher";
-import type { ViewedRevision } from "./model-viewer";
+import type { ViewedRevision } from "./viewed-revision";
 
 export function AnyLoadJobPanel({ projectId, revision, onStored }: { projectId: string; revision: ViewedRevision; onStored: () => void }) {
   const [started, setStarted] = useState<JobView | null>(null);

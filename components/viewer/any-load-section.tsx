@@ -1,15 +1,17 @@
 "use client";
 // "Under any roof load" in the member panel: whether any load at a loadable node could make the member work (stored
 // with the review), where most, and, beside an "idle" verdict, the load patterns that verdict rests on.
-import type { StoredReview } from "@/lib/models/analyse";
+import type { ReviewOverview } from "@/db/queries/revision-view";
+import type { StoredMemberReview } from "@/lib/models/analyse";
 import { analysedPatterns, idlePatternsText } from "@/lib/review/analysed-patterns";
 
 const perKn = (value: number) => `${value > 0 ? "+" : "−"}${Math.abs(value).toPrecision(3)} kN per kN`;
 
-export function AnyLoadSection({ memberId, review }: { memberId: string; review: StoredReview }) {
-  const row = review.members[memberId]?.anyLoad;
+/** `member` is the member's review row (from its detail), `review` the revision's review without rows. */
+export function AnyLoadSection({ member, review }: { member: StoredMemberReview; review: ReviewOverview }) {
+  const row = member.anyLoad;
   const run = review.anyLoad;
-  const idleVerdict = review.members[memberId]?.verdict === "idle";
+  const idleVerdict = member.verdict === "idle";
   const patterns = idleVerdict ? (
     <p className="mb-1" data-testid="member-panel-patterns">
       {idlePatternsText(analysedPatterns(review))}

@@ -3,8 +3,6 @@
 // the numbers behind it, why it is zero, its influence map, and the removal / opening what-ifs with the standing
 // caution. Forces, envelope and review come from the member's own endpoint (one member, not the whole run).
 import { useQuery } from "@tanstack/react-query";
-import type { RevisionWithResults } from "@/db/queries/models";
-import type { AnalysisResult } from "@/lib/analysis/analyze";
 import { apiFetch } from "@/lib/http/fetcher";
 import type { MemberDetail } from "@/lib/models/member-detail";
 import { forceStateOf } from "@/lib/vocabulary/force-state";
@@ -13,13 +11,14 @@ import { MemberReviewSection } from "./member-review-section";
 import { EndDisplacementTable, ReactionTable } from "./node-results-tables";
 import { resultLabel, type PreparedModel } from "./prepare";
 import { useWhatIfWorker } from "./use-whatif-worker";
+import type { ViewedRevision } from "./viewed-revision";
 import { useViewerStore } from "./viewer-store";
 
 const kN = (value: number) => `${value.toFixed(2)} kN`;
 
 
-export function MemberPanel({ projectId, prepared, analysis, revision }: { projectId: string; prepared: PreparedModel; analysis: AnalysisResult; revision: RevisionWithResults }) {
-  const { ask, ready } = useWhatIfWorker(revision.model, analysis, revision.analysis?.review?.standard ?? null);
+export function MemberPanel({ projectId, prepared, revision }: { projectId: string; prepared: PreparedModel; revision: ViewedRevision }) {
+  const { ask, ready } = useWhatIfWorker(projectId, revision.number, revision.analysis?.review?.standard ?? null);
   const selected = useViewerStore((s) => s.selectedMemberId);
   const resultId = useViewerStore((s) => s.resultId);
   const k = selected ? prepared.memberIndex.get(selected) : undefined;
@@ -118,7 +117,7 @@ export function MemberPanel({ projectId, prepared, analysis, revision }: { proje
 
       <InfluenceControl key={member.id} memberId={member.id} ask={ask} ready={ready} />
 
-      <MemberReviewSection memberId={member.id} detail={detail} revision={revision} ask={ask} ready={ready} />
+      <MemberReviewSection memberId={member.id} detail={detail} revision={revision} prepared={prepared} ask={ask} ready={ready} />
     </aside>
   );
 }

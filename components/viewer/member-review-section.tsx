@@ -3,13 +3,14 @@
 // opening what-ifs (answered by the Web Worker), each with the standing caution.
 import { useQuery } from "@tanstack/react-query";
 import { useState } from "react";
-import type { RevisionWithResults } from "@/db/queries/models";
 import type { MemberDetail } from "@/lib/models/member-detail";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import type { OpeningAssessment, OpeningSpec } from "@/lib/review/opening";
 import type { RemovalOutcome } from "@/lib/review/removal";
 import type { WhyZero } from "@/lib/review/why-zero";
 import { AnyLoadSection } from "./any-load-section";
+import type { PreparedModel } from "./prepare";
+import type { ViewedRevision } from "./viewed-revision";
 import type { WhatIfAnswer, WhatIfRequest } from "./whatif-protocol";
 import { useViewerStore } from "./viewer-store";
 
@@ -101,7 +102,7 @@ function OpeningResult({ assessment }: { assessment: OpeningAssessment }) {
   );
 }
 
-export function MemberReviewSection({ memberId, detail, revision, ask, ready }: { memberId: string; detail: MemberDetail | undefined; revision: RevisionWithResults; ask: Ask; ready: boolean }) {
+export function MemberReviewSection({ memberId, detail, revision, prepared, ask, ready }: { memberId: string; detail: MemberDetail | undefined; revision: ViewedRevision; prepared: PreparedModel; ask: Ask; ready: boolean }) {
   const resultId = useViewerStore((s) => s.resultId);
   const [removalAsked, setRemovalAsked] = useState<string | null>(null);
   const [opening, setOpening] = useState<{ member: string; spec: OpeningSpec } | null>(null);
@@ -136,7 +137,7 @@ export function MemberReviewSection({ memberId, detail, revision, ask, ready }: 
             Verdict: <span data-testid="member-panel-verdict">{review.verdict}</span>
           </h3>
           <p className="text-xs">{review.reason}</p>
-          {revision.analysis?.review ? <AnyLoadSection memberId={memberId} review={revision.analysis.review} /> : null}
+          {revision.analysis?.review ? <AnyLoadSection member={review} review={revision.analysis.review} /> : null}
           <h3 className="mb-1 mt-3 font-semibold">
             Utilisation ({detail?.standard}):{" "}
             <span data-testid="member-panel-utilisation" className={review.utilisation !== null && review.utilisation > 1 ? "text-clash" : ""}>
@@ -180,7 +181,7 @@ export function MemberReviewSection({ memberId, detail, revision, ask, ready }: 
           {ready ? "…it were removed?" : "Starting the what-if engine…"}
         </button>
         {removalAsked === memberId ? (
-          removal.isPending ? <p className="text-xs">Re-analysing without it…</p> : removal.isError ? <p className="text-xs text-clash">{removal.error.message}</p> : removal.data ? <RemovalResult outcome={removal.data} nodeIds={revision.model.nodes.map((n) => n.id)} /> : null
+          removal.isPending ? <p className="text-xs">Re-analysing without it…</p> : removal.isError ? <p className="text-xs text-clash">{removal.error.message}</p> : removal.data ? <RemovalResult outcome={removal.data} nodeIds={prepared.nodes.ids} /> : null
         ) : null}
         <form
           className="mt-2 flex items-end gap-2 text-xs"
@@ -195,7 +196,7 @@ export function MemberReviewSection({ memberId, detail, revision, ask, ready }: 
             <input className="w-20 rounded border border-board-200 px-1" type="number" min={1} value={diameter} onChange={(e) => setDiameter(Number(e.target.value))} />
           </label>
           <label className="flex flex-col">
-            at (m from {revision.model.members.find((m) => m.id === memberId)?.i})
+            at (m from {detail?.member.i})
             <input name="position" className="w-20 rounded border border-board-200 px-1" type="number" min={0} step="any" defaultValue={0.5} />
           </label>
           <button type="submit" disabled={!ready} className="rounded border border-board-200 px-2 py-1 hover:bg-board-100" data-testid="whatif-opening">

@@ -1,14 +1,11 @@
 "use client";
-// The viewer screen: fetches one revision with its stored results (once, cached) and the chosen result's columns
-// (binary, one result at a time, cached), then shows the toolbar, the canvas (client-only, behind a sized
+// The viewer screen: fetches one revision's overview and geometry (once, cached; viewed-revision.ts) and the chosen
+// result's columns (binary, one result at a time, cached), then shows the toolbar, the canvas (client-only, behind a sized
 // placeholder), the legend, hover read-out and the member panel. The drawing reads only the columns.
 import { useQuery } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { useEffect, useMemo, type ReactNode } from "react";
-import type { RevisionWithResults } from "@/db/queries/models";
-import { classifyMembers } from "@/lib/analysis/classify";
 import { LiveJob } from "@/components/jobs/job-progress";
-import { apiFetch } from "@/lib/http/fetcher";
 import { comparesTwoResults } from "./colouring";
 import { HoverTooltip } from "./hover-tooltip";
 import { InfluenceLayer } from "./layers/influence-layer";
@@ -23,6 +20,7 @@ import { StabilityPanel } from "./stability-panel";
 import { drawMechanism, UnstableView } from "./unstable-view";
 import { installTestHook } from "./test-hook";
 import { useResultColumns } from "./use-result-columns";
+import { fetchRevision, revisionQueryKey } from "./viewed-revision";
 import { useViewerStore } from "./viewer-store";
 import { ViewerToolbar } from "./viewer-toolbar";
 
@@ -37,18 +35,6 @@ function CanvasPlaceholder({ message }: { message: string }) {
 const loadCanvas = () => import("./viewer-canvas");
 const ViewerCanvas = dynamic(loadCanvas, { ssr: false, loading: () => <CanvasPlaceholder message="Loading the 3D view…" /> });
 
-/** Query key of a revision with its results; the answer never changes, so it is fetched once per session. */
-export const revisionQueryKey = (projectId: string, number: number) => ["projects", projectId, "models", number] as const;
-
-/** A revision as the viewer keeps it: with what the caller may start on it (the rule book's answer). */
-export type ViewedRevision = RevisionWithResults & { abilities: { runAnalysis: boolean } };
-
-/** The fetch behind revisionQueryKey (the viewer and the live review share it). */
-export async function fetchRevision(projectId: string, number: number): Promise<ViewedRevision> {
-  const body = await apiFetch<{ revision: RevisionWithResults; abilities: ViewedRevision["abilities"] }>(`/api/projects/${projectId}/models/${number}`);
-  return { ...body.revision, abilities: body.abilities };
-}
-
 export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: string; revisionNumber: number; layers?: ReactNode }) {
   const query = useQuery({
     queryKey: revisionQueryKey(projectId, revisionNumber),
@@ -60,14 +46,14 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
     staleTime: Infinity,
     gcTime: 30 * 60_000,
   });
-  // Fetch the 3D code while the (large) results download, not after.
+  // Fetch the 3D code while the revision downloads, not after.
   useEffect(() => {
     void loadCanvas();
   }, []);
   const revision = query.data;
-  const prepared = useMemo(() => (revision ? prepareModel(revision.model, classifyMembers(revision.model)) : null), [revision]);
-  const analysis = revision?.analysis?.result;
-  const ids = useMemo(() => (prepared && analysis ? resultIds(prepared.model, analysis.results) : []), [prepared, analysis]);
+  const prepared = useMemo(() => (revision ? prepareModel(revision.model, revision.groups) : null), [revision]);
+  const analysis = revision?.analysis;
+  const ids = useMemo(() => (prepared && analysis ? resultIds(prepared.model, analysis.resultIds) : []), [prepared, analysis]);
   const hasReview = Boolean(revision?.analysis?.review);
   const resultId = useViewerStore((s) => s.resultId);
   const compareResultId = useViewerStore((s) => s.compareResultId);
@@ -135,7 +121,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
             <HoverTooltip prepared={prepared} columns={columns} />
           </div>
         </div>
-        <MemberPanel projectId={projectId} prepared={prepared} analysis={analysis} revision={revision} />
+        <MemberPanel projectId={projectId} prepared={prepared} revision={revision} />
         <NodePanel projectId={projectId} revisionNumber={revisionNumber} prepared={prepared} />
       </div>
     </div>

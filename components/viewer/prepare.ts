@@ -1,7 +1,7 @@
 // Packs a model once per revision into the typed arrays the layers draw from.
 import { buildMemberEnds, buildNodeTable, modelBounds, modelSpan, type NodeTable } from "./filters";
 import { typicalMemberLength } from "./geometry";
-import type { MemberGroup, ViewerCaseResult, ViewerModel, ViewerNodalLoad } from "./types";
+import type { MemberGroup, ViewerModel, ViewerNodalLoad } from "./types";
 
 export interface PreparedModel {
   model: ViewerModel;
@@ -69,8 +69,9 @@ export function resultLabel(model: ViewerModel, resultId: string): string {
 }
 
 /** Result ids in display order: load cases first, then combinations, keeping only those with stored results. */
-export function resultIds(model: ViewerModel, results: Record<string, ViewerCaseResult>): string[] {
-  return [...model.loadCases.map((c) => c.id), ...model.combinations.map((c) => c.id)].filter((id) => id in results);
+export function resultIds(model: ViewerModel, stored: readonly string[]): string[] {
+  const available = new Set(stored);
+  return [...model.loadCases.map((c) => c.id), ...model.combinations.map((c) => c.id)].filter((id) => available.has(id));
 }
 
 /**

@@ -1,13 +1,13 @@
 "use client";
 // Overall stability of the roof for the shown result: the critical load factor αcr of the whole truss (linear
 // buckling, stored with the review), the EN 1993-1-1 5.2.1(3) warning below 10, and the first mode drawn on request.
-import type { StoredReview } from "@/lib/models/analyse";
+import type { ReviewOverview } from "@/db/queries/revision-view";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { useViewerStore } from "./viewer-store";
 
 const format = (alpha: number) => (alpha >= 1000 ? alpha.toExponential(2) : alpha.toPrecision(3));
 
-export function StabilityPanel({ review, nodeIds }: { review: StoredReview | null | undefined; nodeIds: readonly string[] }) {
+export function StabilityPanel({ review, nodeIds }: { review: ReviewOverview | null | undefined; nodeIds: readonly string[] }) {
   const resultId = useViewerStore((s) => s.resultId);
   const mode = useViewerStore((s) => s.mode);
   if (!review) return null;

@@ -17,19 +17,6 @@ export interface ViewerModel {
   combinations: ViewerCombination[];
 }
 
-export interface ViewerCaseResult {
-  memberForces: Record<string, number>;
-  displacements: Record<string, { ux: number; uy: number; uz: number }>;
-  zeroForceMembers: string[];
-}
-
-export interface ViewerAnalysis {
-  status: "ok" | "unstable";
-  results: Record<string, ViewerCaseResult>;
-  envelope?: Record<string, { maxTension: number; maxCompression: number; zeroInAll: boolean }>;
-  zeroInAll?: string[];
-}
-
 /** Member classes of lib/analysis classifyMembers; "other" is never filtered out. */
 export type MemberGroup = "top_chord" | "bottom_chord" | "diagonal" | "other";
 export type FilterableGroup = Exclude<MemberGroup, "other">;

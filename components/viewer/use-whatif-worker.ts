@@ -1,50 +1,63 @@
 "use client";
-// Starts the what-if worker for a revision (in an effect, terminated on clean-up) and sends it requests.
-import { useEffect, useRef, useState } from "react";
-import type { AnalysisResult, TrussModel } from "@/lib/analysis";
+// The what-if worker of a revision, started on the first question (not when the panel opens): it needs the whole
+// stored revision (model and design-format results), the one large download the viewer leaves out until a what-if
+// asks for it (issue 13: bytes before the first drawn roof). Terminated on clean-up.
+import { useQueryClient } from "@tanstack/react-query";
+import { useEffect, useRef } from "react";
 import type { DesignStandard } from "@/lib/review/design-checks/types";
+import { fetchFullRevision } from "./viewed-revision";
 import type { WhatIfAnswer, WhatIfMessage, WhatIfReply, WhatIfRequest } from "./whatif-protocol";
 
 type Pending = Map<number, { resolve: (a: WhatIfAnswer) => void; reject: (e: Error) => void }>;
 
-export function useWhatIfWorker(model: TrussModel, result: AnalysisResult, standard: DesignStandard | null) {
-  const worker = useRef<Worker | null>(null);
+/** Query key of the whole stored revision (fetched once, for the what-ifs). */
+const fullRevisionKey = (projectId: string, number: number) => ["projects", projectId, "models", number, "full"] as const;
+
+export function useWhatIfWorker(projectId: string, number: number, standard: DesignStandard | null) {
+  const queryClient = useQueryClient();
+  const started = useRef<Promise<Worker> | null>(null);
   const pending = useRef<Pending>(new Map());
   const nextId = useRef(1);
-  const [ready, setReady] = useState(false);
 
   useEffect(() => {
-    if (!standard) return;
-    const w = new Worker(new URL("./whatif.worker.ts", import.meta.url), { type: "module" });
     const waiting = pending.current;
-    worker.current = w;
-    w.onmessage = (event: MessageEvent<WhatIfReply>) => {
-      const reply = event.data;
-      const entry = waiting.get(reply.id);
-      waiting.delete(reply.id);
-      if (!entry) return;
-      if (reply.ok) entry.resolve(reply.answer);
-      else entry.reject(new Error(reply.error));
-    };
-    const init: WhatIfMessage = { id: 0, request: { kind: "init", model, result, standard } };
-    waiting.set(0, { resolve: () => setReady(true), reject: () => setReady(false) });
-    w.postMessage(init);
     return () => {
-      w.terminate();
-      worker.current = null;
+      void started.current?.then((w) => w.terminate(), () => undefined);
+      started.current = null;
+      for (const entry of waiting.values()) entry.reject(new Error("The what-if engine was stopped."));
       waiting.clear();
-      setReady(false);
     };
-  }, [model, result, standard]);
+  }, [projectId, number, standard]);
 
-  const ask = (request: WhatIfRequest): Promise<WhatIfAnswer> =>
-    new Promise((resolve, reject) => {
-      const w = worker.current;
-      if (!w) return reject(new Error("The what-if engine is not running."));
+  const start = (design: DesignStandard): Promise<Worker> => {
+    started.current ??= (async () => {
+      const { model, result } = await queryClient.fetchQuery({ queryKey: fullRevisionKey(projectId, number), queryFn: () => fetchFullRevision(projectId, number), staleTime: Infinity });
+      const w = new Worker(new URL("./whatif.worker.ts", import.meta.url), { type: "module" });
+      w.onmessage = (event: MessageEvent<WhatIfReply>) => {
+        const reply = event.data;
+        const entry = pending.current.get(reply.id);
+        pending.current.delete(reply.id);
+        if (!entry) return;
+        if (reply.ok) entry.resolve(reply.answer);
+        else entry.reject(new Error(reply.error));
+      };
+      w.postMessage({ id: 0, request: { kind: "init", model, result, standard: design } } satisfies WhatIfMessage);
+      return w;
+    })();
+    // A failed start (the download failed) is tried again on the next question.
+    started.current.catch(() => (started.current = null));
+    return started.current;
+  };
+
+  const ask = async (request: WhatIfRequest): Promise<WhatIfAnswer> => {
+    if (!standard) throw new Error("The what-if engine needs the revision's review.");
+    const w = await start(standard);
+    return new Promise((resolve, reject) => {
       const id = nextId.current++;
       pending.current.set(id, { resolve, reject });
       w.postMessage({ id, request } satisfies WhatIfMessage);
     });
+  };
 
-  return { ready, ask };
+  return { ready: standard !== null, ask };
 }
