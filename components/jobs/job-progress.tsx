@@ -1,6 +1,7 @@
 "use client";
-// What the browser shows of a queued job (an analysis or a report): a progress bar with the phase while it runs
-// (polling the job's endpoint once a second), the reason and a retry button when it failed.
+// What the browser shows of a queued job (an analysis or a report): a progress bar with the phase while it runs, the
+// reason and a retry button when it failed. Each change of the job is a live event ("job", its id) that refetches
+// it (components/live/invalidation.ts); the slow poll only covers a live connection that is down.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect } from "react";
 import type { JobView } from "@/db/queries/jobs";
@@ -29,6 +30,7 @@ const phaseLabel = (job: JobView) => (job.kind === "report" ? REPORT_PHASE_LABEL
 
 export const jobKey = (projectId: string, jobId: string) => ["projects", projectId, "jobs", jobId] as const;
 const isActive = (job: JobView | undefined) => job?.state === "queued" || job?.state === "running";
+const POLL_WITHOUT_LIVE_MS = 5_000;
 
 /** Follows a job until it is done or failed; `onSettled` runs once when it gets there. */
 export function useJob(projectId: string, initial: JobView, onSettled?: (job: JobView) => void) {
@@ -36,7 +38,7 @@ export function useJob(projectId: string, initial: JobView, onSettled?: (job: Jo
     queryKey: jobKey(projectId, initial.id),
     queryFn: async () => (await apiFetch<{ job: JobView }>(`/api/projects/${projectId}/jobs/${initial.id}`)).job,
     initialData: initial,
-    refetchInterval: (q) => (isActive(q.state.data) ? 1000 : false),
+    refetchInterval: (q) => (isActive(q.state.data) ? POLL_WITHOUT_LIVE_MS : false),
   });
   const job = query.data;
   useEffect(() => {

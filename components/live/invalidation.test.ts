@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { jobKey } from "@/components/jobs/job-progress";
 import { staleQueryKeys } from "./invalidation";
 
 describe("staleQueryKeys", () => {
@@ -17,5 +18,9 @@ describe("staleQueryKeys", () => {
     expect(staleQueryKeys("p1", { kind: "revision", id: "r", revision: 3 })).toEqual([["projects", "p1", "models"]]);
     expect(staleQueryKeys("p1", { kind: "member", id: "u", revision: null })).toEqual([["projects", "p1", "members"]]);
     expect(staleQueryKeys("p1", { kind: "pins", id: "p1", revision: null })).toEqual([["projects", "p1", "pins"]]);
+  });
+
+  it("refetches exactly the job a progress bar follows after that job moves", () => {
+    expect(staleQueryKeys("p1", { kind: "job", id: "j1", revision: null })).toEqual([jobKey("p1", "j1")]);
   });
 });

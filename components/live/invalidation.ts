@@ -15,5 +15,7 @@ export function staleQueryKeys(projectId: string, { kind, id }: Invalidation): (
       return [[...project, "members"]];
     case "pins":
       return [[...project, "pins"]];
+    case "job":
+      return [[...project, "jobs", id]];
   }
 }

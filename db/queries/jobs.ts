@@ -2,6 +2,7 @@ import "server-only";
 import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
 import { jobs, users, type Job } from "@/db/schema";
+import { insertLiveEvent } from "./live-events";
 
 /** What the browser sees of a job. */
 export type JobView = Pick<Job, "id" | "kind" | "state" | "phase" | "percent" | "error" | "outcome"> & { revisionId: string; updatedAt: string };
@@ -44,37 +45,55 @@ export async function latestJobsOfRevisions({ revisionIds, kind = "analysis", db
   return new Map(rows.map((row) => [row.revisionId, view(row)]));
 }
 
+// Every change of a job's state, phase or percent is also a live event of kind "job" (the job's id) in the same
+// transaction, so the browser's progress bar follows it over the live bus (NOTIFY on commit) rather than by polling.
+const jobChanged = (tx: Executor, row: { id: string; projectId: string }) => insertLiveEvent({ db: tx, projectId: row.projectId, kind: "job", subjectId: row.id });
+
 /**
  * Marks a queued (or, after a crash, still running) job as running and returns it; null when it is done, failed or
  * gone, so a delivery that comes twice does no work twice.
  */
 export async function claimJob({ jobId, db = getDb() }: { jobId: string; db?: Executor }): Promise<Job | null> {
-  const [row] = await db
-    .update(jobs)
-    .set({ state: "running", phase: "starting", percent: 0, error: null, updatedAt: sql`now()` })
-    .where(and(eq(jobs.id, jobId), inArray(jobs.state, ["queued", "running"])))
-    .returning();
-  return row ?? null;
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(jobs)
+      .set({ state: "running", phase: "starting", percent: 0, error: null, updatedAt: sql`now()` })
+      .where(and(eq(jobs.id, jobId), inArray(jobs.state, ["queued", "running"])))
+      .returning();
+    if (row) await jobChanged(tx, row);
+    return row ?? null;
+  });
 }
 
 /** Records how far a running job is. */
 export async function setJobProgress({ jobId, phase, percent, db = getDb() }: { jobId: string; phase: string; percent: number; db?: Executor }): Promise<void> {
-  await db.update(jobs).set({ phase, percent, updatedAt: sql`now()` }).where(and(eq(jobs.id, jobId), eq(jobs.state, "running")));
+  await db.transaction(async (tx) => {
+    const [row] = await tx.update(jobs).set({ phase, percent, updatedAt: sql`now()` }).where(and(eq(jobs.id, jobId), eq(jobs.state, "running"))).returning({ id: jobs.id, projectId: jobs.projectId });
+    if (row) await jobChanged(tx, row);
+  });
 }
 
 /** Marks a running job done with its outcome; false when it was not running (then the caller rolls back). */
 export async function finishJob(tx: Executor, { jobId, outcome }: { jobId: string; outcome: Record<string, unknown> | null }): Promise<boolean> {
-  const rows = await tx
+  const [row] = await tx
     .update(jobs)
     .set({ state: "done", phase: "done", percent: 100, outcome, updatedAt: sql`now()` })
     .where(and(eq(jobs.id, jobId), eq(jobs.state, "running")))
-    .returning({ id: jobs.id });
-  return rows.length === 1;
+    .returning({ id: jobs.id, projectId: jobs.projectId });
+  if (row) await jobChanged(tx, row);
+  return Boolean(row);
 }
 
 /** Marks a running job failed with the reason shown to the team. */
 export async function failJob({ jobId, error, db = getDb() }: { jobId: string; error: string; db?: Executor }): Promise<void> {
-  await db.update(jobs).set({ state: "failed", phase: "failed", error, updatedAt: sql`now()` }).where(and(eq(jobs.id, jobId), eq(jobs.state, "running")));
+  await db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(jobs)
+      .set({ state: "failed", phase: "failed", error, updatedAt: sql`now()` })
+      .where(and(eq(jobs.id, jobId), eq(jobs.state, "running")))
+      .returning({ id: jobs.id, projectId: jobs.projectId });
+    if (row) await jobChanged(tx, row);
+  });
 }
 
 /** Puts a failed job of the project back in the queue; null unless it was failed. */
@@ -84,6 +103,7 @@ export async function requeueFailedJob(tx: Executor, { projectId, jobId }: { pro
     .set({ state: "queued", phase: "queued", percent: 0, error: null, updatedAt: sql`now()` })
     .where(and(eq(jobs.id, jobId), eq(jobs.projectId, projectId), eq(jobs.state, "failed")))
     .returning();
+  if (row) await jobChanged(tx, row);
   return row ? view(row) : null;
 }
 

@@ -2,13 +2,17 @@
 // Viewers refetch what changed (TanStack Query); nothing of the data itself travels this way.
 import { z } from "zod";
 
-/** What changed: a clash (outcome, decision), a revision (new model, analysis), a revision's runs, the team, pins and threads written over HTTP (BCF import, saved views). */
-export const LIVE_EVENT_KINDS = ["clash", "revision", "runs", "member", "pins"] as const;
+/**
+ * What changed: a clash (outcome, decision), a revision (new model, analysis), a revision's runs, the team, pins and
+ * threads written over HTTP (BCF import, saved views), and a job's progress (phase and percent, done or failed; the
+ * id is the job's, read back from its endpoint).
+ */
+export const LIVE_EVENT_KINDS = ["clash", "revision", "runs", "member", "pins", "job"] as const;
 export type LiveEventKind = (typeof LIVE_EVENT_KINDS)[number];
 
 export const invalidationSchema = z.object({
   kind: z.enum(LIVE_EVENT_KINDS),
-  /** The changed thing's id (clash id, revision id, user id of the member). */
+  /** The changed thing's id (clash id, revision id, user id of the member, job id). */
   id: z.string(),
   /** The model revision number it belongs to, when it belongs to one. */
   revision: z.number().int().nullable(),

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { LiveInvalidation } from "@/components/live/live-invalidation";
 import { ReportForm } from "@/components/report/report-form";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { listReportJobs } from "@/db/queries/jobs";
@@ -6,6 +7,7 @@ import { getRevisionWithResults, listRevisionsByProject } from "@/db/queries/mod
 import { requirePageProject } from "@/lib/auth/page";
 import { defaultRevision } from "@/lib/models/revision-stage";
 import { capturedMailPageEnabled } from "@/lib/mail/captured";
+import { realtimeUrl } from "@/lib/realtime/browser-url";
 import { REPORT_RESULTS_MAX } from "@/lib/report/schemas";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 
@@ -27,6 +29,7 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
     : [];
   return (
     <div className="flex flex-col gap-6">
+      <LiveInvalidation projectId={project.id} realtimeUrl={realtimeUrl()} />
       <section className="flex max-w-3xl flex-col gap-4" data-testid="report-page">
         <h2 className="flex items-center gap-2 text-lg font-semibold">
           Review report and exports {chosen ? <RevisionStageBadge revision={chosen} /> : null}

@@ -1,0 +1,1 @@
+ALTER TYPE "public"."live_event_kind" ADD VALUE 'job';
