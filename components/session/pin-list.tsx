@@ -4,10 +4,11 @@
 import { anchorLabel } from "@/lib/realtime/anchors";
 import { DISCIPLINES, PIN_STATES, type PinFilter } from "@/lib/realtime/events";
 import { DISCIPLINE_LABELS } from "./new-pin-form";
-import { filterPins, useSessionStore } from "./session-store";
+import { commentCountOf, filterPins, useSessionStore } from "./session-store";
 
 export function PinList({ detached }: { detached: ReadonlySet<string> }) {
   const pins = useSessionStore((s) => s.pins);
+  const comments = useSessionStore((s) => s.comments);
   const filter = useSessionStore((s) => s.filter);
   const selectedPinId = useSessionStore((s) => s.selectedPinId);
   const { setFilter, selectPin } = useSessionStore.getState();
@@ -45,7 +46,9 @@ export function PinList({ detached }: { detached: ReadonlySet<string> }) {
       </div>
       {shown.length === 0 ? <p className="text-sm text-board-700">No pins {Object.values(filter).some(Boolean) ? "match these filters" : "yet"}.</p> : null}
       <ul className="flex flex-col gap-1" data-testid="pin-list">
-        {shown.map((pin) => (
+        {shown.map((pin) => {
+          const count = commentCountOf(pin, comments[pin.id]);
+          return (
           <li key={pin.id}>
             <button
               type="button"
@@ -57,11 +60,12 @@ export function PinList({ detached }: { detached: ReadonlySet<string> }) {
               <span className="block font-medium">{pin.title}</span>
               <span className="block text-xs text-board-700">
                 {pin.state} · {anchorLabel(pin.anchor)}
-                {detached.has(pin.id) ? " · detached (not in this revision)" : ""} · {pin.author.name} · {pin.commentCount} comment{pin.commentCount === 1 ? "" : "s"}
+                {detached.has(pin.id) ? " · detached (not in this revision)" : ""} · {pin.author.name} · {count} comment{count === 1 ? "" : "s"}
               </span>
             </button>
           </li>
-        ))}
+          );
+        })}
       </ul>
     </section>
   );

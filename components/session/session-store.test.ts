@@ -1,6 +1,6 @@
 import { beforeEach, describe, expect, it } from "vitest";
 import type { PresentedComment, PresentedPin } from "@/lib/realtime/events";
-import { filterPins, useSessionStore } from "./session-store";
+import { commentCountOf, filterPins, useSessionStore } from "./session-store";
 
 const pin = (id: string, patch: Partial<PresentedPin> = {}): PresentedPin => ({
   id,
@@ -49,6 +49,20 @@ describe("session store", () => {
     store.addComments([comment("c2", "2026-01-01T10:02:00.000Z")]);
     store.addComments([comment("c1", "2026-01-01T10:01:00.000Z"), comment("c2", "2026-01-01T10:02:00.000Z")]);
     expect(useSessionStore.getState().comments.p1.map((c) => c.id)).toEqual(["c1", "c2"]);
+  });
+
+  it("counts a pin's comments from the server's copy plus those written after it, each once", () => {
+    const store = useSessionStore.getState();
+    const copy = pin("p1", { commentCount: 2, updatedAt: "2026-01-01T10:00:00.000Z" });
+    store.upsertPins([copy]);
+    // One comment the copy already counts (the thread was opened), two written after it, one delivered twice.
+    store.addComments([comment("c0", "2026-01-01T09:59:00.000Z"), comment("c1", "2026-01-01T10:01:00.000Z")]);
+    store.addComments([comment("c2", "2026-01-01T10:02:00.000Z"), comment("c1", "2026-01-01T10:01:00.000Z")]);
+    expect(commentCountOf(useSessionStore.getState().pins.p1, useSessionStore.getState().comments.p1)).toBe(4);
+    // A fresh copy (catch-up) already counts them all.
+    store.upsertPins([pin("p1", { commentCount: 4, updatedAt: "2026-01-01T10:02:00.000Z" })]);
+    expect(commentCountOf(useSessionStore.getState().pins.p1, useSessionStore.getState().comments.p1)).toBe(4);
+    expect(commentCountOf(copy, undefined)).toBe(2);
   });
 
   it("filters pins by state, discipline and author", () => {

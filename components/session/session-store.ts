@@ -121,3 +121,13 @@ export function filterPins(pins: Record<string, PresentedPin>, filter: PinFilter
     .filter((pin) => (!filter.state || pin.state === filter.state) && (!filter.discipline || pin.discipline === filter.discipline) && (!filter.authorId || pin.author.id === filter.authorId))
     .sort((a, b) => a.createdAt.localeCompare(b.createdAt));
 }
+
+/**
+ * A pin's comment count as far as this browser knows: the count the server gave with this copy of the pin, plus the
+ * comments heard of since that copy was read (written after its updatedAt: every comment marks its pin changed, so
+ * the copy's count holds the comments up to then). A comment does not send the pin again (it would double the
+ * comment's fan-out); a fresh copy of the pin (catch-up, a state change) starts the count again from the server's.
+ */
+export function commentCountOf(pin: PresentedPin, thread: readonly PresentedComment[] | undefined): number {
+  return pin.commentCount + (thread ?? []).filter((comment) => comment.createdAt > pin.updatedAt).length;
+}

@@ -94,11 +94,23 @@ export async function listCommentsSince({ projectId, since }: { projectId: strin
 }
 
 /**
- * Stores a comment unless its id is already stored (a client retry); answers whether this call wrote it.
+ * Stores a comment unless its id is already stored (a client retry); answers it as presented when this call wrote
+ * it, else null. The author's name and the revision's number come from the caller, who has just read them, so the
+ * new comment is not read back.
  */
-export async function insertComment({ db, values }: { db: Executor; values: typeof comments.$inferInsert }): Promise<boolean> {
-  const inserted = await db.insert(comments).values(values).onConflictDoNothing({ target: comments.id }).returning({ id: comments.id });
-  return inserted.length > 0;
+export async function insertComment({
+  db,
+  values,
+  authorName,
+  revision,
+}: {
+  db: Executor;
+  values: typeof comments.$inferInsert;
+  authorName: string;
+  revision: number | null;
+}): Promise<PresentedComment | null> {
+  const [comment] = await db.insert(comments).values(values).onConflictDoNothing({ target: comments.id }).returning();
+  return comment ? presentComment({ comment, authorName, revision }) : null;
 }
 
 /** One comment of a pin's thread, or null (also when the id belongs to another thread). */

@@ -16,6 +16,16 @@ export async function getMembership({ projectId, userId, db = getDb() }: { proje
   return row ?? null;
 }
 
+/** One member of the project with their name and e-mail (as listMembersByProject gives them), or null. */
+export async function getProjectMember({ projectId, userId, db = getDb() }: { projectId: string; userId: string; db?: Executor }): Promise<PresentedMember | null> {
+  const [row] = await db
+    .select({ userId: users.id, name: users.name, email: users.email, role: memberships.role, joinedAt: memberships.createdAt })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.projectId, projectId), eq(memberships.userId, userId)));
+  return row ? { ...row, joinedAt: row.joinedAt.toISOString() } : null;
+}
+
 /** The project's team, ordered by role (owner first) then name. */
 export async function listMembersByProject({ projectId, db = getDb() }: { projectId: string; db?: Executor }): Promise<PresentedMember[]> {
   const rows = await db

@@ -231,9 +231,9 @@ export async function getDefaultRevisionNumber({ projectId, db = getDb() }: { pr
  * The revision pages open by default (the current one, else the newest) with its newest analysis (the result set),
  * or null when the project has no revision: what a thread's proposal or decision is judged on.
  */
-export async function getDefaultRevisionResultSet({ projectId, db = getDb() }: { projectId: string; db?: Executor }): Promise<{ revisionId: string; analysisRunId: string | null } | null> {
+export async function getDefaultRevisionResultSet({ projectId, db = getDb() }: { projectId: string; db?: Executor }): Promise<{ revisionId: string; revision: number; analysisRunId: string | null } | null> {
   const [row] = await db
-    .select({ revisionId: modelRevisions.id, analysisRunId: analysisRuns.id })
+    .select({ revisionId: modelRevisions.id, revision: modelRevisions.number, analysisRunId: analysisRuns.id })
     .from(modelRevisions)
     .leftJoin(analysisRuns, eq(analysisRuns.revisionId, modelRevisions.id))
     .where(eq(modelRevisions.projectId, projectId))

@@ -2,7 +2,7 @@ import "server-only";
 import type { Transaction } from "@/db/client";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { getCommentInThread, insertComment, insertMentionNotifications, listThreadSteps } from "@/db/queries/comments";
-import { listMembersByProject } from "@/db/queries/memberships";
+import { getProjectMember, listMembersByProject } from "@/db/queries/memberships";
 import { getDefaultRevisionResultSet } from "@/db/queries/models";
 import { presentNotification } from "@/db/queries/notifications";
 import { touchPin } from "@/db/queries/pins";
@@ -40,8 +40,7 @@ export async function writeComment(tx: Transaction, input: CommentInput): Promis
   const stored = await getCommentInThread({ db: tx, pinId: input.pinId, commentId: input.id });
   if (stored) return { comment: stored, created: false, notifications: [], mentioned: [] };
 
-  const members = await listMembersByProject({ projectId: input.projectId, db: tx });
-  const author = members.find((m) => m.userId === input.authorId);
+  const author = await getProjectMember({ projectId: input.projectId, userId: input.authorId, db: tx });
   const step = isRecordStep(input.kind);
   const standing = step ? threadStanding(await listThreadSteps({ db: tx, pinId: input.pinId })) : null;
   const refusal = threadStepRefusal(author ? { role: author.role, userId: author.userId } : null, input.kind, standing?.proposal?.proposerId ?? null);
@@ -49,12 +48,16 @@ export async function writeComment(tx: Transaction, input: CommentInput): Promis
   const conflict = standing ? threadStepConflict(input.kind, standing) : null;
   if (conflict) throw new ConflictError(conflict);
 
+  // findMentions looks only after an "@": a body without one names nobody, and the whole team is not read for it.
+  const members = input.body.includes("@") ? await listMembersByProject({ projectId: input.projectId, db: tx }) : [];
   const candidates = members.map((m) => ({ id: m.userId, name: m.name, email: m.email }));
   const mentions = findMentions(input.body, candidates).filter((id) => id !== input.authorId);
   const judgedOn = step ? await getDefaultRevisionResultSet({ projectId: input.projectId, db: tx }) : null;
   const conditions = input.kind === "decision" && input.conditions ? input.conditions : null;
-  const created = await insertComment({
+  const comment = await insertComment({
     db: tx,
+    authorName: author?.name ?? input.authorName,
+    revision: judgedOn?.revision ?? null,
     values: {
       id: input.id,
       pinId: input.pinId,
@@ -73,8 +76,7 @@ export async function writeComment(tx: Transaction, input: CommentInput): Promis
       createdAt: new Date(),
     },
   });
-  const comment = await getCommentInThread({ db: tx, pinId: input.pinId, commentId: input.id });
-  if (!created || !comment) throw new Error("The comment id is taken by another thread.");
+  if (!comment) throw new Error("The comment id is taken by another thread.");
 
   await touchPin({ db: tx, pinId: input.pinId });
   const excerpt = input.body.length > 140 ? `${input.body.slice(0, 139)}…` : input.body;
@@ -93,5 +95,5 @@ export async function writeComment(tx: Transaction, input: CommentInput): Promis
     });
     await notifyThreadStep({ db: tx, projectId: input.projectId, pinId: input.pinId, commentId: input.id, step: input.kind, actorId: input.authorId, text: excerpt, conditions });
   }
-  return { comment, created, notifications: notifications.map((n) => ({ userId: n.userId, notification: presentNotification(n) })), mentioned };
+  return { comment, created: true, notifications: notifications.map((n) => ({ userId: n.userId, notification: presentNotification(n) })), mentioned };
 }
