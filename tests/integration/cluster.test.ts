@@ -53,15 +53,18 @@ describe("two realtime nodes on one Redis", () => {
     await seenOnB;
 
     const moves: number[] = [];
-    const all = new Promise<void>((resolve) => {
+    const last = new Promise<void>((resolve) => {
       mep.on("cursors", (batch) => {
         for (const move of batch) if (move.socketId === architect.id) moves.push(move.seq);
-        if (moves.length >= 5) resolve();
+        if (moves.includes(5)) resolve();
       });
     });
+    // Moves of one frame are superseded by the newest (server/cursor-batcher.ts); the last one reaches B.
     for (let seq = 1; seq <= 5; seq += 1) architect.emit("cursor:move", { point: [seq, 3, 9], seq });
-    await all;
-    expect(moves).toEqual([1, 2, 3, 4, 5]);
+    await last;
+    const distinct = [...new Set(moves)];
+    expect(distinct).toEqual([...distinct].sort((a, b) => a - b));
+    expect(distinct.at(-1)).toBe(5);
   });
 
   it("shows a pin made on A and a comment made on B to the other node", async () => {

@@ -1,11 +1,12 @@
 // The realtime server refuses signed-out, outsider and foreign-origin connections, refuses writes by roles the
 // permission table does not allow, and answers malformed payloads with errors without falling over.
 import { randomUUID } from "node:crypto";
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import WebSocket from "ws";
-import { comments } from "@/db/schema";
+import { comments, memberships } from "@/db/schema";
 import { getDb } from "../support/db";
+import { createFixtureUser } from "../support/fixtures";
 import { sessionCookie } from "../support/session";
 import { connectClient, nextEvent, realtimeClient, request } from "../support/realtime";
 import { realtimeProjectSuite } from "../support/realtime-suite";
@@ -74,6 +75,23 @@ describe("writes by role", () => {
     expect(comment.ok).toBe(false);
     const catchUp = await request<{ pins: PresentedPin[] }>(viewer, "sync:since", { since: new Date(0).toISOString() });
     expect(catchUp.ok && catchUp.data.pins.map((p) => p.id)).toEqual([pinId]);
+  });
+
+  it("refuses a comment over the open socket of a member removed a second ago, and stores nothing", async () => {
+    // The socket handler leaves the role check to the command (the membership read in its transaction): this is
+    // the case that would slip through if neither asked.
+    const leaver = await createFixtureUser("rt-access-leaver");
+    await getDb().insert(memberships).values({ projectId: rt.project.projectId, userId: leaver.id, role: "architect" });
+    const socket = await realtimeClient(rt.server.url, rt.project.projectId, leaver);
+    open.push(socket);
+    await connectClient(socket);
+    const architect = await signedIn("architect");
+    const pin = await request<PresentedPin>(architect, "pin:create", pinInput());
+    const pinId = pin.ok ? pin.data.id : "";
+    await getDb().delete(memberships).where(and(eq(memberships.projectId, rt.project.projectId), eq(memberships.userId, leaver.id)));
+    const id = randomUUID();
+    expect(await request(socket, "comment:create", { id, pinId, body: "Written after I left" })).toEqual({ ok: false, error: "Your role on this project does not allow this." });
+    expect(await getDb().select().from(comments).where(eq(comments.id, id))).toEqual([]);
   });
 
   it("lets only the structural engineer record a decision", async () => {
