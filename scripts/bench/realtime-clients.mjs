@@ -5,10 +5,13 @@
 import { parentPort, workerData } from "node:worker_threads";
 import { io } from "socket.io-client";
 
-const { clients: mine, projectId, pinId, cursorHz, commentEveryS, durationS, drainMs, originMs, shared, maxSeq, maxComments, userIndex } = workerData;
+const { clients: mine, projectId, pinId, cursorHz, commentEveryS, durationS, drainMs, drainMaxMs, originMs, shared, maxSeq, maxComments, userIndex } = workerData;
 const cursorSent = new Int32Array(shared.cursorSent);
 const commentSent = new Int32Array(shared.commentSent);
-const received = new Int32Array(shared.received); // receiver index × clients + sender index
+// Per receiver index × clients + sender index: the newest sequence number received, and how many moves arrived
+// newer than the one before (a repeat of a place already known, as a resting cursor's, is not counted again).
+const highest = new Int32Array(shared.highest);
+const received = new Int32Array(shared.received);
 const clientCount = Object.keys(userIndex).length;
 
 const nowUs = () => Math.round((performance.timeOrigin + performance.now() - originMs) * 1000);
@@ -41,9 +44,12 @@ const sockets = await Promise.all(
       for (const { userId, seq } of moves) {
         const sender = userIndex[userId];
         if (sender === index || sender === undefined) continue;
+        const pair = index * clientCount + sender;
+        if (seq <= highest[pair]) continue;
         const sent = seq < maxSeq ? Atomics.load(cursorSent, sender * maxSeq + seq) : 0;
         if (sent > 0) cursorLatencies.push((now - sent) / 1000);
-        received[index * clientCount + sender] += 1;
+        highest[pair] = seq;
+        received[pair] += 1;
       }
     });
     socket.on("comment:created", (comment) => {
@@ -57,6 +63,8 @@ const sockets = await Promise.all(
 parentPort.postMessage({ type: "connected" });
 
 const timers = [];
+/** Each client's last cursor move, sent once more reliably when the run stops (a pointer coming to rest). */
+const lastMoves = [];
 function run() {
   for (const { socket, index } of sockets) {
     let seq = 0;
@@ -64,15 +72,22 @@ function run() {
     cursorsSent[index] = 0;
     // Spread the clients' phases so the load is even, as it would be with real people.
     const start = setTimeout(() => {
-      timers.push(
-        setInterval(() => {
-          if (seq + 1 >= maxSeq) return;
-          seq += 1;
-          Atomics.store(cursorSent, index * maxSeq + seq, nowUs());
-          cursorsSent[index] = seq;
-          socket.emit("cursor:move", { point: [Math.random() * 36, Math.random() * 24, 9], seq });
-        }, 1000 / cursorHz),
-      );
+      // Moves go out volatile, as a browser's would: one its connection is not ready for is dropped by socket.io
+      // (the next supersedes it); the resting move at the end is sent reliably.
+      if (cursorHz > 0) {
+        timers.push(
+          setInterval(() => {
+            if (seq + 1 >= maxSeq) return;
+            seq += 1;
+            Atomics.store(cursorSent, index * maxSeq + seq, nowUs());
+            cursorsSent[index] = seq;
+            const move = { point: [Math.random() * 36, Math.random() * 24, 9], seq };
+            lastMoves[index] = { socket, move };
+            socket.volatile.emit("cursor:move", move);
+          }, 1000 / cursorHz),
+        );
+      }
+      if (commentEveryS <= 0) return;
       timers.push(
         setInterval(() => {
           if (comments >= maxComments) return;
@@ -81,7 +96,7 @@ function run() {
           stats.commentsSent += 1;
           Atomics.store(commentSent, slot, nowUs());
           socket
-            .timeout(durationS * 1000 + drainMs)
+            .timeout(durationS * 1000 + drainMaxMs)
             .emitWithAck("comment:create", { id: commentId(slot), pinId, body: `Bench comment ${slot}` })
             .then(
               (ack) => (ack.ok ? (stats.commentsAcked += 1) : (stats.commentErrors += 1)),
@@ -99,7 +114,16 @@ parentPort.on("message", async (message) => {
     run();
     await new Promise((r) => setTimeout(r, durationS * 1000));
     for (const timer of timers) clearInterval(timer);
+    for (const { socket, move } of lastMoves.filter(Boolean)) socket.emit("cursor:move", move);
+    // The drain lasts until every comment is answered (up to drainMaxMs), so a backlog is measured, not cut off.
+    const drainStart = performance.now();
     await new Promise((r) => setTimeout(r, drainMs));
+    while (stats.commentsAcked + stats.commentErrors < stats.commentsSent && performance.now() - drainStart < drainMaxMs) await new Promise((r) => setTimeout(r, 100));
+    // Then until the other nodes' fan-out of those comments has come in (nothing new for a second).
+    for (let heard = -1; heard !== stats.commentEventsReceived && performance.now() - drainStart < drainMaxMs; ) {
+      heard = stats.commentEventsReceived;
+      await new Promise((r) => setTimeout(r, 1000));
+    }
     const cursors = Float64Array.from(cursorLatencies);
     const commentsMs = Float64Array.from(commentLatencies);
     parentPort.postMessage({ type: "results", cursorLatencies: cursors, commentLatencies: commentsMs, cursorsSent, ...stats }, [cursors.buffer, commentsMs.buffer]);
