@@ -62,10 +62,32 @@ function deliverLocallyFirst(adapter: Broadcaster): void {
   };
 }
 
+/**
+ * The streams adapter sends its one-off messages (presence's fetchSockets, serverSideEmit) with PUBLISH and drops the
+ * promise: a PUBLISH that times out (node-redis's 5 s command timeout, met on a loaded machine or while Redis is
+ * down) or is refused by the full offline queue rejects with nobody listening, and Node ends the process (seen under
+ * bench:realtime at load average 27). The adapter is given the client through this view, whose publish has its
+ * failure logged; that message is lost as during any Redis outage (presence is asked again on the next join or leave).
+ */
+export function withPublishFailuresLogged<C extends { publish(...args: never[]): Promise<unknown> }>(client: C): C {
+  return new Proxy(client, {
+    get(target, property) {
+      const value: unknown = Reflect.get(target, property, target);
+      if (typeof value !== "function") return value;
+      if (property !== "publish") return value.bind(target);
+      return (...args: unknown[]) => {
+        const sent = (value as (...a: unknown[]) => Promise<unknown>).apply(target, args);
+        sent.catch((error: Error) => console.error("[realtime] a message to the other nodes was not sent:", error.message));
+        return sent;
+      };
+    },
+  });
+}
+
 /** The socket.io adapter: rooms across nodes on a Redis stream (which, unlike pub/sub, survives a short disconnect). */
 export function clusterAdapter(client: RedisClient) {
   clustered = true;
-  const create = createAdapter(client, {
+  const create = createAdapter(withPublishFailuresLogged(client), {
     streamName: "strutroom:socket.io",
     channelPrefix: "strutroom:socket.io",
     heartbeatInterval: HEARTBEAT_MS,
