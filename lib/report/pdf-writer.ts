@@ -1,5 +1,7 @@
-// The review report's page writer (pdfkit, built-in Helvetica: nothing is fetched): headings, paragraphs,
+// The review report's page writer (pdfkit, DejaVu Sans Condensed embedded: nothing is fetched): headings, paragraphs,
 // key-value lists, tables that break across pages, and the footer with the standing caution on every page.
+import { readFileSync } from "node:fs";
+import { createRequire } from "node:module";
 import PDFDocument from "pdfkit";
 import { STANDING_CAUTION } from "../review/caution";
 
@@ -7,18 +9,23 @@ export const PAGE = { size: "A4", margin: 50, footer: 70 } as const;
 // Tension, compression, zero-force (lines: slate #94a3b8, translucent; text: a darker slate to stay readable) and clash
 // rose are the glossary's colours.
 export const COLOURS = { ink: "#0f172a", muted: "#475569", rule: "#cbd5e1", band: "#f1f5f9", tension: "#0f766e", compression: "#c2410c", zero: "#64748b", zeroLine: "#94a3b8", clash: "#e11d48" } as const;
-export const FONT = { regular: "Helvetica", bold: "Helvetica-Bold" } as const;
+export const FONT = { regular: "DejaVuSansCondensed", bold: "DejaVuSansCondensed-Bold" } as const;
 
-// pdfkit's built-in fonts use the WinAnsi code page: common typographic characters are mapped to their ASCII
-// forms and anything else outside Latin-1 becomes "?", so user text can never break the document.
-// Greek letters of the design-check arithmetic are spelt out (the code page has none); combining marks (the bar of
-// a slenderness, left over after composing what Latin-1 has, like é) are dropped.
-const REPLACEMENTS: Record<string, string> = {
-  "≤": "<=", "≥": ">=", "−": "-", "→": "->", "≈": "~", "✓": "v", "√": "sqrt", "∞": "inf",
-  α: "alpha", β: "beta", γ: "gamma", δ: "delta", Δ: "Delta", ε: "eps", η: "eta", λ: "lambda", μ: "mu", ν: "nu", π: "pi", ρ: "rho", σ: "sigma", τ: "tau", φ: "phi", Φ: "Phi", χ: "chi", ψ: "psi", ω: "omega", Ω: "Omega",
-};
+// DejaVu Sans Condensed and its bold from the npm package dejavu-fonts-ttf (Bitstream Vera licence; DejaVu's changes
+// are in the public domain), embedded as subsets: names in extended Latin, Greek and Cyrillic print as written, where
+// pdfkit's built-in Helvetica has only the WinAnsi code page. Condensed, as the tables were laid out for Helvetica's
+// widths (DejaVu Sans is wider). Read once per process.
+const fontFile = (name: string) => readFileSync(createRequire(import.meta.url).resolve(`dejavu-fonts-ttf/ttf/${name}`));
+let fontBytes: Record<keyof typeof FONT, Buffer> | null = null;
+const fonts = () => (fontBytes ??= { regular: fontFile("DejaVuSansCondensed.ttf"), bold: fontFile("DejaVuSansCondensed-Bold.ttf") });
+
+// The Unicode blocks DejaVu Sans draws in full (its coverage file, unicover.txt): Latin with its extensions and
+// IPA, Greek, Cyrillic, Latin and Greek extended, general punctuation, super- and subscripts, the euro, arrows,
+// mathematical operators, geometric shapes and the tick. Any other character (CJK, emoji, …) becomes "?" rather
+// than an empty box; combining marks left over after composing (the bar of a slenderness) are dropped.
+const NOT_DRAWN = /[^\u0000-\u02af\u0370-\u03ff\u0400-\u04ff\u1e00-\u1fff\u2000-\u206f\u2070-\u209f\u20ac\u2190-\u22ff\u25a0-\u25ff\u2713]/gu;
 export function safe(text: string): string {
-  return text.normalize("NFC").replace(/[\u0300-\u036f]/g, "").replace(/[^\u0000-\u00ff\u2013\u2014\u2018\u2019\u201c\u201d\u2026\u2022\u20ac]/g, (ch) => REPLACEMENTS[ch] ?? "?");
+  return text.normalize("NFC").replace(/[\u0300-\u036f]/g, "").replace(NOT_DRAWN, "?");
 }
 
 export function kn(value: number): string {
@@ -34,6 +41,9 @@ export class ReportWriter {
 
   constructor(title: string) {
     this.doc = new PDFDocument({ size: PAGE.size, margins: { top: PAGE.margin, left: PAGE.margin, right: PAGE.margin, bottom: PAGE.margin + PAGE.footer }, bufferPages: true, info: { Title: safe(title), Creator: "Strutroom" } });
+    this.doc.registerFont(FONT.regular, fonts().regular);
+    this.doc.registerFont(FONT.bold, fonts().bold);
+    this.doc.font(FONT.regular);
     this.bottom = this.doc.page.height - PAGE.margin - PAGE.footer;
     this.width = this.doc.page.width - 2 * PAGE.margin;
   }
@@ -55,12 +65,20 @@ export class ReportWriter {
     this.doc.moveDown(0.4);
   }
 
+  /** The font size, from `size` down to 6 pt, at which the longest word of `text` fits `width` (a hash is not broken). */
+  private sizeToFit(text: string, width: number, size: number): number {
+    const longest = text.split(/\s+/).reduce((a, b) => (b.length > a.length ? b : a), "");
+    let fitted = size;
+    while (fitted > 6 && this.doc.fontSize(fitted).widthOfString(longest) > width) fitted -= 0.5;
+    return fitted;
+  }
+
   keyValues(pairs: [string, string][]): void {
     for (const [key, value] of pairs) {
       this.ensure(14);
       const y = this.doc.y;
       this.doc.font(FONT.bold).fontSize(9.5).fillColor(COLOURS.muted).text(safe(key), PAGE.margin, y, { width: 150 });
-      this.doc.font(FONT.regular).fillColor(COLOURS.ink).text(safe(value), PAGE.margin + 155, y, { width: this.width - 155 });
+      this.doc.font(FONT.regular).fillColor(COLOURS.ink).fontSize(this.sizeToFit(safe(value), this.width - 155, 9.5)).text(safe(value), PAGE.margin + 155, y, { width: this.width - 155 });
       this.doc.moveDown(0.15);
     }
     this.doc.moveDown(0.3);

@@ -120,9 +120,9 @@ describe("review report PDF", () => {
     expect(all).toMatch(/Check compression: .*AD Permanent only 1\.35G \(ULS-1\) -19\.09 \S+ 0\.\d{3}/);
     expect(all).toContain("Design-check arithmetic of the governing members");
     expect(all).toMatch(/Member AD: compression: .*under Permanent only 1\.35G \(ULS-1\)/);
-    // EN 1993-1-1 (6.47)-(6.49) in the arithmetic, Greek letters spelt out for the PDF's code page, none lost as "?".
-    expect(all).toMatch(/Elastic critical force Ncr pi²·E·A·i²\/Lcr² [\d.]+ kN/);
-    expect(all).toContain("Reduction factor chi");
+    // EN 1993-1-1 (6.47)-(6.49) in the arithmetic, Greek letters as written (the embedded font has them), none lost as "?".
+    expect(all).toMatch(/Elastic critical force Ncr π²·E·A·i²\/Lcr² [\d.]+ kN/);
+    expect(all).toContain("Reduction factor χ");
     expect(all).not.toMatch(/\?²|\?\(/);
   });
 
@@ -159,13 +159,27 @@ describe("review report PDF", () => {
     expect(none.text.join("\n")).not.toContain("Decisions in threads");
   });
 
-  it("writes user text outside the PDF font's code page as our spelling or '?', in the clash headings as in the tables", async () => {
+  it("prints names in extended Latin, Greek and Cyrillic as written (embedded DejaVu Sans Condensed), in headings as in tables; only what the font lacks becomes '?'", async () => {
     const input = tripodReport();
+    input.project = { ...input.project, name: "Hala sportowa Łódź-Żerań" };
     input.clashes = input.clashes.map((c) => ({ ...c, runId: "Zuluft–Δ7" }));
-    const { text } = await readBack("tripod-code-page", input);
+    input.clashes[0].history[0] = { ...input.clashes[0].history[0], by: "Ευάγγελος Παπαδάκης" };
+    input.threads[0] = { ...input.threads[0], title: "Кабельный лоток через BD", steps: input.threads[0].steps.map((s) => ({ ...s, by: "Дарья Соколова" })) };
+    input.openQuestions[0] = { ...input.openQuestions[0], title: "屋根 ring lowered?" };
+    const { text } = await readBack("tripod-scripts", input);
     const all = text.join("\n");
-    expect(all).toContain("run Zuluft–Delta7 (hard)");
-    expect(all).not.toContain("Δ");
+    expect(text[0]).toContain("Hala sportowa Łódź-Żerań");
+    expect(all).toContain("run Zuluft–Δ7 (hard)");
+    expect(all).toMatch(/Proposed Opening proposed Ευάγγελος Παπαδάκης \(MEP engineer\)/);
+    expect(all).toContain('Thread "Кабельный лоток через BD" on member BD');
+    expect(all).toMatch(/Proposed Дарья Соколова \(MEP engineer\)/);
+    // CJK is outside DejaVu Sans: "?" rather than an empty box.
+    expect(all).toContain("?? ring lowered?");
+    // The fonts are embedded (subsets), not referenced: pdffonts (poppler) lists them with "emb" yes.
+    const fonts = execFileSync("pdffonts", [path.join(work, "tripod-scripts.pdf")]).toString();
+    expect(fonts).toMatch(/DejaVuSansCondensed\s.*yes/);
+    expect(fonts).toMatch(/DejaVuSansCondensed-Bold\s.*yes/);
+    expect(fonts).not.toContain("Helvetica");
   });
 
   it("keeps the caution on every page of a long report (the demo roof, 1538 members, four combinations)", async () => {

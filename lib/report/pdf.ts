@@ -1,4 +1,4 @@
-// The review report as a PDF (pdfkit, built-in Helvetica: nothing is fetched). Built from plain data
+// The review report as a PDF (pdfkit, DejaVu Sans Condensed embedded: nothing is fetched). Built from plain data
 // (lib/report/types.ts), so it is tested without a database. Every page carries the standing caution.
 import type { CaseResult } from "../analysis/analyze";
 import { STANDING_CAUTION } from "../review/caution";
