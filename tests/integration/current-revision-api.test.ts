@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PUT as MARK_CURRENT } from "@/app/api/projects/[projectId]/models/[number]/current/route";
 import { GET as LIST_MODELS } from "@/app/api/projects/[projectId]/models/route";
+import { POST as MAKE_REPORT } from "@/app/api/projects/[projectId]/report/route";
 import { getDefaultRevisionNumber } from "@/db/queries/models";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { analyzeModel } from "@/lib/analysis/analyze";
@@ -11,8 +12,8 @@ import { generateRoof } from "@/lib/analysis/generator";
 import type { TrussModel } from "@/lib/analysis/model";
 import { analyseForStorage } from "@/lib/models/analyse";
 import { loadAnalysedRevision } from "@/app/api/projects/[projectId]/_lib/report-data";
-import { eq } from "drizzle-orm";
-import { liveEvents } from "@/db/schema";
+import { and, eq } from "drizzle-orm";
+import { jobs, liveEvents, modelRevisions } from "@/db/schema";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
@@ -62,5 +63,20 @@ describe("the current revision", () => {
     expect(list.revisions.map((r: { number: number; isCurrent: boolean }) => [r.number, r.isCurrent])).toEqual([[3, false], [2, true], [1, false]]);
     expect((await loadAnalysedRevision({ projectId: fx.projectId })).number).toBe(2);
     expect((await loadAnalysedRevision({ projectId: fx.projectId, revision: 1 })).number).toBe(1);
+  });
+
+  it("makes the report of the revision chosen in the report's picker, and of the current one (not the newest) when none is chosen", async () => {
+    expect(await getDefaultRevisionNumber({ projectId: fx.projectId })).toBe(2);
+    const ask = async (user: ProjectFixture["users"]["architect"], body: object) => {
+      const response = await MAKE_REPORT(await buildRequest(`/api/projects/${fx.projectId}/report`, { method: "POST", body, user }), routeContext({ projectId: fx.projectId }));
+      expect(response.status).toBe(202);
+      const { job } = (await response.json()) as { job: { id: string } };
+      const [row] = await getDb().select({ revisionId: jobs.revisionId, input: jobs.input }).from(jobs).where(eq(jobs.id, job.id));
+      const [revision] = await getDb().select({ number: modelRevisions.number }).from(modelRevisions).where(and(eq(modelRevisions.projectId, fx.projectId), eq(modelRevisions.id, row.revisionId)));
+      return { number: revision.number, input: row.input as { revision: number } };
+    };
+    // The picker sends the revision shown in it: revision 1, while 2 is current.
+    expect(await ask(fx.users.architect, { revision: 1 })).toMatchObject({ number: 1, input: { revision: 1 } });
+    expect(await ask(fx.users.structural_engineer, {})).toMatchObject({ number: 2, input: { revision: 2 } });
   });
 });

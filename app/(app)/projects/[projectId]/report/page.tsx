@@ -38,7 +38,7 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
           A PDF of the chosen revision, made in the background: its identity (who made it current, the hash of the stored model),
           model summary, load cases and combinations; per result a plan coloured by force state, support reactions with the
           balance check, member forces and zero-force members; the most utilised members per check with their arithmetic; the
-          members whose state differs between two results; every clash with a plan snippet and its decision history; the open questions.
+          members whose state differs between two results; every clash with a plan snippet and its decision history; the record of the proposals and decisions in each thread; the open questions.
         </p>
         <p className="rounded-md border border-compression/40 bg-compression/5 px-3 py-2 text-sm text-board-800">{STANDING_CAUTION}</p>
         {!revision ? (
