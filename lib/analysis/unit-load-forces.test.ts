@@ -23,28 +23,29 @@ describe("unitLoadForces (the certificate workload)", () => {
   });
 
   it("gives, bit for bit, the member forces of solveColumns' displacements, across blocks", () => {
-    const model = generateRoof({ spanX: 30, spanY: 24, module: 3, depth: 2 });
+    const model = generateRoof({ spanX: 12, spanY: 9, module: 3, depth: 1.2 });
     const s = prepareStructure(model);
     const dofs = 3 * model.nodes.length;
     const m = model.members.length;
-    // every dof of nodes in elimination order, restrained ones included: two full blocks and a short one
-    const loadDofs = Int32Array.from({ length: 2 * SOLVE_BLOCK + 5 }, (_, c) => 3 * s.eliminationOrder[Math.floor(c / 3)] + (c % 3));
+    // every dof of nodes in elimination order, restrained ones included: a full block and a short one
+    const loadDofs = Int32Array.from({ length: SOLVE_BLOCK + 5 }, (_, c) => 3 * s.eliminationOrder[Math.floor(c / 3)] + (c % 3));
     expect(loadDofs.some((dof) => s.topology.restrained[dof])).toBe(true);
     const fs = new Float64Array(dofs * loadDofs.length);
     loadDofs.forEach((dof, c) => (fs[c * dofs + dof] = 1));
     const u = s.solveColumns(fs, loadDofs.length);
     const seen: number[] = [];
+    const differing: string[] = []; // load, member: compared with Object.is, so -0 against +0 counts too
     for (const { first, width, forces } of s.unitLoadForces(loadDofs)) {
       expect(width).toBe(Math.min(SOLVE_BLOCK, loadDofs.length - first));
       for (let c = 0; c < width; c++) {
         const expected = s.memberForces(u.subarray((first + c) * dofs, (first + c + 1) * dofs));
-        const got = Float64Array.from({ length: m }, (_, e) => forces[e * width + c]);
-        expect(got).toEqual(expected);
+        for (let e = 0; e < m; e++) if (!Object.is(forces[e * width + c], expected[e])) differing.push(`${first + c}, ${e}`);
       }
       seen.push(first);
     }
-    expect(seen).toEqual([0, SOLVE_BLOCK, 2 * SOLVE_BLOCK]);
-  });
+    expect(seen).toEqual([0, SOLVE_BLOCK]);
+    expect(differing).toEqual([]);
+  }, 60_000); // a shared, loaded machine; the work is a few milliseconds
 
   it("refuses once the factor is released", () => {
     const s = prepareStructure(prattTruss());
