@@ -6,7 +6,7 @@ import Link from "next/link";
 import { useState } from "react";
 import { Button, FormMessage } from "@/components/ui/form";
 import type { JobView } from "@/db/queries/jobs";
-import { JobProgress, useJob } from "@/components/jobs/job-progress";
+import { JobProgress, scrollIntoViewWhenDone, StepProgress, useJob } from "@/components/jobs/job-progress";
 import { apiFetch } from "@/lib/http/fetcher";
 
 interface HangAnswer {
@@ -49,13 +49,14 @@ export function HangServicesButton({ projectId, revision }: { projectId: string;
         </Button>
       </div>
       <FormMessage message={hang.error?.message} />
+      {hang.isPending ? <StepProgress phase="Hanging the services on the roof and saving the new revision" /> : null}
       {answer && <HangResult projectId={projectId} answer={answer} />}
     </div>
   );
 }
 
 function HangResult({ projectId, answer }: { projectId: string; answer: HangAnswer }) {
-  const job = useJob(projectId, answer.job);
+  const job = useJob(projectId, answer.job, (settled) => scrollIntoViewWhenDone(settled, '[data-testid="hang-services-done"]'));
   return (
     <div className="flex flex-col gap-1 rounded-md border border-tension/30 bg-tension/5 p-2 text-sm" role="status" data-testid="hang-services-done">
       <p>

@@ -83,6 +83,27 @@ export function JobProgress({ projectId, job, canRetry }: { projectId: string; j
   );
 }
 
+/**
+ * A step the browser itself waits on before there is a job to follow (uploading a file, generating a roof, hanging
+ * the services): the phase, and the percent when it is known (an indeterminate bar otherwise).
+ */
+export function StepProgress({ phase, percent }: { phase: string; percent?: number }) {
+  return (
+    <div className="flex min-w-40 flex-col gap-0.5" data-testid="step-progress">
+      <progress className="h-2 w-full accent-tension" max={100} value={percent} aria-label={percent === undefined ? phase : `${phase}: ${percent} %`} />
+      <span className="text-xs text-board-700" role="status">
+        {phase}
+        {percent === undefined ? "…" : ` · ${percent} %`}
+      </span>
+    </div>
+  );
+}
+
+/** Brings what a finished job produced into view (the revision row, the report file, the hanging's result). */
+export function scrollIntoViewWhenDone(job: JobView, selector: string): void {
+  if (job.state === "done") document.querySelector(selector)?.scrollIntoView({ block: "center", behavior: "smooth" });
+}
+
 /** A job followed live: progress while it runs, then `onSettled` (e.g. refetch what it produced). */
 export function LiveJob({ projectId, job, canRetry, onSettled }: { projectId: string; job: JobView; canRetry: boolean; onSettled?: (job: JobView) => void }) {
   const current = useJob(projectId, job, onSettled);

@@ -5,6 +5,7 @@ import { limitHints } from "@/lib/limit-hints";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
+import { StepProgress } from "@/components/jobs/job-progress";
 import { Button, Field, FieldError, FormMessage, showServerError } from "@/components/ui/form";
 import { roofParamsSchema } from "@/lib/analysis/generator";
 import { ApiError, apiFetch } from "@/lib/http/fetcher";
@@ -133,6 +134,7 @@ export function GenerateForm({ projectId, onSaved }: { projectId: string; onSave
         {limitHints.generator}
       </p>
       <FormMessage message={errors.root?.message} />
+      {save.isPending ? <StepProgress phase="Generating the roof and queuing its analysis" /> : null}
       <Button type="submit" disabled={save.isPending} data-testid="generate-submit">
         {save.isPending ? "Generating…" : "Generate, save and analyse"}
       </Button>

@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import type { RevisionSummary } from "@/db/queries/models";
-import { LiveJob } from "@/components/jobs/job-progress";
+import { LiveJob, scrollIntoViewWhenDone } from "@/components/jobs/job-progress";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { apiFetch } from "@/lib/http/fetcher";
 
@@ -65,7 +65,14 @@ export function RevisionList({ projectId, canRetry, canMarkCurrent }: { projectI
               ) : r.analysisStatus === "unstable" ? (
                 "unstable"
               ) : r.job ? (
-                <LiveJob projectId={projectId} job={r.job} canRetry={canRetry} onSettled={() => void queryClient.invalidateQueries({ queryKey: revisionsKey(projectId) })} />
+                <LiveJob
+                  projectId={projectId}
+                  job={r.job}
+                  canRetry={canRetry}
+                  onSettled={(job) => {
+                    void queryClient.invalidateQueries({ queryKey: revisionsKey(projectId) }).then(() => scrollIntoViewWhenDone(job, `[data-testid="revision-${r.number}"]`));
+                  }}
+                />
               ) : (
                 "not analysed"
               )}

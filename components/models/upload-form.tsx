@@ -3,6 +3,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { limitHints } from "@/lib/limit-hints";
 import { useState, type FormEvent } from "react";
+import { StepProgress } from "@/components/jobs/job-progress";
 import { Button, FormMessage } from "@/components/ui/form";
 import type { Issue } from "@/lib/http/errors";
 import { ApiError, apiFetch } from "@/lib/http/fetcher";
@@ -16,14 +17,21 @@ const contentTypeOf = (file: File) => (file.name.toLowerCase().endsWith(".json")
  * Puts the chosen files (one .json model, or .csv tables) into object storage through presigned uploads, each
  * refused at once when too large, and returns the request naming them; the server keeps them byte for byte.
  */
-async function requestFromFiles(projectId: string, files: File[], name: string): Promise<CreateRevisionInput> {
+/** The upload's phase and percent for the progress bar (files sent so far), until the server answers. */
+type UploadStep = { phase: string; percent?: number };
+
+async function requestFromFiles(projectId: string, files: File[], name: string, onStep: (step: UploadStep) => void): Promise<CreateRevisionInput> {
   const json = files.filter((f) => f.name.toLowerCase().endsWith(".json"));
   const csv = files.filter((f) => f.name.toLowerCase().endsWith(".csv"));
   if (!((json.length === 1 && csv.length === 0) || (csv.length > 0 && json.length === 0))) {
     throw new ApiError(400, "Choose one .json model file, or the .csv tables (nodes, members, sections, supports, loads…).");
   }
   const uploaded = [];
-  for (const file of files) uploaded.push(await uploadToStorage<{ attachment: { id: string } }>(projectId, file, { purpose: "model", contentType: contentTypeOf(file) }));
+  for (const [k, file] of files.entries()) {
+    onStep({ phase: `Uploading ${file.name} (file ${k + 1} of ${files.length})`, percent: Math.round((100 * k) / files.length) });
+    uploaded.push(await uploadToStorage<{ attachment: { id: string } }>(projectId, file, { purpose: "model", contentType: contentTypeOf(file) }));
+  }
+  onStep({ phase: "Checking the model and queuing its analysis" });
   return { kind: "uploadFiles", name: name || (csv.length > 0 ? "Uploaded model" : undefined), attachmentIds: uploaded.map((u) => u.attachment.id) };
 }
 
@@ -32,9 +40,10 @@ export function UploadForm({ projectId, onSaved }: { projectId: string; onSaved:
   const queryClient = useQueryClient();
   const [files, setFiles] = useState<File[]>([]);
   const [name, setName] = useState("");
+  const [step, setStep] = useState<UploadStep>({ phase: "Starting the upload" });
   const upload = useMutation({
     mutationFn: async () => {
-      const body = await requestFromFiles(projectId, files, name.trim());
+      const body = await requestFromFiles(projectId, files, name.trim(), setStep);
       return apiFetch<{ revision: { number: number } }>(`/api/projects/${projectId}/models`, { method: "POST", body });
     },
     onSuccess: async ({ revision }) => {
@@ -65,6 +74,7 @@ export function UploadForm({ projectId, onSaved }: { projectId: string; onSaved:
         </p>
       </div>
       <FormMessage message={upload.error?.message} />
+      {upload.isPending ? <StepProgress phase={step.phase} percent={step.percent} /> : null}
       {issues.length > 0 ? (
         <ul className="max-h-64 list-disc overflow-y-auto pl-6 text-sm text-clash" data-testid="upload-problems">
           {issues.map((issue, k) => (
