@@ -1,17 +1,18 @@
 // The whole-model review: design checks, verdicts, low-force flags and why-zero explanations per member.
 import { DEFAULT_FABRICATION, type AnalysisResult, type TrussModel } from "@/lib/analysis";
-import { STANDING_CAUTION } from "./caution";
+import { largestDisplacement, reactionBalance, type ReactionBalance } from "@/lib/analysis/reaction-balance";
+import { NOT_CHECKED, STANDING_CAUTION } from "./caution";
 import { createReviewContext, type ReviewContext, type ReviewOptions } from "./context";
 import { EN_COMPRESSION_SLENDERNESS_LIMIT, EN_TENSION_SLENDERNESS_LIMIT } from "./design-checks/en1993";
 import { checkDeflections, DEFAULT_DEFLECTION_LIMIT, type DeflectionCheck } from "./deflection";
 import { designMembers, type MemberDesign } from "./member-design";
 import { overallStability, type OverallStability } from "./overall-stability";
 import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
-import { memberVerdicts } from "./verdicts";
+import { memberVerdicts, type MemberVerdict } from "./verdicts";
 import { explainZeroForces, type WhyZero } from "./why-zero";
 
 export type MemberReview = MemberDesign & {
-  verdict: { verdict: MemberVerdictKind; reason: string; braces?: string[]; caution: string };
+  verdict: { verdict: MemberVerdictKind; reason: string; braces?: string[]; lostRestraints?: MemberVerdict["lostRestraints"]; caution: string };
   /** Results in which the member is low-force (below the threshold yet not zero-force). */
   lowForceIn: string[];
   /** Why the member is zero, per result in which it is zero-force. */
@@ -32,8 +33,12 @@ export type ModelReview = {
   loadCasesInNoCombination: string[];
   /** Critical load factor αcr of the whole truss per design result, its modes, and the warning below 10. */
   overallStability: OverallStability;
+  /** Per result: the support reactions' sum against the applied load (ΣR + ΣF = 0 to 1e-9) and the node moving most. */
+  reactions: (ReactionBalance & { result: string; largestDisplacement: ReturnType<typeof largestDisplacement> })[];
   summary: { maxUtilisation: number; governingMember: string | null; overCapacity: string[]; verdicts: Record<MemberVerdictKind, number> };
   caution: string;
+  /** What no check covers (connections and nodes among them). */
+  notChecked: string;
 };
 
 function assumptions(options: ReviewOptions, model: TrussModel): string[] {
@@ -87,8 +92,8 @@ export function reviewModel(model: TrussModel, result: AnalysisResult, options: 
         : Object.entries(result.results)
             .filter(([rid, r]) => !zeroSets[rid].has(id) && Math.abs(r.memberForces[id]) <= threshold)
             .map(([rid]) => rid);
-    const { verdict: kind, reason, braces, caution } = verdicts[e];
-    const verdict = braces ? { verdict: kind, reason, braces, caution } : { verdict: kind, reason, caution };
+    const { verdict: kind, reason, braces, lostRestraints, caution } = verdicts[e];
+    const verdict = braces ? { verdict: kind, reason, braces, lostRestraints, caution } : { verdict: kind, reason, caution };
     return { ...design, verdict, lowForceIn, whyZero: whyByMember.get(id) ?? {} };
   });
 
@@ -112,6 +117,7 @@ export function reviewModel(model: TrussModel, result: AnalysisResult, options: 
     deflections: checkDeflections(model, result, options.deflectionLimit ?? DEFAULT_DEFLECTION_LIMIT),
     loadCasesInNoCombination: result.info.loadCasesInNoCombination,
     overallStability: overallStability(context),
+    reactions: Object.entries(result.results).map(([id, r]) => ({ result: id, ...reactionBalance(model, id, r), largestDisplacement: largestDisplacement(r) })),
     summary: {
       maxUtilisation,
       governingMember,
@@ -119,5 +125,6 @@ export function reviewModel(model: TrussModel, result: AnalysisResult, options: 
       verdicts: counts,
     },
     caution: STANDING_CAUTION,
+    notChecked: NOT_CHECKED,
   };
 }
