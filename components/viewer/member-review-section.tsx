@@ -4,7 +4,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { useState } from "react";
 import type { MemberDetail } from "@/lib/models/member-detail";
-import { STANDING_CAUTION } from "@/lib/review/caution";
+import { NOT_CHECKED, STANDING_CAUTION } from "@/lib/review/caution";
 import type { OpeningAssessment, OpeningSpec } from "@/lib/review/opening";
 import type { RemovalOutcome } from "@/lib/review/removal";
 import type { WhyZero } from "@/lib/review/why-zero";
@@ -19,7 +19,7 @@ type Ask = (request: WhatIfRequest) => Promise<WhatIfAnswer>;
 function Caution() {
   return (
     <p className="mt-2 rounded border border-compression/30 bg-compression/5 p-2 text-xs text-board-800" data-testid="standing-caution">
-      {STANDING_CAUTION}
+      {STANDING_CAUTION} {NOT_CHECKED}
     </p>
   );
 }

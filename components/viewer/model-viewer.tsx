@@ -16,6 +16,7 @@ import { MemberPanel } from "./member-panel";
 import { NodePanel } from "./node-panel";
 import { prepareModel, resultIds } from "./prepare";
 import { AnyLoadJobPanel } from "./any-load-job-panel";
+import { RoofChecksPanel } from "./roof-checks-panel";
 import { StabilityPanel } from "./stability-panel";
 import { drawMechanism, UnstableView } from "./unstable-view";
 import { installTestHook } from "./test-hook";
@@ -96,6 +97,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
     <div className="flex flex-col">
       <ViewerToolbar prepared={prepared} columns={columns} ids={ids} hasReview={hasReview} fileName={`strutroom-${revision.name}-r${revision.number}.png`.replace(/\s+/g, "-")} />
       <StabilityPanel review={revision.analysis?.review} nodeIds={prepared.nodes.ids} />
+      <RoofChecksPanel info={analysis.info} review={revision.analysis?.review} />
       <AnyLoadJobPanel projectId={projectId} revision={revision} onStored={() => void query.refetch()} />
       <div className="flex">
         <div className="relative h-[75vh] min-w-0 flex-1">

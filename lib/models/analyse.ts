@@ -7,6 +7,7 @@ import { STANDING_CAUTION } from "@/lib/review/caution";
 import { createReviewContext } from "@/lib/review/context";
 import type { AnalysedPattern } from "@/lib/review/analysed-patterns";
 import { idleForAnyLoad, type AnyLoadCertificate, type InfluencePeak } from "@/lib/review/any-load";
+import { checkDeflections, type DeflectionCheck } from "@/lib/review/deflection";
 import { overallStability, type OverallStability } from "@/lib/review/overall-stability";
 import type { DesignStandard } from "@/lib/review/design-checks/types";
 import { designMembers, type MemberDesign } from "@/lib/review/member-design";
@@ -57,6 +58,8 @@ export type StoredReview = {
   /** Every load case analysed, kept at every roof size (absent on reviews stored before: lib/review/analysed-patterns.ts). */
   analysedPatterns?: AnalysedPattern[];
   members: Record<string, StoredMemberReview>;
+  /** Each serviceability combination's largest vertical deflection against span/250 (absent on reviews stored before). */
+  deflections?: DeflectionCheck[];
   stability?: StoredStability;
   anyLoad?: StoredAnyLoad;
   wholeRoofChecksLeftOut?: string;
@@ -115,9 +118,10 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
   });
   // the patterns analysed, shown next to every "idle" verdict at any roof size: idle depends on them
   const patterns: AnalysedPattern[] = model.loadCases.map((c) => ({ id: c.id, name: c.name }));
+  const deflections = checkDeflections(model, result);
   if (!certificate) {
     const leftOut = `Overall stability and "idle for any roof load" are checked with the analysis for roofs of up to ${wholeRoofCheckMembers.toLocaleString("en")} members; this one has ${model.members.length.toLocaleString("en")}. "Idle for any roof load" can be run for the whole roof as a job from the viewer.`;
-    return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, wholeRoofChecksLeftOut: leftOut };
+    return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, deflections, wholeRoofChecksLeftOut: leftOut };
   }
-  return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, stability: storedStability(overallStability(context)), anyLoad: certificate.anyLoad };
+  return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, deflections, stability: storedStability(overallStability(context)), anyLoad: certificate.anyLoad };
 }

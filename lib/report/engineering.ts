@@ -4,6 +4,7 @@
 import type { CaseResult } from "../analysis/analyze";
 import { largestDisplacement, reactionBalance } from "../analysis/reaction-balance";
 import type { StoredMemberReview } from "../models/analyse";
+import { NOT_CHECKED } from "../review/caution";
 import { COLOURS, FONT, PAGE, kn, type ReportWriter } from "./pdf-writer";
 import { drawPlan, drawPlanLegend } from "./plan-drawing";
 import type { ReportInput } from "./types";
@@ -69,7 +70,7 @@ export function utilisationSection(w: ReportWriter, input: ReportInput, resultNa
   }
   w.paragraph(
     `Design standard ${review.standard}. Each member's governing check is the largest utilisation over the design results (ultimate combinations; load cases when there are none). ` +
-      "Connections and nodes are not checked.",
+      NOT_CHECKED,
     { color: COLOURS.muted, size: 8.5 },
   );
   const groups = rankByCheck(review.members);

@@ -166,6 +166,19 @@ describe("the 3D viewer on the demo roof", () => {
     expect((await page.getByTestId(`member-panel-end-displacements-${last}`).locator("td").allTextContents())[column]).toBe((Math.hypot(d.ux, d.uy, d.uz) * 1000).toFixed(1));
   });
 
+  it("shows the checks of the whole roof: each serviceability combination's deflection against span/250 as stored, and what is not checked (issue 15 items 6, Done when)", async () => {
+    const response = await page.request.get(appUrl(`/api/projects/${projectId}/models/1`));
+    type Check = { combination: string; deflection: number; limit: number; utilisation: number };
+    const { revision } = (await response.json()) as { revision: { analysis: { review: { deflections: Check[] } } } };
+    const checks = revision.analysis.review.deflections;
+    // the demo roof's one serviceability combination (lib/analysis/generator.ts: EN 1990 (6.14b) G + S)
+    expect(checks.map((c) => [c.combination, c.limit])).toEqual([["SLS-1", 250]]);
+    const cells = await page.getByTestId("roof-checks-deflection-SLS-1").locator("td").allTextContents();
+    expect(cells[1]).toMatch(new RegExp(`^${(checks[0].deflection * 1000).toFixed(1)} at `));
+    expect(cells[3]).toBe(checks[0].utilisation.toFixed(3));
+    expect(await page.getByTestId("roof-checks-not-checked").textContent()).toMatch(/^Not checked: connections and nodes \(joints\).*engineer of record/);
+  });
+
   it("exports the current view as a PNG file", async () => {
     const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("viewer-export-png").click()]);
     expect(download.suggestedFilename()).toMatch(/\.png$/);

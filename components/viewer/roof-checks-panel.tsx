@@ -1,0 +1,70 @@
+"use client";
+// What the analysis and review say about the whole roof, beside the per-member results: the analysis warnings
+// (nearly a mechanism, displacements beyond span/50), load cases in no combination, and the deflection of each
+// serviceability combination against span/limit; then what is not checked, with the standing caution.
+import type { AnalysisResult } from "@/lib/analysis/analyze";
+import type { ReviewOverview } from "@/db/queries/revision-view";
+import { NOT_CHECKED, STANDING_CAUTION } from "@/lib/review/caution";
+
+const mm = (metres: number) => (metres * 1000).toFixed(1);
+
+function Deflections({ review }: { review: ReviewOverview | null | undefined }) {
+  const checks = review?.deflections;
+  if (!review) return null;
+  if (!checks) return <p>Serviceability deflection: not stored with this revision&apos;s review (it was reviewed before the check was kept); analyse it again to see it.</p>;
+  if (checks.length === 0) return <p>Serviceability deflection: no serviceability combination in the model, so none is checked.</p>;
+  return (
+    <table className="mt-1 text-xs" data-testid="roof-checks-deflections">
+      <thead>
+        <tr className="text-left text-board-700">
+          <th className="pr-3 font-normal">Serviceability combination</th>
+          <th className="pr-3 text-right font-normal">Largest vertical (mm)</th>
+          <th className="pr-3 text-right font-normal">Allowed (mm)</th>
+          <th className="text-right font-normal">Utilisation</th>
+        </tr>
+      </thead>
+      <tbody>
+        {checks.map((c) => (
+          <tr key={c.combination} data-testid={`roof-checks-deflection-${c.combination}`} className={c.utilisation > 1 ? "font-semibold text-clash" : ""}>
+            <td className="pr-3">{c.combination}</td>
+            <td className="pr-3 text-right font-mono tabular-nums">
+              {mm(c.deflection)}
+              {c.node ? ` at ${c.node}` : ""}
+            </td>
+            <td className="pr-3 text-right font-mono tabular-nums" title={c.steps.join("; ")}>
+              {mm(c.allowed)} (span {c.span.toFixed(2)} m / {c.limit})
+            </td>
+            <td className="text-right font-mono tabular-nums">{c.utilisation.toFixed(3)}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+export function RoofChecksPanel({ info, review }: { info: AnalysisResult["info"]; review: ReviewOverview | null | undefined }) {
+  const unused = info.loadCasesInNoCombination ?? [];
+  return (
+    <section className="border-b border-board-100 px-3 py-2 text-xs" data-testid="roof-checks" aria-label="Checks of the whole roof">
+      <h2 className="font-semibold">Checks of the whole roof</h2>
+      {info.warnings.length > 0 ? (
+        <ul role="alert" className="list-disc pl-5 font-semibold text-clash" data-testid="roof-checks-warnings">
+          {info.warnings.map((w) => (
+            <li key={w}>{w}</li>
+          ))}
+        </ul>
+      ) : (
+        <p data-testid="roof-checks-warnings">No analysis warning: no joint is nearly a mechanism and no displacement exceeds span/50.</p>
+      )}
+      {unused.length > 0 ? (
+        <p data-testid="roof-checks-unused-cases">
+          Load cases in no combination: {unused.join(", ")}. They are analysed and count for &quot;zero in every result&quot;, but not for the design envelope, which is over the combinations.
+        </p>
+      ) : null}
+      <Deflections review={review} />
+      <p className="mt-1 text-board-700" data-testid="roof-checks-not-checked">
+        {NOT_CHECKED} {STANDING_CAUTION}
+      </p>
+    </section>
+  );
+}
