@@ -41,6 +41,8 @@ describe("bracing judged by stability (issue 15 item 3)", () => {
     // before: the weakest direction across the column is y (MY alone, 1e5 kN/m; x has 1e5 + 0.667)
     expect(lost.stiffnessBefore).toBeCloseTo(1e5, 3);
     expect(lost.required).toBeCloseTo(20, 9);
+    // the verdict's words say the joint and the direction it loses its hold in (issue 15 item 3)
+    expect(v.reason).toMatch(/M across AM, along [+−]1\.00 x \(0\.667 kN\/m left, 20\.0 needed\)/);
   });
 
   it("a second brace that leaves the joint held is idle; the only hold along y is stabilising", () => {

@@ -1,4 +1,5 @@
 // What each member is, for removal: load-bearing, stabilising, bracing or idle (glossary.md), over all results.
+import { describeDirection } from "@/lib/analysis/mechanism";
 import { SOLVE_BLOCK } from "@/lib/analysis/prepare";
 import type { MemberVerdictKind } from "@/lib/vocabulary/member-verdict";
 import { STANDING_CAUTION } from "./caution";
@@ -170,7 +171,7 @@ export function memberVerdicts(context: ReviewContext, onProgress?: (fraction: n
     });
     if (lost.length > 0) {
       const braces = [...new Set(lost.map((l) => l.member))];
-      const where = lost.map((l) => `${l.joint} across ${l.member} (${l.stiffnessAfter.toPrecision(3)} kN/m left, ${l.required.toPrecision(3)} needed)`).join("; ");
+      const where = lost.map((l) => `${l.joint} across ${l.member}, along ${describeDirection(l.direction)} (${l.stiffnessAfter.toPrecision(3)} kN/m left, ${l.required.toPrecision(3)} needed)`).join("; ");
       return {
         member: member.id,
         verdict: "bracing",
