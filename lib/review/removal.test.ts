@@ -20,6 +20,31 @@ describe("removalWhatIf", () => {
     expect(outcome.caution).toBe(STANDING_CAUTION);
   });
 
+  it("names every joint the removal leaves moving, with a mode no remaining member resists (issue 15 item 1, removal what-if)", () => {
+    // Without the bottom chord L1L2 the determinate Pratt truss (check-values §5.3 Example 4) splits: the left panel
+    // swings about L0 and more than one joint moves. A mechanism mode is an inextensional motion: every remaining
+    // member's elongation c·(v_j − v_i) is zero (first order), checked here member by member.
+    const model = prattTruss();
+    const outcome = removalWhatIf(contextFor(model), { remove: ["L1L2"] });
+    expect(outcome.mechanism).toBe(true);
+    if (!outcome.mechanism) return;
+    expect(outcome.modes).toHaveLength(1);
+    const [mode] = outcome.modes;
+    expect(mode.kind).toBe("mechanism");
+    expect(mode.joints.length).toBeGreaterThan(1);
+    const index = new Map(model.nodes.map((n, k) => [n.id, k]));
+    for (const m of model.members.filter((m) => m.id !== "L1L2")) {
+      const a = model.nodes[index.get(m.i)!];
+      const b = model.nodes[index.get(m.j)!];
+      const L = Math.hypot(b.x - a.x, b.y - a.y, b.z - a.z);
+      const [ia, ib] = [3 * index.get(m.i)!, 3 * index.get(m.j)!];
+      const elongation = ((b.x - a.x) * (mode.shape[ib] - mode.shape[ia]) + (b.y - a.y) * (mode.shape[ib + 1] - mode.shape[ia + 1]) + (b.z - a.z) * (mode.shape[ib + 2] - mode.shape[ia + 2])) / L;
+      expect(Math.abs(elongation), m.id).toBeLessThan(1e-9);
+    }
+    // every joint named moves in the shape, and the words list them all
+    for (const joint of mode.joints) expect(outcome.instabilityText.join(" ")).toContain(joint.node);
+  });
+
   it("removing an idle member leaves every other force unchanged", () => {
     const outcome = removalWhatIf(contextFor(prattWithExtras()), { remove: ["XS1"] });
     expect(outcome.mechanism).toBe(false);
