@@ -2,7 +2,9 @@
 // The clash table (TanStack Table v9): sortable columns, filters by system, state, outcome and the member's
 // force state over all combinations, assignee and due date, and grouping by run, system or grid zone (group
 // headers drawn between the sorted rows, lib/clash/groups.ts). Selecting a row flies the viewer to the clash and
-// selects its member; its history is in the decision panel.
+// selects its member; its history is in the decision panel. Below the lg breakpoint the same rows are cards (a
+// phone or tablet cannot show eleven columns); on wider screens the actions come first so a table wider than its
+// column scrolls without ever hiding "Show in 3D" and "Thread" (issue 17 item 11).
 import {
   columnFilteringFeature,
   createColumnHelper,
@@ -83,6 +85,20 @@ function labelFor(filter: string, value: string): string {
   return value;
 }
 
+/** "Show in 3D" and the link to the clash's thread, in a table row or on a card. */
+function ClashActions({ row, onSelect, threadHref, testIds }: { row: ClashRowData; onSelect: (row: ClashRowData) => void; threadHref: (row: ClashRowData) => string; testIds: { show: string; thread: string } }) {
+  return (
+    <>
+      <button type="button" className="rounded border border-board-200 px-2 py-0.5 text-xs hover:bg-board-100" onClick={() => onSelect(row)} data-testid={testIds.show}>
+        Show in 3D
+      </button>
+      <Link className="ml-2 text-xs text-tension underline" href={threadHref(row)} data-testid={testIds.thread}>
+        Thread
+      </Link>
+    </>
+  );
+}
+
 export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: ClashRowData[]; selectedId: string | null; onSelect: (row: ClashRowData) => void; threadHref: (row: ClashRowData) => string }) {
   const table = useTable({ features, columns, data: rows, getRowId: (row) => row.id, initialState: { sorting: [{ id: "depth", desc: true }] } });
   // Filter choices come from all rows (not the filtered ones) so every combination can be picked.
@@ -142,11 +158,52 @@ export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: C
           {visible.length} of {rows.length} clashes
         </span>
       </div>
-      <div className="overflow-x-auto rounded-lg border border-board-200">
+      <ul className="flex flex-col gap-2 lg:hidden" data-testid="clash-cards" aria-label="Clashes">
+        {groups.map((group) => (
+          <Fragment key={group.key}>
+            {grouping !== "none" && (
+              <li className="px-1 pt-1 text-xs font-semibold text-board-800" data-testid="clash-card-group">
+                {CLASH_GROUPING_LABELS[grouping]}: {group.key} · {group.rows.length} {group.rows.length === 1 ? "clash" : "clashes"}
+              </li>
+            )}
+            {group.rows.map((row) => (
+              <li
+                key={row.id}
+                className={`rounded-lg border bg-white p-3 text-sm ${row.id === selectedId ? "border-selection outline outline-2 outline-selection" : "border-board-200"}`}
+                data-testid="clash-card"
+                data-clash-key={row.original.clashKey}
+              >
+                <dl className="grid grid-cols-[minmax(0,2fr)_minmax(0,3fr)] gap-x-3 gap-y-1 break-words">
+                  {row.getAllCells().map((cell) => (
+                    <Fragment key={cell.id}>
+                      <dt className="text-xs text-board-700">{String(cell.column.columnDef.header)}</dt>
+                      <dd className={cell.column.id === "member" ? "font-mono font-semibold" : ""}>
+                        <table.FlexRender cell={cell} />
+                      </dd>
+                    </Fragment>
+                  ))}
+                </dl>
+                <div className="mt-2">
+                  <ClashActions row={row.original} onSelect={onSelect} threadHref={threadHref} testIds={{ show: "clash-card-show", thread: "clash-card-thread" }} />
+                </div>
+              </li>
+            ))}
+          </Fragment>
+        ))}
+        {visible.length === 0 && (
+          <li className="rounded-lg border border-board-200 px-2 py-6 text-center text-sm text-board-700">
+            {rows.length === 0 ? "No clashes: the runs keep their clearance from every member." : "No clash matches these filters."}
+          </li>
+        )}
+      </ul>
+      <div className="hidden overflow-x-auto rounded-lg border border-board-200 lg:block">
         <table className="w-full text-left text-sm" data-testid="clash-table">
           <thead className="bg-board-100">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
+                <th className="px-2 py-2 font-medium">
+                  <span className="sr-only">Actions</span>
+                </th>
                 {group.headers.map((header) => {
                   const sorted = header.column.getIsSorted();
                   return (
@@ -158,9 +215,6 @@ export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: C
                     </th>
                   );
                 })}
-                <th className="px-2 py-2 font-medium">
-                  <span className="sr-only">Actions</span>
-                </th>
               </tr>
             ))}
           </thead>
@@ -184,19 +238,14 @@ export function ClashTable({ rows, selectedId, onSelect, threadHref }: { rows: C
                   data-testid="clash-row"
                   data-clash-key={row.original.clashKey}
                 >
+                  <td className="whitespace-nowrap px-2 py-1.5 align-top">
+                    <ClashActions row={row.original} onSelect={onSelect} threadHref={threadHref} testIds={{ show: "clash-show", thread: "clash-thread" }} />
+                  </td>
                   {row.getAllCells().map((cell) => (
                     <td key={cell.id} className="px-2 py-1.5 align-top">
                       <table.FlexRender cell={cell} />
                     </td>
                   ))}
-                  <td className="whitespace-nowrap px-2 py-1.5">
-                    <button type="button" className="rounded border border-board-200 px-2 py-0.5 text-xs hover:bg-board-100" onClick={() => onSelect(row.original)} data-testid="clash-show">
-                      Show in 3D
-                    </button>
-                    <Link className="ml-2 text-xs text-tension underline" href={threadHref(row.original)} data-testid="clash-thread">
-                      Thread
-                    </Link>
-                  </td>
                 </tr>
               );
             })}

@@ -27,7 +27,7 @@ export function ModelsWorkspace({ projectId, canEdit }: { projectId: string; can
         <RevisionList projectId={projectId} canRetry={canEdit} canMarkCurrent={canEdit} />
       </section>
       {canEdit ? (
-        <div className="grid gap-6 lg:grid-cols-2">
+        <div className="grid grid-cols-1 gap-6 lg:grid-cols-2">
           <section className="rounded-xl border border-board-200 bg-white p-5" aria-labelledby="generate-heading">
             <h2 id="generate-heading" className="mb-3 text-lg font-semibold">
               Generate a double-layer grid roof

@@ -31,6 +31,8 @@ export function RevisionList({ projectId, canRetry, canMarkCurrent }: { projectI
   return (
     <>
     {markError}
+    {/* A phone scrolls the table sideways rather than the page (issue 17 item 11). */}
+    <div className="overflow-x-auto">
     <table className="w-full text-sm" data-testid="revision-list">
       <thead className="text-left text-xs uppercase text-board-700">
         <tr>
@@ -100,6 +102,7 @@ export function RevisionList({ projectId, canRetry, canMarkCurrent }: { projectI
         ))}
       </tbody>
     </table>
+    </div>
     </>
   );
 }

@@ -1,4 +1,5 @@
 import type { ProjectForMember } from "@/lib/projects/for-member";
+import { OverviewOnly } from "./overview-only";
 import { RoleBadge } from "./role-badge";
 
 const STANDARD_LABELS: Record<string, string> = {
@@ -8,7 +9,10 @@ const STANDARD_LABELS: Record<string, string> = {
   EN1990: "EN 1990",
 };
 
-/** The project's name, organisation, standards and the caller's role: shared by every project page. */
+/**
+ * The project's name, organisation, standards and the caller's role: shared by every project page. The description
+ * is read on the overview; the working pages (viewer, clashes…) leave its lines to the work (issue 17 item 9).
+ */
 export function ProjectHeader({ project }: { project: ProjectForMember }) {
   return (
     <header className="flex flex-col gap-2" data-testid="project-header">
@@ -17,7 +21,11 @@ export function ProjectHeader({ project }: { project: ProjectForMember }) {
         <h1 className="text-2xl font-semibold">{project.name}</h1>
         <RoleBadge role={project.role} />
       </div>
-      {project.description ? <p className="max-w-3xl text-board-700">{project.description}</p> : null}
+      {project.description ? (
+        <OverviewOnly>
+          <p className="max-w-3xl text-board-700">{project.description}</p>
+        </OverviewOnly>
+      ) : null}
       <p className="text-sm text-board-700">
         Member checks to <strong>{STANDARD_LABELS[project.designStandard]}</strong>, load combinations to{" "}
         <strong>{STANDARD_LABELS[project.combinationStandard]}</strong>

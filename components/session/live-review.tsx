@@ -94,11 +94,12 @@ export function LiveReview({ projectId, revisionNumber, realtimeUrl, focusClash 
           {refusal ? `: ${refusal}` : ""}
         </p>
         <SessionControls socket={socket} />
+        {/* The pin form comes before the lists that grow (mentions, pins): a few Tab presses from the 3D view. */}
+        {socket && abilities["pin.create"] ? <NewPinForm socket={socket} revisionId={revision?.id ?? null} /> : null}
         <MentionsList projectId={projectId} />
         <PresenceList />
         {selectedPin && socket ? <PinThread key={selectedPin.id} socket={socket} projectId={projectId} pin={selectedPin} position={positions.get(selectedPin.id) ?? null} /> : null}
         <PinList detached={detached} />
-        {socket && abilities["pin.create"] ? <NewPinForm socket={socket} revisionId={revision?.id ?? null} /> : null}
         <SessionNotes projectId={projectId} realtimeUrl={realtimeUrl} canEdit={Boolean(abilities["comment.create"])} />
       </aside>
     </div>

@@ -43,6 +43,19 @@ describe("force state", () => {
     expect(look.legend.entries.map((e) => [e.key, e.count])).toEqual([["tension", 2], ["compression", 1], ["zero-force", 1]]);
   });
 
+  it("counts only the members the filters let through, and says how many of all those are (issue 17 item 9)", () => {
+    // Members A (tension) and C (zero-force) hidden by a filter: B (compression) and D (tension) remain.
+    const shown = Uint8Array.from([0, 1, 0, 1]);
+    const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 0, shown });
+    expect(look.legend.counts).toEqual({ tension: 1, compression: 1, "zero-force": 0 });
+    expect(look.legend.entries.map((e) => [e.key, e.count])).toEqual([["tension", 1], ["compression", 1], ["zero-force", 0]]);
+    expect(look.legend.members).toEqual({ counted: 2, total: 4 });
+    // Hidden members keep their colour, so showing them again needs no new colouring.
+    colourOf(look.colours, 0).forEach((c, a) => expect(c).toBeCloseTo(TENSION[a], 5));
+    const all = computeAppearance({ columns: result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 0 });
+    expect(all.legend.members).toEqual({ counted: 4, total: 4 });
+  });
+
   it("makes thickness grow with |N| so the state reads without colour", () => {
     const look = computeAppearance({ columns: result, resultLabel: "LC1", mode: "forceState", unitLength: 1, lowForceThreshold: 0 });
     const [a, b, c, d] = Array.from(look.radii);

@@ -126,6 +126,8 @@ export interface Legend {
   scale?: LegendScale;
   /** A line under the entries (the comparison's largest change of force). */
   note?: string;
+  /** Members counted (those the filters let through) and in the model: the counts cover only what is drawn. */
+  members: { counted: number; total: number };
 }
 
 export interface AppearanceInput {
@@ -140,6 +142,8 @@ export interface AppearanceInput {
   compareLabel?: string;
   /** Member ids in column order, to name the member of the largest change when comparing. */
   memberIds?: readonly string[];
+  /** 1 per member the filters let through (filters.ts visibleMask); the legend counts only these. All when absent. */
+  shown?: Uint8Array;
 }
 
 export interface MemberAppearance {
@@ -154,12 +158,12 @@ export interface MemberAppearance {
 const rgbToHex = (rgb: Rgb) =>
   `#${rgb.map((c) => Math.round(c * 255).toString(16).padStart(2, "0")).join("")}`;
 
-/** Colours, radii and legend for every member under one colouring of one result. */
+/** Colours, radii and legend for every member under one colouring of one result (counting only the shown ones). */
 export function computeAppearance(input: AppearanceInput): MemberAppearance {
-  const { columns, mode, unitLength } = input;
+  const { columns, mode, unitLength, shown } = input;
   const count = columns.memberCount;
   const states = forceStates(columns);
-  const counts = countStates(states);
+  const counts = countStates(shown ? states.filter((_, k) => shown[k] === 1) : states);
   const maxAbs = maxAbsForce(columns.forces);
   const colours = new Float32Array(count * 3);
   const radii = new Float32Array(count);
@@ -169,9 +173,15 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
   // Largest change of axial force between the two results (member index and N(chosen) − N(compared), kN).
   let largestChange = { k: -1, delta: 0 };
   const tally = new Map<string, number>();
-  const bump = (key: string) => tally.set(key, (tally.get(key) ?? 0) + 1);
+  let counted = 0;
 
   for (let k = 0; k < count; k += 1) {
+    // Every member gets its colour (a filter change only moves matrices), but only the shown ones are counted.
+    const isShown = !shown || shown[k] === 1;
+    if (isShown) counted += 1;
+    const bump = (key: string) => {
+      if (isShown) tally.set(key, (tally.get(key) ?? 0) + 1);
+    };
     const force = columns.forces[k];
     const state = STATE_BY_CODE[states[k]];
     const isZero = state === "zero-force";
@@ -214,7 +224,7 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
       case "compare": {
         const changed = compareStates !== null && compareStates[k] !== states[k];
         const delta = input.compareColumns ? force - input.compareColumns.forces[k] : 0;
-        if (Math.abs(delta) > Math.abs(largestChange.delta)) largestChange = { k, delta };
+        if (isShown && Math.abs(delta) > Math.abs(largestChange.delta)) largestChange = { k, delta };
         colour = changed ? stateColour(state, false) : hexToRgb(palette.filteredOut);
         translucent[k] = changed ? 0 : 1;
         if (changed) bump(`to-${state}`);
@@ -223,7 +233,7 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
       }
       case "deltaForce": {
         const delta = input.compareColumns ? force - input.compareColumns.forces[k] : 0;
-        if (Math.abs(delta) > Math.abs(largestChange.delta)) largestChange = { k, delta };
+        if (isShown && Math.abs(delta) > Math.abs(largestChange.delta)) largestChange = { k, delta };
         const same = isNoChange(delta, maxDelta);
         colour = deltaForceColour(delta, maxDelta);
         translucent[k] = same ? 1 : 0;
@@ -234,7 +244,7 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
     colours.set(colour, k * 3);
   }
 
-  const legend = buildLegend(input, counts, tally, mode === "deltaForce" ? maxDelta : maxAbs);
+  const legend = buildLegend(input, counts, tally, mode === "deltaForce" ? maxDelta : maxAbs, { counted, total: count });
   if (comparesTwoResults(mode) && largestChange.k >= 0 && input.memberIds) {
     const d = largestChange.delta;
     legend.note = `Largest change of force: ${input.memberIds[largestChange.k]}, ${d > 0 ? "+" : "−"}${Math.abs(d).toFixed(1)} kN`;
@@ -242,10 +252,13 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
   return { colours, radii, translucent, states, legend };
 }
 
-/** The legend of a colouring; `maxAbs` is the scale's end: the largest |N|, or the largest |ΔN| when comparing forces. */
-function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<string, number>, maxAbs: number): Legend {
+/**
+ * The legend of a colouring; `maxAbs` is the scale's end: the largest |N|, or the largest |ΔN| when comparing
+ * forces. `members` says how many members the counts cover (those the filters let through) of all.
+ */
+function buildLegend(input: AppearanceInput, counts: StateCounts, tally: Map<string, number>, maxAbs: number, members: Legend["members"]): Legend {
   const n = (key: string) => tally.get(key) ?? 0;
-  const base = { title: colourModeLabels[input.mode], resultLabel: input.resultLabel, counts };
+  const base = { title: colourModeLabels[input.mode], resultLabel: input.resultLabel, counts, members };
   const hex = (rgb: Rgb) => rgbToHex(rgb);
   switch (input.mode) {
     case "forceState": {

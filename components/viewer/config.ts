@@ -72,3 +72,9 @@ export const cameraLook = {
   transitionSeconds: 0.6,
   fitPadding: 0.9,
 } as const;
+
+/**
+ * The stage holding the canvas: its bottom meets the window's bottom (less a small gap, so the fold shows where the
+ * page goes on), but never shorter than a usable view on a short or phone-sized window.
+ */
+export const viewerStage = { minHeight: 360, bottomGap: 12 } as const;

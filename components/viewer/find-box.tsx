@@ -26,8 +26,8 @@ export function FindBox({ prepared }: { prepared: PreparedModel }) {
     store.frameOn(found.centre, Math.max(found.radius, prepared.unitLength) * 2);
   };
   return (
-    <form className="flex flex-col text-xs text-board-700" onSubmit={submit} role="search" aria-label="Find a member or node">
-      <label htmlFor="viewer-find">Find member or node</label>
+    <form className="relative flex items-center gap-1 text-xs text-board-700" onSubmit={submit} role="search" aria-label="Find a member or node">
+      <label htmlFor="viewer-find">Find</label>
       <span className="flex gap-1">
         <input id="viewer-find" className="w-32 rounded border border-board-200 bg-white px-2 py-1 font-mono text-sm" value={query} maxLength={FIND_MAX_LENGTH} onChange={(e) => setQuery(e.target.value)} placeholder={prepared.memberIds[0]} data-testid="viewer-find" autoComplete="off" />
         <button type="submit" className="rounded border border-board-200 bg-white px-2 py-1 text-sm" data-testid="viewer-find-go">
@@ -35,7 +35,7 @@ export function FindBox({ prepared }: { prepared: PreparedModel }) {
         </button>
       </span>
       {problem ? (
-        <span role="alert" className="text-clash" data-testid="viewer-find-problem">
+        <span role="alert" className="absolute left-0 top-full z-30 mt-1 w-64 max-w-[calc(100vw-2rem)] rounded border border-board-200 bg-white p-1 text-clash shadow-sm" data-testid="viewer-find-problem">
           {problem}
         </span>
       ) : null}

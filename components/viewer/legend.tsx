@@ -1,6 +1,7 @@
 "use client";
-// The legend: always says what is shown (colouring and result) with the tension / compression / zero-force counts;
-// below it, the influence map's own legend while one is shown.
+// The legend: always says what is shown (colouring and result) with the tension / compression / zero-force counts
+// of the members drawn (the filters and the section box narrow them, and the legend says so); below it, the
+// influence map's own legend while one is shown.
 import { formatInfluence, influenceLegend } from "./influence-colours";
 import { useViewerStore } from "./viewer-store";
 
@@ -9,7 +10,7 @@ const formatKn = (value: number) => `${value >= 0 ? "" : "−"}${Math.abs(value)
 export function Legend() {
   const legend = useViewerStore((s) => s.legend);
   if (!legend) return null;
-  const { counts, scale } = legend;
+  const { counts, scale, members } = legend;
   return (
     <section data-testid="viewer-legend" aria-label="Legend" className="pointer-events-auto w-60 rounded-md border border-board-200 bg-white/90 p-2 text-xs shadow-sm">
       <p className="font-semibold text-board-900" data-testid="legend-title">{legend.title}</p>
@@ -41,6 +42,11 @@ export function Legend() {
             <span>{scale.unit === "kN" ? formatKn(scale.max) : scale.max}</span>
           </div>
         </div>
+      ) : null}
+      {members.counted < members.total ? (
+        <p className="mt-2 text-xs text-board-700" data-testid="legend-filtered">
+          Counting the {members.counted} of {members.total} members shown
+        </p>
       ) : null}
       <dl className="mt-2 grid grid-cols-3 gap-1 border-t border-board-100 pt-2 text-center text-xs">
         <div>

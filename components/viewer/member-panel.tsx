@@ -43,7 +43,7 @@ export function MemberPanel({ projectId, prepared, revision }: { projectId: stri
   const supported = new Set(prepared.model.supports.map((s) => s.node));
 
   return (
-    <aside data-testid="member-panel" aria-label={`Member ${member.id}`} className="h-[75vh] w-80 shrink-0 overflow-y-auto border-l border-board-200 bg-white p-4 text-sm">
+    <aside data-testid="member-panel" aria-label={`Member ${member.id}`} className="absolute inset-y-0 right-0 z-20 w-80 max-w-full overflow-y-auto border-l border-board-200 bg-white p-4 text-sm shadow-lg">
       <header className="mb-3 flex items-start justify-between">
         <div>
           <h2 className="text-lg font-semibold" data-testid="member-panel-id">Member {member.id}</h2>
@@ -71,7 +71,7 @@ export function MemberPanel({ projectId, prepared, revision }: { projectId: stri
           {ids.map((id) => {
             const { force, zero } = detail!.results[id];
             return (
-              <tr key={id} className={id === resultId ? "bg-selection/10 font-semibold" : ""}>
+              <tr key={id} className={id === resultId ? "font-semibold outline outline-2 -outline-offset-2 outline-selection" : ""}>
                 <td className="py-0.5 pr-2">
                   <button type="button" className="text-left hover:underline" onClick={() => useViewerStore.getState().setResult(id)}>
                     {resultLabel(prepared.model, id)}

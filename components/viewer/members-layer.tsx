@@ -6,7 +6,7 @@ import { useFrame, useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo, useRef } from "react";
 import { CylinderGeometry, DynamicDrawUsage, InstancedBufferAttribute, InstancedMesh, MeshBasicMaterial, MeshLambertMaterial } from "three";
 import type { WireColumns } from "@/lib/models/result-columns";
-import { comparesTwoResults, computeAppearance, hexToRgb, type MemberAppearance } from "./colouring";
+import { comparesTwoResults, computeAppearance, forceStates, hexToRgb, type MemberAppearance } from "./colouring";
 import { memberLook, palette } from "./config";
 import { disposeInstancedMesh } from "./dispose";
 import { visibleMask } from "./filters";
@@ -102,8 +102,14 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
     [layers],
   );
 
+  // Which members pass the filters: the legend counts these (issue 17 item 9) and only these are drawn.
+  const mask = useMemo(() => {
+    if (!columns || columns.memberCount !== count) return null;
+    return visibleMask({ memberIds: prepared.memberIds, ends: prepared.ends, positions, groups: prepared.groups, states: forceStates(columns), filters });
+  }, [columns, count, prepared, positions, filters]);
+
   const look = useMemo(() => {
-    if (!columns || !resultId || columns.memberCount !== count) return null;
+    if (!columns || !resultId || !mask || columns.memberCount !== count) return null;
     const compare = compareResultId && compareResultId !== resultId ? compareColumns : undefined;
     // Comparing waits for the other result's columns rather than showing the force state under a compare heading.
     if (comparesTwoResults(mode) && (!compare || compare.memberCount !== count)) return null;
@@ -116,8 +122,9 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
       lowForceThreshold: threshold,
       compareColumns: compare,
       compareLabel: compareResultId ? resultLabel(prepared.model, compareResultId) : undefined,
+      shown: mask,
     });
-  }, [columns, compareColumns, prepared, count, resultId, compareResultId, mode, threshold]);
+  }, [columns, compareColumns, prepared, count, resultId, compareResultId, mode, threshold, mask]);
 
   // A User Timing mark on the first frame that draws a new colouring: the benchmark and profiling read it.
   const drawnMark = useRef(false);
@@ -134,12 +141,11 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
 
   // Matrices: which layer each member goes to, and where it is.
   useLayoutEffect(() => {
-    if (!look) return;
-    const mask = visibleMask({ memberIds: prepared.memberIds, ends: prepared.ends, positions, groups: prepared.groups, states: look.states, filters });
+    if (!look || !mask) return;
     writeMatrices(layers, look, mask, positions, prepared.ends);
     useViewerStore.getState().setVisibleMembers(mask);
     invalidate();
-  }, [look, filters, positions, prepared, layers, invalidate]);
+  }, [look, mask, positions, prepared, layers, invalidate]);
 
   // Colours, including the selection and hover highlight.
   useLayoutEffect(() => {

@@ -2,9 +2,12 @@
 // The viewer screen: fetches one revision's overview and geometry (once, cached; viewed-revision.ts) and the chosen
 // result's columns (binary, one result at a time, cached), then shows the toolbar, the canvas (client-only, behind a sized
 // placeholder), the legend, hover read-out and the member panel. The drawing reads only the columns.
+// Layout (issue 17 items 9 to 11): the stage fills the window down to the fold; the member and node panels open
+// over the canvas's right side instead of narrowing it (the camera keeps its framing); the canvas takes focus,
+// the arrow keys step the selection through the members drawn, and Escape closes the panels.
 import { useQuery } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
-import { useEffect, useMemo, type ReactNode } from "react";
+import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
 import { LiveJob } from "@/components/jobs/job-progress";
 import { comparesTwoResults } from "./colouring";
 import { HoverTooltip } from "./hover-tooltip";
@@ -20,6 +23,8 @@ import { RoofChecksPanel } from "./roof-checks-panel";
 import { StabilityPanel } from "./stability-panel";
 import { drawMechanism, UnstableView } from "./unstable-view";
 import { installTestHook } from "./test-hook";
+import { stepVisibleMember, viewerKeyAction } from "./keyboard";
+import { useFillToFold } from "./use-fill-to-fold";
 import { useResultColumns } from "./use-result-columns";
 import { fetchRevision, revisionQueryKey } from "./viewed-revision";
 import { useViewerStore } from "./viewer-store";
@@ -73,6 +78,32 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
   }, [prepared, ids, analysis]);
 
   useEffect(() => (prepared ? installTestHook(prepared) : undefined), [prepared]);
+  const [stage, setStage] = useState<HTMLDivElement | null>(null);
+  const stageHeight = useFillToFold(stage);
+  const focusTarget = useRef<HTMLDivElement>(null);
+  const selectedMemberId = useViewerStore((s) => s.selectedMemberId);
+  const selectedNodeId = useViewerStore((s) => s.selectedNodeId);
+
+  const handleKeyDown = (event: KeyboardEvent<HTMLDivElement>) => {
+    const action = viewerKeyAction(event.key);
+    if (!action || !prepared) return;
+    const store = useViewerStore.getState();
+    if ("clear" in action) {
+      if (store.selectedMemberId === null && store.selectedNodeId === null) return;
+      event.preventDefault();
+      store.selectMember(null);
+      store.selectNode(null);
+      // Focus may have been inside the panel that is now gone: it goes back to the view, not to the page's top.
+      focusTarget.current?.focus();
+      return;
+    }
+    // Arrows belong to fields, lists and scrolling everywhere but on the focused view itself.
+    if (event.target !== focusTarget.current) return;
+    event.preventDefault();
+    const current = store.selectedMemberId ? (prepared.memberIndex.get(store.selectedMemberId) ?? -1) : -1;
+    const k = stepVisibleMember(prepared.memberIds.length, store.visibleMembers, current, action.step);
+    if (k >= 0) store.selectMember(prepared.memberIds[k]);
+  };
 
   if (query.isPending) return <div className="h-[75vh]"><CanvasPlaceholder message="Loading the revision and its results…" /></div>;
   if (query.isError) return <p role="alert" className="p-4 text-clash">{query.error.message}</p>;
@@ -94,35 +125,46 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
   }
 
   return (
-    <div className="flex flex-col">
+    <div className="flex flex-col" onKeyDown={handleKeyDown}>
       <ViewerToolbar prepared={prepared} columns={columns} ids={ids} hasReview={hasReview} fileName={`strutroom-${revision.name}-r${revision.number}.png`.replace(/\s+/g, "-")} />
       <StabilityPanel review={revision.analysis?.review} nodeIds={prepared.nodes.ids} />
       <RoofChecksPanel info={analysis.info} review={revision.analysis?.review} />
       <AnyLoadJobPanel projectId={projectId} revision={revision} onStored={() => void query.refetch()} />
-      <div className="flex">
-        <div className="relative h-[75vh] min-w-0 flex-1">
-          {columnsError ? (
-            <p role="alert" className="absolute right-3 top-3 z-10 rounded bg-white p-2 text-sm text-clash">
-              The chosen result could not be loaded: {columnsError.message}{" "}
-              <button type="button" className="underline" onClick={retryColumns}>
-                Try again
-              </button>
-            </p>
-          ) : null}
+      <div ref={setStage} className="relative h-[75vh] min-w-0" style={stageHeight ? { height: stageHeight } : undefined} data-testid="viewer-stage">
+        {columnsError ? (
+          <p role="alert" className="absolute right-3 top-3 z-10 rounded bg-white p-2 text-sm text-clash">
+            The chosen result could not be loaded: {columnsError.message}{" "}
+            <button type="button" className="underline" onClick={retryColumns}>
+              Try again
+            </button>
+          </p>
+        ) : null}
+        <div
+          ref={focusTarget}
+          tabIndex={0}
+          role="group"
+          aria-roledescription="3D view"
+          aria-label="The roof in 3D. Arrow keys step through the members shown; Escape closes the panel."
+          className="h-full w-full focus-visible:outline-offset-[-3px]"
+          data-testid="viewer-focus"
+        >
           <ViewerCanvas prepared={prepared} columns={columns} compareColumns={compare.columns}>
             <InfluenceLayer prepared={prepared} />
             {layers}
           </ViewerCanvas>
-          <LabelsOverlay />
-          <div className="pointer-events-none absolute left-3 top-3">
-            <Legend />
-            <InfluenceLegend />
-          </div>
-          <div className="pointer-events-none absolute bottom-3 left-3 flex flex-col items-start gap-1">
-            <MeasureReadout />
-            <HoverTooltip prepared={prepared} columns={columns} />
-          </div>
         </div>
+        <LabelsOverlay />
+        <div className="pointer-events-none absolute left-3 top-3 z-10 max-h-[calc(100%-1.5rem)] overflow-y-auto">
+          <Legend />
+          <InfluenceLegend />
+        </div>
+        <div className="pointer-events-none absolute bottom-3 left-3 z-10 flex flex-col items-start gap-1">
+          <MeasureReadout />
+          <HoverTooltip prepared={prepared} columns={columns} />
+        </div>
+        <p className="sr-only" role="status" data-testid="viewer-selection-status">
+          {selectedMemberId ? `Member ${selectedMemberId} selected` : selectedNodeId ? `Node ${selectedNodeId} selected` : ""}
+        </p>
         <MemberPanel projectId={projectId} prepared={prepared} revision={revision} />
         <NodePanel projectId={projectId} revisionNumber={revisionNumber} prepared={prepared} />
       </div>

@@ -29,7 +29,7 @@ export function NodePanel({ projectId, revisionNumber, prepared }: { projectId: 
   const detail = detailQuery.data;
   const members = prepared.model.members.filter((m) => m.i === selected || m.j === selected);
   return (
-    <aside data-testid="node-panel" aria-label={`Node ${selected}`} className="h-[75vh] w-80 shrink-0 overflow-y-auto border-l border-board-200 bg-white p-4 text-sm">
+    <aside data-testid="node-panel" aria-label={`Node ${selected}`} className="absolute inset-y-0 right-0 z-20 w-80 max-w-full overflow-y-auto border-l border-board-200 bg-white p-4 text-sm shadow-lg">
       <header className="mb-3 flex items-start justify-between">
         <div>
           <h2 className="text-lg font-semibold" data-testid="node-panel-id">Node {selected}</h2>

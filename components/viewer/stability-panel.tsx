@@ -35,7 +35,7 @@ export function StabilityPanel({ review, nodeIds }: { review: ReviewOverview | n
         {entry.shape ? (
           <button
             type="button"
-            className="mt-1 rounded border border-board-200 px-2 py-1 hover:bg-board-100"
+            className="rounded border border-board-200 px-2 py-0.5 hover:bg-board-100"
             onClick={() => useViewerStore.getState().showMode(drawn ? null : { label, nodeIds, shape: entry.shape! })}
             data-testid="stability-draw-mode"
           >
@@ -45,12 +45,21 @@ export function StabilityPanel({ review, nodeIds }: { review: ReviewOverview | n
       </>
     );
   }
+  // One row under the toolbar (issue 17 item 9: the canvas gets the height); the basis and the caution are a click
+  // away in the same row rather than a paragraph above the roof.
   return (
-    <section className="border-b border-board-100 px-3 py-2 text-xs" data-testid="stability-panel" aria-label="Overall stability">
-      <h2 className="font-semibold">Overall stability of the roof</h2>
+    <section className="flex flex-wrap items-center gap-x-3 gap-y-1 border-b border-board-100 px-3 py-1.5 text-xs" data-testid="stability-panel" aria-label="Overall stability">
+      <h2 className="font-semibold">Overall stability of the roof:</h2>
       {body}
       {drawn ? <p className="text-board-700">The mode is drawn with its largest motion a tenth of the span (the shape matters, not the size).</p> : null}
-      {stability ? <p className="mt-1 text-board-700">{stability.basis} {STANDING_CAUTION}</p> : null}
+      {stability ? (
+        <details className="text-board-700">
+          <summary className="cursor-pointer">How it is computed</summary>
+          <p className="mt-1">
+            {stability.basis} {STANDING_CAUTION}
+          </p>
+        </details>
+      ) : null}
     </section>
   );
 }

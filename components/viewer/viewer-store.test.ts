@@ -77,3 +77,23 @@ describe("placing a pin with a click", () => {
     expect(useViewerStore.getState().pinSpot).toBeNull();
   });
 });
+
+describe("camera pose across canvases (issue 17 item 9: the roof is refitted when the revision changes)", () => {
+  const pose = { position: [60, -40, 30] as [number, number, number], target: [24, 18, 3] as [number, number, number] };
+  const controllerAt = (at: typeof pose) => ({ getPose: () => at }) as unknown as Parameters<ReturnType<typeof useViewerStore.getState>["registerController"]>[0];
+
+  it("forgets the pose of a camera that goes away, so the next roof is framed afresh", () => {
+    const store = useViewerStore.getState();
+    store.registerController(controllerAt(pose));
+    expect(useViewerStore.getState().cameraPose).toEqual(pose);
+    store.registerController(null);
+    expect(useViewerStore.getState().cameraPose).toBeNull();
+  });
+
+  it("keeps a pose asked for while no camera is there (a follower joining), for the next camera to take", () => {
+    const store = useViewerStore.getState();
+    store.registerController(null);
+    store.setCameraPose(pose);
+    expect(useViewerStore.getState().cameraPose).toEqual(pose);
+  });
+});

@@ -128,7 +128,7 @@ export interface ViewerState {
   applyPreset(name: CameraPreset): void;
   fitToView(): void;
   exportPng(): string | null;
-  /** Called by the camera rig; also records where the camera is now. */
+  /** Called by the camera rig; also records where the camera is now (null when it unregisters). */
   registerController(controller: CameraController | null): void;
   /** Called by the camera rig whenever the camera moves. */
   reportCameraPose(pose: CameraPose): void;
@@ -229,7 +229,9 @@ export const useViewerStore = create<ViewerState>()(
     applyPreset: (name) => get().controller?.preset(name),
     fitToView: () => get().controller?.fit(),
     exportPng: () => get().controller?.exportPng() ?? null,
-    registerController: (controller) => set({ controller, ...(controller ? { cameraPose: controller.getPose() } : {}) }),
+    // A camera that goes away takes its pose with it: the next canvas (another revision, another roof) is framed
+    // afresh, unless a pose is asked for before it registers (a live-session follower's setCameraPose).
+    registerController: (controller) => set({ controller, cameraPose: controller ? controller.getPose() : null }),
     reportCameraPose: (pose) => set({ cameraPose: pose }),
     setLegend: (legend) => set({ legend }),
     showInfluence: (map) => {

@@ -1,7 +1,8 @@
 "use client";
-// Controls of the viewer: result, colouring, comparison, filters, section box, deflected shape, find, labels,
-// measure, camera, PNG.
-import { useState } from "react";
+// Controls of the viewer in one compact bar (issue 17 item 9: the canvas gets the height): result, colouring,
+// comparison, find, labels, measure, camera, PNG; the filters, section box and deflected shape sit in a "View
+// options" disclosure that opens over the canvas instead of adding rows above it.
+import { useEffect, useRef, useState } from "react";
 import { colourModeLabels, comparesTwoResults, type ColourMode } from "./colouring";
 import { autoDeflectionScale, roundedModelBox, type SectionBox } from "./filters";
 import { FindBox } from "./find-box";
@@ -13,14 +14,16 @@ import { useViewerStore, type CameraPreset } from "./viewer-store";
 const groupLabels: Record<FilterableGroup, string> = { top_chord: "Top chords", bottom_chord: "Bottom chords", diagonal: "Diagonals" };
 const presetLabels: Record<CameraPreset, string> = { plan: "Plan", elevationSouth: "South elevation", elevationEast: "East elevation", isometric: "Isometric" };
 const control = "rounded border border-board-200 bg-white px-2 py-1 text-sm";
+/** A control with its words beside it rather than above it: one row of controls stays one row tall. */
+const inline = "flex items-center gap-1 text-xs text-board-700";
 
 function ResultSelect({ prepared, ids, value, onChange, testId, label }: { prepared: PreparedModel; ids: string[]; value: string | null; onChange: (id: string) => void; testId: string; label: string }) {
   const cases = prepared.model.loadCases.filter((c) => ids.includes(c.id));
   const combos = prepared.model.combinations.filter((c) => ids.includes(c.id));
   return (
-    <label className="flex flex-col text-xs text-board-700">
+    <label className={inline}>
       {label}
-      <select className={control} data-testid={testId} value={value ?? ""} onChange={(e) => onChange(e.target.value)}>
+      <select className={`${control} max-w-56`} data-testid={testId} value={value ?? ""} onChange={(e) => onChange(e.target.value)}>
         <optgroup label="Load combinations">
           {combos.map((c) => (
             <option key={c.id} value={c.id}>{resultLabel(prepared.model, c.id)}</option>
@@ -45,6 +48,17 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
   const filters = useViewerStore((s) => s.filters);
   const deflection = useViewerStore((s) => s.deflection);
   const [box, setBox] = useState<SectionBox>(() => roundedModelBox(prepared.nodes.positions));
+
+  // The options lie over the canvas: a press anywhere outside them puts them away.
+  const options = useRef<HTMLDetailsElement>(null);
+  useEffect(() => {
+    const close = (event: PointerEvent) => {
+      const details = options.current;
+      if (details?.open && !details.contains(event.target as Node)) details.open = false;
+    };
+    document.addEventListener("pointerdown", close);
+    return () => document.removeEventListener("pointerdown", close);
+  }, []);
 
   const labelsOn = useViewerStore((s) => s.labelsOn);
   const tool = useViewerStore((s) => s.tool);
@@ -75,11 +89,11 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
   };
 
   return (
-    <div className="flex flex-wrap items-end gap-3 border-b border-board-200 bg-white px-3 py-2" data-testid="viewer-toolbar">
-      <ResultSelect prepared={prepared} ids={ids} value={resultId} onChange={chooseResult} testId="viewer-result" label="Load case or combination" />
-      <label className="flex flex-col text-xs text-board-700">
+    <div className="flex flex-wrap items-center gap-x-3 gap-y-1 border-b border-board-200 bg-white px-3 py-1.5" data-testid="viewer-toolbar">
+      <ResultSelect prepared={prepared} ids={ids} value={resultId} onChange={chooseResult} testId="viewer-result" label="Result" />
+      <label className={inline}>
         Colour by
-        <select className={control} data-testid="viewer-colour-mode" value={mode} onChange={(e) => chooseMode(e.target.value as ColourMode)}>
+        <select className={`${control} max-w-56`} data-testid="viewer-colour-mode" value={mode} onChange={(e) => chooseMode(e.target.value as ColourMode)}>
           {modes.map((m) => (
             <option key={m} value={m}>{colourModeLabels[m]}</option>
           ))}
@@ -89,57 +103,63 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
         <ResultSelect prepared={prepared} ids={ids} value={compareResultId} onChange={store.setCompareResult} testId="viewer-compare" label="Compared with" />
       ) : null}
       {mode === "forceState" ? (
-        <label className="flex flex-col text-xs text-board-700">
+        <label className={inline}>
           Low-force below (kN)
-          <input className={`${control} w-24`} type="number" min={0} step="any" value={threshold} onChange={(e) => store.setLowForceThreshold(Number(e.target.value) || 0)} data-testid="viewer-threshold" />
+          <input className={`${control} w-16`} type="number" min={0} step="any" value={threshold} onChange={(e) => store.setLowForceThreshold(Number(e.target.value) || 0)} data-testid="viewer-threshold" />
         </label>
       ) : null}
-      <fieldset className="flex items-center gap-2 text-sm">
-        <legend className="sr-only">Member filters</legend>
-        {(Object.keys(groupLabels) as FilterableGroup[]).map((g) => (
-          <label key={g} className="flex items-center gap-1">
-            <input type="checkbox" checked={filters.groups[g]} onChange={(e) => store.setFilters({ groups: { ...filters.groups, [g]: e.target.checked } })} data-testid={`viewer-filter-${g}`} />
-            {groupLabels[g]}
-          </label>
-        ))}
-        <label className="flex items-center gap-1">
-          <input type="checkbox" checked={filters.hideZeroForce} onChange={(e) => store.setFilters({ hideZeroForce: e.target.checked })} data-testid="viewer-filter-hide-zero" />
-          Hide zero-force
-        </label>
-      </fieldset>
-      <fieldset className="flex items-center gap-1 text-sm">
-        <legend className="sr-only">Section box</legend>
-        <label className="flex items-center gap-1">
-          <input type="checkbox" checked={filters.sectionBox !== null} onChange={(e) => store.setFilters({ sectionBox: e.target.checked ? box : null })} data-testid="viewer-section-box" />
-          Section box
-        </label>
-        {filters.sectionBox
-          ? (["x", "y", "z"] as const).map((axis, a) => (
-              <span key={axis} className="flex items-center gap-0.5 font-mono text-xs">
-                {axis}
-                <input aria-label={`${axis} from (m)`} className={`${control} w-16`} type="number" step="any" value={box.min[a]} onChange={(e) => updateBox("min", a, Number(e.target.value))} data-testid={`viewer-box-${axis}-min`} />
-                <input aria-label={`${axis} to (m)`} className={`${control} w-16`} type="number" step="any" value={box.max[a]} onChange={(e) => updateBox("max", a, Number(e.target.value))} data-testid={`viewer-box-${axis}-max`} />
-              </span>
-            ))
-          : null}
-      </fieldset>
-      <fieldset className="flex items-center gap-1 text-sm">
-        <legend className="sr-only">Deflected shape</legend>
-        <label className="flex items-center gap-1">
-          <input
-            type="checkbox"
-            checked={deflection.enabled}
-            data-testid="viewer-deflection"
-            onChange={(e) => {
-              const displacements = columns?.displacements;
-              const scale = deflection.scale || (displacements ? autoDeflectionScale(prepared.nodes, displacements) : 1);
-              store.setDeflection({ enabled: e.target.checked, scale });
-            }}
-          />
-          Deflected shape ×
-        </label>
-        <input aria-label="Deflection scale factor" className={`${control} w-20`} type="number" min={0} step="any" value={deflection.scale} onChange={(e) => store.setDeflection({ scale: Math.max(0, Number(e.target.value) || 0) })} data-testid="viewer-deflection-scale" />
-      </fieldset>
+      <details ref={options} className="relative" data-testid="viewer-options">
+        <summary className={`${control} cursor-pointer select-none`}>View options</summary>
+        {/* Opens over the canvas (z above the legend) so the bar keeps its rows; on a phone it spans the screen. */}
+        <div className="fixed inset-x-4 z-30 mt-1 flex flex-col gap-2 rounded-md border border-board-200 bg-white p-3 shadow-md sm:absolute sm:inset-x-auto sm:left-0 sm:top-full sm:w-[28rem]">
+          <fieldset className="flex flex-wrap items-center gap-2 text-sm">
+            <legend className="sr-only">Member filters</legend>
+            {(Object.keys(groupLabels) as FilterableGroup[]).map((g) => (
+              <label key={g} className="flex items-center gap-1">
+                <input type="checkbox" checked={filters.groups[g]} onChange={(e) => store.setFilters({ groups: { ...filters.groups, [g]: e.target.checked } })} data-testid={`viewer-filter-${g}`} />
+                {groupLabels[g]}
+              </label>
+            ))}
+            <label className="flex items-center gap-1">
+              <input type="checkbox" checked={filters.hideZeroForce} onChange={(e) => store.setFilters({ hideZeroForce: e.target.checked })} data-testid="viewer-filter-hide-zero" />
+              Hide zero-force
+            </label>
+          </fieldset>
+          <fieldset className="flex flex-wrap items-center gap-1 text-sm">
+            <legend className="sr-only">Section box</legend>
+            <label className="flex items-center gap-1">
+              <input type="checkbox" checked={filters.sectionBox !== null} onChange={(e) => store.setFilters({ sectionBox: e.target.checked ? box : null })} data-testid="viewer-section-box" />
+              Section box
+            </label>
+            {filters.sectionBox
+              ? (["x", "y", "z"] as const).map((axis, a) => (
+                  <span key={axis} className="flex items-center gap-0.5 font-mono text-xs">
+                    {axis}
+                    <input aria-label={`${axis} from (m)`} className={`${control} w-16`} type="number" step="any" value={box.min[a]} onChange={(e) => updateBox("min", a, Number(e.target.value))} data-testid={`viewer-box-${axis}-min`} />
+                    <input aria-label={`${axis} to (m)`} className={`${control} w-16`} type="number" step="any" value={box.max[a]} onChange={(e) => updateBox("max", a, Number(e.target.value))} data-testid={`viewer-box-${axis}-max`} />
+                  </span>
+                ))
+              : null}
+          </fieldset>
+          <fieldset className="flex flex-wrap items-center gap-1 text-sm">
+            <legend className="sr-only">Deflected shape</legend>
+            <label className="flex items-center gap-1">
+              <input
+                type="checkbox"
+                checked={deflection.enabled}
+                data-testid="viewer-deflection"
+                onChange={(e) => {
+                  const displacements = columns?.displacements;
+                  const scale = deflection.scale || (displacements ? autoDeflectionScale(prepared.nodes, displacements) : 1);
+                  store.setDeflection({ enabled: e.target.checked, scale });
+                }}
+              />
+              Deflected shape ×
+            </label>
+            <input aria-label="Deflection scale factor" className={`${control} w-20`} type="number" min={0} step="any" value={deflection.scale} onChange={(e) => store.setDeflection({ scale: Math.max(0, Number(e.target.value) || 0) })} data-testid="viewer-deflection-scale" />
+          </fieldset>
+        </div>
+      </details>
       <FindBox prepared={prepared} />
       <label className="flex items-center gap-1 text-sm">
         <input type="checkbox" checked={labelsOn} onChange={(e) => store.setLabelsOn(e.target.checked)} data-testid="viewer-labels-toggle" />
@@ -148,7 +168,7 @@ export function ViewerToolbar({ prepared, columns, ids, hasReview, fileName }: {
       <button type="button" className={`${control} ${tool === "measure" ? "border-selection bg-board-100" : ""}`} aria-pressed={tool === "measure"} onClick={() => store.setTool(tool === "measure" ? "select" : "measure")} data-testid="viewer-measure">
         Measure
       </button>
-      <div className="flex items-center gap-1" role="group" aria-label="Camera">
+      <div className="flex flex-wrap items-center gap-1" role="group" aria-label="Camera">
         {(Object.keys(presetLabels) as CameraPreset[]).map((p) => (
           <button key={p} type="button" className={control} onClick={() => store.applyPreset(p)} data-testid={`viewer-preset-${p}`}>
             {presetLabels[p]}

@@ -139,6 +139,9 @@ describe("saved views on comments", () => {
 
     await engineer.viewer.preset("isometric");
     await page.getByTestId("viewer-colour-mode").selectOption("magnitude");
+    // Screen positions are compared at the same page scroll: the canvas now ends at the fold, and clicking a reply
+    // further down the review panel scrolls the page under it.
+    await page.evaluate(() => window.scrollTo(0, 0));
     const saved = await engineer.viewer.screenOf("node", "T-0-0");
     await page.getByTestId("comment-body").fill("Seen from the corner, by force.");
     await page.getByTestId("comment-attach-view").check();
@@ -152,6 +155,7 @@ describe("saved views on comments", () => {
     await reply.getByTestId("comment-view-restore").click();
     await expect.poll(() => page.getByTestId("viewer-colour-mode").inputValue()).toBe("magnitude");
     await engineer.viewer.settle();
+    await page.evaluate(() => window.scrollTo(0, 0));
     const back = await engineer.viewer.screenOf("node", "T-0-0");
     expect(Math.abs(back.x - saved.x)).toBeLessThan(2);
     expect(Math.abs(back.y - saved.y)).toBeLessThan(2);

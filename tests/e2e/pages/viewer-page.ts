@@ -34,6 +34,12 @@ export class ViewerPage {
     return { tension: await read("tension"), compression: await read("compression"), "zero-force": await read("zero-force") };
   }
 
+  /** Opens the toolbar's "View options" (filters, section box, deflected shape) unless it is open. */
+  async openViewOptions() {
+    const options = this.page.getByTestId("viewer-options");
+    if (!(await options.evaluate((details) => (details as HTMLDetailsElement).open))) await options.locator("summary").click();
+  }
+
   /** Selects a member through the test hook (clicking into a WebGL canvas is unreliable headless). */
   async selectMember(id: string) {
     await this.page.waitForFunction(() => window.__strutroom !== undefined);
@@ -55,11 +61,11 @@ export class ViewerPage {
    * Brings the canvas into the window (mouse clicks land only on what is inside it) and waits until the camera is
    * still: a corner node is drawn at the same pixel twice, 200 ms apart (also after a panel resized the canvas).
    */
-  async settle() {
+  async settle(node = "T-0-0") {
     await this.page.getByTestId("viewer-canvas").scrollIntoViewIfNeeded();
     let last = "";
     for (let attempt = 0; attempt < 50; attempt += 1) {
-      const now = JSON.stringify(await this.page.evaluate(() => window.__strutroom!.screenOf("node", "T-0-0")));
+      const now = JSON.stringify(await this.page.evaluate((id) => window.__strutroom!.screenOf("node", id), node));
       if (now === last) return;
       last = now;
       await this.page.waitForTimeout(200);

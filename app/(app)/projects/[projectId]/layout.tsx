@@ -14,7 +14,7 @@ export default async function ProjectLayout({ params, children }: LayoutProps<"/
   const showMail = capturedMailPageEnabled() && project.abilities["mail.viewCaptured"];
   const sections = PROJECT_SECTIONS.map((s) => s.segment).filter((segment) => segment !== "mail" || showMail);
   return (
-    <div className="flex flex-col gap-6">
+    <div className="flex flex-col gap-4">
       <ProjectHeader project={project} />
       <ProjectNav projectId={project.id} sections={sections} />
       {children}

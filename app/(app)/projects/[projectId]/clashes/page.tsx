@@ -32,7 +32,7 @@ export default async function ClashesPage({ params, searchParams }: PageProps<"/
         </p>
       ) : (
         <>
-          <div className="flex items-center gap-2">
+          <div className="flex flex-wrap items-center gap-2">
             <ClashRevisionPicker projectId={project.id} revisions={revisions.map(({ number, name, isCurrent, analysisStatus }) => ({ number, name, isCurrent, analysisStatus }))} current={number} />
             {shown && <RevisionStageBadge revision={shown} />}
           </div>

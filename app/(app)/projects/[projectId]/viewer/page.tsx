@@ -21,7 +21,7 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
   if (requested !== null && !revisions.some((r) => r.number === requested)) notFound();
   const shown = revisions.find((r) => r.number === number);
   return (
-    <div className="flex flex-col gap-4">
+    <div className="flex flex-col gap-3">
       {number === null ? (
         <p className="text-sm text-board-700" data-testid="viewer-empty">
           This project has no model yet.{" "}
@@ -32,7 +32,7 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
         </p>
       ) : (
         <>
-          <div className="flex items-center gap-2">
+          <div className="flex flex-wrap items-center gap-2">
             <RevisionPicker projectId={project.id} revisions={revisions.map(({ number, name, isCurrent, analysisStatus }) => ({ number, name, isCurrent, analysisStatus }))} current={number} />
             {shown && <RevisionStageBadge revision={shown} />}
           </div>
