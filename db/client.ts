@@ -27,6 +27,10 @@ export function getDb(): Database {
       options: `-c statement_timeout=${statementTimeoutMs} -c idle_in_transaction_session_timeout=${idleInTransactionTimeoutMs}`,
     });
     pool.on("error", (error) => console.error("[db] idle client error", error));
+    // pg-pool listens for errors only on idle clients. When the server ends a checked-out client's session (the
+    // idle-in-transaction bound above, when a long computation holds the event loop; a restarted database), pg
+    // emits "error" on it, and with no listener Node ends the whole process. With one, only that transaction fails.
+    pool.on("connect", (client) => client.on("error", (error) => console.error("[db] client error", error.message)));
     db = drizzle(pool, { schema, casing: "snake_case" });
   }
   return db;
