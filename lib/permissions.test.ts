@@ -9,6 +9,7 @@ const MATRIX: Record<Action, [boolean, boolean, boolean, boolean, boolean]> = {
   "report.export":       [true,  true,  true,  true,  true],
   "report.make":         [true,  true,  true,  true,  false],
   "team.manage":         [true,  false, false, false, false],
+  "project.settings":    [true,  true,  false, false, false],
   "mail.viewCaptured":   [true,  false, false, false, false],
   "model.edit":          [false, true,  false, false, false],
   "analysis.run":        [false, true,  false, false, false],

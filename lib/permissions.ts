@@ -10,6 +10,7 @@ export type Role = (typeof ROLES)[number];
 export const ACTIONS = [
   "project.read",
   "team.manage",
+  "project.settings",
   "model.edit",
   "analysis.run",
   "review.decide",
@@ -45,6 +46,8 @@ const TABLE: Record<Action, readonly Role[]> = {
   // Making a report runs a job and stores a file: a write, so not the viewer's (they download the reports made).
   "report.make": ["owner", "structural_engineer", "architect", "mep_engineer"],
   "team.manage": ["owner"],
+  // The project's settings (the deflection limit span/N): the owner who runs the project and the engineer whose check it is.
+  "project.settings": ["owner", "structural_engineer"],
   "mail.viewCaptured": ["owner"],
   "model.edit": ["structural_engineer"],
   "analysis.run": ["structural_engineer"],

@@ -5,6 +5,7 @@
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { ReviewOverview } from "@/db/queries/revision-view";
 import { NOT_CHECKED, STANDING_CAUTION } from "@/lib/review/caution";
+import { DEFAULT_DEFLECTION_LIMIT } from "@/lib/projects/deflection-limit";
 
 const mm = (metres: number) => (metres * 1000).toFixed(1);
 
@@ -13,32 +14,39 @@ function Deflections({ review }: { review: ReviewOverview | null | undefined }) 
   if (!review) return null;
   if (!checks) return <p>Serviceability deflection: not stored with this revision&apos;s review (it was reviewed before the check was kept); analyse it again to see it.</p>;
   if (checks.length === 0) return <p>Serviceability deflection: no serviceability combination in the model, so none is checked.</p>;
+  // reviews stored before the limit was a project setting were all made at the default
+  const limit = review.deflectionLimit ?? DEFAULT_DEFLECTION_LIMIT;
   return (
-    <table className="mt-1 text-xs" data-testid="roof-checks-deflections">
-      <thead>
-        <tr className="text-left text-board-700">
-          <th className="pr-3 font-normal">Serviceability combination</th>
-          <th className="pr-3 text-right font-normal">Largest vertical (mm)</th>
-          <th className="pr-3 text-right font-normal">Allowed (mm)</th>
-          <th className="text-right font-normal">Utilisation</th>
-        </tr>
-      </thead>
-      <tbody>
-        {checks.map((c) => (
-          <tr key={c.combination} data-testid={`roof-checks-deflection-${c.combination}`} className={c.utilisation > 1 ? "font-semibold text-clash" : ""}>
-            <td className="pr-3">{c.combination}</td>
-            <td className="pr-3 text-right font-mono tabular-nums">
-              {mm(c.deflection)}
-              {c.node ? ` at ${c.node}` : ""}
-            </td>
-            <td className="pr-3 text-right font-mono tabular-nums" title={c.steps.join("; ")}>
-              {mm(c.allowed)} (span {c.span.toFixed(2)} m / {c.limit})
-            </td>
-            <td className="text-right font-mono tabular-nums">{c.utilisation.toFixed(3)}</td>
+    <>
+      <p data-testid="roof-checks-deflection-limit">
+        Serviceability deflection against span/{limit}: the project&apos;s limit when this revision was analysed (default span/{DEFAULT_DEFLECTION_LIMIT}, common practice). A change to the project&apos;s limit applies from the next analysis.
+      </p>
+      <table className="mt-1 text-xs" data-testid="roof-checks-deflections">
+        <thead>
+          <tr className="text-left text-board-700">
+            <th className="pr-3 font-normal">Serviceability combination</th>
+            <th className="pr-3 text-right font-normal">Largest vertical (mm)</th>
+            <th className="pr-3 text-right font-normal">Allowed (mm)</th>
+            <th className="text-right font-normal">Utilisation</th>
           </tr>
-        ))}
-      </tbody>
-    </table>
+        </thead>
+        <tbody>
+          {checks.map((c) => (
+            <tr key={c.combination} data-testid={`roof-checks-deflection-${c.combination}`} className={c.utilisation > 1 ? "font-semibold text-clash" : ""}>
+              <td className="pr-3">{c.combination}</td>
+              <td className="pr-3 text-right font-mono tabular-nums">
+                {mm(c.deflection)}
+                {c.node ? ` at ${c.node}` : ""}
+              </td>
+              <td className="pr-3 text-right font-mono tabular-nums" title={c.steps.join("; ")}>
+                {mm(c.allowed)} (span {c.span.toFixed(2)} m / {c.limit})
+              </td>
+              <td className="text-right font-mono tabular-nums">{c.utilisation.toFixed(3)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </>
   );
 }
 

@@ -81,9 +81,9 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
 }
 
 /** What an analysis job needs of a revision: its model and the project's design standard. */
-export async function getRevisionForAnalysis({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ model: TrussModel; standard: Project["designStandard"] } | null> {
+export async function getRevisionForAnalysis({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ model: TrussModel; standard: Project["designStandard"]; deflectionLimit: number } | null> {
   const [row] = await db
-    .select({ model: modelRevisions.model, standard: projects.designStandard })
+    .select({ model: modelRevisions.model, standard: projects.designStandard, deflectionLimit: projects.deflectionLimit })
     .from(modelRevisions)
     .innerJoin(projects, eq(projects.id, modelRevisions.projectId))
     .where(eq(modelRevisions.id, revisionId))

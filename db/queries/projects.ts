@@ -14,6 +14,7 @@ function present(project: Project, organization: { id: string; name: string }): 
     organization,
     designStandard: project.designStandard,
     combinationStandard: project.combinationStandard,
+    deflectionLimit: project.deflectionLimit,
     createdAt: project.createdAt.toISOString(),
   };
 }

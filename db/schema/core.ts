@@ -1,6 +1,8 @@
-import { bigint, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, varchar } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { bigint, check, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid, varchar } from "drizzle-orm/pg-core";
 import { ROLES } from "../../lib/permissions";
 import { COMBINATION_STANDARDS, DESIGN_STANDARDS } from "../../lib/projects/standards";
+import { DEFAULT_DEFLECTION_LIMIT, DEFLECTION_LIMIT_BOUNDS } from "../../lib/projects/deflection-limit";
 
 /** createdAt/updatedAt columns shared by every table. */
 export const timestamps = {
@@ -54,9 +56,14 @@ export const projects = pgTable(
     description: text().notNull().default(""),
     designStandard: designStandard().notNull().default("EN1993-1-1"),
     combinationStandard: combinationStandard().notNull().default("EN1990"),
+    /** The N in the serviceability deflection limit span/N (lib/projects/deflection-limit.ts states the default and bounds). */
+    deflectionLimit: integer().notNull().default(DEFAULT_DEFLECTION_LIMIT),
     ...timestamps,
   },
-  (t) => [uniqueIndex("projects_organization_name_idx").on(t.organizationId, t.name)],
+  (t) => [
+    uniqueIndex("projects_organization_name_idx").on(t.organizationId, t.name),
+    check("projects_deflection_limit_bounds", sql`${t.deflectionLimit} between ${sql.raw(String(DEFLECTION_LIMIT_BOUNDS.min))} and ${sql.raw(String(DEFLECTION_LIMIT_BOUNDS.max))}`),
+  ],
 );
 
 export const memberships = pgTable(

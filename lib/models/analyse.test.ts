@@ -41,4 +41,30 @@ describe("the stored review keeps the serviceability deflection check (issue 15 
     expect(check.deflection).toBeCloseTo(10 * uzPerKn, 12);
     expect(check.utilisation).toBeCloseTo((10 * Math.abs(uzPerKn)) / (4 / 250), 9);
   });
+
+  it("at the project's limit span/400 when told, and says which limit it used", () => {
+    // Same triangle, worked by hand: Σ n²L = (2/3)²·4 + 2·(5/6)²·2.5 = 64/36 + 125/36 = 189/36 = 5.25 m and
+    // EA = 2e8 kPa × 0.001 m² = 2e5 kN, so under 10 kN δ_C = 10 × 5.25 / 2e5 = 2.625e-4 m down; span 4 m (supports
+    // A, B), allowed 4/400 = 0.010 m, utilisation 2.625e-4 / 0.010 = 0.02625 (at span/250 it would be 0.0164).
+    const model = triangleModel({
+      loadCases: [pointLoads("G", [["C", 0, 0, -10]], "dead")],
+      combinations: [{ id: "SLS", name: "1.0G", factors: { G: 1 }, kind: "serviceability" }],
+    });
+    const { review } = analyseForStorage(model, "EN1993-1-1", 400);
+    expect(review!.deflectionLimit).toBe(400);
+    const [check] = review!.deflections!;
+    expect(check).toMatchObject({ combination: "SLS", node: "C", span: 4, limit: 400 });
+    expect(check.allowed).toBeCloseTo(0.01, 15);
+    expect(check.deflection).toBeCloseTo(-2.625e-4, 15);
+    expect(check.utilisation).toBeCloseTo(0.02625, 12);
+    expect(check.steps).toContain("allowed = L/400 = 10.00 mm");
+  });
+
+  it("states the default span/250 it used when no limit is given", () => {
+    const model = triangleModel({
+      loadCases: [pointLoads("G", [["C", 0, 0, -10]], "dead")],
+      combinations: [{ id: "SLS", name: "1.0G", factors: { G: 1 }, kind: "serviceability" }],
+    });
+    expect(analyseForStorage(model, "EN1993-1-1").review!.deflectionLimit).toBe(250);
+  });
 });

@@ -7,7 +7,7 @@ import { STANDING_CAUTION } from "@/lib/review/caution";
 import { createReviewContext } from "@/lib/review/context";
 import type { AnalysedPattern } from "@/lib/review/analysed-patterns";
 import { idleForAnyLoad, type AnyLoadCertificate, type InfluencePeak } from "@/lib/review/any-load";
-import { checkDeflections, type DeflectionCheck } from "@/lib/review/deflection";
+import { checkDeflections, DEFAULT_DEFLECTION_LIMIT, type DeflectionCheck } from "@/lib/review/deflection";
 import { overallStability, type OverallStability } from "@/lib/review/overall-stability";
 import type { DesignStandard } from "@/lib/review/design-checks/types";
 import { designMembers, type MemberDesign } from "@/lib/review/member-design";
@@ -58,8 +58,10 @@ export type StoredReview = {
   /** Every load case analysed, kept at every roof size (absent on reviews stored before: lib/review/analysed-patterns.ts). */
   analysedPatterns?: AnalysedPattern[];
   members: Record<string, StoredMemberReview>;
-  /** Each serviceability combination's largest vertical deflection against span/250 (absent on reviews stored before). */
+  /** Each serviceability combination's largest vertical deflection against span/deflectionLimit (absent on reviews stored before). */
   deflections?: DeflectionCheck[];
+  /** The N of span/N the review used: the project's setting when it was analysed (absent on reviews stored before; they used 250). */
+  deflectionLimit?: number;
   stability?: StoredStability;
   anyLoad?: StoredAnyLoad;
   wholeRoofChecksLeftOut?: string;
@@ -88,13 +90,13 @@ export function storedAnyLoad(model: TrussModel, certificate: AnyLoadCertificate
 }
 
 /** Analyses a validated model and, when it is stable, reviews every member against the design standard. */
-export function analyseForStorage(model: TrussModel, standard: DesignStandard): { result: AnalysisResult; review: StoredReview | null } {
+export function analyseForStorage(model: TrussModel, standard: DesignStandard, deflectionLimit = DEFAULT_DEFLECTION_LIMIT): { result: AnalysisResult; review: StoredReview | null } {
   const result = analyzeModel(model);
-  return { result, review: reviewForStorage(model, result, standard) };
+  return { result, review: reviewForStorage(model, result, standard, deflectionLimit) };
 }
 
-/** The member review of an analysed model; null when the model is unstable. */
-export function reviewForStorage(model: TrussModel, result: AnalysisResult, standard: DesignStandard): StoredReview | null {
+/** The member review of an analysed model, deflections against span/deflectionLimit; null when the model is unstable. */
+export function reviewForStorage(model: TrussModel, result: AnalysisResult, standard: DesignStandard, deflectionLimit = DEFAULT_DEFLECTION_LIMIT): StoredReview | null {
   if (result.status !== "ok") return null;
   const context = createReviewContext(model, result, { standard });
   const verdicts = memberVerdicts(context);
@@ -118,10 +120,10 @@ export function reviewForStorage(model: TrussModel, result: AnalysisResult, stan
   });
   // the patterns analysed, shown next to every "idle" verdict at any roof size: idle depends on them
   const patterns: AnalysedPattern[] = model.loadCases.map((c) => ({ id: c.id, name: c.name }));
-  const deflections = checkDeflections(model, result);
+  const deflections = checkDeflections(model, result, deflectionLimit);
   if (!certificate) {
     const leftOut = `Overall stability and "idle for any roof load" are checked with the analysis for roofs of up to ${wholeRoofCheckMembers.toLocaleString("en")} members; this one has ${model.members.length.toLocaleString("en")}. "Idle for any roof load" can be run for the whole roof as a job from the viewer.`;
-    return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, deflections, wholeRoofChecksLeftOut: leftOut };
+    return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, deflections, deflectionLimit, wholeRoofChecksLeftOut: leftOut };
   }
-  return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, deflections, stability: storedStability(overallStability(context)), anyLoad: certificate.anyLoad };
+  return { standard, caution: STANDING_CAUTION, analysedPatterns: patterns, members, deflections, deflectionLimit, stability: storedStability(overallStability(context)), anyLoad: certificate.anyLoad };
 }

@@ -10,6 +10,8 @@ export type PresentedProject = {
   organization: { id: string; name: string };
   designStandard: (typeof DESIGN_STANDARDS)[number];
   combinationStandard: (typeof COMBINATION_STANDARDS)[number];
+  /** The N in the serviceability deflection limit span/N. */
+  deflectionLimit: number;
   createdAt: string;
 };
 

@@ -1,5 +1,7 @@
-// Input schema for creating a project: shared by the create-project form and POST /api/projects.
+// Input schemas for creating a project (the create-project form and POST /api/projects) and for changing its
+// settings (the settings form and PATCH /api/projects/[projectId]).
 import { z } from "zod";
+import { DEFLECTION_LIMIT_BOUNDS } from "./deflection-limit";
 import { COMBINATION_STANDARDS, DESIGN_STANDARDS } from "./standards";
 
 export { COMBINATION_STANDARDS, DESIGN_STANDARDS };
@@ -24,3 +26,17 @@ export const createProjectSchema = z.object({
 });
 export type CreateProjectInput = z.input<typeof createProjectSchema>;
 export type CreateProjectValues = z.output<typeof createProjectSchema>;
+
+const { min, max } = DEFLECTION_LIMIT_BOUNDS;
+
+/** The project's settings an owner or structural engineer may change (lib/permissions "project.settings"). */
+export const projectSettingsSchema = z.strictObject({
+  deflectionLimit: z
+    .number({ error: "Give the deflection limit as a number: the N in span/N." })
+    // multipleOf rather than int: zod stops at a failed int, and the answer should list the bounds problem too
+    .multipleOf(1, "Give a whole number: the N in span/N.")
+    .min(min, `The limit is span/${min} at the loosest.`)
+    .max(max, `The limit is span/${max} at the strictest.`),
+});
+export type ProjectSettingsInput = z.input<typeof projectSettingsSchema>;
+export type ProjectSettings = z.output<typeof projectSettingsSchema>;

@@ -1,12 +1,9 @@
 // Serviceability: the largest vertical deflection of each serviceability combination against span / limit.
 import type { AnalysisResult, TrussModel } from "@/lib/analysis";
 import { planSpan } from "@/lib/analysis/plan-span";
+import { DEFAULT_DEFLECTION_LIMIT } from "@/lib/projects/deflection-limit";
 
-/**
- * Default deflection limit: span/250 for a roof (common practice, from memory; EN 1990 A1.4 leaves the values to
- * the project and National Annex). Editable per project through the review options.
- */
-export const DEFAULT_DEFLECTION_LIMIT = 250;
+export { DEFAULT_DEFLECTION_LIMIT };
 
 export type DeflectionCheck = {
   combination: string;

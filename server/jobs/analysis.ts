@@ -25,7 +25,8 @@ export async function runAnalysisJob(jobId: string, steps: AnalysisSteps = defau
     await progress("analysis", 10);
     const result = await steps.analyse(revision.model);
     await progress("review", 50);
-    const review = await steps.review(revision.model, result, revision.standard);
+    // the project's deflection limit as it is now; the stored review keeps it, so a later change alters no stored review
+    const review = await steps.review(revision.model, result, revision.standard, revision.deflectionLimit);
     await progress("storing", 90);
     const compareWith = typeof job.input.compareWith === "string" ? job.input.compareWith : null;
     const before = compareWith ? await getLatestAnalysisForRevision({ revisionId: compareWith }) : null;

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { DeflectionLimitForm } from "@/components/project/deflection-limit-form";
 import { TeamPanel } from "@/components/project/team-panel";
 import { InvitePanel } from "@/components/project/invite-panel";
 import { ReviewStatePanel } from "@/components/project/review-state-panel";
@@ -18,7 +19,10 @@ export default async function ProjectOverviewPage({ params }: PageProps<"/projec
       <ReviewStatePanel projectId={project.id} state={reviewState} />
       <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
         <TeamPanel projectId={project.id} canManage={canManage} currentUserId={user.id} />
-        {canManage ? <InvitePanel projectId={project.id} /> : null}
+        <div className="flex flex-col gap-6">
+          {canManage ? <InvitePanel projectId={project.id} /> : null}
+          {project.abilities["project.settings"] ? <DeflectionLimitForm projectId={project.id} deflectionLimit={project.deflectionLimit} /> : null}
+        </div>
       </div>
     </div>
   );

@@ -1,0 +1,2 @@
+ALTER TABLE "projects" ADD COLUMN "deflection_limit" integer DEFAULT 250 NOT NULL;--> statement-breakpoint
+ALTER TABLE "projects" ADD CONSTRAINT "projects_deflection_limit_bounds" CHECK ("projects"."deflection_limit" between 100 and 1000);
