@@ -19,7 +19,7 @@ import { MemberPanel } from "./member-panel";
 import { NodePanel } from "./node-panel";
 import { prepareModel, resultIds } from "./prepare";
 import { AnyLoadJobPanel } from "./any-load-job-panel";
-import { RoofChecksPanel } from "./roof-checks-panel";
+import { RoofChecksPanel, RoofWarningsLine } from "./roof-checks-panel";
 import { StabilityPanel } from "./stability-panel";
 import { drawMechanism, UnstableView } from "./unstable-view";
 import { installTestHook } from "./test-hook";
@@ -128,7 +128,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
     <div className="flex flex-col" onKeyDown={handleKeyDown}>
       <ViewerToolbar prepared={prepared} columns={columns} ids={ids} hasReview={hasReview} fileName={`strutroom-${revision.name}-r${revision.number}.png`.replace(/\s+/g, "-")} />
       <StabilityPanel review={revision.analysis?.review} nodeIds={prepared.nodes.ids} />
-      <RoofChecksPanel info={analysis.info} review={revision.analysis?.review} />
+      <RoofWarningsLine info={analysis.info} />
       <AnyLoadJobPanel projectId={projectId} revision={revision} onStored={() => void query.refetch()} />
       <div ref={setStage} className="relative h-[75vh] min-w-0" style={stageHeight ? { height: stageHeight } : undefined} data-testid="viewer-stage">
         {columnsError ? (
@@ -168,6 +168,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
         <MemberPanel projectId={projectId} prepared={prepared} revision={revision} />
         <NodePanel projectId={projectId} revisionNumber={revisionNumber} prepared={prepared} />
       </div>
+      <RoofChecksPanel info={analysis.info} review={revision.analysis?.review} />
     </div>
   );
 }

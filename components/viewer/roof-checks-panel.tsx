@@ -50,13 +50,29 @@ function Deflections({ review }: { review: ReviewOverview | null | undefined }) 
   );
 }
 
+/**
+ * One line above the canvas when the analysis warns (the whole panel sits below the canvas, which fills the window
+ * down to the fold): a warning must be seen without scrolling.
+ */
+export function RoofWarningsLine({ info }: { info: AnalysisResult["info"] }) {
+  if (info.warnings.length === 0) return null;
+  return (
+    <p role="alert" className="border-b border-board-100 px-3 py-1 text-xs font-semibold text-clash" data-testid="roof-warnings-line">
+      {info.warnings.length === 1 ? "1 analysis warning" : `${info.warnings.length} analysis warnings`}: {info.warnings[0]}{" "}
+      <a href="#roof-checks" className="underline">
+        See the checks of the whole roof below the view
+      </a>
+    </p>
+  );
+}
+
 export function RoofChecksPanel({ info, review }: { info: AnalysisResult["info"]; review: ReviewOverview | null | undefined }) {
   const unused = info.loadCasesInNoCombination ?? [];
   return (
-    <section className="border-b border-board-100 px-3 py-2 text-xs" data-testid="roof-checks" aria-label="Checks of the whole roof">
+    <section id="roof-checks" className="border-t border-board-100 px-3 py-2 text-xs" data-testid="roof-checks" aria-label="Checks of the whole roof">
       <h2 className="font-semibold">Checks of the whole roof</h2>
       {info.warnings.length > 0 ? (
-        <ul role="alert" className="list-disc pl-5 font-semibold text-clash" data-testid="roof-checks-warnings">
+        <ul className="list-disc pl-5 font-semibold text-clash" data-testid="roof-checks-warnings">
           {info.warnings.map((w) => (
             <li key={w}>{w}</li>
           ))}

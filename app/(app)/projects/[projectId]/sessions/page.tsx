@@ -69,34 +69,37 @@ export default async function SessionsPage({ params, searchParams }: PageProps<"
         {pins.length === 0 ? (
           <p className="text-sm text-board-700">No pins here yet.</p>
         ) : (
-          <table className="w-full border-collapse overflow-hidden rounded-xl bg-white text-sm" data-testid="sessions-pin-table">
-            <thead>
-              <tr className="border-b border-board-200 text-left text-board-700">
-                <th className="p-2">Question</th>
-                <th className="p-2">On</th>
-                <th className="p-2">State</th>
-                <th className="p-2">Discipline</th>
-                <th className="p-2">Raised by</th>
-                <th className="p-2 text-right">Comments</th>
-              </tr>
-            </thead>
-            <tbody>
-              {pins.map((pin) => (
-                <tr key={pin.id} className="border-b border-board-100">
-                  <td className="p-2">
-                    <Link className="text-tension underline" href={viewerUrl(pin.id)}>
-                      {pin.title}
-                    </Link>
-                  </td>
-                  <td className="p-2 font-mono text-xs">{anchorLabel(pin.anchor)}</td>
-                  <td className="p-2">{pin.state}</td>
-                  <td className="p-2">{pin.discipline}</td>
-                  <td className="p-2">{pin.author.name}</td>
-                  <td className="p-2 text-right">{pin.commentCount}</td>
+          // a phone is narrower than the six columns and a pin's anchor: the table scrolls inside its own box
+          <div className="overflow-x-auto rounded-xl">
+            <table className="w-full border-collapse bg-white text-sm" data-testid="sessions-pin-table">
+              <thead>
+                <tr className="border-b border-board-200 text-left text-board-700">
+                  <th className="p-2">Question</th>
+                  <th className="p-2">On</th>
+                  <th className="p-2">State</th>
+                  <th className="p-2">Discipline</th>
+                  <th className="p-2">Raised by</th>
+                  <th className="p-2 text-right">Comments</th>
                 </tr>
-              ))}
-            </tbody>
-          </table>
+              </thead>
+              <tbody>
+                {pins.map((pin) => (
+                  <tr key={pin.id} className="border-b border-board-100">
+                    <td className="p-2">
+                      <Link className="text-tension underline" href={viewerUrl(pin.id)}>
+                        {pin.title}
+                      </Link>
+                    </td>
+                    <td className="p-2 font-mono text-xs">{anchorLabel(pin.anchor)}</td>
+                    <td className="p-2">{pin.state}</td>
+                    <td className="p-2">{pin.discipline}</td>
+                    <td className="p-2">{pin.author.name}</td>
+                    <td className="p-2 text-right">{pin.commentCount}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
         )}
       </section>
     </div>
