@@ -27,89 +27,48 @@ function ResultCell({ model, id }: { model: PreparedModel["model"]; id: string }
 
 type Table<T> = { model: PreparedModel["model"]; rows: Record<string, T>; testId: string };
 
-/** Displacement ux, uy, uz and |u| of one node per result. */
-export function DisplacementTable({ model, rows, testId }: Table<NodeResult>) {
+/** One row per result (the chosen one highlighted): the result's name, then `cells` of the row's numbers. */
+function ResultRowsTable<T>({ model, rows, testId, headers, cells }: Table<T> & { headers: string[]; cells: (row: T) => string[] }) {
   const chosen = useViewerStore((s) => s.resultId);
   return (
     <table className="mb-3 w-full text-xs" data-testid={testId}>
       <thead>
         <tr className="text-left text-board-700">
           <th className="font-normal">Result</th>
-          <th className="text-right font-normal">ux</th>
-          <th className="text-right font-normal">uy</th>
-          <th className="text-right font-normal">uz</th>
-          <th className="text-right font-normal">|u| mm</th>
-        </tr>
-      </thead>
-      <tbody>
-        {orderedResultIds(model, rows).map((id) => {
-          const d = rows[id].displacement;
-          return (
-            <tr key={id} data-testid={`${testId}-${id}`} className={id === chosen ? "bg-selection/10 font-semibold" : ""}>
-              <ResultCell model={model} id={id} />
-              <td className="text-right font-mono tabular-nums">{mm(d.ux)}</td>
-              <td className="text-right font-mono tabular-nums">{mm(d.uy)}</td>
-              <td className="text-right font-mono tabular-nums">{mm(d.uz)}</td>
-              <td className="text-right font-mono tabular-nums">{mm(d.total)}</td>
-            </tr>
-          );
-        })}
-      </tbody>
-    </table>
-  );
-}
-
-/** Support reaction fx, fy, fz of one supported node per result (kN, on the structure). */
-export function ReactionTable({ model, rows, testId }: Table<NodeResult>) {
-  const chosen = useViewerStore((s) => s.resultId);
-  return (
-    <table className="mb-3 w-full text-xs" data-testid={testId}>
-      <thead>
-        <tr className="text-left text-board-700">
-          <th className="font-normal">Result</th>
-          <th className="text-right font-normal">Rx</th>
-          <th className="text-right font-normal">Ry</th>
-          <th className="text-right font-normal">Rz kN</th>
-        </tr>
-      </thead>
-      <tbody>
-        {orderedResultIds(model, rows).map((id) => {
-          const r = rows[id].reaction;
-          return (
-            <tr key={id} data-testid={`${testId}-${id}`} className={id === chosen ? "bg-selection/10 font-semibold" : ""}>
-              <ResultCell model={model} id={id} />
-              <td className="text-right font-mono tabular-nums">{r ? kN(r.fx) : "–"}</td>
-              <td className="text-right font-mono tabular-nums">{r ? kN(r.fy) : "–"}</td>
-              <td className="text-right font-mono tabular-nums">{r ? kN(r.fz) : "–"}</td>
-            </tr>
-          );
-        })}
-      </tbody>
-    </table>
-  );
-}
-
-/** |u| at a member's two end nodes per result. */
-export function EndDisplacementTable({ model, rows, ends, testId }: Table<{ i: NodeResult; j: NodeResult }> & { ends: { i: string; j: string } }) {
-  const chosen = useViewerStore((s) => s.resultId);
-  return (
-    <table className="mb-3 w-full text-xs" data-testid={testId}>
-      <thead>
-        <tr className="text-left text-board-700">
-          <th className="font-normal">Result</th>
-          <th className="text-right font-normal">|u| at {ends.i}</th>
-          <th className="text-right font-normal">|u| at {ends.j} mm</th>
+          {headers.map((header) => (
+            <th key={header} className="text-right font-normal">
+              {header}
+            </th>
+          ))}
         </tr>
       </thead>
       <tbody>
         {orderedResultIds(model, rows).map((id) => (
           <tr key={id} data-testid={`${testId}-${id}`} className={id === chosen ? "bg-selection/10 font-semibold" : ""}>
             <ResultCell model={model} id={id} />
-            <td className="text-right font-mono tabular-nums">{mm(rows[id].i.displacement.total)}</td>
-            <td className="text-right font-mono tabular-nums">{mm(rows[id].j.displacement.total)}</td>
+            {cells(rows[id]).map((cell, column) => (
+              <td key={headers[column]} className="text-right font-mono tabular-nums">
+                {cell}
+              </td>
+            ))}
           </tr>
         ))}
       </tbody>
     </table>
   );
+}
+
+/** Displacement ux, uy, uz and |u| of one node per result. */
+export function DisplacementTable(props: Table<NodeResult>) {
+  return <ResultRowsTable {...props} headers={["ux", "uy", "uz", "|u| mm"]} cells={({ displacement: d }) => [mm(d.ux), mm(d.uy), mm(d.uz), mm(d.total)]} />;
+}
+
+/** Support reaction fx, fy, fz of one supported node per result (kN, on the structure). */
+export function ReactionTable(props: Table<NodeResult>) {
+  return <ResultRowsTable {...props} headers={["Rx", "Ry", "Rz kN"]} cells={({ reaction: r }) => (r ? [kN(r.fx), kN(r.fy), kN(r.fz)] : ["–", "–", "–"])} />;
+}
+
+/** |u| at a member's two end nodes per result. */
+export function EndDisplacementTable({ ends, ...props }: Table<{ i: NodeResult; j: NodeResult }> & { ends: { i: string; j: string } }) {
+  return <ResultRowsTable {...props} headers={[`|u| at ${ends.i}`, `|u| at ${ends.j} mm`]} cells={({ i, j }) => [mm(i.displacement.total), mm(j.displacement.total)]} />;
 }
