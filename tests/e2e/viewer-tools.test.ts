@@ -255,7 +255,9 @@ describe("find, labels and measure (issue 17 item 8)", () => {
     const selectedBefore = await viewer.selection();
     await page.getByTestId("viewer-measure").click();
     expect(await page.getByTestId("measure-result").textContent()).toBe("Measure: click a node or a point on a member.");
-    // Clicking the toolbar button scrolled the page up to it: bring the canvas back.
+    // Clicking the toolbar button scrolled the page up to it: bring the whole canvas back into the window (a node
+    // drawn below the window's edge cannot be clicked), then let the camera rest.
+    await page.getByTestId("viewer-stage").scrollIntoViewIfNeeded();
     await viewer.settle();
     // T-8-6 to T-9-6: one 3 m bay of the demo roof (lib/analysis/demo-roof.ts), in the middle of the view.
     const a = await viewer.screenOf("node", "T-8-6");
