@@ -1,6 +1,9 @@
 // Page object for the clashes screen (issue 7): table, filters, the selected clash's panel and its forms.
 import type { Page } from "playwright-core";
 import { appUrl } from "../../support/browser";
+import { inView, waitInView } from "./progress-watch";
+
+const HANG_RESULT = '[data-testid="hang-services-done"]';
 
 export class ClashesPage {
   constructor(readonly page: Page) {}
@@ -70,5 +73,20 @@ export class ClashesPage {
 
   history() {
     return this.page.getByTestId("clash-history").locator("li");
+  }
+
+  /** Hangs the services' weight as a load case of a new revision; resolves once the answer (revision, job) shows. */
+  async hangServices() {
+    await this.page.getByTestId("hang-services-submit").click();
+    await this.page.locator(HANG_RESULT).waitFor({ timeout: 60_000 });
+  }
+
+  hangResultInView(): Promise<boolean> {
+    return inView(this.page, HANG_RESULT);
+  }
+
+  /** Waits until the new revision's analysis is done (no progress bar, no failure left) and its result is in view. */
+  hangAnalysedInView() {
+    return waitInView(this.page, HANG_RESULT, /Revision \d+ created/, { pending: '[data-testid="job-progress"], [data-testid="job-failed"]' });
   }
 }
