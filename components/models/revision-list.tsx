@@ -1,9 +1,10 @@
 "use client";
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useEffect, useRef } from "react";
 import Link from "next/link";
 import type { RevisionSummary } from "@/db/queries/models";
-import { LiveJob, scrollIntoViewWhenDone } from "@/components/jobs/job-progress";
+import { LiveJob } from "@/components/jobs/job-progress";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
 import { apiFetch } from "@/lib/http/fetcher";
 
@@ -23,6 +24,17 @@ export function RevisionList({ projectId, canRetry, canMarkCurrent }: { projectI
     queryKey: revisionsKey(projectId),
     queryFn: () => apiFetch<{ revisions: RevisionSummary[] }>(`/api/projects/${projectId}/models`),
   });
+  // A revision seen waiting for its analysis is scrolled into view once the list shows it analysed (issue 17 item
+  // 12). Read from the list, not from the job's own end: the stored analysis's live event may refetch the list
+  // first, and the row's job view is then gone before it hears "done".
+  const waiting = useRef(new Set<number>());
+  useEffect(() => {
+    for (const r of query.data?.revisions ?? []) {
+      const analysed = r.analysisStatus === "ok" || r.analysisStatus === "unstable";
+      if (!analysed && r.job) waiting.current.add(r.number);
+      else if (analysed && waiting.current.delete(r.number)) document.querySelector(`[data-testid="revision-${r.number}"]`)?.scrollIntoView({ block: "center", behavior: "smooth" });
+    }
+  }, [query.data]);
   if (query.isPending) return <p className="text-sm text-board-700">Loading revisions…</p>;
   if (query.isError) return <p role="alert" className="text-sm text-clash">{query.error.message}</p>;
   const revisions = query.data.revisions;
@@ -71,9 +83,7 @@ export function RevisionList({ projectId, canRetry, canMarkCurrent }: { projectI
                   projectId={projectId}
                   job={r.job}
                   canRetry={canRetry}
-                  onSettled={(job) => {
-                    void queryClient.invalidateQueries({ queryKey: revisionsKey(projectId) }).then(() => scrollIntoViewWhenDone(job, `[data-testid="revision-${r.number}"]`));
-                  }}
+                  onSettled={() => void queryClient.invalidateQueries({ queryKey: revisionsKey(projectId) })}
                 />
               ) : (
                 "not analysed"

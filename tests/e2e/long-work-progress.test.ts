@@ -1,4 +1,4 @@
-// Issue 17 item 12, progress on long work: generating a roof and hanging the services each show a
+// Issue 17 item 12, progress on long work: generating a roof, uploading a model and hanging the services each show a
 // progress bar with the phase (the browser's own step, then the analysis job's phase and percent, which follows the
 // job over the live bus), and when the analysis is done the new revision's row (or the hanging's result) scrolls
 // into view. The report's bar is covered by files-mail-report.test.ts.
@@ -9,7 +9,7 @@ import { closeDb } from "../support/db";
 import { demoAccount, demoAccounts, demoProjectId } from "../support/demo";
 import { ClashesPage } from "./pages/clashes-page";
 import { ModelsPage } from "./pages/models-page";
-import { progressSeen, scrollToTop, watchProgress } from "./pages/progress-watch";
+import { progressSeen, scrollToBottom, scrollToTop, watchProgress } from "./pages/progress-watch";
 import { signedInPage } from "./pages/sign-in-page";
 
 let browser: Browser;
@@ -19,6 +19,29 @@ let projectId: string;
 // Each test waits for an analysis job on the shared two-core machine (up to 180 s), beyond the default 120 s.
 const JOB_TEST_TIMEOUT = 240_000;
 const JOB_PHASE = /(Waiting for the job runner|Starting|Solving|Reviewing|Storing).* · \d+ %/;
+
+// Invented test data: a 4 m x 3 m wall panel braced by one diagonal, held out of its plane at every joint (stable).
+const panel = {
+  format: "truss-model/1",
+  name: "Progress test panel",
+  materials: [{ id: "S355", E: 210e6, fy: 355e3, unitWeight: 78.5 }],
+  sections: [{ id: "CHS 88.9x4.0", material: "S355", area: 1.067e-3, radiusOfGyration: 0.03, outerDiameter: 0.0889, wallThickness: 0.004 }],
+  nodes: [
+    { id: "A", x: 0, y: 0, z: 0 },
+    { id: "B", x: 4, y: 0, z: 0 },
+    { id: "C", x: 4, y: 0, z: 3 },
+    { id: "D", x: 0, y: 0, z: 3 },
+  ],
+  members: ["A-B", "B-C", "C-D", "D-A", "A-C"].map((id) => ({ id, i: id[0], j: id[2], section: "CHS 88.9x4.0" })),
+  supports: [
+    { node: "A", ux: true, uy: true, uz: true },
+    { node: "B", ux: false, uy: true, uz: true },
+    { node: "C", ux: false, uy: true, uz: false },
+    { node: "D", ux: false, uy: true, uz: false },
+  ],
+  loadCases: [{ id: "W", name: "Wind on the panel", category: "wind", selfWeight: false, nodalLoads: [{ node: "D", fx: 5, fy: 0, fz: 0 }] }],
+  combinations: [],
+};
 
 beforeAll(async () => {
   browser = await launchBrowser();
@@ -40,6 +63,21 @@ describe("progress on long work", () => {
     await models.analysedRowInView(number);
     const seen = await models.progressSeen();
     expect(seen.some((text) => /Generating the roof/.test(text))).toBe(true);
+    expect(seen.some((text) => JOB_PHASE.test(text))).toBe(true);
+  }, JOB_TEST_TIMEOUT);
+
+  it("uploading a model shows the upload's step, then the job's phase and percent, and brings the analysed revision into view", async () => {
+    // A short window, scrolled to the bottom: the revision list is out of view when the upload starts.
+    await page.setViewportSize({ width: 1280, height: 500 });
+    const models = new ModelsPage(page);
+    await models.open(projectId);
+    await scrollToBottom(page);
+    expect(await models.listOutOfView()).toBe(true);
+    const number = await models.upload({ name: "progress-panel.json", mimeType: "application/json", buffer: Buffer.from(JSON.stringify(panel)) });
+    expect(await models.rowInView(number)).toBe(false);
+    await models.analysedRowInView(number);
+    const seen = await models.progressSeen();
+    expect(seen.some((text) => /Uploading progress-panel\.json \(file 1 of 1\) · 0 %/.test(text))).toBe(true);
     expect(seen.some((text) => JOB_PHASE.test(text))).toBe(true);
   }, JOB_TEST_TIMEOUT);
 

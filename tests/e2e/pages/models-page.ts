@@ -1,7 +1,7 @@
-// Page object of the models page (the generate form, the revision list with each analysis's progress).
+// Page object of the models page (the generate and upload forms, the revision list with each analysis's progress).
 import type { Page } from "playwright-core";
 import { appUrl } from "../../support/browser";
-import { inView, progressSeen, waitInView, watchProgress } from "./progress-watch";
+import { inView, progressSeen, waitInView, watchProgress, whollyOutOfView } from "./progress-watch";
 
 export class ModelsPage {
   constructor(private readonly page: Page) {}
@@ -29,6 +29,13 @@ export class ModelsPage {
     return Number(/Revision (\d+) saved/.exec((await saved.textContent()) ?? "")![1]);
   }
 
+  /** Uploads one model file through the upload form (presigned upload, then the server's check and the job). */
+  async upload(file: { name: string; mimeType: string; buffer: Buffer }) {
+    await this.page.getByTestId("upload-files").setInputFiles(file);
+    await this.page.getByTestId("upload-submit").click();
+    return this.savedNumber();
+  }
+
   /** Waits until the revision's row says analysed and has been scrolled into the visible part of the page. */
   analysedRowInView(number: number, timeout = 180_000) {
     return waitInView(this.page, `[data-testid="revision-${number}"]`, /analysed/, { timeout });
@@ -37,5 +44,10 @@ export class ModelsPage {
   /** Whether the revision's row is wholly in view. */
   rowInView(number: number): Promise<boolean> {
     return inView(this.page, `[data-testid="revision-${number}"]`);
+  }
+
+  /** Whether no part of the revision list is in view. */
+  listOutOfView(): Promise<boolean> {
+    return whollyOutOfView(this.page, '[data-testid="revision-list"]');
   }
 }

@@ -36,6 +36,14 @@ export function inView(page: Page, selector: string): Promise<boolean> {
   }, selector);
 }
 
+/** Whether no part of the element is inside the visible part of the page. */
+export function whollyOutOfView(page: Page, selector: string): Promise<boolean> {
+  return page.evaluate((s) => {
+    const box = document.querySelector(s)!.getBoundingClientRect();
+    return box.bottom <= 0 || box.top >= window.innerHeight;
+  }, selector);
+}
+
 /**
  * Waits until the element exists, `ready` (a regular expression on its text) matches, nothing inside it matches
  * `pending` (a selector, e.g. a progress bar still running), and it is wholly in view.
@@ -53,4 +61,5 @@ export async function waitInView(page: Page, selector: string, ready: RegExp, { 
   );
 }
 
+export const scrollToBottom = (page: Page) => page.evaluate(() => window.scrollTo(0, document.documentElement.scrollHeight));
 export const scrollToTop = (page: Page) => page.evaluate(() => window.scrollTo(0, 0));
