@@ -9,6 +9,7 @@ import { forceStateOf } from "@/lib/vocabulary/force-state";
 import { InfluenceControl } from "./influence-control";
 import { MemberReviewSection } from "./member-review-section";
 import { EndDisplacementTable, ReactionTable } from "./node-results-tables";
+import { LoadFailure } from "./load-failure";
 import { resultLabel, type PreparedModel } from "./prepare";
 import { useWhatIfWorker } from "./use-whatif-worker";
 import type { ViewedRevision } from "./viewed-revision";
@@ -58,14 +59,7 @@ export function MemberPanel({ projectId, prepared, revision }: { projectId: stri
 
       <h3 className="mb-1 font-semibold">Axial force (tension positive)</h3>
       {detailQuery.isPending ? <p className="text-xs text-board-700">Loading this member&apos;s results…</p> : null}
-      {detailQuery.isError ? (
-        <p role="alert" className="text-xs text-clash">
-          {detailQuery.error.message}{" "}
-          <button type="button" className="underline" onClick={() => void detailQuery.refetch()}>
-            Try again
-          </button>
-        </p>
-      ) : null}
+      {detailQuery.isError ? <LoadFailure error={detailQuery.error} retry={() => void detailQuery.refetch()} /> : null}
       <table className="mb-3 w-full text-xs" data-testid="member-panel-forces">
         <tbody>
           {ids.map((id) => {

@@ -7,6 +7,7 @@ import { apiFetch } from "@/lib/http/fetcher";
 import type { NodeDetail } from "@/lib/models/node-detail";
 import { formatMetres } from "./measure";
 import { DisplacementTable, ReactionTable } from "./node-results-tables";
+import { LoadFailure } from "./load-failure";
 import { nodalLoadsFor, resultLabel, type PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
@@ -48,14 +49,7 @@ export function NodePanel({ projectId, revisionNumber, prepared }: { projectId: 
         </p>
       ) : null}
       {detailQuery.isPending ? <p className="mt-2 text-xs text-board-700">Loading this node&apos;s results…</p> : null}
-      {detailQuery.isError ? (
-        <p role="alert" className="mt-2 text-xs text-clash">
-          {detailQuery.error.message}{" "}
-          <button type="button" className="underline" onClick={() => void detailQuery.refetch()}>
-            Try again
-          </button>
-        </p>
-      ) : null}
+      {detailQuery.isError ? <LoadFailure error={detailQuery.error} retry={() => void detailQuery.refetch()} className="mt-2" /> : null}
       {detail ? (
         <>
           {detail.support ? (
