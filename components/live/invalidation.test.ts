@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { jobKey } from "@/components/jobs/job-progress";
+import { settingsKey } from "@/components/project/use-project-settings";
+import { reportsKey } from "@/components/report/use-revision-reports";
 import { staleQueryKeys } from "./invalidation";
 
 describe("staleQueryKeys", () => {
@@ -22,5 +24,13 @@ describe("staleQueryKeys", () => {
 
   it("refetches exactly the job a progress bar follows after that job moves", () => {
     expect(staleQueryKeys("p1", { kind: "job", id: "j1", revision: null })).toEqual([jobKey("p1", "j1")]);
+  });
+
+  it("refetches every revision's list of reports after a report is stored, and the settings after they change", () => {
+    const [reports] = staleQueryKeys("p1", { kind: "report", id: "j1", revision: 2 });
+    // a prefix: the list of the revision the page shows, whichever it is
+    expect(reportsKey("p1", 2).slice(0, reports.length)).toEqual(reports);
+    expect(reportsKey("p1", 5).slice(0, reports.length)).toEqual(reports);
+    expect(staleQueryKeys("p1", { kind: "settings", id: "p1", revision: null })).toEqual([settingsKey("p1")]);
   });
 });

@@ -17,5 +17,9 @@ export function staleQueryKeys(projectId: string, { kind, id }: Invalidation): (
       return [[...project, "pins"]];
     case "job":
       return [[...project, "jobs", id]];
+    case "report":
+      return [[...project, "reports"]];
+    case "settings":
+      return [[...project, "settings"]];
   }
 }

@@ -1,25 +1,35 @@
 "use client";
 // The project's serviceability deflection limit span/N, for those the rule book lets change it ("project.settings").
+// A change by another member arrives as a live event (useProjectSettings): the field takes the new value unless
+// this member is editing it, and the stored limit is always shown beside it.
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useMutation } from "@tanstack/react-query";
-import { useState } from "react";
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useEffect, useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button, Field, FormMessage, showServerError } from "@/components/ui/form";
 import { apiFetch } from "@/lib/http/fetcher";
 import { projectSettingsSchema, type ProjectSettings, type ProjectSettingsInput } from "@/lib/projects/schemas";
 import { DEFAULT_DEFLECTION_LIMIT, DEFLECTION_LIMIT_BOUNDS } from "@/lib/projects/deflection-limit";
+import { settingsKey, useProjectSettings } from "./use-project-settings";
 
 export function DeflectionLimitForm({ projectId, deflectionLimit }: { projectId: string; deflectionLimit: number }) {
+  const queryClient = useQueryClient();
+  const stored = useProjectSettings(projectId, { deflectionLimit }).data?.deflectionLimit ?? deflectionLimit;
   const [saved, setSaved] = useState<number>();
   const form = useForm<ProjectSettingsInput, unknown, ProjectSettings>({ resolver: zodResolver(projectSettingsSchema), defaultValues: { deflectionLimit } });
   const { errors } = form.formState;
+  useEffect(() => {
+    // Someone else's change: an untouched field follows it; a value being typed is left for its author to save or not.
+    if (!form.formState.isDirty) form.reset({ deflectionLimit: stored });
+  }, [stored, form]);
   const save = useMutation({
     mutationFn: (values: ProjectSettings) => apiFetch<{ settings: ProjectSettings }>(`/api/projects/${projectId}`, { method: "PATCH", body: values }),
     onMutate: () => setSaved(undefined),
     onSuccess: ({ settings }) => {
       setSaved(settings.deflectionLimit);
       form.reset(settings);
+      queryClient.setQueryData(settingsKey(projectId), settings);
     },
     onError: (error) => showServerError(form, error),
   });
@@ -40,6 +50,9 @@ export function DeflectionLimitForm({ projectId, deflectionLimit }: { projectId:
           error={errors.deflectionLimit?.message}
           {...form.register("deflectionLimit", { valueAsNumber: true })}
         />
+        <p className="text-sm text-board-700" data-testid="deflection-limit-stored">
+          The project&apos;s limit now: span/{stored}.
+        </p>
         <FormMessage message={errors.root?.message} />
         <FormMessage tone="success" testId="deflection-limit-saved" message={saved === undefined ? undefined : `Saved: span/${saved} from the next analysis.`} />
         <Button type="submit" disabled={save.isPending} data-testid="deflection-limit-submit">

@@ -1,7 +1,8 @@
 "use client";
 // "Make the PDF report": the results and comparison chosen here are sent to the report route, which queues a job;
 // the jobs process draws and stores the PDF while this form shows its progress (phase and percent), then a link
-// to the stored file. A failed report shows why and can be retried. Viewers download the reports others made.
+// to the stored file. A failed report shows why and can be retried. Viewers download the reports others made; the
+// list follows every report stored by anyone on the team (useRevisionReports) without a reload.
 import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
 import { JobProgress, useJob } from "@/components/jobs/job-progress";
@@ -10,6 +11,7 @@ import type { JobView, ReportJobView } from "@/db/queries/jobs";
 import { apiFetch, type ApiError } from "@/lib/http/fetcher";
 import type { ReportRequest } from "@/lib/report/schemas";
 import { ResultOptions, selectClass, type ResultOption } from "./result-options";
+import { useRevisionReports } from "./use-revision-reports";
 
 type ReportOutcome = { attachmentId: string; filename: string; bytes: number; pages: number };
 
@@ -22,7 +24,7 @@ export type ReportPdfFormProps = {
   defaultChosen: string[];
   /** The rule book's report.make for this member. */
   canMake: boolean;
-  /** The newest finished reports of the revision. */
+  /** The newest finished reports of the revision when the page was rendered. */
   recent: ReportJobView[];
 };
 
@@ -53,6 +55,7 @@ function MadeReport({ projectId, job: initial, canRetry }: { projectId: string; 
 }
 
 export function ReportPdfForm({ projectId, revision, results, defaultChosen, canMake, recent }: ReportPdfFormProps) {
+  const reports = useRevisionReports(projectId, revision, recent);
   const [chosen, setChosen] = useState<string[]>(defaultChosen);
   const [compare, setCompare] = useState<[string, string]>(["", ""]);
   const make = useMutation<{ job: JobView }, ApiError, ReportRequest>({
@@ -114,11 +117,11 @@ export function ReportPdfForm({ projectId, revision, results, defaultChosen, can
       {make.data ? <MadeReport key={make.data.job.id} projectId={projectId} job={make.data.job} canRetry={canMake} /> : null}
       <div className="flex flex-col gap-1" data-testid="report-recent">
         <h3 className="text-sm font-medium text-board-800">Reports of this revision</h3>
-        {recent.length === 0 ? (
+        {reports.length === 0 ? (
           <p className="text-sm text-board-700">None made yet.</p>
         ) : (
           <ul className="flex flex-col gap-1 text-sm">
-            {recent.map((job) => (
+            {reports.map((job) => (
               <li key={job.id} className="flex flex-wrap items-baseline gap-2">
                 <ReportDownload projectId={projectId} job={job} testId="report-recent-file" />
                 <span className="text-board-700">

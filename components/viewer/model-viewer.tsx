@@ -168,7 +168,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
         <MemberPanel projectId={projectId} prepared={prepared} revision={revision} />
         <NodePanel projectId={projectId} revisionNumber={revisionNumber} prepared={prepared} />
       </div>
-      <RoofChecksPanel info={analysis.info} review={revision.analysis?.review} />
+      <RoofChecksPanel projectId={projectId} info={analysis.info} review={revision.analysis?.review} />
     </div>
   );
 }

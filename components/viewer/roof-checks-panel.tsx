@@ -1,15 +1,18 @@
 "use client";
 // What the analysis and review say about the whole roof, beside the per-member results: the analysis warnings
 // (nearly a mechanism, displacements beyond span/50), load cases in no combination, and the deflection of each
-// serviceability combination against span/limit; then what is not checked, with the standing caution.
+// serviceability combination against span/limit (and the project's limit now, when it has changed since: it
+// follows the live "settings" event); then what is not checked, with the standing caution.
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { ReviewOverview } from "@/db/queries/revision-view";
 import { NOT_CHECKED, STANDING_CAUTION } from "@/lib/review/caution";
 import { DEFAULT_DEFLECTION_LIMIT } from "@/lib/projects/deflection-limit";
+import { useProjectSettings } from "@/components/project/use-project-settings";
 
 const mm = (metres: number) => (metres * 1000).toFixed(1);
 
-function Deflections({ review }: { review: ReviewOverview | null | undefined }) {
+function Deflections({ projectId, review }: { projectId: string; review: ReviewOverview | null | undefined }) {
+  const projectLimit = useProjectSettings(projectId).data?.deflectionLimit;
   const checks = review?.deflections;
   if (!review) return null;
   if (!checks) return <p>Serviceability deflection: not stored with this revision&apos;s review (it was reviewed before the check was kept); analyse it again to see it.</p>;
@@ -21,6 +24,11 @@ function Deflections({ review }: { review: ReviewOverview | null | undefined }) 
       <p data-testid="roof-checks-deflection-limit">
         Serviceability deflection against span/{limit}: the project&apos;s limit when this revision was analysed (default span/{DEFAULT_DEFLECTION_LIMIT}, common practice). A change to the project&apos;s limit applies from the next analysis.
       </p>
+      {projectLimit !== undefined && projectLimit !== limit ? (
+        <p className="font-semibold" data-testid="roof-checks-project-limit">
+          The project&apos;s limit is now span/{projectLimit}: the checks below are still against span/{limit} until the next analysis.
+        </p>
+      ) : null}
       <table className="mt-1 text-xs" data-testid="roof-checks-deflections">
         <thead>
           <tr className="text-left text-board-700">
@@ -66,7 +74,7 @@ export function RoofWarningsLine({ info }: { info: AnalysisResult["info"] }) {
   );
 }
 
-export function RoofChecksPanel({ info, review }: { info: AnalysisResult["info"]; review: ReviewOverview | null | undefined }) {
+export function RoofChecksPanel({ projectId, info, review }: { projectId: string; info: AnalysisResult["info"]; review: ReviewOverview | null | undefined }) {
   const unused = info.loadCasesInNoCombination ?? [];
   return (
     <section id="roof-checks" className="border-t border-board-100 px-3 py-2 text-xs" data-testid="roof-checks" aria-label="Checks of the whole roof">
@@ -85,7 +93,7 @@ export function RoofChecksPanel({ info, review }: { info: AnalysisResult["info"]
           Load cases in no combination: {unused.join(", ")}. They are analysed and count for &quot;zero in every result&quot;, but not for the design envelope, which is over the combinations.
         </p>
       ) : null}
-      <Deflections review={review} />
+      <Deflections projectId={projectId} review={review} />
       <p className="mt-1 text-board-700" data-testid="roof-checks-not-checked">
         {NOT_CHECKED} {STANDING_CAUTION}
       </p>

@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
-import { jobs, users, type Job } from "@/db/schema";
+import { jobs, modelRevisions, users, type Job } from "@/db/schema";
 import { insertLiveEvent } from "./live-events";
 
 /** What the browser sees of a job. */
@@ -120,13 +120,14 @@ export async function hasActiveJob(db: Executor, { revisionId, kind, requestedBy
 /** A report job of a revision as the report page lists it. */
 export type ReportJobView = JobView & { requestedBy: string | null; createdAt: string };
 
-/** The newest finished report jobs of a revision (their outcome names the stored PDF), newest first, with who asked for each. */
-export async function listReportJobs({ projectId, revisionId, limit = 5, db = getDb() }: { projectId: string; revisionId: string; limit?: number; db?: Executor }): Promise<ReportJobView[]> {
+/** The newest finished report jobs of a revision (by number; their outcome names the stored PDF), newest first, with who asked for each. */
+export async function listReportJobs({ projectId, revision, limit = 5, db = getDb() }: { projectId: string; revision: number; limit?: number; db?: Executor }): Promise<ReportJobView[]> {
   const rows = await db
     .select({ job: jobs, requestedBy: users.name })
     .from(jobs)
+    .innerJoin(modelRevisions, eq(modelRevisions.id, jobs.revisionId))
     .leftJoin(users, eq(users.id, jobs.requestedBy))
-    .where(and(eq(jobs.projectId, projectId), eq(jobs.revisionId, revisionId), eq(jobs.kind, "report"), eq(jobs.state, "done")))
+    .where(and(eq(jobs.projectId, projectId), eq(modelRevisions.number, revision), eq(jobs.kind, "report"), eq(jobs.state, "done")))
     .orderBy(desc(jobs.createdAt))
     .limit(limit);
   return rows.map(({ job, requestedBy }) => ({ ...view(job), requestedBy, createdAt: job.createdAt.toISOString() }));

@@ -32,6 +32,11 @@ export const reportRequestSchema = z.strictObject({
 });
 export type ReportRequest = z.output<typeof reportRequestSchema>;
 
+/** GET /api/projects/[projectId]/report?revision=: the revision's finished reports. */
+export const reportListQuerySchema = z.object({
+  revision: revisionNumberText,
+});
+
 /** What a report job was asked for, resolved against the revision (stored as the job's input). */
 export const reportJobInputSchema = z.strictObject({
   revision: revisionNumber,

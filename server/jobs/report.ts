@@ -34,7 +34,7 @@ export async function runReportJob(jobId: string, steps: ReportSteps = defaultSt
     });
     await setJobProgress({ jobId, phase: "storing", percent: 95 });
     const filename = `strutroom-review-rev${input.revision.number}.pdf`;
-    const stored = await storeReport({ job: { id: job.id, projectId: job.projectId, revisionId: job.revisionId, requestedBy: job.requestedBy }, filename, pdf, pages });
+    const stored = await storeReport({ job: { id: job.id, projectId: job.projectId, revisionId: job.revisionId, revisionNumber: input.revision.number, requestedBy: job.requestedBy }, filename, pdf, pages });
     return stored ? "done" : "skipped";
   } catch (error) {
     const reason = error instanceof Error ? error.message : String(error);

@@ -281,7 +281,7 @@ describe("the report job", () => {
     expect((await reportFiles()).length).toBe(before);
     expect(await storedReportObjects()).toBe(objects);
     // The report page lists the finished reports only: the newest jobs here failed, the list still shows the last five made.
-    const listed = await listReportJobs({ projectId: fx.projectId, revisionId });
+    const listed = await listReportJobs({ projectId: fx.projectId, revision: 1 });
     expect(listed).toHaveLength(5);
     expect(listed.every((j) => j.state === "done" && j.outcome)).toBe(true);
   });

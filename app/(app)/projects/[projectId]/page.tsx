@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { LiveInvalidation } from "@/components/live/live-invalidation";
 import { DeflectionLimitForm } from "@/components/project/deflection-limit-form";
 import { TeamPanel } from "@/components/project/team-panel";
 import { InvitePanel } from "@/components/project/invite-panel";
@@ -6,6 +7,7 @@ import { ReviewStatePanel } from "@/components/project/review-state-panel";
 import { getDb } from "@/db/client";
 import { getReviewState } from "@/db/queries/review-state";
 import { requirePageProject } from "@/lib/auth/page";
+import { realtimeUrl } from "@/lib/realtime/browser-url";
 
 export const metadata: Metadata = { title: "Project overview" };
 
@@ -16,6 +18,8 @@ export default async function ProjectOverviewPage({ params }: PageProps<"/projec
   const reviewState = await getReviewState({ db: getDb(), projectId: project.id });
   return (
     <div className="flex flex-col gap-6">
+      {/* The team and the settings change under an open page: a live event refetches them (components/live/invalidation.ts). */}
+      <LiveInvalidation projectId={project.id} realtimeUrl={realtimeUrl()} />
       <ReviewStatePanel projectId={project.id} state={reviewState} />
       <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
         <TeamPanel projectId={project.id} canManage={canManage} currentUserId={user.id} />

@@ -20,7 +20,7 @@ export default async function ReportPage({ params, searchParams }: PageProps<"/p
   const asked = Number((await searchParams).revision);
   const chosen = revisions.find((r) => r.number === asked) ?? defaultRevision(revisions);
   const revision = chosen ? await getRevisionWithResults({ projectId, number: chosen.number }) : null;
-  const recent = revision ? await listReportJobs({ projectId, revisionId: revision.id }) : [];
+  const recent = revision ? await listReportJobs({ projectId, revision: revision.number }) : [];
   const results = revision
     ? [
         ...revision.model.combinations.map((c) => ({ id: c.id, name: c.name, kind: "combination" as const })),

@@ -1,9 +1,10 @@
+import { listReportJobs } from "@/db/queries/jobs";
 import { getRevisionResultIds } from "@/db/queries/models";
 import { enqueueReport } from "@/lib/commands/enqueue-report";
 import { ConflictError, ValidationError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { REPORT_RESULTS_MAX, reportRequestSchema } from "@/lib/report/schemas";
+import { REPORT_RESULTS_MAX, reportListQuerySchema, reportRequestSchema } from "@/lib/report/schemas";
 import { chosenRevisionNumber, noSuchRevision } from "@/app/api/projects/[projectId]/_lib/report-data";
 
 /**
@@ -31,4 +32,10 @@ export const POST = projectRoute({ params: projectParamsSchema, body: reportRequ
   const compare = body.compare ? ([body.compare[0], body.compare[1]] as [string, string]) : null;
   const job = await enqueueReport({ projectId, revisionId: revision.id, query: { revision: number, combinations, compare }, requestedBy: user.id });
   return Response.json({ job }, { status: 202 });
+});
+
+/** The newest finished reports of a revision (`?revision=`): what the report page lists, refetched when one is stored. */
+export const GET = projectRoute({ params: projectParamsSchema, query: reportListQuerySchema, action: "report.export" }, async ({ params: { projectId }, query }) => {
+  const reports = await listReportJobs({ projectId, revision: query.revision });
+  return Response.json({ reports });
 });
