@@ -71,6 +71,8 @@ export const cameraLook = {
   fov: 40,
   transitionSeconds: 0.6,
   fitPadding: 0.9,
+  /** A member stepped to with the keyboard within this fraction of the canvas's edges counts as off screen. */
+  followMargin: 0.05,
 } as const;
 
 /**

@@ -26,3 +26,21 @@ export function stepVisibleMember(count: number, visible: Uint8Array | null, cur
   }
   return -1;
 }
+
+/** The midpoint of member `k` (model coordinates): where the camera turns to when stepping brings it in. */
+export function memberMidpoint(positions: Float32Array, ends: Int32Array, k: number): [number, number, number] {
+  const a = ends[k * 2] * 3;
+  const b = ends[k * 2 + 1] * 3;
+  return [(positions[a] + positions[b]) / 2, (positions[a + 1] + positions[b + 1]) / 2, (positions[a + 2] + positions[b + 2]) / 2];
+}
+
+/**
+ * Whether a point drawn at `screen` (client coordinates; null when behind the camera) lies inside `area` kept in
+ * from each edge by `margin` times its size: a member stepped to outside it is off screen, so the camera follows.
+ */
+export function isInView(screen: { x: number; y: number } | null, area: { left: number; top: number; width: number; height: number }, margin: number): boolean {
+  if (!screen) return false;
+  const dx = area.width * margin;
+  const dy = area.height * margin;
+  return screen.x >= area.left + dx && screen.x <= area.left + area.width - dx && screen.y >= area.top + dy && screen.y <= area.top + area.height - dy;
+}

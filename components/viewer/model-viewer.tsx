@@ -4,7 +4,8 @@
 // placeholder), the legend, hover read-out and the member panel. The drawing reads only the columns.
 // Layout (issue 17 items 9 to 11): the stage fills the window down to the fold; the member and node panels open
 // over the canvas's right side instead of narrowing it (the camera keeps its framing); the canvas takes focus,
-// the arrow keys step the selection through the members drawn, and Escape closes the panels.
+// the arrow keys step the selection through the members drawn (the camera turns to a member stepped to off screen,
+// keeping its distance), and Escape closes the panels.
 import { useQuery } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
@@ -23,7 +24,8 @@ import { RoofChecksPanel, RoofWarningsLine } from "./roof-checks-panel";
 import { StabilityPanel } from "./stability-panel";
 import { drawMechanism, UnstableView } from "./unstable-view";
 import { installTestHook } from "./test-hook";
-import { stepVisibleMember, viewerKeyAction } from "./keyboard";
+import { cameraLook } from "./config";
+import { isInView, memberMidpoint, stepVisibleMember, viewerKeyAction } from "./keyboard";
 import { useFillToFold } from "./use-fill-to-fold";
 import { useResultColumns } from "./use-result-columns";
 import { fetchRevision, revisionQueryKey } from "./viewed-revision";
@@ -98,11 +100,15 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
       return;
     }
     // Arrows belong to fields, lists and scrolling everywhere but on the focused view itself.
-    if (event.target !== focusTarget.current) return;
+    const view = focusTarget.current;
+    if (!view || event.target !== view) return;
     event.preventDefault();
     const current = store.selectedMemberId ? (prepared.memberIndex.get(store.selectedMemberId) ?? -1) : -1;
     const k = stepVisibleMember(prepared.memberIds.length, store.visibleMembers, current, action.step);
-    if (k >= 0) store.selectMember(prepared.memberIds[k]);
+    if (k < 0) return;
+    store.selectMember(prepared.memberIds[k]);
+    const middle = memberMidpoint(prepared.nodes.positions, prepared.ends, k);
+    if (!isInView(store.picker?.screenOf(middle) ?? null, view.getBoundingClientRect(), cameraLook.followMargin)) store.flyTo(middle);
   };
 
   if (query.isPending) return <div className="h-[75vh]"><CanvasPlaceholder message="Loading the revision and its results…" /></div>;

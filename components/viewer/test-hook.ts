@@ -2,7 +2,7 @@
 // is unreliable. It only calls the same store actions the UI uses.
 import type { StateCounts } from "./colouring";
 import type { PreparedModel } from "./prepare";
-import { useViewerStore } from "./viewer-store";
+import { useViewerStore, type CameraPose } from "./viewer-store";
 
 export interface StrutroomTestHook {
   selectMember(id: string | null): void;
@@ -23,6 +23,8 @@ export interface StrutroomTestHook {
   instanceCounts(): Record<string, number>;
   /** What is selected now. */
   selection(): { member: string | null; node: string | null };
+  /** Where the camera is and what it looks at now (null before the canvas is drawn). */
+  cameraPose(): CameraPose | null;
   /**
    * Drawn instances whose matrix is still the identity (a unit glyph at the model origin): an instance drawn before
    * its place was written, or more instances drawn than the mesh's buffer holds. Named by the mesh's name or its
@@ -67,6 +69,7 @@ export function installTestHook(prepared: PreparedModel): () => void {
       const s = useViewerStore.getState();
       return { member: s.selectedMemberId, node: s.selectedNodeId };
     },
+    cameraPose: () => useViewerStore.getState().controller?.getPose() ?? null,
   };
   return () => {
     delete window.__strutroom;

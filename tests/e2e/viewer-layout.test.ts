@@ -1,8 +1,8 @@
 // Issue 17 items 9 and 10 in Chromium at 1440 × 900: the canvas fills the window down to the fold under a compact
 // toolbar; the member panel opens over the canvas instead of narrowing it; the roof is framed afresh when another
 // revision is opened; the legend counts only the members the filters and the section box let through; the canvas
-// takes focus, the arrow keys step through the members shown, Escape closes the panel, and the pin form is a few
-// Tab presses away.
+// takes focus, the arrow keys step through the members shown (the camera turning to one off screen), Escape closes
+// the panel, and the pin form is a few Tab presses away.
 import { and, eq } from "drizzle-orm";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -195,6 +195,49 @@ describe("keyboard (issue 17 item 10)", () => {
     await expect.poll(() => viewer.panel.count()).toBe(0);
     expect(await viewer.selection()).toEqual({ member: null, node: null });
     expect(await page.evaluate(() => document.activeElement?.getAttribute("data-testid"))).toBe("viewer-focus");
+  });
+
+  it("turns the camera to a member stepped to off screen, keeping its distance", async () => {
+    await viewer.open(projectId, 1);
+    await viewer.settle();
+    const first = revision.model.members[0].id;
+    const canvas = await boxOf("viewer-canvas");
+    const inside = (p: { x: number; y: number } | null) => p !== null && p.x > canvas.x && p.x < canvas.x + canvas.width && p.y > canvas.y && p.y < canvas.y + canvas.height;
+    const memberAt = () => page.evaluate((id) => window.__strutroom!.screenOf("member", id), first);
+    const distance = () =>
+      page.evaluate(() => {
+        const pose = window.__strutroom!.cameraPose()!;
+        return Math.hypot(...pose.position.map((v, k) => v - pose.target[k]));
+      });
+    // The camera is still when its pose is the same twice, 200 ms apart (a corner node may be off screen here, so
+    // viewer.settle, which watches one, cannot tell).
+    const still = async () => {
+      let last = "";
+      for (let now = ""; ; last = now) {
+        now = JSON.stringify(await page.evaluate(() => window.__strutroom!.cameraPose()));
+        if (now === last) return;
+        await page.waitForTimeout(200);
+      }
+    };
+    // Zoom in on the middle of the roof with the wheel until the first member is drawn outside the canvas.
+    await page.mouse.move(canvas.x + canvas.width / 2, canvas.y + canvas.height / 2);
+    for (let turns = 0; turns < 40 && inside(await memberAt()); turns += 1) {
+      await page.mouse.wheel(0, -300);
+      await still();
+    }
+    expect(inside(await memberAt())).toBe(false);
+    const zoomed = await distance();
+
+    await page.getByTestId("viewer-focus").focus();
+    await page.keyboard.press("ArrowRight");
+    await expect.poll(() => viewer.selection()).toEqual({ member: first, node: null });
+    await expect.poll(async () => inside(await memberAt()), { timeout: 15_000 }).toBe(true);
+    await still();
+    expect(inside(await memberAt())).toBe(true);
+    // The camera moved sideways to it: as far from what it looks at as before (the zoom kept).
+    expect(Math.abs((await distance()) - zoomed) / zoomed).toBeLessThan(0.01);
+    await screenshot(page, "viewer-keyboard-follows");
+    await page.keyboard.press("Escape");
   });
 
   it("skips members the filters hide", async () => {
