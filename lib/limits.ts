@@ -159,6 +159,13 @@ export const realtime = {
  */
 export const wholeRoofCheckMembers = 10_000;
 
+/**
+ * The heap of the jobs process's analysis thread (server/jobs/analysis-thread.ts), MB: a 120 x 120 roof (115,200
+ * members, 8 results) uses about 0.6 GB. A model past this fails its job with the reason instead of taking the
+ * machine's memory from everyone else.
+ */
+export const analysisThreadHeapMb = 2048;
+
 /** Database sessions of the app: no statement runs, and no transaction sits idle, longer than this. */
 export const database = {
   statementTimeoutMs: 30_000,

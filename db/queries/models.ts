@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, max, sql } from "drizzle-orm";
 import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
 import { analysisRuns, attachments, modelRevisions, projects, users, type AnalysisRun, type ModelRevision, type Project } from "@/db/schema";
+import { jsonBytes } from "@/lib/models/json-bytes";
 import { recordAuditEvent } from "./audit";
 import { latestJobsOfRevisions, type JobView } from "./jobs";
 import { storeRunColumns, type StoredColumns } from "./result-columns";
@@ -80,7 +81,7 @@ export async function listRevisionsByProject({ projectId, db = getDb() }: { proj
     }));
 }
 
-/** What an analysis job needs of a revision: its model and the project's design standard. */
+/** A revision's model with the project's design standard and deflection limit (the re-check of carried decisions). */
 export async function getRevisionForAnalysis({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ model: TrussModel; standard: Project["designStandard"]; deflectionLimit: number } | null> {
   const [row] = await db
     .select({ model: modelRevisions.model, standard: projects.designStandard, deflectionLimit: projects.deflectionLimit })
@@ -89,6 +90,31 @@ export async function getRevisionForAnalysis({ revisionId, db = getDb() }: { rev
     .where(eq(modelRevisions.id, revisionId))
     .limit(1);
   return row ?? null;
+}
+
+/**
+ * What the analysis job's thread starts from: the revision's model as JSON text (parsed in that thread, never in the
+ * jobs process), the project's design standard and deflection limit as they are now; null when the revision is gone.
+ */
+export async function getRevisionToAnalyse({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ modelJson: string; standard: Project["designStandard"]; deflectionLimit: number } | null> {
+  const [row] = await db
+    .select({ modelJson: sql<string>`${modelRevisions.model}::text`, standard: projects.designStandard, deflectionLimit: projects.deflectionLimit })
+    .from(modelRevisions)
+    .innerJoin(projects, eq(projects.id, modelRevisions.projectId))
+    .where(eq(modelRevisions.id, revisionId))
+    .limit(1);
+  return row ?? null;
+}
+
+/** The members zero in all results of a revision's newest analysis, when that analysis is stable; else null. */
+export async function getNewestZeroInAll({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<string[] | null> {
+  const [row] = await db
+    .select({ status: analysisRuns.status, zeroInAll: sql<string[]>`${analysisRuns.result} -> 'zeroInAll'` })
+    .from(analysisRuns)
+    .where(eq(analysisRuns.revisionId, revisionId))
+    .orderBy(desc(analysisRuns.createdAt))
+    .limit(1);
+  return row?.status === "ok" ? row.zeroInAll : null;
 }
 
 /** One revision by number with its model and newest analysis run, or null. */
@@ -166,12 +192,21 @@ export async function insertRevision(tx: Executor, input: NewRevisionInput): Pro
   return revision;
 }
 
-/** Stores an analysis run (results and review as JSON, and the same as columns) of a revision. */
+/** The analysis JSON as stored: the document's UTF-8 bytes (lib/models/json-bytes.ts); PostgreSQL parses them into jsonb. */
+export type JsonBytes = Uint8Array;
+// Sent as one binary bytea parameter: no JavaScript string of the document is made on the way.
+const jsonbOf = (bytes: JsonBytes) => sql`convert_from(${Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength)}::bytea, 'UTF8')::jsonb`;
+
+/**
+ * Stores an analysis run (results and review as JSON, and the same as columns) of a revision. Each document goes in
+ * its own statement: pg copies a statement's parameters into one message, so only one document is copied at a time.
+ */
 export async function insertAnalysisRun(
   tx: Executor,
-  input: { revisionId: string; result: AnalysisResult; review: StoredReview | null; columns: StoredColumns },
+  input: { revisionId: string; status: AnalysisRun["status"]; resultJson: JsonBytes; reviewJson: JsonBytes | null; columns: StoredColumns },
 ): Promise<{ id: string }> {
-  const [run] = await tx.insert(analysisRuns).values({ revisionId: input.revisionId, status: input.result.status, result: input.result, review: input.review }).returning({ id: analysisRuns.id });
+  const [run] = await tx.insert(analysisRuns).values({ revisionId: input.revisionId, status: input.status, result: jsonbOf(input.resultJson) }).returning({ id: analysisRuns.id });
+  if (input.reviewJson) await tx.update(analysisRuns).set({ review: jsonbOf(input.reviewJson) }).where(eq(analysisRuns.id, run.id));
   await storeRunColumns(tx, { runId: run.id, columns: input.columns });
   return run;
 }
@@ -179,7 +214,8 @@ export async function insertAnalysisRun(
 /** Inserts the next revision of the project with an analysis already computed (the demo seed, tests). */
 export async function insertRevisionWithAnalysis(tx: Executor, input: CreateRevisionInput): Promise<{ id: string; number: number }> {
   const revision = await insertRevision(tx, input);
-  await insertAnalysisRun(tx, { revisionId: revision.id, result: input.result, review: input.review, columns: input.columns });
+  const { result, review, columns } = input;
+  await insertAnalysisRun(tx, { revisionId: revision.id, status: result.status, resultJson: jsonBytes(result), reviewJson: review && jsonBytes(review), columns });
   return revision;
 }
 

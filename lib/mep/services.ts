@@ -29,7 +29,7 @@ export function hangServices(model: TrussModel, runs: Run[], hangerSpacing: numb
 }
 
 /** How the set of members that are zero in every combination changes between two analyses. */
-export function zeroForceChange(before: AnalysisResult, after: AnalysisResult): { noLongerZero: string[]; newlyZero: string[] } {
+export function zeroForceChange(before: Pick<AnalysisResult, "zeroInAll">, after: Pick<AnalysisResult, "zeroInAll">): { noLongerZero: string[]; newlyZero: string[] } {
   const was = new Set(before.zeroInAll);
   const now = new Set(after.zeroInAll);
   return { noLongerZero: before.zeroInAll.filter((id) => !now.has(id)), newlyZero: after.zeroInAll.filter((id) => !was.has(id)) };

@@ -1,40 +1,36 @@
 // The analysis job: solves a stored revision, reviews its members and stores both with the job marked done, in one
-// transaction (lib/commands/store-analysis.ts). Progress goes to the jobs row the browser polls. A failure leaves
-// the revision without analysis and the job failed with its reason, until someone retries it.
+// transaction (lib/commands/store-analysis.ts). The computation runs in a worker thread (analysis-thread.ts), so the
+// jobs process keeps answering meanwhile; progress goes to the jobs row the browser follows. A failure (a throw in
+// the thread, its running out of heap, its end before answering) leaves the revision without analysis and the job
+// failed with its reason, until someone retries it.
 import { claimJob, failJob, setJobProgress } from "../../db/queries/jobs";
-import { getLatestAnalysisForRevision } from "../../db/queries/mep";
-import { getRevisionForAnalysis } from "../../db/queries/models";
-import { analyzeModel } from "../../lib/analysis";
+import { getNewestZeroInAll, getRevisionToAnalyse } from "../../db/queries/models";
 import { storeAnalysis } from "../../lib/commands/store-analysis";
-import { zeroForceChange } from "../../lib/mep/services";
-import { reviewForStorage } from "../../lib/models/analyse";
+import { ANALYSIS_WORKER, computeInThread, type OnPhase } from "./analysis-thread";
 
-/** What the job computes with; tests pass a failing analysis to check that nothing half-stored remains. */
-type MaybeAsync<F extends (...args: never[]) => unknown> = (...args: Parameters<F>) => ReturnType<F> | Promise<ReturnType<F>>;
-export type AnalysisSteps = { analyse: MaybeAsync<typeof analyzeModel>; review: MaybeAsync<typeof reviewForStorage> };
-const defaultSteps: AnalysisSteps = { analyse: analyzeModel, review: reviewForStorage };
+export type AnalysisJobOptions = {
+  /** The thread's entry: the analysis worker; tests give one that throws or ends midway. */
+  worker?: URL;
+  /** Called after each phase is written to the jobs row and before the next one is (tests follow the phases). */
+  onPhase?: OnPhase;
+};
 
 /** Works one analysis job; returns its final state ("skipped" when it was already done, failed or removed). */
-export async function runAnalysisJob(jobId: string, steps: AnalysisSteps = defaultSteps): Promise<"done" | "failed" | "skipped"> {
+export async function runAnalysisJob(jobId: string, { worker = ANALYSIS_WORKER, onPhase }: AnalysisJobOptions = {}): Promise<"done" | "failed" | "skipped"> {
   const job = await claimJob({ jobId });
   if (!job) return "skipped";
-  const progress = (phase: string, percent: number) => setJobProgress({ jobId, phase, percent });
   try {
-    const revision = await getRevisionForAnalysis({ revisionId: job.revisionId });
+    const revision = await getRevisionToAnalyse({ revisionId: job.revisionId });
     if (!revision) return "skipped";
-    await progress("analysis", 10);
-    const result = await steps.analyse(revision.model);
-    await progress("review", 50);
-    // the project's deflection limit as it is now; the stored review keeps it, so a later change alters no stored review
-    const review = await steps.review(revision.model, result, revision.standard, revision.deflectionLimit);
-    await progress("storing", 90);
     const compareWith = typeof job.input.compareWith === "string" ? job.input.compareWith : null;
-    const before = compareWith ? await getLatestAnalysisForRevision({ revisionId: compareWith }) : null;
-    const outcome = {
-      status: result.status,
-      zeroForce: before?.result.status === "ok" && result.status === "ok" ? zeroForceChange(before.result, result) : null,
-    };
-    return (await storeAnalysis({ job, model: revision.model, result, review, outcome })) ? "done" : "skipped";
+    const zeroInAllBefore = compareWith ? await getNewestZeroInAll({ revisionId: compareWith }) : null;
+    // the project's deflection limit as it is now; the stored review keeps it, so a later change alters no stored review
+    const computed = await computeInThread(worker, { ...revision, zeroInAllBefore }, async (phase, percent) => {
+      await setJobProgress({ jobId, phase, percent });
+      await onPhase?.(phase, percent);
+    });
+    const outcome = { status: computed.status, zeroForce: computed.zeroForce };
+    return (await storeAnalysis({ job, ...computed, outcome })) ? "done" : "skipped";
   } catch (error) {
     const reason = error instanceof Error ? error.message : String(error);
     await failJob({ jobId, error: `The analysis stopped: ${reason}` });

@@ -7,6 +7,7 @@ import { GET as getJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/route
 import { POST as retryJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/retry/route";
 import { POST as createRevision } from "@/app/api/projects/[projectId]/models/route";
 import { analysisRuns, auditEvents, jobs, modelRevisions } from "@/db/schema";
+import { getRevisionForAnalysis } from "@/db/queries/models";
 import { analyzeModel } from "@/lib/analysis";
 import { QUEUES } from "@/lib/jobs/queue";
 import { reviewForStorage } from "@/lib/models/analyse";
@@ -21,6 +22,8 @@ let boss: PgBoss;
 const roof = { kind: "generate", params: { name: "Queued grid", spanX: 6, spanY: 6, module: 3, depth: 1.5 } };
 const jobCtx = (jobId: string) => routeContext({ projectId: fx.projectId, jobId });
 const jobPath = (jobId: string) => `/api/projects/${fx.projectId}/jobs/${jobId}`;
+/** A stand-in analysis thread of tests/support/analysis-workers that fails. */
+const failingWorker = (name: string) => new URL(`../support/analysis-workers/${name}.mjs`, import.meta.url);
 const runsOf = async (revisionId: string) => getDb().select().from(analysisRuns).where(eq(analysisRuns.revisionId, revisionId));
 
 async function saveRoof() {
@@ -65,14 +68,10 @@ describe("queued analysis", () => {
   it("analyses and reviews the revision, reporting each phase, and stores both with the job done", async () => {
     const { revision, job } = await saveRoof();
     const phases: string[] = [];
-    const watch = <A extends unknown[], R>(phase: string, step: (...args: A) => R) => async (...args: A): Promise<R> => {
-      phases.push(`${phase}:${(await jobRow(job.id)).phase}`);
-      return step(...args);
-    };
-    // The steps see the phase the browser sees while they run.
-    const steps = { analyse: watch("analyse", analyzeModel), review: watch("review", reviewForStorage) };
-    expect(await runAnalysisJob(job.id, steps)).toBe("done");
-    expect(phases).toEqual(["analyse:analysis", "review:review"]);
+    // Each phase the thread reports is on the jobs row (what the browser sees) before the next one is written.
+    const onPhase = async (phase: string) => void phases.push(`${phase}:${(await jobRow(job.id)).phase}`);
+    expect(await runAnalysisJob(job.id, { onPhase })).toBe("done");
+    expect(phases).toEqual(["analysis:analysis", "review:review", "storing:storing"]);
     const [run] = await runsOf(revision.id);
     expect(run.status).toBe("ok");
     expect(run.review?.members).toBeDefined();
@@ -82,15 +81,20 @@ describe("queued analysis", () => {
     expect(await runsOf(revision.id)).toHaveLength(1);
   });
 
-  it("fails without storing anything, shows the reason, and runs again when the structural engineer retries", async () => {
+  it("stores the design-format JSON equal to the analysis of the stored model", async () => {
     const { revision, job } = await saveRoof();
-    const failing = {
-      analyse: analyzeModel,
-      review: () => {
-        throw new Error("out of memory in the review");
-      },
-    };
-    expect(await runAnalysisJob(job.id, failing)).toBe("failed");
+    expect(await runAnalysisJob(job.id)).toBe("done");
+    const { model, standard, deflectionLimit } = (await getRevisionForAnalysis({ revisionId: revision.id }))!;
+    const [run] = await runsOf(revision.id);
+    const result = analyzeModel(model);
+    // jsonb keeps values, not text: compared as parsed JSON, as every reader (CLI format, exports) sees it
+    expect(run.result).toEqual(JSON.parse(JSON.stringify(result)));
+    expect(run.review).toEqual(JSON.parse(JSON.stringify(reviewForStorage(model, result, standard, deflectionLimit))));
+  });
+
+  it("fails without storing anything when the computation throws, shows the reason, and runs again when the structural engineer retries", async () => {
+    const { revision, job } = await saveRoof();
+    expect(await runAnalysisJob(job.id, { worker: failingWorker("throws-in-review") })).toBe("failed");
     expect(await runsOf(revision.id)).toEqual([]);
     const failed = await (await getJob(await buildRequest(jobPath(job.id), { user: fx.users.architect }), jobCtx(job.id))).json();
     expect(failed.job).toMatchObject({ state: "failed", error: expect.stringContaining("out of memory in the review") });
@@ -106,6 +110,17 @@ describe("queued analysis", () => {
     const events = await getDb().select().from(auditEvents).where(eq(auditEvents.projectId, fx.projectId));
     expect(events).toContainEqual(expect.objectContaining({ action: "analysis.retry", actorId: fx.users.structural_engineer.id, subjectId: revision.id }));
 
+    expect(await runAnalysisJob(job.id)).toBe("done");
+    expect(await runsOf(revision.id)).toHaveLength(1);
+  });
+
+  it("fails without storing anything when the computation's thread ends midway, and a retry stores the analysis", async () => {
+    const { revision, job } = await saveRoof();
+    expect(await runAnalysisJob(job.id, { worker: failingWorker("ends-midway") })).toBe("failed");
+    expect(await runsOf(revision.id)).toEqual([]);
+    expect(await jobRow(job.id)).toMatchObject({ state: "failed", error: expect.stringContaining("exit code 7") });
+    const retried = await retryJob(await buildRequest(`${jobPath(job.id)}/retry`, { method: "POST", user: fx.users.structural_engineer }), jobCtx(job.id));
+    expect(retried.status).toBe(202);
     expect(await runAnalysisJob(job.id)).toBe("done");
     expect(await runsOf(revision.id)).toHaveLength(1);
   });

@@ -23,6 +23,8 @@ import { proposeClashOutcome } from "@/lib/commands/propose-clash-outcome";
 import { supersedeClashDecision } from "@/lib/commands/supersede-clash-decision";
 import type { Run } from "@/lib/mep/schemas";
 import { analyseForStorage } from "@/lib/models/analyse";
+import { jsonBytes } from "@/lib/models/json-bytes";
+import { encodeResultColumns } from "@/lib/models/result-columns";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 
@@ -38,7 +40,8 @@ async function derive(name: string, model: TrussModel, from: { id: string } = fi
   const { revision, job } = await hangServicesRevision({ projectId: fx.projectId, userId: fx.users.structural_engineer.id, fromRevisionId: from.id, name, model });
   expect(await claimJob({ jobId: job.id })).not.toBeNull();
   const { result, review } = analyseForStorage(model, "EN1993-1-1");
-  expect(await storeAnalysis({ job: { id: job.id, projectId: fx.projectId, revisionId: revision.id }, model, result, review, outcome: null })).toBe(true);
+  const stored = { status: result.status, resultJson: jsonBytes(result), reviewJson: review && jsonBytes(review), columns: encodeResultColumns(model, result, review) };
+  expect(await storeAnalysis({ job: { id: job.id, projectId: fx.projectId, revisionId: revision.id }, ...stored, outcome: null })).toBe(true);
   return revision;
 }
 const memberReview = async (revisionId: string) => (await getMemberResults({ db: getDb(), revisionId, memberIds: [MEMBER] })).get(MEMBER)!;

@@ -7,8 +7,6 @@ import { POST as createRevision } from "@/app/api/projects/[projectId]/models/ro
 import { GET as getJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/route";
 import { POST as retryJob } from "@/app/api/projects/[projectId]/jobs/[jobId]/retry/route";
 import type { Invalidation } from "@/lib/realtime/live-events";
-import { analyzeModel } from "@/lib/analysis";
-import { reviewForStorage } from "@/lib/models/analyse";
 import { runAnalysisJob } from "@/server/jobs/analysis";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { connectClient, realtimeClient, until, type ClientSocket } from "../support/realtime";
@@ -51,13 +49,11 @@ describe("job progress on the live bus", () => {
 
     const job = await saveRoof(rt.project);
     const seen = follow(watcher, job.id);
-    // Each step waits until the events so far have been read back, so the read-back of a phase's event sees that
-    // phase (the claim's may already see the next one: the job moves on at once).
-    const step = <A extends unknown[], R>(after: number, fn: (...args: A) => R) => async (...args: A) => {
-      await until(() => seen.length >= after, `${after} job events`);
-      return fn(...args);
-    };
-    expect(await runAnalysisJob(job.id, { analyse: step(2, analyzeModel), review: step(3, reviewForStorage) })).toBe("done");
+    // Each phase waits until the events so far have been read back before the next is written, so the read-back of
+    // a phase's event sees that phase (the claim's may already see the next one: the job moves on at once).
+    const eventsBefore = { analysis: 2, review: 3, storing: 4 };
+    const onPhase = (phase: keyof typeof eventsBefore) => until(() => seen.length >= eventsBefore[phase], `${eventsBefore[phase]} job events`);
+    expect(await runAnalysisJob(job.id, { onPhase })).toBe("done");
     await until(() => seen.length >= 5, "the job's five events (claimed, analysis, review, storing, done)");
     expect(seen.slice(0, 3)).toEqual([
       { state: "running", phase: expect.any(String) },
@@ -72,8 +68,8 @@ describe("job progress on the live bus", () => {
     const watcher = await rt.signedIn("architect");
     const job = await saveRoof(rt.project);
     const seen = follow(watcher, job.id);
-    const failing = { analyse: analyzeModel, review: () => Promise.reject(new Error("out of memory in the review")) };
-    expect(await runAnalysisJob(job.id, failing)).toBe("failed");
+    const failing = new URL("../support/analysis-workers/throws-in-review.mjs", import.meta.url);
+    expect(await runAnalysisJob(job.id, { worker: failing })).toBe("failed");
     await until(() => seen.length >= 4 && seen.at(-1)?.state === "failed", "the failed job's four events (claimed, analysis, review, failed)");
     const before = seen.length;
     const retried = await retryJob(await buildRequest(`/api/projects/${rt.project.projectId}/jobs/${job.id}/retry`, { method: "POST", user: rt.project.users.structural_engineer }), routeContext({ projectId: rt.project.projectId, jobId: job.id }));
