@@ -1,5 +1,5 @@
 "use client";
-// What the browser shows of a queued job (an analysis or a report): a progress bar with the phase while it runs, the
+// What the browser shows of a queued job (an analysis, hanging the services, a report): a progress bar with the phase while it runs, the
 // reason and a retry button when it failed. Each change of the job is a live event ("job", its id) that refetches
 // it (components/live/invalidation.ts); the slow poll only covers a live connection that is down.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
@@ -26,7 +26,17 @@ const REPORT_PHASE_LABELS: Record<string, string> = {
   storing: "Storing the PDF",
   done: "Report ready",
 };
-const phaseLabel = (job: JobView) => (job.kind === "report" ? REPORT_PHASE_LABELS[job.phase] : undefined) ?? PHASE_LABELS[job.phase] ?? job.phase;
+/** Where hanging the services' words differ (its analysis then follows as a job of its own). */
+const HANG_PHASE_LABELS: Record<string, string> = {
+  queued: "Waiting for the job runner to hang the services",
+  hanging: "Hanging the services from the bottom layer",
+  clashes: "Detecting the clashes on the new revision",
+  storing: "Storing the new revision and queueing its analysis",
+  done: "Services hung",
+};
+const KIND_PHASE_LABELS: Partial<Record<JobView["kind"], Record<string, string>>> = { report: REPORT_PHASE_LABELS, hang_services: HANG_PHASE_LABELS };
+const phaseLabel = (job: JobView) => KIND_PHASE_LABELS[job.kind]?.[job.phase] ?? PHASE_LABELS[job.phase] ?? job.phase;
+const RETRY_LABELS: Record<JobView["kind"], string> = { analysis: "Retry the analysis", any_load: "Retry the check", report: "Retry the report", hang_services: "Retry hanging the services" };
 
 export const jobKey = (projectId: string, jobId: string) => ["projects", projectId, "jobs", jobId] as const;
 const isActive = (job: JobView | undefined) => job?.state === "queued" || job?.state === "running";
@@ -65,7 +75,7 @@ export function JobProgress({ projectId, job, canRetry }: { projectId: string; j
         </p>
         {canRetry ? (
           <Button type="button" variant="quiet" onClick={() => retry.mutate()} disabled={retry.isPending} data-testid="job-retry">
-            {retry.isPending ? "Queuing again…" : job.kind === "any_load" ? "Retry the check" : job.kind === "report" ? "Retry the report" : "Retry the analysis"}
+            {retry.isPending ? "Queuing again…" : RETRY_LABELS[job.kind]}
           </Button>
         ) : null}
         <FormMessage message={retry.error?.message} />

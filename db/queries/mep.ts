@@ -39,6 +39,22 @@ function runRow(revisionId: string, run: Run, actorId: string | null) {
   };
 }
 
+/** A revision's id by project and number, without its model (what a request checks before queueing work on it), or null. */
+export async function getRevisionRef({ projectId, number, db = getDb() }: { projectId: string; number: number; db?: Executor }): Promise<{ id: string; number: number } | null> {
+  const [row] = await db
+    .select({ id: modelRevisions.id, number: modelRevisions.number })
+    .from(modelRevisions)
+    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, number)))
+    .limit(1);
+  return row ?? null;
+}
+
+/** What the hang-services job reads of its source revision: number, name and model; null when it is gone. */
+export async function getRevisionForHanging({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<Pick<ModelRevision, "id" | "number" | "model"> | null> {
+  const [row] = await db.select({ id: modelRevisions.id, number: modelRevisions.number, model: modelRevisions.model }).from(modelRevisions).where(eq(modelRevisions.id, revisionId)).limit(1);
+  return row ?? null;
+}
+
 /** The revision (id, project, model) by project and number, or null. */
 export async function getRevisionForMep({ projectId, number, db = getDb() }: { projectId: string; number: number; db?: Executor }): Promise<Pick<ModelRevision, "id" | "number" | "model"> | null> {
   const [row] = await db

@@ -1,11 +1,12 @@
-// Jobs area: heavy work (analysis and review of a revision, report PDFs) runs in the jobs process from a pg-boss queue. This
-// table is what the browser sees of each job (state, phase, percent, error); pg-boss keeps the delivery. Both rows
-// are written in the transaction of the command that asks for the work, so a job never exists for half a request.
+// Jobs area: heavy work (analysis and review of a revision, hanging the services, report PDFs) runs in the jobs
+// process from a pg-boss queue. This table is what the browser sees of each job (state, phase, percent, error);
+// pg-boss keeps the delivery. Both rows are written in the transaction of the command that asks for the work, so a
+// job never exists for half a request.
 import { index, integer, jsonb, pgEnum, pgTable, text, uuid } from "drizzle-orm/pg-core";
+import { JOB_KINDS } from "../../lib/jobs/kinds";
 import { projects, timestamps, users } from "./core";
 import { modelRevisions } from "./models";
 
-export const JOB_KINDS = ["analysis", "any_load", "report"] as const;
 export const jobKind = pgEnum("job_kind", JOB_KINDS);
 export const JOB_STATES = ["queued", "running", "done", "failed"] as const;
 export const jobState = pgEnum("job_state", JOB_STATES);

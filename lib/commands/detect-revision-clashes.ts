@@ -2,7 +2,7 @@ import "server-only";
 import type { Transaction } from "@/db/client";
 import { markClashesCleared, upsertClashes } from "@/db/queries/clashes";
 import { listRuns } from "@/db/queries/mep";
-import { detectClashes, type ClashModel, type DetectionSummary } from "@/lib/clash/detect";
+import { detectClashes, type Clash, type ClashModel, type DetectionSummary } from "@/lib/clash/detect";
 
 /**
  * A step of the commands that change runs or models (not a command itself: it runs in the caller's transaction).
@@ -10,9 +10,13 @@ import { detectClashes, type ClashModel, type DetectionSummary } from "@/lib/cla
  * decisions (matched by stable key) with fresh geometry; new ones are added; ones no longer found are marked
  * cleared, never deleted, so decisions stay on record.
  */
-export async function detectRevisionClashes(tx: Transaction, { projectId, revision }: { projectId: string; revision: { id: string; model: ClashModel } }): Promise<DetectionSummary> {
-  const runs = await listRuns({ db: tx, revisionId: revision.id });
-  const found = detectClashes(revision.model, runs);
+export async function detectRevisionClashes(
+  tx: Transaction,
+  { projectId, revision, detected }: { projectId: string; revision: { id: string; model: ClashModel }; detected?: Clash[] },
+): Promise<DetectionSummary> {
+  // `detected`: the clashes of these same runs on this model, found before the transaction by a job, so the
+  // transaction stays short on a big roof.
+  const found = detected ?? detectClashes(revision.model, await listRuns({ db: tx, revisionId: revision.id }));
   await upsertClashes({
     db: tx,
     rows: found.map((c) => ({

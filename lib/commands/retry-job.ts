@@ -6,9 +6,9 @@ import { QUEUES, sendJob } from "@/lib/jobs/queue";
 import { runCommand } from "./command";
 
 /** The queue that works each kind of job. */
-const QUEUE_OF: Record<JobView["kind"], string> = { analysis: QUEUES.analysis, any_load: QUEUES.anyLoad, report: QUEUES.report };
+const QUEUE_OF: Record<JobView["kind"], string> = { analysis: QUEUES.analysis, any_load: QUEUES.anyLoad, report: QUEUES.report, hang_services: QUEUES.hangServices };
 /** The audit action of a retry: the whole-roof any-load check is part of the analysis's work. */
-const RETRY_ACTION: Record<JobView["kind"], string> = { analysis: "analysis.retry", any_load: "analysis.retry", report: "report.retry" };
+const RETRY_ACTION: Record<JobView["kind"], string> = { analysis: "analysis.retry", any_load: "analysis.retry", report: "report.retry", hang_services: "services.retry" };
 
 /** Puts a failed job back in its queue, with an audit event; a job that has not failed is a 409. */
 export async function retryJob({ projectId, jobId, userId }: { projectId: string; jobId: string; userId: string }): Promise<JobView> {

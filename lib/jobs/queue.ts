@@ -9,6 +9,8 @@ export const QUEUES = {
   analysis: "revision-analysis",
   /** "Idle for any roof load" for a whole roof: data { jobId } (a jobs row of kind any_load). */
   anyLoad: "any-load-certificate",
+  /** Hanging the services of one revision as a load case of a new one: data { jobId } (a jobs row of kind hang_services). */
+  hangServices: "hang-services",
   /** The review report PDF of one revision: data { jobId } (a row of the jobs table, its input the report query). */
   report: "review-report",
   /** The daily digest of open threads, on a schedule; pg-boss sends one per slot however many processes run. */
@@ -17,7 +19,7 @@ export const QUEUES = {
   uploadSweep: "upload-sweep",
 } as const;
 
-/** Data of the analysis and any-load jobs: the jobs row the browser watches. */
+/** Data of the analysis, any-load and hang-services jobs: the jobs row the browser watches. */
 export type AnalysisJobData = { jobId: string };
 /** What a report job's pg-boss message carries: the jobs row, whose input holds the report query. */
 export type ReportJobData = { jobId: string };

@@ -102,7 +102,15 @@ export type ImportRunsInput = z.infer<typeof importRunsSchema>;
 export const editRunRequestSchema = runEditSchema.extend({ revision: revisionNumber });
 
 /** "Hang the services": which revision, and the largest hanger spacing along each run (m). */
+const hangerSpacing = z.number().finite().min(0.5, "Hangers closer than 0.5 m are not practical.").max(12, "Hangers further apart than 12 m are not practical.");
 export const hangServicesSchema = z.object({
   revision: revisionNumber,
-  hangerSpacing: z.number().finite().min(0.5, "Hangers closer than 0.5 m are not practical.").max(12, "Hangers further apart than 12 m are not practical.").default(2.5),
+  hangerSpacing: hangerSpacing.default(2.5),
 });
+
+/** What a hang-services job keeps of its request: the spacing, and the fingerprint of the runs it was asked for. */
+export const hangJobInputSchema = z.strictObject({
+  hangerSpacing,
+  runs: z.string().regex(/^[0-9a-f]{64}$/),
+});
+export type HangJobInput = z.output<typeof hangJobInputSchema>;

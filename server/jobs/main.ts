@@ -1,8 +1,9 @@
-// Entry of the jobs process (design.md, "jobs"). pg-boss 10 on the project's PostgreSQL delivers the analysis
-// and report jobs that commands queue, and runs the upload sweep and the daily digest as pg-boss schedules: a schedule sends
-// one job per slot however many job processes run, so two processes never send the digest twice (and the digest
-// keeps its per-day dedupe key as well). The mail outbox is read every 5 s on a croner timer (pg-boss schedules
-// are per minute); claims use SKIP LOCKED, so several processes may send without doubling a mail.
+// Entry of the jobs process (design.md, "jobs"). pg-boss 10 on the project's PostgreSQL delivers the analysis,
+// any-load, hang-services and report jobs that commands queue, and runs the upload sweep and the daily digest as
+// pg-boss schedules: a schedule sends one job per slot however many job processes run, so two processes never send
+// the digest twice (and the digest keeps its per-day dedupe key as well). The mail outbox is read every 5 s on a
+// croner timer (pg-boss schedules are per minute); claims use SKIP LOCKED, so several processes may send without
+// doubling a mail.
 import { Cron } from "croner";
 import PgBoss from "pg-boss";
 import { closeDb } from "../../db/client";
@@ -12,6 +13,7 @@ import { processOutbox } from "./mail-outbox";
 import { sweepStaleUploads } from "../../lib/commands/stored-files";
 import { runAnalysisJob } from "./analysis";
 import { runAnyLoadJob } from "./any-load";
+import { runHangServicesJob } from "./hang-services";
 import { runReportJob } from "./report";
 import { serveHealth } from "./health";
 
@@ -34,6 +36,10 @@ await boss.work<AnalysisJobData>(QUEUES.analysis, { batchSize: 1, pollingInterva
 await boss.work<AnalysisJobData>(QUEUES.anyLoad, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
   const state = await runAnyLoadJob(job.data.jobId);
   log(`any-load job ${job.data.jobId}: ${state}`);
+});
+await boss.work<AnalysisJobData>(QUEUES.hangServices, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
+  const state = await runHangServicesJob(job.data.jobId);
+  log(`hang-services job ${job.data.jobId}: ${state}`);
 });
 await boss.work<ReportJobData>(QUEUES.report, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
   const state = await runReportJob(job.data.jobId);

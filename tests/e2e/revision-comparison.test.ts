@@ -1,5 +1,5 @@
 // Issue 16 item 3 in the browser: the comparison page of the demo project's revision 1 (current) with a revision 2
-// made here through the product's own path (hang the services on a changed model: runs carried, clashes detected,
+// made here with the step the hang-services job stores with, on a changed model (runs carried, clashes detected,
 // decisions carried, analysed by the jobs process and re-checked). Revision 2 drops diagonal D-8-4-NW (under the
 // cable tray CT-01), resizes top chord TCX-3-3, adds X-1, and puts a plant load of 10 kN east and 20 kN down on top
 // node T-8-6 in the dead load case. The opening through D-8-6-SW (also under CT-01) is decided on revision 1.
@@ -21,10 +21,10 @@ import { listClashesByRevision } from "@/db/queries/clashes";
 import { getRevisionAnalysisStatus, getRevisionWithResults } from "@/db/queries/models";
 import { modelRevisions, users } from "@/db/schema";
 import { decideClash } from "@/lib/commands/decide-clash";
-import { hangServicesRevision } from "@/lib/commands/hang-services";
 import { proposeClashOutcome } from "@/lib/commands/propose-clash-outcome";
 import { appUrl, launchBrowser, screenshot } from "../support/browser";
 import { closeDb, getDb } from "../support/db";
+import { deriveRevision } from "../support/derived-revision";
 import { demoAccount, openDemoProjectAs } from "../support/demo";
 
 let browser: Browser;
@@ -62,7 +62,7 @@ beforeAll(async () => {
   model.members = model.members.filter((m) => m.id !== "D-8-4-NW").map((m) => (m.id === "TCX-3-3" ? { ...m, section: resizedTo } : m));
   model.members.push({ id: "X-1", i: "B-0-0", j: "B-1-1", section: "CHS 88.9x4.0" });
   model.loadCases = model.loadCases.map((c) => (c.id === "dead" ? { ...c, nodalLoads: [...c.nodalLoads, { node: "T-8-6", fx: 10, fy: 0, fz: -20 }] } : c));
-  const { revision } = await hangServicesRevision({ projectId, userId: structural, fromRevisionId: first.id, name: "Plant on T-8-6, D-8-4-NW out (comparison test)", model });
+  const { revision } = await deriveRevision({ projectId, createdBy: structural, fromRevisionId: first.id, name: "Plant on T-8-6, D-8-4-NW out (comparison test)", model });
   second = revision;
   // The jobs process analyses it and re-checks the carried decisions (expect.poll is for tests, not hooks).
   const analysed = async () => (await getRevisionAnalysisStatus(getDb(), { projectId, number: revision.number }))?.status ?? null;

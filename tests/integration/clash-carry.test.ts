@@ -17,7 +17,6 @@ import type { TrussModel } from "@/lib/analysis/model";
 import { decideClash } from "@/lib/commands/decide-clash";
 import { deleteRun } from "@/lib/commands/delete-run";
 import { editRun } from "@/lib/commands/edit-run";
-import { hangServicesRevision } from "@/lib/commands/hang-services";
 import { storeAnalysis } from "@/lib/commands/store-analysis";
 import { proposeClashOutcome } from "@/lib/commands/propose-clash-outcome";
 import { supersedeClashDecision } from "@/lib/commands/supersede-clash-decision";
@@ -26,6 +25,7 @@ import { analyseForStorage } from "@/lib/models/analyse";
 import { jsonBytes } from "@/lib/models/json-bytes";
 import { encodeResultColumns } from "@/lib/models/result-columns";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
+import { deriveRevision } from "../support/derived-revision";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 
 let fx: ProjectFixture;
@@ -37,7 +37,7 @@ const duct: Run = { id: "SA-01", system: "supply air", profile: { shape: "round"
 // The product's path: the revision is stored with the runs carried (decisions copied or closed), then the jobs
 // process stores its analysis, which re-checks the carried decisions.
 async function derive(name: string, model: TrussModel, from: { id: string } = first) {
-  const { revision, job } = await hangServicesRevision({ projectId: fx.projectId, userId: fx.users.structural_engineer.id, fromRevisionId: from.id, name, model });
+  const { revision, analysisJob: job } = await deriveRevision({ projectId: fx.projectId, createdBy: fx.users.structural_engineer.id, fromRevisionId: from.id, name, model });
   expect(await claimJob({ jobId: job.id })).not.toBeNull();
   const { result, review } = analyseForStorage(model, "EN1993-1-1");
   const stored = { status: result.status, resultJson: jsonBytes(result), reviewJson: review && jsonBytes(review), columns: encodeResultColumns(model, result, review) };

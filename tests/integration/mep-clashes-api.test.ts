@@ -14,6 +14,8 @@ import { generateRoof } from "@/lib/analysis/generator";
 import { analyseForStorage } from "@/lib/models/analyse";
 import { ROLES } from "@/lib/permissions";
 import { runAnalysisJob } from "@/server/jobs/analysis";
+import { runHangServicesJob } from "@/server/jobs/hang-services";
+import type { HangServicesOutcome } from "@/lib/commands/store-hung-services";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
@@ -216,18 +218,22 @@ describe("hang the services", () => {
     expect((await HANG(await buildRequest(path(), { method: "POST", body: { revision: 1 }, user: fx.users.structural_engineer }), ctx())).status).toBe(400);
   });
 
-  it("creates a revision with the runs' weight, carrying the runs and their clashes over, and a job that analyses it", async () => {
+  it("queues a job that creates a revision with the runs' weight, carrying the runs and their clashes over, and a job that analyses it", async () => {
     await IMPORT(await buildRequest(`/api/projects/${fx.projectId}/runs`, { method: "POST", body: importBody(), user: fx.users.mep_engineer }), ctx());
     const response = await HANG(await buildRequest(path(), { method: "POST", body: { revision: 1, hangerSpacing: 2.5 }, user: fx.users.structural_engineer }), ctx());
     expect(response.status).toBe(202);
     const body = await response.json();
+    expect(body.job).toMatchObject({ state: "queued", kind: "hang_services" });
+    expect(await runHangServicesJob(body.job.id)).toBe("done");
+    const [hanging] = await getDb().select().from(jobs).where(eq(jobs.id, body.job.id));
+    const hung = hanging.outcome as HangServicesOutcome;
     // The run is 11 m long at 0.35 kN/m: 3.85 kN hung in all (hand arithmetic).
-    expect(body.totalLoad).toBeCloseTo(3.85, 9);
-    expect(body.revision).toMatchObject({ number: 2 });
-    expect(body.detection).toMatchObject({ found: 4 });
-    expect(body.job).toMatchObject({ state: "queued", kind: "analysis" });
-    expect(await runAnalysisJob(body.job.id)).toBe("done");
-    const [job] = await getDb().select().from(jobs).where(eq(jobs.id, body.job.id));
+    expect(hung.totalLoad).toBeCloseTo(3.85, 9);
+    expect(hung.revision).toMatchObject({ number: 2 });
+    expect(hung.detection).toMatchObject({ found: 4 });
+    expect(hung.analysisJob).toMatchObject({ state: "queued", kind: "analysis" });
+    expect(await runAnalysisJob(hung.analysisJob.id)).toBe("done");
+    const [job] = await getDb().select().from(jobs).where(eq(jobs.id, hung.analysisJob.id));
     expect(job.outcome).toEqual({ status: "ok", zeroForce: { noLongerZero: expect.any(Array), newlyZero: expect.any(Array) } });
     const list = await (await LIST_CLASHES(await buildRequest(`/api/projects/${fx.projectId}/clashes?revision=2`, { user: fx.users.viewer }), ctx())).json();
     const first = await (await LIST_CLASHES(await buildRequest(`/api/projects/${fx.projectId}/clashes?revision=1`, { user: fx.users.viewer }), ctx())).json();

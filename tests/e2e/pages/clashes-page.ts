@@ -3,7 +3,7 @@ import type { Page } from "playwright-core";
 import { appUrl } from "../../support/browser";
 import { inView, waitInView } from "./progress-watch";
 
-const HANG_RESULT = '[data-testid="hang-services-done"]';
+const HANG_RESULT = '[data-testid="hang-services-result"]';
 
 export class ClashesPage {
   constructor(readonly page: Page) {}
@@ -75,7 +75,7 @@ export class ClashesPage {
     return this.page.getByTestId("clash-history").locator("li");
   }
 
-  /** Hangs the services' weight as a load case of a new revision; resolves once the answer (revision, job) shows. */
+  /** Asks to hang the services' weight as a load case of a new revision; resolves once the queued job's box shows. */
   async hangServices() {
     await this.page.getByTestId("hang-services-submit").click();
     await this.page.locator(HANG_RESULT).waitFor({ timeout: 60_000 });
@@ -85,7 +85,7 @@ export class ClashesPage {
     return inView(this.page, HANG_RESULT);
   }
 
-  /** Waits until the new revision's analysis is done (no progress bar, no failure left) and its result is in view. */
+  /** Waits until the hanging and then the new revision's analysis are done (no progress bar, no failure left) and the result is in view. */
   hangAnalysedInView() {
     return waitInView(this.page, HANG_RESULT, /Revision \d+ created/, { pending: '[data-testid="job-progress"], [data-testid="job-failed"]' });
   }

@@ -1,36 +1,23 @@
-import { listRunsByRevision } from "@/db/queries/mep";
-import { hangServicesRevision } from "@/lib/commands/hang-services";
-import { ValidationError } from "@/lib/http/errors";
+import { getRevisionRef } from "@/db/queries/mep";
+import { enqueueHangServices } from "@/lib/commands/enqueue-hang-services";
+import { NotFoundError } from "@/lib/http/errors";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { hangServicesSchema } from "@/lib/mep/schemas";
-import { hangServices } from "@/lib/mep/services";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 
 /**
- * "Hang the services": the revision's runs become the hung-services load case of a new revision, which gets the
- * runs and its clashes now and is analysed by a job; the job's outcome says which members stop (or start) being
- * zero in every combination.
+ * "Hang the services": queues a job (server/jobs/hang-services.ts) that makes the revision's runs the hung-services
+ * load case of a new revision, with the runs and their clashes, and queues that revision's analysis; its outcome
+ * says which members stop (or start) being zero in every combination. Answers 202 with the job to follow.
  */
 export const POST = projectRoute(
   // A new revision with a new analysis: the same two permissions as saving a model.
   { params: projectParamsSchema, body: hangServicesSchema, action: ["model.edit", "analysis.run"] },
   async ({ params: { projectId }, body: input, user }) => {
-    const revision = await requireRevision(projectId, input.revision);
-    const runs = await listRunsByRevision({ revisionId: revision.id });
-    if (runs.length === 0) throw new ValidationError([{ path: "revision", message: "This revision has no runs to hang." }], "This revision has no runs to hang.");
-    const hung = hangServices(revision.model, runs, input.hangerSpacing);
-    const created = await hangServicesRevision({
-      projectId,
-      userId: user.id,
-      fromRevisionId: revision.id,
-      name: `${revision.model.name} + hung services (from r${revision.number})`,
-      model: hung.model,
-    });
-    return Response.json(
-      { revision: created.revision, job: created.job, totalLoad: hung.totalLoad, hangers: hung.hangers.length, detection: created.detection, caution: STANDING_CAUTION },
-      { status: 202 },
-    );
+    const revision = await getRevisionRef({ projectId, number: input.revision });
+    if (!revision) throw new NotFoundError("No such model revision on this project.");
+    const job = await enqueueHangServices({ projectId, revision, hangerSpacing: input.hangerSpacing, actorId: user.id });
+    return Response.json({ job, caution: STANDING_CAUTION }, { status: 202 });
   },
 );
