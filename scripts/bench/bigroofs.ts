@@ -21,14 +21,27 @@ import { existsSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { parseArgs } from "node:util";
 import { encode } from "next-auth/jwt";
-import { chromium, type Browser } from "playwright-core";
+import { chromium, type Browser, type Page } from "playwright-core";
 import { closeDb, getDb } from "@/db/client";
 import { memberships, organizations, projects, users } from "@/db/schema";
 import { freePort, waitForPort } from "../stack/ports.mjs";
 import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
 
-const { values } = parseArgs({ options: { grids: { type: "string", default: "60,120" } } });
+const { values } = parseArgs({
+  options: {
+    grids: { type: "string", default: "60,120" },
+    // `--navigation-only --grids 60 --runs 5`: no other user's requests during the job (the roof is still generated
+    // and analysed through the app first), then several navigations, each in a fresh browser context.
+    "navigation-only": { type: "boolean", default: false },
+    runs: { type: "string", default: "1" },
+    // Prints each navigation's waterfall: the page's own timing, scripts and API requests, marks and long tasks.
+    breakdown: { type: "boolean", default: false },
+    // Prints where the page's main thread spent its time until the mark (CDP Profiler, self time per function).
+    profile: { type: "boolean", default: false },
+  },
+});
 const grids = values.grids.split(",").map(Number);
+const navigationRuns = Math.max(1, Number(values.runs));
 const root = process.cwd();
 const dataDir = path.join(root, ".data", `bench-bigroofs-${process.pid}`);
 const secret = "bench-bigroofs-secret-not-for-production";
@@ -181,49 +194,125 @@ async function analyseThroughApp(stack: Stack & { projectId: string; engineer: P
   return saved.revision.number;
 }
 
-/** Opens the viewer as the viewer role and measures navigation, bytes and result switches. */
+type Waterfall = {
+  navigation: { responseStart: number; responseEnd: number; domContentLoaded: number; load: number };
+  resources: { name: string; kind: string; start: number; end: number; bytes: number }[];
+  marks: { name: string; at: number }[];
+  longTasks: { start: number; duration: number }[];
+};
+
+// Long tasks are only reported to an observer that exists when they happen: installed before the page's own scripts.
+const OBSERVE_LONG_TASKS = `window.__benchLongTasks = [];
+  new PerformanceObserver((list) => { for (const e of list.getEntries()) window.__benchLongTasks.push({ start: e.startTime, duration: e.duration }); }).observe({ type: "longtask", buffered: true });`;
+
+/** The page's own timeline up to the first drawn colouring (ms since navigation start). */
+const readWaterfall = (page: Page) =>
+  page.evaluate(`(() => {
+    const drawn = performance.getEntriesByName("viewer:colouring-drawn")[0].startTime;
+    const nav = performance.getEntriesByType("navigation")[0];
+    const short = (url) => { const parts = new URL(url).pathname.split("/"); return parts[1] === "api" ? ["api", ...parts.slice(4)].join("/") : parts.slice(-2).join("/"); };
+    return {
+      navigation: { responseStart: nav.responseStart, responseEnd: nav.responseEnd, domContentLoaded: nav.domContentLoadedEventEnd, load: nav.loadEventEnd },
+      resources: performance.getEntriesByType("resource").filter((e) => e.startTime <= drawn)
+        .map((e) => ({ name: short(e.name), kind: e.initiatorType, start: e.startTime, end: e.responseEnd, bytes: e.encodedBodySize })),
+      marks: performance.getEntriesByType("mark").filter((e) => e.name.startsWith("viewer:")).map((e) => ({ name: e.name, at: e.startTime })),
+      longTasks: window.__benchLongTasks.filter((t) => t.start <= drawn),
+    };
+  })()`) as Promise<Waterfall>;
+
+function printWaterfall(label: string, run: number, w: Waterfall) {
+  const ms = (x: number) => `${x.toFixed(0).padStart(5)} ms`;
+  console.log(`\n[bench] ${label}, navigation ${run}: the page's timeline (ms since navigation start)`);
+  console.log(`  document: first byte ${ms(w.navigation.responseStart)}, last byte ${ms(w.navigation.responseEnd)}, DOMContentLoaded ${ms(w.navigation.domContentLoaded)}, load ${ms(w.navigation.load)}`);
+  for (const r of [...w.resources].sort((a, b) => a.start - b.start)) console.log(`  ${ms(r.start)} → ${ms(r.end)}  ${(r.bytes / 1e3).toFixed(0).padStart(6)} kB  ${r.kind.padEnd(6)} ${r.name}`);
+  for (const m of w.marks) console.log(`  ${ms(m.at)}  mark ${m.name}`);
+  const busy = w.longTasks.reduce((sum, t) => sum + t.duration, 0);
+  console.log(`  long tasks (> 50 ms) before the mark: ${w.longTasks.length}, ${busy.toFixed(0)} ms: ${w.longTasks.map((t) => `${t.start.toFixed(0)}+${t.duration.toFixed(0)}`).join(", ")}`);
+}
+
+type CpuProfile = { nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number; columnNumber: number } }[]; samples?: number[]; timeDeltas?: number[] };
+
+/** Self time per function (name, script and position: the build is minified, so the position finds it). */
+function printProfile(label: string, run: number, profile: CpuProfile) {
+  const byNode = new Map(profile.nodes.map((n) => [n.id, n.callFrame]));
+  const self = new Map<string, number>();
+  (profile.samples ?? []).forEach((id, k) => {
+    const f = byNode.get(id)!;
+    const key = `${f.functionName || "(anonymous)"} ${f.url.split("/").pop()}:${f.lineNumber + 1}:${f.columnNumber + 1}`;
+    self.set(key, (self.get(key) ?? 0) + (profile.timeDeltas?.[k] ?? 0) / 1000);
+  });
+  const top = [...self.entries()].sort((a, b) => b[1] - a[1]).slice(0, 30);
+  console.log(`\n[bench] ${label}, navigation ${run}: main-thread self time by function (ms, top 30)`);
+  for (const [key, ms] of top) console.log(`  ${ms.toFixed(0).padStart(6)}  ${key}`);
+}
+
+/** Opens the viewer as the viewer role: navigation (fresh context each run), bytes, and result switches. */
 async function measureViewer(browser: Browser, stack: Stack & { projectId: string; viewer: Person }, bays: number, number: number) {
   const label = `${bays} x ${bays}`;
-  const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
-  try {
-    const token = (await cookieOf(stack.viewer)).split("=")[1];
-    await context.addCookies([{ name: "next-auth.session-token", value: token, domain: "127.0.0.1", path: "/" }]);
-    const page = await context.newPage();
-    const t0 = Date.now();
-    await page.goto(`${stack.appUrl}/projects/${stack.projectId}/viewer?revision=${number}`);
-    await page.waitForFunction(() => performance.getEntriesByName("viewer:colouring-drawn").length > 0, null, { timeout: 600_000 });
-    record(`${label}: navigation → roof drawn (page.goto → first colouring submitted)`, seconds(Date.now() - t0), bays <= 60 ? "< 2 s" : "");
-    // Scripts run in the page are passed as strings: tsx would wrap named functions in a helper the page lacks.
-    const fetched = (await page.evaluate(`(() => {
-      const drawn = performance.getEntriesByName("viewer:colouring-drawn")[0].startTime;
-      return performance.getEntriesByType("resource").filter((e) => e.name.includes("/api/") && e.responseEnd <= drawn)
-        .map((e) => ({ name: new URL(e.name).pathname.replace("/api/projects/", "").split("/").slice(1).join("/") || "project", bytes: e.encodedBodySize }));
-    })()`)) as { name: string; bytes: number }[];
-    const total = fetched.reduce((sum, entry) => sum + entry.bytes, 0);
-    record(`${label}: API bytes before the first drawn result`, `${(total / 1e6).toFixed(2)} MB (${fetched.map((e) => `${e.name} ${(e.bytes / 1e6).toFixed(2)}`).join(", ")})`, bays <= 60 ? "< 3 MB" : "");
-
-    const ids: string[] = await page.$$eval('[data-testid="viewer-result"] option', (options) => options.map((o) => (o as HTMLOptionElement).value));
-    const switchTo = (id: string) =>
-      page.evaluate(`new Promise((resolve) => {
-        const before = performance.getEntriesByName("viewer:colouring-drawn").length;
-        const start = performance.now();
-        window.__strutroom.setResult(${JSON.stringify(id)});
-        const wait = () => {
-          const marks = performance.getEntriesByName("viewer:colouring-drawn");
-          if (marks.length > before) resolve(marks[marks.length - 1].startTime - start);
-          else requestAnimationFrame(wait);
-        };
-        requestAnimationFrame(wait);
-      })`) as Promise<number>;
-    // First pass fetches each result's columns; the second and third draw from the ones already fetched.
-    const sequence = [...ids.slice(1), ids[0]];
-    for (const id of sequence) await switchTo(id);
-    const cached: number[] = [];
-    for (let pass = 0; pass < 2; pass += 1) for (const id of sequence) cached.push(await switchTo(id));
-    record(`${label}: switch to a result already fetched, median / max (n)`, `${median(cached).toFixed(0)} / ${Math.max(...cached).toFixed(0)} ms (${cached.length})`, bays <= 60 ? "< 50 / 100 ms" : "");
-  } finally {
-    await context.close();
+  const token = (await cookieOf(stack.viewer)).split("=")[1];
+  const navigations: number[] = [];
+  const marks: number[] = [];
+  for (let run = 1; run <= navigationRuns; run += 1) {
+    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    try {
+      await context.addCookies([{ name: "next-auth.session-token", value: token, domain: "127.0.0.1", path: "/" }]);
+      await context.addInitScript(OBSERVE_LONG_TASKS);
+      const page = await context.newPage();
+      const profiler = values.profile ? await context.newCDPSession(page) : null;
+      if (profiler) {
+        await profiler.send("Profiler.enable");
+        await profiler.send("Profiler.setSamplingInterval", { interval: 500 });
+        await profiler.send("Profiler.start");
+      }
+      const t0 = Date.now();
+      await page.goto(`${stack.appUrl}/projects/${stack.projectId}/viewer?revision=${number}`);
+      await page.waitForFunction(() => performance.getEntriesByName("viewer:colouring-drawn").length > 0, null, { timeout: 600_000 });
+      navigations.push(Date.now() - t0);
+      // The page's own clock: the mark is set as the frame is submitted, and the poll above sees it only once the
+      // software rasteriser has drawn that frame, so the difference is the first frame's drawing.
+      marks.push(await page.evaluate(() => performance.getEntriesByName("viewer:colouring-drawn")[0].startTime));
+      if (profiler) printProfile(label, run, (await profiler.send("Profiler.stop")).profile);
+      if (values.breakdown) printWaterfall(label, run, await readWaterfall(page));
+      if (run === navigationRuns) await measureDrawn(page, label, bays);
+    } finally {
+      await context.close();
+    }
   }
+  const each = navigations.length > 1 ? ` (median of ${navigations.length}: ${navigations.map((t) => seconds(t)).join(", ")})` : "";
+  record(`${label}: navigation → roof drawn (page.goto → first colouring submitted)`, `${seconds(median(navigations))}${each}`, bays <= 60 ? "< 2 s" : "");
+  record(`${label}: of which until the mark, by the page's clock (median)`, `${seconds(median(marks))}; the rest is the first frame's drawing before the poll sees the mark`);
+}
+
+/** Bytes before the first drawn result, and switches between results, on a page that has drawn its roof. */
+async function measureDrawn(page: Page, label: string, bays: number) {
+  // Scripts run in the page are passed as strings: tsx would wrap named functions in a helper the page lacks.
+  const fetched = (await page.evaluate(`(() => {
+    const drawn = performance.getEntriesByName("viewer:colouring-drawn")[0].startTime;
+    return performance.getEntriesByType("resource").filter((e) => e.name.includes("/api/") && e.responseEnd <= drawn)
+      .map((e) => ({ name: new URL(e.name).pathname.replace("/api/projects/", "").split("/").slice(1).join("/") || "project", bytes: e.encodedBodySize }));
+  })()`)) as { name: string; bytes: number }[];
+  const total = fetched.reduce((sum, entry) => sum + entry.bytes, 0);
+  record(`${label}: API bytes before the first drawn result`, `${(total / 1e6).toFixed(2)} MB (${fetched.map((e) => `${e.name} ${(e.bytes / 1e6).toFixed(2)}`).join(", ")})`, bays <= 60 ? "< 3 MB" : "");
+
+  const ids: string[] = await page.$$eval('[data-testid="viewer-result"] option', (options) => options.map((o) => (o as HTMLOptionElement).value));
+  const switchTo = (id: string) =>
+    page.evaluate(`new Promise((resolve) => {
+      const before = performance.getEntriesByName("viewer:colouring-drawn").length;
+      const start = performance.now();
+      window.__strutroom.setResult(${JSON.stringify(id)});
+      const wait = () => {
+        const marks = performance.getEntriesByName("viewer:colouring-drawn");
+        if (marks.length > before) resolve(marks[marks.length - 1].startTime - start);
+        else requestAnimationFrame(wait);
+      };
+      requestAnimationFrame(wait);
+    })`) as Promise<number>;
+  // First pass fetches each result's columns; the second and third draw from the ones already fetched.
+  const sequence = [...ids.slice(1), ids[0]];
+  for (const id of sequence) await switchTo(id);
+  const cached: number[] = [];
+  for (let pass = 0; pass < 2; pass += 1) for (const id of sequence) cached.push(await switchTo(id));
+  record(`${label}: switch to a result already fetched, median / max (n)`, `${median(cached).toFixed(0)} / ${Math.max(...cached).toFixed(0)} ms (${cached.length})`, bays <= 60 ? "< 50 / 100 ms" : "");
 }
 
 async function main() {
@@ -238,7 +327,7 @@ async function main() {
     for (const bays of grids) {
       let number: number;
       try {
-        number = await analyseThroughApp(stack, bays, bays === largest);
+        number = await analyseThroughApp(stack, bays, bays === largest && !values["navigation-only"]);
       } catch (error) {
         record(`${bays} x ${bays}: analysis through the app`, `failed: ${error instanceof Error ? error.message : error}`);
         continue;
