@@ -31,6 +31,7 @@ describe("force state", () => {
     const states = forceStates(result);
     expect(Array.from(states)).toEqual([STATE_CODE.tension, STATE_CODE.compression, STATE_CODE["zero-force"], STATE_CODE.tension]);
     expect(countStates(states)).toEqual({ tension: 2, compression: 1, "zero-force": 1 });
+    expect(countStates(states, new Uint8Array([1, 0, 1, 1]))).toEqual({ tension: 2, compression: 0, "zero-force": 1 });
   });
 
   it("colours members with the palette, zero-force thin and translucent", () => {

@@ -74,10 +74,10 @@ export function forceStates(columns: ResultColumnsView): Uint8Array {
 
 export type StateCounts = Record<ForceState, number>;
 
-/** How many members are in tension, compression and zero-force. */
-export function countStates(states: Uint8Array): StateCounts {
+/** How many members are in tension, compression and zero-force (only those marked 1 in `shown`, when given). */
+export function countStates(states: Uint8Array, shown?: Uint8Array): StateCounts {
   const counts: StateCounts = { tension: 0, compression: 0, "zero-force": 0 };
-  for (const code of states) counts[STATE_BY_CODE[code]] += 1;
+  for (let k = 0; k < states.length; k += 1) if (!shown || shown[k] === 1) counts[STATE_BY_CODE[states[k]]] += 1;
   return counts;
 }
 
@@ -109,11 +109,18 @@ export function utilisationColour(utilisation: number): Rgb {
   return mixRgb(hexToRgb(utilisationScale.low), hexToRgb(utilisationScale.high), Math.max(0, utilisation));
 }
 
+// The force-state colours, parsed once: every member of a colouring reads one of these five.
+const STATE_RGB: Record<ForceState, Rgb> = { tension: hexToRgb(palette.tension), compression: hexToRgb(palette.compression), "zero-force": hexToRgb(palette.zeroForce) };
+const LOW_STATE_RGB: Record<ForceState, Rgb> = {
+  tension: mixRgb([1, 1, 1], STATE_RGB.tension, memberLook.lowForceTint),
+  compression: mixRgb([1, 1, 1], STATE_RGB.compression, memberLook.lowForceTint),
+  "zero-force": STATE_RGB["zero-force"],
+};
+const LOW_STATE_KEY: Record<ForceState, string> = { tension: "low-tension", compression: "low-compression", "zero-force": "low-zero-force" };
+
 /** Force-state colour, paled towards white for a low-force member (below the user's threshold). */
 export function stateColour(state: ForceState, lowForce: boolean): Rgb {
-  if (state === "zero-force") return hexToRgb(palette.zeroForce);
-  const base = hexToRgb(state === "tension" ? palette.tension : palette.compression);
-  return lowForce ? mixRgb([1, 1, 1], base, memberLook.lowForceTint) : base;
+  return lowForce ? LOW_STATE_RGB[state] : STATE_RGB[state];
 }
 
 export interface LegendEntry { key: string; label: string; colour: string; count: number }
@@ -163,7 +170,7 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
   const { columns, mode, unitLength, shown } = input;
   const count = columns.memberCount;
   const states = forceStates(columns);
-  const counts = countStates(shown ? states.filter((_, k) => shown[k] === 1) : states);
+  const counts = countStates(states, shown);
   const maxAbs = maxAbsForce(columns.forces);
   const colours = new Float32Array(count * 3);
   const radii = new Float32Array(count);
@@ -175,13 +182,14 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
   const tally = new Map<string, number>();
   let counted = 0;
 
+  let isShown = true;
+  const bump = (key: string) => {
+    if (isShown) tally.set(key, (tally.get(key) ?? 0) + 1);
+  };
   for (let k = 0; k < count; k += 1) {
     // Every member gets its colour (a filter change only moves matrices), but only the shown ones are counted.
-    const isShown = !shown || shown[k] === 1;
+    isShown = !shown || shown[k] === 1;
     if (isShown) counted += 1;
-    const bump = (key: string) => {
-      if (isShown) tally.set(key, (tally.get(key) ?? 0) + 1);
-    };
     const force = columns.forces[k];
     const state = STATE_BY_CODE[states[k]];
     const isZero = state === "zero-force";
@@ -192,7 +200,7 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
       case "forceState": {
         const low = !isZero && Math.abs(force) < input.lowForceThreshold;
         colour = stateColour(state, low);
-        bump(low ? `low-${state}` : state);
+        bump(low ? LOW_STATE_KEY[state] : state);
         break;
       }
       case "magnitude":
@@ -241,7 +249,9 @@ export function computeAppearance(input: AppearanceInput): MemberAppearance {
         break;
       }
     }
-    colours.set(colour, k * 3);
+    colours[k * 3] = colour[0];
+    colours[k * 3 + 1] = colour[1];
+    colours[k * 3 + 2] = colour[2];
   }
 
   const legend = buildLegend(input, counts, tally, mode === "deltaForce" ? maxDelta : maxAbs, { counted, total: count });

@@ -1,37 +1,60 @@
 // Instance matrices for members drawn as unit cylinders (axis along +y, height 1, radius 1) stretched between
-// their end nodes. Scratch objects are reused so a rewrite of ~30,000 instances allocates nothing per member.
-import { Matrix4, Quaternion, Vector3 } from "three";
+// their end nodes. Written straight into the instance buffer from the positions: a rewrite of ~30,000 instances
+// allocates nothing and calls no three.js object per member (issue 13: nothing per member on the hot path).
 
-const axis = new Vector3(0, 1, 0);
-const from = new Vector3();
-const to = new Vector3();
-const dir = new Vector3();
-const mid = new Vector3();
-const scale = new Vector3();
-const rotation = new Quaternion();
-const matrix = new Matrix4();
-const hidden = new Matrix4().makeScale(0, 0, 0);
-
-/** Writes the instance matrix of member k into `out` (16 floats at offset `slot * 16`); zero scale when hidden. */
+/**
+ * Writes the instance matrix of member k into `out` (16 floats at offset `slot * 16`, column-major as three.js
+ * reads it); zero scale when hidden. The rotation is the shortest one taking +y to the member's direction d
+ * (Rodrigues' formula about y × d, the rotation three.js's Quaternion.setFromUnitVectors gives), scaled by the
+ * radius across and the length along, and moved to the member's midpoint.
+ */
 export function writeMemberMatrix(out: Float32Array, slot: number, positions: Float32Array, ends: Int32Array, k: number, radius: number, visible: boolean): void {
+  const o = slot * 16;
   const a = ends[k * 2];
   const b = ends[k * 2 + 1];
-  if (!visible || a < 0 || b < 0) {
-    hidden.toArray(out, slot * 16);
-    return;
+  if (visible && a >= 0 && b >= 0) {
+    const ax = positions[a * 3];
+    const ay = positions[a * 3 + 1];
+    const az = positions[a * 3 + 2];
+    const dx = positions[b * 3] - ax;
+    const dy = positions[b * 3 + 1] - ay;
+    const dz = positions[b * 3 + 2] - az;
+    const length = Math.hypot(dx, dy, dz);
+    if (length > 0) {
+      const x = dx / length;
+      const y = dy / length;
+      const z = dz / length;
+      // Columns of the rotation R (R·ey = d). Pointing straight down (y = -1) the axis is undefined: a half turn
+      // about z, as setFromUnitVectors does for opposite vectors.
+      const down = y <= -1 + 1e-9;
+      const f = down ? 0 : 1 / (1 + y);
+      const r00 = down ? -1 : 1 - x * x * f;
+      const r10 = down ? 0 : -x;
+      const r20 = down ? 0 : -x * z * f;
+      const r02 = down ? 0 : -x * z * f;
+      const r12 = down ? 0 : -z;
+      const r22 = down ? 1 : 1 - z * z * f;
+      out[o] = r00 * radius;
+      out[o + 1] = r10 * radius;
+      out[o + 2] = r20 * radius;
+      out[o + 3] = 0;
+      out[o + 4] = dx;
+      out[o + 5] = dy;
+      out[o + 6] = dz;
+      out[o + 7] = 0;
+      out[o + 8] = r02 * radius;
+      out[o + 9] = r12 * radius;
+      out[o + 10] = r22 * radius;
+      out[o + 11] = 0;
+      out[o + 12] = ax + dx / 2;
+      out[o + 13] = ay + dy / 2;
+      out[o + 14] = az + dz / 2;
+      out[o + 15] = 1;
+      return;
+    }
   }
-  from.fromArray(positions, a * 3);
-  to.fromArray(positions, b * 3);
-  dir.subVectors(to, from);
-  const length = dir.length();
-  if (length === 0) {
-    hidden.toArray(out, slot * 16);
-    return;
-  }
-  mid.addVectors(from, to).multiplyScalar(0.5);
-  rotation.setFromUnitVectors(axis, dir.divideScalar(length));
-  scale.set(radius, length, radius);
-  matrix.compose(mid, rotation, scale).toArray(out, slot * 16);
+  out.fill(0, o, o + 15);
+  out[o + 15] = 1;
 }
 
 /** Median member length: the unit that member radii and glyph sizes scale with. */

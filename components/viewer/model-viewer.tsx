@@ -10,6 +10,7 @@ import { useQuery } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
 import { LiveJob } from "@/components/jobs/job-progress";
+import { openingResultId, resultIds } from "@/lib/models/result-order";
 import { comparesTwoResults } from "./colouring";
 import { HoverTooltip } from "./hover-tooltip";
 import { InfluenceLayer } from "./layers/influence-layer";
@@ -18,7 +19,7 @@ import { InfluenceLegend, Legend } from "./legend";
 import { MeasureReadout } from "./measure-layer";
 import { MemberPanel } from "./member-panel";
 import { NodePanel } from "./node-panel";
-import { prepareModel, resultIds } from "./prepare";
+import { prepareModel } from "./prepare";
 import { AnyLoadJobPanel } from "./any-load-job-panel";
 import { RoofChecksPanel, RoofWarningsLine } from "./roof-checks-panel";
 import { StabilityPanel } from "./stability-panel";
@@ -41,6 +42,9 @@ function CanvasPlaceholder({ message }: { message: string }) {
 }
 
 const loadCanvas = () => import("./viewer-canvas");
+// The 3D code is requested as soon as this module runs in the browser, before hydration, while the revision's
+// preloaded answers arrive (app/…/viewer/page.tsx): not from an effect once the viewer has mounted.
+if (typeof window !== "undefined") void loadCanvas();
 const ViewerCanvas = dynamic(loadCanvas, { ssr: false, loading: () => <CanvasPlaceholder message="Loading the 3D view…" /> });
 
 export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: string; revisionNumber: number; layers?: ReactNode }) {
@@ -54,10 +58,6 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
     staleTime: Infinity,
     gcTime: 30 * 60_000,
   });
-  // Fetch the 3D code while the revision downloads, not after.
-  useEffect(() => {
-    void loadCanvas();
-  }, []);
   const revision = query.data;
   const prepared = useMemo(() => (revision ? prepareModel(revision.model, revision.groups) : null), [revision]);
   const analysis = revision?.analysis;
@@ -72,8 +72,8 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
 
   useEffect(() => {
     if (!prepared) return;
-    const combos = prepared.model.combinations.map((c) => c.id).filter((id) => ids.includes(id));
-    useViewerStore.getState().reset(combos[0] ?? ids[0] ?? null);
+    // The same choice the page preloaded the columns of (app/…/viewer/page.tsx).
+    useViewerStore.getState().reset(openingResultId(prepared.model, ids));
     // an unstable revision opens with its first mechanism drawn: how it would move is all there is to show
     const first = analysis?.status === "unstable" ? analysis.info.mechanismModes?.[0] : undefined;
     if (first) drawMechanism(0, first, prepared.nodes.ids);

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { defaultCompareResult } from "./prepare";
 
 describe("the result compare mode starts with", () => {
-  // Display order: load cases, then combinations (resultIds in prepare.ts).
+  // Display order: load cases, then combinations (resultIds in lib/models/result-order.ts).
   const ids = ["dead", "snow", "ULS-1", "ULS-2", "ULS-3"];
 
   it("is the next result after the chosen one, or the one before for the last", () => {

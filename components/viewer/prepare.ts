@@ -68,12 +68,6 @@ export function resultLabel(model: ViewerModel, resultId: string): string {
   return named ? `${named.id} ${named.name}` : resultId;
 }
 
-/** Result ids in display order: load cases first, then combinations, keeping only those with stored results. */
-export function resultIds(model: ViewerModel, stored: readonly string[]): string[] {
-  const available = new Set(stored);
-  return [...model.loadCases.map((c) => c.id), ...model.combinations.map((c) => c.id)].filter((id) => available.has(id));
-}
-
 /**
  * The result to compare the chosen one with when compare mode is entered: the next one in display order (the next
  * combination after a combination), else the one before; null when there is no other result.

@@ -3,8 +3,7 @@
 // (nearly a mechanism, displacements beyond span/50), load cases in no combination, and the deflection of each
 // serviceability combination against span/limit (and the project's limit now, when it has changed since: it
 // follows the live "settings" event); then what is not checked, with the standing caution.
-import type { AnalysisResult } from "@/lib/analysis/analyze";
-import type { ReviewOverview } from "@/db/queries/revision-view";
+import type { InfoOverview, ReviewOverview } from "@/db/queries/revision-view";
 import { NOT_CHECKED, STANDING_CAUTION } from "@/lib/review/caution";
 import { DEFAULT_DEFLECTION_LIMIT } from "@/lib/projects/deflection-limit";
 import { useProjectSettings } from "@/components/project/use-project-settings";
@@ -62,7 +61,7 @@ function Deflections({ projectId, review }: { projectId: string; review: ReviewO
  * One line above the canvas when the analysis warns (the whole panel sits below the canvas, which fills the window
  * down to the fold): a warning must be seen without scrolling.
  */
-export function RoofWarningsLine({ info }: { info: AnalysisResult["info"] }) {
+export function RoofWarningsLine({ info }: { info: InfoOverview }) {
   if (info.warnings.length === 0) return null;
   return (
     <p role="alert" className="border-b border-board-100 px-3 py-1 text-xs font-semibold text-clash" data-testid="roof-warnings-line">
@@ -74,7 +73,7 @@ export function RoofWarningsLine({ info }: { info: AnalysisResult["info"] }) {
   );
 }
 
-export function RoofChecksPanel({ projectId, info, review }: { projectId: string; info: AnalysisResult["info"]; review: ReviewOverview | null | undefined }) {
+export function RoofChecksPanel({ projectId, info, review }: { projectId: string; info: InfoOverview; review: ReviewOverview | null | undefined }) {
   const unused = info.loadCasesInNoCombination ?? [];
   return (
     <section id="roof-checks" className="border-t border-board-100 px-3 py-2 text-xs" data-testid="roof-checks" aria-label="Checks of the whole roof">

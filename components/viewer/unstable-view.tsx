@@ -3,10 +3,10 @@
 // mode of the stored analysis (lib/analysis/mechanism.ts) is listed with every moving joint and its direction, and
 // drawn on the roof on request (the first when the page opens), with the standing caution.
 import type { ReactNode } from "react";
-import type { AnalysisResult } from "@/lib/analysis/analyze";
 import { describeDirection, type MechanismMode } from "@/lib/analysis/mechanism";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 import { useViewerStore } from "./viewer-store";
+import type { InfoOverview } from "@/db/queries/revision-view";
 
 /** The label a drawn mechanism mode of the revision goes by (the viewer store's mode label). */
 export const mechanismLabel = (k: number) => `Mechanism ${k + 1} of this revision`;
@@ -18,7 +18,7 @@ export function drawMechanism(k: number, mode: MechanismMode, nodeIds: readonly 
 
 const JOINTS_LISTED = 24;
 
-export function UnstableView({ info, nodeIds, children }: { info: AnalysisResult["info"] | undefined; nodeIds: readonly string[]; children: ReactNode }) {
+export function UnstableView({ info, nodeIds, children }: { info: InfoOverview | undefined; nodeIds: readonly string[]; children: ReactNode }) {
   const shown = useViewerStore((s) => s.mode?.label ?? null);
   const modes = info?.mechanismModes ?? [];
   return (

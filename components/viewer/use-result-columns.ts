@@ -4,6 +4,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { apiFetchBytes } from "@/lib/http/fetcher";
 import { unpackWire, type WireColumns } from "@/lib/models/result-columns";
+import { revisionUrls } from "@/lib/models/viewer-urls";
 
 export const resultColumnsQueryKey = (projectId: string, number: number, resultId: string) => ["projects", projectId, "models", number, "columns", resultId] as const;
 
@@ -12,7 +13,7 @@ export function useResultColumns(projectId: string, number: number, resultId: st
   const query = useQuery({
     queryKey: resultColumnsQueryKey(projectId, number, resultId ?? ""),
     queryFn: async () => {
-      const columns = unpackWire(await apiFetchBytes(`/api/projects/${projectId}/models/${number}/results/${encodeURIComponent(resultId!)}`));
+      const columns = unpackWire(await apiFetchBytes(revisionUrls(projectId, number).resultColumns(resultId!)));
       performance.mark("viewer:columns-fetched");
       return columns;
     },

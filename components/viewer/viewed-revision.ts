@@ -5,6 +5,7 @@
 import type { RevisionOverview } from "@/db/queries/revision-view";
 import { apiFetch, apiFetchBytes } from "@/lib/http/fetcher";
 import { MEMBER_KIND_CODES, unpackGeometry, type WireGeometry } from "@/lib/models/geometry-wire";
+import { revisionUrls } from "@/lib/models/viewer-urls";
 import type { AnalysisResult, TrussModel } from "@/lib/analysis";
 import type { MemberGroup, ViewerModel } from "./types";
 
@@ -36,8 +37,8 @@ export function modelFromGeometry(overview: RevisionOverview["model"], geometry:
 
 /** The fetch behind revisionQueryKey: overview and geometry side by side. */
 export async function fetchRevision(projectId: string, number: number): Promise<ViewedRevision> {
-  const base = `/api/projects/${projectId}/models/${number}`;
-  const [body, bytes] = await Promise.all([apiFetch<{ revision: RevisionOverview; abilities: ViewedRevision["abilities"] }>(`${base}/summary`), apiFetchBytes(`${base}/geometry`)]);
+  const urls = revisionUrls(projectId, number);
+  const [body, bytes] = await Promise.all([apiFetch<{ revision: RevisionOverview; abilities: ViewedRevision["abilities"] }>(urls.summary), apiFetchBytes(urls.geometry)]);
   return { ...body.revision, ...modelFromGeometry(body.revision.model, unpackGeometry(bytes)), abilities: body.abilities };
 }
 

@@ -1,13 +1,14 @@
 import "server-only";
-import { and, asc, desc, eq, sql } from "drizzle-orm";
+import { and, asc, desc, eq, sql, type SQL } from "drizzle-orm";
 import { getDb, type Executor } from "@/db/client";
-import { analysisRuns, modelRevisions, resultColumns, users, type AnalysisRun, type ModelRevision } from "@/db/schema";
+import { analysisRuns, modelRevisions, resultColumns, users, type AnalysisRun, type InfoOverview, type ModelRevision } from "@/db/schema";
 import { latestJobsOfRevisions, type JobView } from "./jobs";
 
 // Typed by the stored columns (db/schema), so this file needs nothing from the analysis code.
 type TrussModel = ModelRevision["model"];
-type AnalysisResult = AnalysisRun["result"];
 type StoredReview = NonNullable<AnalysisRun["review"]>;
+
+export type { InfoOverview };
 
 /** The review without its per-member rows (those come with one member's detail). */
 export type ReviewOverview = Omit<StoredReview, "members">;
@@ -34,12 +35,16 @@ export type RevisionOverview = {
     createdAt: string;
     /** Ids of the stored results (load cases and combinations), in no particular order. */
     resultIds: string[];
-    info: AnalysisResult["info"];
+    /** The analysis's info without its per-member maps. */
+    info: InfoOverview;
     review: ReviewOverview | null;
   } | null;
 };
 
-/** One revision by number as the viewer opens it, or null. The large jsonb fields are trimmed in the database. */
+/**
+ * One revision by number as the viewer opens it, or null. It reads the overviews PostgreSQL keeps beside the large
+ * jsonb fields (generated columns), never the fields themselves.
+ */
 export async function getRevisionOverview({ projectId, number, db = getDb() }: { projectId: string; number: number; db?: Executor }): Promise<RevisionOverview | null> {
   const [row] = await db
     .select({
@@ -50,7 +55,7 @@ export async function getRevisionOverview({ projectId, number, db = getDb() }: {
       createdBy: users.name,
       memberCount: modelRevisions.memberCount,
       isCurrent: modelRevisions.isCurrent,
-      model: sql<RevisionOverview["model"]>`jsonb_build_object('name', ${modelRevisions.model}->'name', 'supports', ${modelRevisions.model}->'supports', 'loadCases', ${modelRevisions.model}->'loadCases', 'combinations', ${modelRevisions.model}->'combinations')`,
+      model: sql<RevisionOverview["model"]>`${modelRevisions.modelOverview}`,
     })
     .from(modelRevisions)
     .leftJoin(users, eq(users.id, modelRevisions.createdBy))
@@ -62,8 +67,8 @@ export async function getRevisionOverview({ projectId, number, db = getDb() }: {
       id: analysisRuns.id,
       status: analysisRuns.status,
       createdAt: analysisRuns.createdAt,
-      info: sql<AnalysisResult["info"]>`${analysisRuns.result}->'info'`,
-      review: sql<ReviewOverview | null>`${analysisRuns.review} - 'members'`,
+      info: sql<InfoOverview>`${analysisRuns.infoOverview}`,
+      review: sql<ReviewOverview | null>`${analysisRuns.reviewOverview}`,
     })
     .from(analysisRuns)
     .where(eq(analysisRuns.revisionId, row.id))
@@ -91,4 +96,24 @@ export async function getRevisionModel({ projectId, number, db = getDb() }: { pr
     .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, number)))
     .limit(1);
   return row ?? null;
+}
+
+/** Only the ids of a jsonb array of objects (the model's load cases or combinations), as [{ id }]. */
+const idsOf = (array: SQL) => sql<{ id: string }[]>`(select coalesce(jsonb_agg(jsonb_build_object('id', item->>'id')), '[]'::jsonb) from jsonb_array_elements(${array}) item)`;
+
+/**
+ * What the viewer page needs to name the opening result before any script runs: the ids of the model's load cases
+ * and combinations, and the result ids stored by the revision's latest analysis when that one is stable (the
+ * viewer draws no result of an unstable one). Null when there is no such revision.
+ */
+export async function getRevisionResultNames({ projectId, number, db = getDb() }: { projectId: string; number: number; db?: Executor }): Promise<{ loadCases: { id: string }[]; combinations: { id: string }[]; stored: string[] } | null> {
+  const [row] = await db
+    .select({ id: modelRevisions.id, loadCases: idsOf(sql`${modelRevisions.modelOverview}->'loadCases'`), combinations: idsOf(sql`${modelRevisions.modelOverview}->'combinations'`) })
+    .from(modelRevisions)
+    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, number)))
+    .limit(1);
+  if (!row) return null;
+  const [run] = await db.select({ id: analysisRuns.id, status: analysisRuns.status }).from(analysisRuns).where(eq(analysisRuns.revisionId, row.id)).orderBy(desc(analysisRuns.createdAt)).limit(1);
+  const stored = run?.status === "ok" ? (await db.select({ id: resultColumns.resultId }).from(resultColumns).where(eq(resultColumns.analysisRunId, run.id))).map((r) => r.id) : [];
+  return { loadCases: row.loadCases, combinations: row.combinations, stored };
 }

@@ -4,6 +4,9 @@
 import { sql } from "drizzle-orm";
 import { boolean, integer, jsonb, pgEnum, pgTable, primaryKey, text, uniqueIndex, uuid, index } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "../../lib/analysis/analyze";
+
+/** The analysis's `info` without the maps that name every member: what the viewer opens with. */
+export type InfoOverview = Omit<AnalysisResult["info"], "governing" | "lowForce">;
 import type { TrussModel } from "../../lib/analysis/model";
 import type { StoredReview } from "../../lib/models/analyse";
 import { bytea } from "./bytea";
@@ -26,6 +29,11 @@ export const modelRevisions = pgTable(
     name: text().notNull(),
     /** The validated model; never updated after insert. */
     model: jsonb().$type<TrussModel>().notNull(),
+    /** The model without nodes, members, materials and sections: what the viewer's summary sends (issue 13). */
+    modelOverview: jsonb()
+      .$type<Pick<TrussModel, "name" | "supports" | "loadCases" | "combinations">>()
+      // Deleting keys (an immutable operator, as a generated column needs) leaves name, supports, load cases and combinations.
+      .generatedAlwaysAs(sql`model - '{format,materials,sections,nodes,members}'::text[]`),
     source: revisionSource().notNull(),
     /** members.length of the model, so listing revisions never loads a model. */
     memberCount: integer().notNull().default(0),
@@ -55,6 +63,12 @@ export const analysisRuns = pgTable(
     result: jsonb().$type<AnalysisResult>().notNull(),
     /** The member review of lib/review for the project's design standard; null when the model is unstable. */
     review: jsonb().$type<StoredReview>(),
+    // The two small parts the viewer opens with (…/summary), kept apart by PostgreSQL itself: reading them from
+    // `review` and `result` decompressed megabytes of per-member rows on every opening (issue 13 navigation).
+    /** The review without its per-member rows. */
+    reviewOverview: jsonb().$type<Omit<StoredReview, "members">>().generatedAlwaysAs(sql`review - 'members'`),
+    /** The result's `info` (warnings, checks of the whole roof) without its per-member maps (governing, lowForce). */
+    infoOverview: jsonb().$type<InfoOverview>().generatedAlwaysAs(sql`(result -> 'info') - '{governing,lowForce}'::text[]`),
     /** Float32 utilisation per member in member order (NaN: no check); null without a review. */
     utilisation: bytea(),
     /** Verdict code per member (lib/models/result-columns.ts VERDICT_CODES); null without a review. */

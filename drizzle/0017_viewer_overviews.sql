@@ -1,0 +1,3 @@
+ALTER TABLE "analysis_runs" ADD COLUMN "review_overview" jsonb GENERATED ALWAYS AS (review - 'members') STORED;--> statement-breakpoint
+ALTER TABLE "analysis_runs" ADD COLUMN "info_overview" jsonb GENERATED ALWAYS AS ((result -> 'info') - '{governing,lowForce}'::text[]) STORED;--> statement-breakpoint
+ALTER TABLE "model_revisions" ADD COLUMN "model_overview" jsonb GENERATED ALWAYS AS (model - '{format,materials,sections,nodes,members}'::text[]) STORED;
