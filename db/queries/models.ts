@@ -5,7 +5,7 @@ import { analysisRuns, attachments, modelRevisions, projects, users, type Analys
 import { jsonBytes } from "@/lib/models/json-bytes";
 import { recordAuditEvent } from "./audit";
 import { latestJobsOfRevisions, type JobView } from "./jobs";
-import { storeRunColumns, type StoredColumns } from "./result-columns";
+import { insertResultColumns, runColumnValues, type StoredColumns } from "./result-columns";
 
 // The stored jsonb columns' types (db/schema), so this file needs nothing from the analysis code.
 type TrussModel = ModelRevision["model"];
@@ -198,16 +198,19 @@ export type JsonBytes = Uint8Array;
 const jsonbOf = (bytes: JsonBytes) => sql`convert_from(${Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength)}::bytea, 'UTF8')::jsonb`;
 
 /**
- * Stores an analysis run (results and review as JSON, and the same as columns) of a revision. Each document goes in
- * its own statement: pg copies a statement's parameters into one message, so only one document is copied at a time.
+ * Stores an analysis run (results and review as JSON, and the same as columns) of a revision. One insert of the run
+ * row: every update of it would recompute its generated overview columns, decompressing both documents again.
  */
 export async function insertAnalysisRun(
   tx: Executor,
   input: { revisionId: string; status: AnalysisRun["status"]; resultJson: JsonBytes; reviewJson: JsonBytes | null; columns: StoredColumns },
 ): Promise<{ id: string }> {
-  const [run] = await tx.insert(analysisRuns).values({ revisionId: input.revisionId, status: input.status, result: jsonbOf(input.resultJson) }).returning({ id: analysisRuns.id });
-  if (input.reviewJson) await tx.update(analysisRuns).set({ review: jsonbOf(input.reviewJson) }).where(eq(analysisRuns.id, run.id));
-  await storeRunColumns(tx, { runId: run.id, columns: input.columns });
+  const { revisionId, status, resultJson, reviewJson, columns } = input;
+  const [run] = await tx
+    .insert(analysisRuns)
+    .values({ revisionId, status, result: jsonbOf(resultJson), review: reviewJson && jsonbOf(reviewJson), ...runColumnValues(columns) })
+    .returning({ id: analysisRuns.id });
+  await insertResultColumns(tx, { runId: run.id, results: columns.results });
   return run;
 }
 

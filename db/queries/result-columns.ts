@@ -18,13 +18,19 @@ export type StoredColumns = { results: ResultColumns[]; run: RunColumns };
 const COLUMN_ROWS_PER_INSERT = 50;
 const bytes = (values: Float32Array) => new Uint8Array(values.buffer, values.byteOffset, values.byteLength);
 
-/** Stores a run's columns: its own (utilisation, verdicts, zero-in-all) and one row per result. */
+/** A run's own columns (utilisation, verdicts, zero-in-all) as the analysis_runs row holds them. */
+export function runColumnValues({ run }: StoredColumns) {
+  return { utilisation: run.utilisation ? bytes(run.utilisation) : null, verdicts: run.verdicts, zeroInAll: run.zeroInAll };
+}
+
+/** Stores the columns of a run stored before results were kept as columns: its own, and one row per result. */
 export async function storeRunColumns(tx: Executor, { runId, columns }: { runId: string; columns: StoredColumns }): Promise<void> {
-  const { run, results } = columns;
-  await tx
-    .update(analysisRuns)
-    .set({ utilisation: run.utilisation ? bytes(run.utilisation) : null, verdicts: run.verdicts, zeroInAll: run.zeroInAll })
-    .where(eq(analysisRuns.id, runId));
+  await tx.update(analysisRuns).set(runColumnValues(columns)).where(eq(analysisRuns.id, runId));
+  await insertResultColumns(tx, { runId, results: columns.results });
+}
+
+/** Inserts one row of columns per result of a run. */
+export async function insertResultColumns(tx: Executor, { runId, results }: { runId: string; results: ResultColumns[] }): Promise<void> {
   for (let start = 0; start < results.length; start += COLUMN_ROWS_PER_INSERT) {
     const rows = results.slice(start, start + COLUMN_ROWS_PER_INSERT).map((result) => ({
       analysisRunId: runId,

@@ -59,7 +59,7 @@ export const analysisRuns = pgTable(
       .notNull()
       .references(() => modelRevisions.id, { onDelete: "cascade" }),
     status: analysisStatus().notNull(),
-    /** The analysis result of design.md (plus its `info`). */
+    /** The analysis result of design.md (plus its `info`). Both JSON columns are lz4-compressed (migration 0018). */
     result: jsonb().$type<AnalysisResult>().notNull(),
     /** The member review of lib/review for the project's design standard; null when the model is unstable. */
     review: jsonb().$type<StoredReview>(),
