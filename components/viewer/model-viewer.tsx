@@ -154,7 +154,7 @@ export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: 
           className="h-full w-full focus-visible:outline-offset-[-3px]"
           data-testid="viewer-focus"
         >
-          <ViewerCanvas prepared={prepared} columns={columns} compareColumns={compare.columns}>
+          <ViewerCanvas prepared={prepared} columns={columns} compareColumns={compare.columns} awaitingColumns={ids.length > 0 && !columns && !columnsError}>
             <InfluenceLayer prepared={prepared} />
             {layers}
           </ViewerCanvas>

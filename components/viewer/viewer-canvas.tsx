@@ -4,7 +4,7 @@
 // camera from useViewerStore (see viewer-store.ts) and calls `invalidate()` from useThree after changing
 // anything, because the canvas only draws on demand.
 import { Canvas } from "@react-three/fiber";
-import { useMemo, type ReactNode } from "react";
+import { useMemo, useState, type ReactNode } from "react";
 import { CameraRig } from "./camera-rig";
 import { cameraLook, memberLook, palette } from "./config";
 import { deflectedPositions, modePositions, nodesInBox } from "./filters";
@@ -22,6 +22,8 @@ export interface ViewerCanvasProps {
   /** The chosen result's columns, and the compared result's (lib/models/result-columns.ts). */
   columns: WireColumns | undefined;
   compareColumns: WireColumns | undefined;
+  /** True while the opening result's columns are on their way (not while a later result's are fetched). */
+  awaitingColumns?: boolean;
   /** Extra scene layers (see the note at the top of this file). */
   children?: ReactNode;
 }
@@ -76,11 +78,16 @@ function Scene({ prepared, columns, compareColumns, children }: ViewerCanvasProp
 }
 
 /** The 3D scene: members, glyphs, grid and camera controls, plus any extra layers passed as children. */
-export default function ViewerCanvas(props: ViewerCanvasProps) {
+export default function ViewerCanvas({ awaitingColumns = false, ...props }: ViewerCanvasProps) {
   const far = props.prepared.radius * 40;
+  // No frame is drawn until the opening colouring can be: in a software rasteriser a frame of a big roof's glyphs
+  // alone costs nearly what the whole roof does, and drawing it first only delays the roof (issue 13 navigation).
+  // Latched: once the first columns are in, frames are drawn on demand whatever is fetched later.
+  const [drawing, setDrawing] = useState(!awaitingColumns);
+  if (!drawing && !awaitingColumns) setDrawing(true);
   return (
     <Canvas
-      frameloop="demand"
+      frameloop={drawing ? "demand" : "never"}
       dpr={[1, 2]}
       gl={{ antialias: props.prepared.memberIds.length <= memberLook.largeModel }}
       camera={{ fov: cameraLook.fov, up: [0, 0, 1], near: far / 10_000, far, position: [0, -1, 1] }}

@@ -294,6 +294,11 @@ async function measureDrawn(page: Page, label: string, bays: number) {
   const total = fetched.reduce((sum, entry) => sum + entry.bytes, 0);
   record(`${label}: API bytes before the first drawn result`, `${(total / 1e6).toFixed(2)} MB (${fetched.map((e) => `${e.name} ${(e.bytes / 1e6).toFixed(2)}`).join(", ")})`, bays <= 60 ? "< 3 MB" : "");
 
+  if (values.breakdown) {
+    // One more frame drawn now, its shaders long compiled: how much of the first frame was drawing rather than compiling.
+    const frame = (await page.evaluate("window.__strutroom.measureFrame()")) as { calls: number; triangles: number; ms: number } | null;
+    if (frame) console.log(`[bench] ${label}: a frame drawn again after the first: ${frame.ms.toFixed(0)} ms, ${frame.calls} draw calls, ${frame.triangles} triangles`);
+  }
   const ids: string[] = await page.$$eval('[data-testid="viewer-result"] option', (options) => options.map((o) => (o as HTMLOptionElement).value));
   const switchTo = (id: string) =>
     page.evaluate(`new Promise((resolve) => {
