@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { preload } from "react-dom";
 import { listRevisionsByProject } from "@/db/queries/models";
 import { getRevisionResultNames } from "@/db/queries/revision-view";
 import { RevisionStageBadge } from "@/components/revision/revision-stage-badge";
@@ -16,20 +15,18 @@ import { realtimeUrl } from "@/lib/realtime/browser-url";
 export const metadata: Metadata = { title: "3D viewer" };
 
 /**
- * Starts the viewer's first three requests (overview, geometry, the opening result's columns) from the page's
- * <head>, side by side, while the scripts download and hydrate: the viewer's own fetches of the same addresses then
- * take the preloaded answers instead of asking only after hydration, one after the other (issue 13 navigation).
- * `crossOrigin: "anonymous"` gives the preload the same request mode and credentials as the viewer's fetch(), which
- * a preload needs to be used.
+ * The viewer's first three requests (overview, geometry, the opening result's columns), started from the page's
+ * HTML side by side while the scripts download and hydrate: the viewer's own fetches of the same addresses then take
+ * the preloaded answers instead of asking only after hydration, one after the other (issue 13 navigation). Rendered
+ * as <link> elements (React places them in the <head> of the HTML): react-dom's preload() from a server component
+ * reached the page only through the RSC payload, after the scripts ran. `crossOrigin="anonymous"` gives the preload
+ * the same request mode and credentials as the viewer's fetch(), which a preload needs to be used.
  */
-async function preloadOpeningFetches(projectId: string, number: number) {
+async function openingFetches(projectId: string, number: number): Promise<string[]> {
   const urls = revisionUrls(projectId, number);
-  const asFetch = { as: "fetch", crossOrigin: "anonymous" } as const;
-  preload(urls.summary, asFetch);
-  preload(urls.geometry, asFetch);
   const names = await getRevisionResultNames({ projectId, number });
   const opening = names ? openingResultId(names, names.stored) : null;
-  if (opening) preload(urls.resultColumns(opening), asFetch);
+  return [urls.summary, urls.geometry, ...(opening ? [urls.resultColumns(opening)] : [])];
 }
 
 export default async function ViewerPage({ params, searchParams }: PageProps<"/projects/[projectId]/viewer">) {
@@ -41,9 +38,12 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
   const number = requested ?? defaultRevision(revisions)?.number ?? null;
   if (requested !== null && !revisions.some((r) => r.number === requested)) notFound();
   const shown = revisions.find((r) => r.number === number);
-  if (number !== null) await preloadOpeningFetches(project.id, number);
+  const preloads = number !== null ? await openingFetches(project.id, number) : [];
   return (
     <div className="flex flex-col gap-3">
+      {preloads.map((href) => (
+        <link key={href} rel="preload" href={href} as="fetch" crossOrigin="anonymous" />
+      ))}
       {number === null ? (
         <p className="text-sm text-board-700" data-testid="viewer-empty">
           This project has no model yet.{" "}
