@@ -3,7 +3,7 @@
  * prints a table. The stack is started as the tests start it: a throwaway PostgreSQL on a free port (migrated), the
  * built web app (`next start`; it runs `next build` first when there is no build) and a jobs process
  * (server/jobs/main.ts). For each square double-layer grid of N x N bays (3 m module, 2.5 m for 120 bays: the
- * generator's spans stop at 300 m; 60 bays is 28,800 members, 120 bays 57,600) the structural engineer generates the roof through the app (POST …/models), and the job analyses
+ * generator's spans stop at 300 m; 60 bays is 28,800 members, 120 bays 115,200) the structural engineer generates the roof through the app (POST …/models), and the job analyses
  * and reviews it. Measured:
  *   - time to analysed: the POST until the job is done (the POST's own time, the wait in the queue, the analysis,
  *     review and storing phases from the job's phase changes, polled every 200 ms: resolution 0.2 s)
@@ -25,6 +25,7 @@ import { chromium, type Browser, type Page } from "playwright-core";
 import { closeDb, getDb } from "@/db/client";
 import { memberships, organizations, projects, users } from "@/db/schema";
 import { freePort, waitForPort } from "../stack/ports.mjs";
+import { timeResultSwitch } from "./result-switch";
 import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
 
 const { values } = parseArgs({
@@ -300,23 +301,11 @@ async function measureDrawn(page: Page, label: string, bays: number) {
     if (frame) console.log(`[bench] ${label}: a frame drawn again after the first: ${frame.ms.toFixed(0)} ms, ${frame.calls} draw calls, ${frame.triangles} triangles`);
   }
   const ids: string[] = await page.$$eval('[data-testid="viewer-result"] option', (options) => options.map((o) => (o as HTMLOptionElement).value));
-  const switchTo = (id: string) =>
-    page.evaluate(`new Promise((resolve) => {
-      const before = performance.getEntriesByName("viewer:colouring-drawn").length;
-      const start = performance.now();
-      window.__strutroom.setResult(${JSON.stringify(id)});
-      const wait = () => {
-        const marks = performance.getEntriesByName("viewer:colouring-drawn");
-        if (marks.length > before) resolve(marks[marks.length - 1].startTime - start);
-        else requestAnimationFrame(wait);
-      };
-      requestAnimationFrame(wait);
-    })`) as Promise<number>;
   // First pass fetches each result's columns; the second and third draw from the ones already fetched.
   const sequence = [...ids.slice(1), ids[0]];
-  for (const id of sequence) await switchTo(id);
+  for (const id of sequence) await timeResultSwitch(page, id);
   const cached: number[] = [];
-  for (let pass = 0; pass < 2; pass += 1) for (const id of sequence) cached.push(await switchTo(id));
+  for (let pass = 0; pass < 2; pass += 1) for (const id of sequence) cached.push(await timeResultSwitch(page, id));
   record(`${label}: switch to a result already fetched, median / max (n)`, `${median(cached).toFixed(0)} / ${Math.max(...cached).toFixed(0)} ms (${cached.length})`, bays <= 60 ? "< 50 / 100 ms" : "");
 }
 

@@ -24,6 +24,7 @@ import { memberships, organizations, projects, users } from "@/db/schema";
 import { analyzeModel, generateRoof } from "@/lib/analysis";
 import { encodeResultColumns } from "@/lib/models/result-columns";
 import { freePort, waitForPort } from "../stack/ports.mjs";
+import { timeResultSwitch } from "./result-switch";
 import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
 
 const { values } = parseArgs({ options: { bays: { type: "string", default: "60" } } });
@@ -132,18 +133,7 @@ async function main() {
     // The viewer opens on the first option; start from the second so every step changes the result shown.
     const sequence = [...ids.slice(1), ids[0], ...ids.slice(1), ids[0]];
     for (const id of sequence) {
-      const script = `new Promise((resolve) => {
-        const before = performance.getEntriesByName("viewer:colouring-drawn").length;
-        const start = performance.now();
-        window.__strutroom.setResult(${JSON.stringify(id)});
-        const wait = () => {
-          const marks = performance.getEntriesByName("viewer:colouring-drawn");
-          if (marks.length > before) resolve(marks[marks.length - 1].startTime - start);
-          else requestAnimationFrame(wait);
-        };
-        requestAnimationFrame(wait);
-      })`;
-      switches.push((await page.evaluate(script)) as number);
+      switches.push(await timeResultSwitch(page, id));
     }
     // The first pass fetches each result's columns; the second draws from the ones already fetched.
     const fetched = switches.slice(0, ids.length);
