@@ -11,6 +11,7 @@ import type { JobView } from "@/db/queries/jobs";
 import { JobProgress, scrollIntoViewWhenDone, StepProgress, useJob } from "@/components/jobs/job-progress";
 import type { HangServicesOutcome } from "@/lib/commands/store-hung-services";
 import { apiFetch } from "@/lib/http/fetcher";
+import { STANDING_CAUTION } from "@/lib/review/caution";
 
 const RESULT = '[data-testid="hang-services-result"]';
 
@@ -79,6 +80,10 @@ function HungRevision({ projectId, outcome }: { projectId: string; outcome: Hang
         </Link>
       </p>
       {analysis.state === "done" ? null : <JobProgress projectId={projectId} job={analysis} canRetry />}
+      {/* Which members became (or stopped being) zero invites removing or cutting them: the caution goes with it. */}
+      <p className="text-board-700" data-testid="hang-services-caution">
+        {STANDING_CAUTION}
+      </p>
     </>
   );
 }

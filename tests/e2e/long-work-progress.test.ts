@@ -6,6 +6,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser } from "../support/browser";
+import { STANDING_CAUTION } from "@/lib/review/caution";
 import { closeDb } from "../support/db";
 import { demoAccount, demoAccounts, demoProjectId } from "../support/demo";
 import { ClashesPage } from "./pages/clashes-page";
@@ -102,5 +103,7 @@ describe("progress on long work", () => {
     const analysis = seen.findIndex((text) => ANALYSIS_PHASE.test(text));
     expect(hanging).toBeGreaterThanOrEqual(0);
     expect(analysis).toBeGreaterThan(hanging);
+    // Members newly zero invite removing them: the standing caution (lib/review/caution.ts, glossary.md) goes with them.
+    expect(await page.getByTestId("hang-services-caution").textContent()).toBe(STANDING_CAUTION);
   }, JOB_TEST_TIMEOUT);
 });
