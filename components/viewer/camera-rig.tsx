@@ -4,8 +4,9 @@
 import { CameraControls } from "@react-three/drei";
 import { useThree } from "@react-three/fiber";
 import { useEffect, useRef } from "react";
-import { InstancedMesh, Matrix4, Vector3 } from "three";
+import { InstancedMesh, Matrix4, Vector3, type Object3D } from "three";
 import { cameraLook } from "./config";
+import { MergedInstances } from "./merged-instances";
 import type { PreparedModel } from "./prepare";
 import { useViewerStore, type CameraPose, type CameraPreset, type Vec3 } from "./viewer-store";
 
@@ -21,6 +22,14 @@ const scratchPosition = new Vector3();
 const scratchTarget = new Vector3();
 const scratchMatrix = new Matrix4();
 const identity = new Matrix4();
+const never = new Matrix4().set(0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0);
+
+/** Copies drawn by an instanced or merged mesh (the glyph and member layers), null for any other object. */
+function copiesDrawn(object: Object3D): number | null {
+  if (object instanceof InstancedMesh) return object.count;
+  if (object instanceof MergedInstances) return object.copies;
+  return null;
+}
 
 export function CameraRig({ prepared }: { prepared: PreparedModel }) {
   const controls = useRef<CameraControls>(null);
@@ -89,22 +98,27 @@ export function CameraRig({ prepared }: { prepared: PreparedModel }) {
       instanceCounts: () => {
         const counts: Record<string, number> = {};
         scene.traverseVisible((object) => {
-          if (object instanceof InstancedMesh && object.name) counts[object.name] = (counts[object.name] ?? 0) + object.count;
+          const drawn = copiesDrawn(object);
+          if (drawn !== null && object.name) counts[object.name] = (counts[object.name] ?? 0) + drawn;
         });
         return counts;
       },
       unplacedInstances: () => {
         const found: string[] = [];
         scene.traverseVisible((object) => {
-          if (!(object instanceof InstancedMesh)) return;
+          const drawn = copiesDrawn(object);
+          if (drawn === null) return;
           const name = object.name || object.parent?.name || "unnamed";
           // More instances drawn than the buffer holds: the GPU reads past it (WebGL's bufferSubData error).
-          if (object.count * 16 > object.instanceMatrix.array.length) {
+          if (object instanceof InstancedMesh && object.count * 16 > object.instanceMatrix.array.length) {
             found.push(`${name} (more instances than its buffer holds)`);
             return;
           }
-          for (let k = 0; k < object.count; k += 1) {
-            if (!object.getMatrixAt(k, scratchMatrix).equals(identity)) continue;
+          const mesh = object as InstancedMesh | MergedInstances;
+          for (let k = 0; k < drawn; k += 1) {
+            // still the identity (an InstancedMesh's start) or all zero (a merged copy never placed)
+            const matrix = mesh.getMatrixAt(k, scratchMatrix);
+            if (!matrix.equals(identity) && !matrix.equals(never)) continue;
             found.push(name);
             return;
           }

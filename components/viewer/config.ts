@@ -47,9 +47,12 @@ export const memberLook = {
   /** How much of the sign colour a low-force member keeps (the rest is white). */
   lowForceTint: 0.35,
   radialSegments: 8,
-  /** Above this many members: 4-sided members and no antialiasing, to keep software-rendered frames affordable. */
+  /**
+   * Above this many members: 3-sided members, lighter glyphs and no antialiasing. A member is then a few pixels wide and
+   * a software-rendered frame's cost follows the triangle count (issue 13: the 60 × 60 roof's first frame).
+   */
   largeModel: 5000,
-  radialSegmentsLarge: 4,
+  radialSegmentsLarge: 3,
 } as const;
 
 export const glyphLook = {
@@ -58,6 +61,10 @@ export const glyphLook = {
   supportSize: 0.12,
   /** Longest load arrow as a multiple of the typical member length. */
   maxLoadArrow: 0.9,
+  /** Sides of a load arrow's shaft and head; on a large roof (memberLook.largeModel) 3, open-ended, and nodes as tetrahedra. */
+  arrowShaftSides: 4,
+  arrowHeadSides: 6,
+  arrowSidesLarge: 3,
 } as const;
 
 export const influenceLook = {

@@ -1,23 +1,22 @@
 "use client";
-// Nodes, supports and loads drawn with our own simple glyphs: one instanced mesh each (loads use two, shaft and
-// head), so glyph draw calls stay constant however big the roof is.
+// Nodes, supports and loads drawn with our own simple glyphs: one merged mesh each (merged-instances.ts; loads use
+// two, shaft and head), so glyph draw calls stay constant however big the roof is. All share one material kind with
+// a colour per vertex, so the first frame compiles one shader program for them; a large roof gets lighter shapes.
 import { useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo } from "react";
-import { BufferGeometry, Color, ConeGeometry, CylinderGeometry, OctahedronGeometry, InstancedMesh, Matrix4, MeshLambertMaterial, Quaternion, Vector3 } from "three";
-import { glyphLook, palette } from "./config";
-import { disposeInstancedMesh } from "./dispose";
+import { BufferGeometry, Color, ConeGeometry, CylinderGeometry, Matrix4, MeshLambertMaterial, OctahedronGeometry, Quaternion, TetrahedronGeometry, Vector3 } from "three";
+import { glyphLook, memberLook, palette } from "./config";
+import { MergedInstances } from "./merged-instances";
 import { nodalLoadsFor, type PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
-function useInstanced(name: string, geometry: BufferGeometry, colour: string, capacity: number): InstancedMesh {
+function useInstanced(name: string, geometry: BufferGeometry, capacity: number): MergedInstances {
   const mesh = useMemo(() => {
-    const m = new InstancedMesh(geometry, new MeshLambertMaterial({ color: new Color(colour) }), Math.max(1, capacity));
-    m.frustumCulled = false;
-    m.count = 0;
+    const m = new MergedInstances(geometry, new MeshLambertMaterial(), capacity);
     m.name = name;
     return m;
-  }, [name, geometry, colour, capacity]);
-  useEffect(() => () => disposeInstancedMesh(mesh), [mesh]);
+  }, [name, geometry, capacity]);
+  useEffect(() => () => mesh.dispose(), [mesh]);
   return mesh;
 }
 
@@ -28,22 +27,26 @@ const scale = new Vector3();
 const rotation = new Quaternion();
 const matrix = new Matrix4();
 
-/** Shows the first `count` instances after their buffers were written. */
-function commitInstances(mesh: InstancedMesh, count: number) {
-  mesh.count = count;
-  mesh.instanceMatrix.needsUpdate = true;
-  if (mesh.instanceColor) mesh.instanceColor.needsUpdate = true;
+/** Shows the first `count` copies after they were placed and coloured. */
+function commitInstances(mesh: MergedInstances, count: number) {
+  mesh.copies = count;
+  mesh.commit();
 }
 
+/** A roof with so many members that its glyphs are a few pixels across (config.ts memberLook.largeModel). */
+const isLarge = (prepared: PreparedModel) => prepared.memberIds.length > memberLook.largeModel;
+
 const nodeRgb = new Color(palette.node);
+const loadRgb = new Color(palette.load);
 const selectedRgb = new Color(palette.selection);
 
 /** Small octahedra at the nodes (inside the section box), following the deflected shape; the selected node in violet. */
 export function NodesLayer({ prepared, positions, nodeMask }: { prepared: PreparedModel; positions: Float32Array; nodeMask: Uint8Array | null }) {
   const invalidate = useThree((s) => s.invalidate);
   const selectedNodeId = useViewerStore((s) => s.selectedNodeId);
-  const geometry = useMemo(() => new OctahedronGeometry(1, 0), []);
-  const mesh = useInstanced("nodes", geometry, "#ffffff", prepared.nodes.ids.length);
+  const large = isLarge(prepared);
+  const geometry = useMemo(() => (large ? new TetrahedronGeometry(1, 0) : new OctahedronGeometry(1, 0)), [large]);
+  const mesh = useInstanced("nodes", geometry, prepared.nodes.ids.length);
   useLayoutEffect(() => {
     const selected = selectedNodeId ? (prepared.nodes.index.get(selectedNodeId) ?? -1) : -1;
     const r = glyphLook.nodeRadius * prepared.unitLength;
@@ -68,7 +71,7 @@ export function SupportsLayer({ prepared, nodeMask }: { prepared: PreparedModel;
   const invalidate = useThree((s) => s.invalidate);
   const geometry = useMemo(() => new ConeGeometry(0.5, 1, 4).translate(0, -0.5, 0).rotateX(Math.PI / 2), []);
   const supports = prepared.model.supports;
-  const mesh = useInstanced("supports", geometry, "#ffffff", supports.length);
+  const mesh = useInstanced("supports", geometry, supports.length);
   useLayoutEffect(() => {
     const size = glyphLook.supportSize * prepared.unitLength;
     const held = new Color(palette.support);
@@ -95,10 +98,14 @@ export function LoadsLayer({ prepared, nodeMask }: { prepared: PreparedModel; no
   const resultId = useViewerStore((s) => s.resultId);
   const loads = useMemo(() => (resultId ? nodalLoadsFor(prepared.model, resultId) : []), [prepared, resultId]);
   const capacity = prepared.model.nodes.length;
-  const shaftGeometry = useMemo(() => new CylinderGeometry(1, 1, 1, 4, 1).translate(0, -0.5, 0), []);
-  const headGeometry = useMemo(() => new ConeGeometry(1, 1, 6).translate(0, -0.5, 0), []);
-  const shafts = useInstanced("load-arrow-shafts", shaftGeometry, palette.load, capacity);
-  const heads = useInstanced("load-arrow-heads", headGeometry, palette.load, capacity);
+  const large = isLarge(prepared);
+  const shaftGeometry = useMemo(
+    () => new CylinderGeometry(1, 1, 1, large ? glyphLook.arrowSidesLarge : glyphLook.arrowShaftSides, 1, large).translate(0, -0.5, 0),
+    [large],
+  );
+  const headGeometry = useMemo(() => new ConeGeometry(1, 1, large ? glyphLook.arrowSidesLarge : glyphLook.arrowHeadSides, 1, large).translate(0, -0.5, 0), [large]);
+  const shafts = useInstanced("load-arrow-shafts", shaftGeometry, capacity);
+  const heads = useInstanced("load-arrow-heads", headGeometry, capacity);
   useLayoutEffect(() => {
     let largest = 0;
     for (const load of loads) largest = Math.max(largest, Math.hypot(load.fx, load.fy, load.fz));
@@ -117,9 +124,11 @@ export function LoadsLayer({ prepared, nodeMask }: { prepared: PreparedModel; no
       position.fromArray(prepared.nodes.positions, k * 3);
       matrix.compose(position, rotation, scale.set(head * 0.35, head, head * 0.35));
       heads.setMatrixAt(n, matrix);
+      heads.setColorAt(n, loadRgb);
       position.addScaledVector(direction, -head);
       matrix.compose(position, rotation, scale.set(head * 0.08, length - head, head * 0.08));
       shafts.setMatrixAt(n, matrix);
+      shafts.setColorAt(n, loadRgb);
       n += 1;
     }
     commitInstances(shafts, n);

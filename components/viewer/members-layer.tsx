@@ -1,34 +1,31 @@
 "use client";
-// All members as two instanced meshes (opaque, and thin translucent for zero-force): two draw calls whatever the
-// member count. Switching result, colouring or filter rewrites the instance buffers in place, from the result's
-// columns (typed arrays in member order) without looking any member up by id.
+// All members as two merged meshes (opaque, and thin translucent for zero-force; merged-instances.ts): two draw
+// calls whatever the member count. Switching result, colouring or filter rewrites their vertex buffers in place, from
+// the result's columns (typed arrays in member order) without looking any member up by id.
 import { useFrame, useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo, useRef } from "react";
-import { CylinderGeometry, DynamicDrawUsage, InstancedBufferAttribute, InstancedMesh, MeshBasicMaterial, MeshLambertMaterial } from "three";
+import { CylinderGeometry, MeshBasicMaterial, MeshLambertMaterial } from "three";
 import type { WireColumns } from "@/lib/models/result-columns";
 import { comparesTwoResults, computeAppearance, forceStates, hexToRgb, type MemberAppearance } from "./colouring";
 import { memberLook, palette } from "./config";
-import { disposeInstancedMesh } from "./dispose";
 import { visibleMask } from "./filters";
 import { writeMemberMatrix } from "./geometry";
+import { MergedInstances } from "./merged-instances";
 import type { PreparedModel } from "./prepare";
 import { resultLabel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
-interface Layer { mesh: InstancedMesh; order: Int32Array }
+/** Slot s of the layer's mesh draws member order[s]. */
+interface Layer { mesh: MergedInstances; order: Int32Array }
 
 function makeLayer(count: number, translucent: boolean): Layer {
   const segments = count > memberLook.largeModel ? memberLook.radialSegmentsLarge : memberLook.radialSegments;
-  const geometry = new CylinderGeometry(1, 1, 1, segments, 1, true);
   const material = translucent
     ? new MeshBasicMaterial({ transparent: true, opacity: memberLook.translucentOpacity, depthWrite: false })
     : new MeshLambertMaterial();
-  const mesh = new InstancedMesh(geometry, material, Math.max(1, count));
-  mesh.instanceMatrix.setUsage(DynamicDrawUsage);
-  mesh.instanceColor = new InstancedBufferAttribute(new Float32Array(Math.max(1, count) * 3), 3).setUsage(DynamicDrawUsage);
-  mesh.frustumCulled = false;
+  const mesh = new MergedInstances(new CylinderGeometry(1, 1, 1, segments, 1, true), material, count);
+  mesh.name = translucent ? "members-faint" : "members";
   mesh.renderOrder = translucent ? 1 : 0;
-  mesh.count = 0;
   return { mesh, order: new Int32Array(Math.max(1, count)) };
 }
 
@@ -36,42 +33,32 @@ const selectionRgb = hexToRgb(palette.selection);
 const hoverRgb = hexToRgb(palette.hover);
 
 function writeColours(layer: Layer, look: MemberAppearance, selected: number, hovered: number) {
-  const colours = layer.mesh.instanceColor!.array as Float32Array;
-  for (let slot = 0; slot < layer.mesh.count; slot += 1) {
+  const colours = look.colours;
+  for (let slot = 0; slot < layer.mesh.copies; slot += 1) {
     const k = layer.order[slot];
-    const rgb = k === selected ? selectionRgb : k === hovered ? hoverRgb : look.colours.subarray(k * 3, k * 3 + 3);
-    colours[slot * 3] = rgb[0];
-    colours[slot * 3 + 1] = rgb[1];
-    colours[slot * 3 + 2] = rgb[2];
+    if (k === selected) layer.mesh.setRgbAt(slot, selectionRgb[0], selectionRgb[1], selectionRgb[2]);
+    else if (k === hovered) layer.mesh.setRgbAt(slot, hoverRgb[0], hoverRgb[1], hoverRgb[2]);
+    else layer.mesh.setRgbAt(slot, colours[k * 3], colours[k * 3 + 1], colours[k * 3 + 2]);
   }
-  layer.mesh.instanceColor!.needsUpdate = true;
+  layer.mesh.commit({ places: false });
 }
 
-/** Sorts visible members into the solid or faint layer and writes their instance matrices. */
+/** Sorts visible members into the solid or faint layer and places them (matrix, then the merged vertices). */
 function writeMatrices(layers: { solid: Layer; faint: Layer }, look: MemberAppearance, mask: Uint8Array, positions: Float32Array, ends: Int32Array) {
   const { solid, faint } = layers;
-  const solidMatrices = solid.mesh.instanceMatrix.array as Float32Array;
-  const faintMatrices = faint.mesh.instanceMatrix.array as Float32Array;
   let s = 0;
   let f = 0;
   for (let k = 0; k < mask.length; k += 1) {
     if (!mask[k]) continue;
-    if (look.translucent[k]) {
-      faint.order[f] = k;
-      writeMemberMatrix(faintMatrices, f, positions, ends, k, look.radii[k], true);
-      f += 1;
-    } else {
-      solid.order[s] = k;
-      writeMemberMatrix(solidMatrices, s, positions, ends, k, look.radii[k], true);
-      s += 1;
-    }
+    const layer = look.translucent[k] ? faint : solid;
+    const slot = look.translucent[k] ? f++ : s++;
+    layer.order[slot] = k;
+    writeMemberMatrix(layer.mesh.matrices, slot, positions, ends, k, look.radii[k], true);
+    layer.mesh.placeFromMatrices(slot);
   }
-  solid.mesh.count = s;
-  faint.mesh.count = f;
-  for (const layer of [solid, faint]) {
-    layer.mesh.instanceMatrix.needsUpdate = true;
-    layer.mesh.computeBoundingSphere();
-  }
+  solid.mesh.copies = s;
+  faint.mesh.copies = f;
+  for (const layer of [solid, faint]) layer.mesh.commit({ colours: false });
 }
 
 interface MembersLayerProps {
@@ -97,7 +84,7 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
   const layers = useMemo(() => ({ solid: makeLayer(count, false), faint: makeLayer(count, true) }), [count]);
   useEffect(
     () => () => {
-      for (const layer of [layers.solid, layers.faint]) disposeInstancedMesh(layer.mesh);
+      for (const layer of [layers.solid, layers.faint]) layer.mesh.dispose();
     },
     [layers],
   );
