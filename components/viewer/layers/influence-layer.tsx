@@ -29,6 +29,8 @@ function writeInfluence(mesh: InstancedMesh, values: readonly InfluenceValue[], 
     count += 1;
   });
   mesh.count = count;
+  // hidden when empty, so no frame compiles its shader for nothing (issue 13: the first frame of a big roof)
+  mesh.visible = count > 0;
   mesh.instanceMatrix.needsUpdate = true;
   mesh.instanceColor!.needsUpdate = true;
 }

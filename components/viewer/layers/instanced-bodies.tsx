@@ -36,6 +36,9 @@ function writeBodies(mesh: InstancedMesh, bodies: readonly Body[]) {
     mesh.setColorAt(k, colour.set(body.colour ?? "#ffffff"));
   });
   mesh.count = bodies.length;
+  // Hidden when empty: three.js would still compile its shader on the first frame (a physically based one, the
+  // dearest to compile in a software renderer) to draw nothing (issue 13: the first frame of a big roof).
+  mesh.visible = bodies.length > 0;
   mesh.instanceMatrix.needsUpdate = true;
   mesh.instanceColor!.needsUpdate = true;
   // Raycasting (clicks on pins and clash markers) tests this sphere first; it must follow the bodies.
