@@ -31,7 +31,20 @@ const CONNECTION_TEXT: Record<ConnectionState, string> = {
 
 type ClashList = { clashes: { clashKey: string; point: { x: number; y: number; z: number } }[] };
 
-export function LiveReview({ projectId, revisionNumber, realtimeUrl, focusClash = null }: { projectId: string; revisionNumber: number; realtimeUrl: string; focusClash?: string | null }) {
+export function LiveReview({
+  projectId,
+  revisionNumber,
+  openingResultId = null,
+  realtimeUrl,
+  focusClash = null,
+}: {
+  projectId: string;
+  revisionNumber: number;
+  /** The result whose columns the page preloaded (the viewer's opening choice). */
+  openingResultId?: string | null;
+  realtimeUrl: string;
+  focusClash?: string | null;
+}) {
   const socket = useReviewSocket(projectId, realtimeUrl);
   // A link to one pin (from the review overview or a mention mail) opens its thread.
   const pinParam = useSearchParams().get("pin");
@@ -85,7 +98,7 @@ export function LiveReview({ projectId, revisionNumber, realtimeUrl, focusClash 
   return (
     <div className="flex flex-col gap-3 xl:flex-row">
       <div className="min-w-0 flex-1 overflow-hidden rounded-xl border border-board-200 bg-white">
-        <ModelViewer projectId={projectId} revisionNumber={revisionNumber} layers={layers} />
+        <ModelViewer projectId={projectId} revisionNumber={revisionNumber} openingResultId={openingResultId} layers={layers} />
       </div>
       <aside className="flex w-full flex-col gap-4 rounded-xl border border-board-200 bg-white p-3 xl:w-96" aria-label="Live review" data-testid="review-panel">
         <p className="text-sm" role="status" data-testid="connection-state" data-state={connection}>

@@ -6,7 +6,7 @@
 // over the canvas's right side instead of narrowing it (the camera keeps its framing); the canvas takes focus,
 // the arrow keys step the selection through the members drawn (the camera turns to a member stepped to off screen,
 // keeping its distance), and Escape closes the panels.
-import { useQuery } from "@tanstack/react-query";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
 import dynamic from "next/dynamic";
 import { useEffect, useMemo, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
 import { LiveJob } from "@/components/jobs/job-progress";
@@ -28,7 +28,7 @@ import { installTestHook } from "./test-hook";
 import { cameraLook } from "./config";
 import { isInView, memberMidpoint, stepVisibleMember, viewerKeyAction } from "./keyboard";
 import { useFillToFold } from "./use-fill-to-fold";
-import { useResultColumns } from "./use-result-columns";
+import { resultColumnsQuery, useResultColumns } from "./use-result-columns";
 import { fetchRevision, revisionQueryKey } from "./viewed-revision";
 import { useViewerStore } from "./viewer-store";
 import { ViewerToolbar } from "./viewer-toolbar";
@@ -47,7 +47,24 @@ const loadCanvas = () => import("./viewer-canvas");
 if (typeof window !== "undefined") void loadCanvas();
 const ViewerCanvas = dynamic(loadCanvas, { ssr: false, loading: () => <CanvasPlaceholder message="Loading the 3D view…" /> });
 
-export function ModelViewer({ projectId, revisionNumber, layers }: { projectId: string; revisionNumber: number; layers?: ReactNode }) {
+export function ModelViewer({
+  projectId,
+  revisionNumber,
+  openingResultId: opening = null,
+  layers,
+}: {
+  projectId: string;
+  revisionNumber: number;
+  /** The result the page preloaded the columns of (app/…/viewer/page.tsx), when it knows it. */
+  openingResultId?: string | null;
+  layers?: ReactNode;
+}) {
+  // The opening result's columns are asked for alongside the revision, not once the revision is in and the viewer
+  // has chosen its result (the same choice): they are then at hand when the roof is first drawn (issue 13 navigation).
+  const queryClient = useQueryClient();
+  useEffect(() => {
+    if (opening) void queryClient.prefetchQuery(resultColumnsQuery(projectId, revisionNumber, opening));
+  }, [queryClient, projectId, revisionNumber, opening]);
   const query = useQuery({
     queryKey: revisionQueryKey(projectId, revisionNumber),
     queryFn: async () => {

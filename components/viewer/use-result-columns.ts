@@ -8,18 +8,22 @@ import { revisionUrls } from "@/lib/models/viewer-urls";
 
 export const resultColumnsQueryKey = (projectId: string, number: number, resultId: string) => ["projects", projectId, "models", number, "columns", resultId] as const;
 
-/** The columns of `resultId` (undefined while loading, or when there is no result to fetch). */
-export function useResultColumns(projectId: string, number: number, resultId: string | null): { columns: WireColumns | undefined; error: Error | null; retry: () => void } {
-  const query = useQuery({
-    queryKey: resultColumnsQueryKey(projectId, number, resultId ?? ""),
-    queryFn: async () => {
-      const columns = unpackWire(await apiFetchBytes(revisionUrls(projectId, number).resultColumns(resultId!)));
+/** The query of one result's columns: the hook below and the viewer's opening prefetch share it. */
+export function resultColumnsQuery(projectId: string, number: number, resultId: string) {
+  return {
+    queryKey: resultColumnsQueryKey(projectId, number, resultId),
+    queryFn: async (): Promise<WireColumns> => {
+      const columns = unpackWire(await apiFetchBytes(revisionUrls(projectId, number).resultColumns(resultId)));
       performance.mark("viewer:columns-fetched");
       return columns;
     },
-    enabled: resultId !== null,
     staleTime: Infinity,
     gcTime: 30 * 60_000,
-  });
+  };
+}
+
+/** The columns of `resultId` (undefined while loading, or when there is no result to fetch). */
+export function useResultColumns(projectId: string, number: number, resultId: string | null): { columns: WireColumns | undefined; error: Error | null; retry: () => void } {
+  const query = useQuery({ ...resultColumnsQuery(projectId, number, resultId ?? ""), enabled: resultId !== null });
   return { columns: query.data, error: query.error, retry: () => void query.refetch() };
 }

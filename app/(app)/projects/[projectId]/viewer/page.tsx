@@ -22,11 +22,11 @@ export const metadata: Metadata = { title: "3D viewer" };
  * reached the page only through the RSC payload, after the scripts ran. `crossOrigin="anonymous"` gives the preload
  * the same request mode and credentials as the viewer's fetch(), which a preload needs to be used.
  */
-async function openingFetches(projectId: string, number: number): Promise<string[]> {
+async function openingFetches(projectId: string, number: number): Promise<{ preloads: string[]; opening: string | null }> {
   const urls = revisionUrls(projectId, number);
   const names = await getRevisionResultNames({ projectId, number });
   const opening = names ? openingResultId(names, names.stored) : null;
-  return [urls.summary, urls.geometry, ...(opening ? [urls.resultColumns(opening)] : [])];
+  return { preloads: [urls.summary, urls.geometry, ...(opening ? [urls.resultColumns(opening)] : [])], opening };
 }
 
 export default async function ViewerPage({ params, searchParams }: PageProps<"/projects/[projectId]/viewer">) {
@@ -38,7 +38,7 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
   const number = requested ?? defaultRevision(revisions)?.number ?? null;
   if (requested !== null && !revisions.some((r) => r.number === requested)) notFound();
   const shown = revisions.find((r) => r.number === number);
-  const preloads = number !== null ? await openingFetches(project.id, number) : [];
+  const { preloads, opening } = number !== null ? await openingFetches(project.id, number) : { preloads: [], opening: null };
   return (
     <div className="flex flex-col gap-3">
       {preloads.map((href) => (
@@ -58,7 +58,7 @@ export default async function ViewerPage({ params, searchParams }: PageProps<"/p
             <RevisionPicker projectId={project.id} revisions={revisions.map(({ number, name, isCurrent, analysisStatus }) => ({ number, name, isCurrent, analysisStatus }))} current={number} />
             {shown && <RevisionStageBadge revision={shown} />}
           </div>
-          <LiveReview key={number} projectId={project.id} revisionNumber={number} realtimeUrl={realtimeUrl()} focusClash={typeof clash === "string" ? clash : null} />
+          <LiveReview key={number} projectId={project.id} revisionNumber={number} openingResultId={opening} realtimeUrl={realtimeUrl()} focusClash={typeof clash === "string" ? clash : null} />
         </>
       )}
     </div>
