@@ -155,6 +155,8 @@ export type NewRevisionInput = {
   projectId: string;
   name: string;
   model: TrussModel;
+  /** The model packed for the viewer (lib/models/geometry-wire.ts packGeometry). */
+  geometry: Uint8Array;
   source: ModelRevision["source"];
   createdBy: string | null;
 };
@@ -174,6 +176,7 @@ export async function insertRevision(tx: Executor, input: NewRevisionInput): Pro
       number,
       name: input.name,
       model: input.model,
+      geometry: Buffer.from(input.geometry.buffer, input.geometry.byteOffset, input.geometry.byteLength),
       memberCount: input.model.members.length,
       memberOrder: input.model.members.map((member) => member.id),
       source: input.source,

@@ -98,6 +98,16 @@ export async function getRevisionModel({ projectId, number, db = getDb() }: { pr
   return row ?? null;
 }
 
+/** A revision's viewer geometry as stored when it was saved (null for revisions saved before migration 0019). */
+export async function getRevisionGeometry({ projectId, number, db = getDb() }: { projectId: string; number: number; db?: Executor }): Promise<{ id: string; geometry: Uint8Array | null } | null> {
+  const [row] = await db
+    .select({ id: modelRevisions.id, geometry: modelRevisions.geometry })
+    .from(modelRevisions)
+    .where(and(eq(modelRevisions.projectId, projectId), eq(modelRevisions.number, number)))
+    .limit(1);
+  return row ?? null;
+}
+
 /** Only the ids of a jsonb array of objects (the model's load cases or combinations), as [{ id }]. */
 const idsOf = (array: SQL) => sql<{ id: string }[]>`(select coalesce(jsonb_agg(jsonb_build_object('id', item->>'id')), '[]'::jsonb) from jsonb_array_elements(${array}) item)`;
 

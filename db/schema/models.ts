@@ -37,6 +37,12 @@ export const modelRevisions = pgTable(
     source: revisionSource().notNull(),
     /** members.length of the model, so listing revisions never loads a model. */
     memberCount: integer().notNull().default(0),
+    /**
+     * The viewer's binary geometry (lib/models/geometry-wire.ts), packed once when the revision is saved, so opening
+     * the viewer reads bytes instead of parsing the whole model (issue 13 navigation). Null for revisions saved before
+     * migration 0019: those are packed on request.
+     */
+    geometry: bytea(),
     /** Member ids in model order: the order of every result column (one member's value is read by its index). */
     memberOrder: text().array().notNull().default(sql`'{}'::text[]`),
     createdBy: uuid().references(() => users.id, { onDelete: "set null" }),

@@ -8,6 +8,7 @@ import { withStoredFiles, type ReceivedFile } from "@/lib/commands/stored-files"
 import { carryPreviousRunsForward } from "./carry-runs-forward";
 import { runRevisionCommand } from "./command";
 import { enqueueAnalysis } from "./enqueue-analysis";
+import { packGeometry } from "@/lib/models/geometry-wire";
 
 /**
  * Stores a validated model as the project's next revision and queues its analysis, in one transaction with: the
@@ -28,7 +29,7 @@ export async function createRevision(input: {
   const { projectId, userId, model } = input;
   return withStoredFiles({ projectId, userId, purpose: "model", files: input.originals }, (record) =>
     runRevisionCommand(async ({ tx, live }) => {
-      const revision = await insertRevision(tx, { projectId, name: input.name, model, source: input.source, createdBy: userId });
+      const revision = await insertRevision(tx, { projectId, name: input.name, model, geometry: packGeometry(model), source: input.source, createdBy: userId });
       await record(tx, { revisionId: revision.id });
       const uploaded = input.uploadedFiles ?? [];
       if ((await linkModelFiles(tx, { projectId, attachmentIds: uploaded, revisionId: revision.id })) !== new Set(uploaded).size) {

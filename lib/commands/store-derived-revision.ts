@@ -6,6 +6,7 @@ import type { TrussModel } from "@/lib/analysis/model";
 import type { Clash, DetectionSummary } from "@/lib/clash/detect";
 import { carryRunsForward } from "./carry-runs-forward";
 import { enqueueAnalysis } from "./enqueue-analysis";
+import { packGeometry } from "@/lib/models/geometry-wire";
 
 /**
  * A step of the commands that store a revision derived from another (runs in their transaction; the hang-services
@@ -18,7 +19,7 @@ export async function storeDerivedRevision(
   input: { projectId: string; createdBy: string | null; fromRevisionId: string; name: string; model: TrussModel; detected?: Clash[] },
 ): Promise<{ revision: { id: string; number: number }; detection: DetectionSummary; analysisJob: JobView }> {
   const { projectId, createdBy, fromRevisionId, model } = input;
-  const revision = await insertRevision(tx, { projectId, name: input.name, model, source: "generated", createdBy });
+  const revision = await insertRevision(tx, { projectId, name: input.name, model, geometry: packGeometry(model), source: "generated", createdBy });
   const detection = await carryRunsForward(tx, { projectId, fromRevisionId, toRevision: { id: revision.id, model }, actorId: createdBy, detected: input.detected });
   const analysisJob = await enqueueAnalysis(tx, { projectId, revisionId: revision.id, requestedBy: createdBy, compareWith: fromRevisionId });
   return { revision, detection, analysisJob };

@@ -26,6 +26,7 @@ import { encodeResultColumns } from "@/lib/models/result-columns";
 import { freePort, waitForPort } from "../stack/ports.mjs";
 import { timeResultSwitch } from "./result-switch";
 import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
+import { packGeometry } from "@/lib/models/geometry-wire";
 
 const { values } = parseArgs({ options: { bays: { type: "string", default: "60" } } });
 const bays = Number(values.bays);
@@ -54,7 +55,7 @@ async function storeModel(): Promise<{ projectId: string; user: { id: string; em
   await db.insert(memberships).values({ projectId: project.id, userId: user.id, role: "structural_engineer" });
   t = performance.now();
   // The member review is left out: it is not drawn by the force-state colouring measured here.
-  await insertRevisionWithAnalysis(db, { projectId: project.id, name: model.name, model, source: "generated", createdBy: user.id, result, review: null, columns: encodeResultColumns(model, result, null) });
+  await insertRevisionWithAnalysis(db, { projectId: project.id, name: model.name, model, geometry: packGeometry(model), source: "generated", createdBy: user.id, result, review: null, columns: encodeResultColumns(model, result, null) });
   record("stored revision", `${((performance.now() - t) / 1000).toFixed(2)} s`);
   return { projectId: project.id, user };
 }

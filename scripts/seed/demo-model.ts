@@ -10,6 +10,7 @@ import { analyseForStorage, type StoredReview } from "../../lib/models/analyse";
 import type { DesignStandard } from "../../lib/review/design-checks/types";
 import { encodeResultColumns } from "../../lib/models/result-columns";
 import { insertRevisionWithAnalysis, setCurrentRevision } from "../../db/queries/models";
+import { packGeometry } from "../../lib/models/geometry-wire";
 
 /** The demo roof with its analysis and review for one design standard. */
 export type AnalysedDemoRoof = { standard: DesignStandard; model: TrussModel; result: AnalysisResult; review: StoredReview | null };
@@ -37,7 +38,7 @@ export async function seedDemoModel(db: Executor, { projectId, createdBy, analys
   const [project] = await db.select({ designStandard: projects.designStandard }).from(projects).where(eq(projects.id, projectId));
   // Only an existing demo project whose owner changed its standard needs the review again, here.
   const { model, result, review } = project.designStandard === analysed.standard ? analysed : analyseDemoRoof(project.designStandard);
-  const revision = await insertRevisionWithAnalysis(db, { projectId, name: model.name, model, source: "generated", createdBy, result, review, columns: encodeResultColumns(model, result, review) });
+  const revision = await insertRevisionWithAnalysis(db, { projectId, name: model.name, model, geometry: packGeometry(model), source: "generated", createdBy, result, review, columns: encodeResultColumns(model, result, review) });
   // The structural engineer has put it up for review: pages open it by default.
   await setCurrentRevision(db, { projectId, revisionId: revision.id });
 }

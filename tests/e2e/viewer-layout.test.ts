@@ -15,6 +15,7 @@ import { closeDb, getDb } from "../support/db";
 import { demoAccount, openDemoProjectAs } from "../support/demo";
 import { TRIPOD } from "../support/fixtures/report";
 import { ViewerPage } from "./pages/viewer-page";
+import { packGeometry } from "@/lib/models/geometry-wire";
 
 // WebGL needs a software rasteriser in headless chromium without a GPU: ANGLE on SwiftShader.
 const WEBGL_FLAGS = ["--use-gl=angle", "--use-angle=swiftshader", "--enable-unsafe-swiftshader"];
@@ -140,7 +141,7 @@ describe("layout at 1440 × 900 (issue 17 item 9)", () => {
   it("frames the roof afresh when another revision is opened", async () => {
     const [engineer] = await getDb().select({ id: users.id }).from(users).where(eq(users.email, demoAccount("structural_engineer").email));
     const result = analyzeModel(TRIPOD);
-    tripod = await insertRevisionWithAnalysis(getDb(), { projectId, name: "Lantern tripod (layout test)", model: TRIPOD, source: "generated", createdBy: engineer.id, result, review: null, columns: encodeResultColumns(TRIPOD, result, null) });
+    tripod = await insertRevisionWithAnalysis(getDb(), { projectId, name: "Lantern tripod (layout test)", model: TRIPOD, geometry: packGeometry(TRIPOD), source: "generated", createdBy: engineer.id, result, review: null, columns: encodeResultColumns(TRIPOD, result, null) });
 
     // On the 60 m roof, zoomed onto one member: a camera kept from here would show the 1 m tripod as a speck.
     await viewer.open(projectId, 1);

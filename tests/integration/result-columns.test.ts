@@ -18,6 +18,7 @@ import { runAnalysisJob } from "@/server/jobs/analysis";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
 import { buildRequest, routeContext } from "../support/session";
+import { packGeometry } from "@/lib/models/geometry-wire";
 
 let fx: ProjectFixture;
 let number: number;
@@ -157,7 +158,7 @@ describe("one member's detail", () => {
 describe("runs stored before results were kept as columns", () => {
   it("get their columns from the migrate step's backfill, equal to their JSON", async () => {
     // A run as migration 0005 left it: JSON only, no columns.
-    const revision = await insertRevision(getDb(), { projectId: fx.projectId, name: "Before columns", model, source: "generated", createdBy: null });
+    const revision = await insertRevision(getDb(), { projectId: fx.projectId, name: "Before columns", model, geometry: packGeometry(model), source: "generated", createdBy: null });
     await getDb().insert(analysisRuns).values({ revisionId: revision.id, status: "ok", result, review });
     const resultId = Object.keys(result.results)[1];
     const old = { projectId: fx.projectId, number: String(revision.number), resultId };

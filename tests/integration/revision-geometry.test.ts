@@ -12,7 +12,7 @@ import { GET as getSummary } from "@/app/api/projects/[projectId]/models/[number
 import { analysisRuns, modelRevisions } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
-import { unpackGeometry } from "@/lib/models/geometry-wire";
+import { packGeometry, unpackGeometry } from "@/lib/models/geometry-wire";
 import { runAnalysisJob } from "@/server/jobs/analysis";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
@@ -78,6 +78,26 @@ describe("a revision's geometry", () => {
     expect(await again.text()).toBe("");
     const other = await generate("Another grid");
     expect((await call(getGeometry, "/geometry", other.revision.number, fx.users.architect)).headers.get("etag")).not.toBe(etag);
+  });
+
+  it("is packed once, when the revision is saved, and served as stored", async () => {
+    const [row] = await getDb().select({ geometry: modelRevisions.geometry }).from(modelRevisions).where(eq(modelRevisions.id, revisionId));
+    expect(row.geometry).not.toBeNull();
+    expect(Buffer.from(row.geometry!).equals(Buffer.from(packGeometry(model)))).toBe(true);
+    const served = new Uint8Array(await (await call(getGeometry, "/geometry", number, fx.users.viewer)).arrayBuffer());
+    expect(Buffer.from(served).equals(Buffer.from(row.geometry!))).toBe(true);
+  });
+
+  it("of a revision saved before geometry was stored (migration 0019) is packed from its model, the same bytes", async () => {
+    const old = await generate("Grid saved before 0019");
+    const [stored] = await getDb().select({ geometry: modelRevisions.geometry, model: modelRevisions.model }).from(modelRevisions).where(eq(modelRevisions.id, old.revision.id));
+    await getDb().update(modelRevisions).set({ geometry: null }).where(eq(modelRevisions.id, old.revision.id));
+    const response = await call(getGeometry, "/geometry", old.revision.number, fx.users.viewer);
+    expect(response.status).toBe(200);
+    const served = new Uint8Array(await response.arrayBuffer());
+    expect(response.headers.get("content-length")).toBe(String(served.byteLength));
+    expect(Buffer.from(served).equals(Buffer.from(stored.geometry!))).toBe(true);
+    expect(unpackGeometry(served.buffer).memberIds).toEqual(stored.model.members.map((m) => m.id));
   });
 });
 
