@@ -1,7 +1,8 @@
 "use client";
-// All members as two merged meshes (opaque, and thin translucent for zero-force; merged-instances.ts): two draw
-// calls whatever the member count. Switching result, colouring or filter rewrites their vertex buffers in place, from
-// the result's columns (typed arrays in member order) without looking any member up by id.
+// All members as one merged mesh (merged-instances.ts) with two materials, opaque and thin translucent (zero-force):
+// the opaque members fill its first slots, the translucent ones the next, two draw calls whatever the member count.
+// Switching result, colouring or filter rewrites its vertex buffers in place, from the result's columns (typed arrays
+// in member order) without looking any member up by id.
 import { useFrame, useThree } from "@react-three/fiber";
 import { useEffect, useLayoutEffect, useMemo, useRef } from "react";
 import { CylinderGeometry, MeshBasicMaterial, MeshLambertMaterial } from "three";
@@ -18,14 +19,14 @@ import { useViewerStore } from "./viewer-store";
 /** Slot s of the layer's mesh draws member order[s]. */
 interface Layer { mesh: MergedInstances; order: Int32Array }
 
-function makeLayer(count: number, translucent: boolean): Layer {
+function makeLayer(count: number): Layer {
   const segments = count > memberLook.largeModel ? memberLook.radialSegmentsLarge : memberLook.radialSegments;
-  const material = translucent
-    ? new MeshBasicMaterial({ transparent: true, opacity: memberLook.translucentOpacity, depthWrite: false })
-    : new MeshLambertMaterial();
-  const mesh = new MergedInstances(new CylinderGeometry(1, 1, 1, segments, 1, true), material, count);
-  mesh.name = translucent ? "members-faint" : "members";
-  mesh.renderOrder = translucent ? 1 : 0;
+  const solid = new MeshLambertMaterial();
+  const faint = new MeshBasicMaterial({ transparent: true, opacity: memberLook.translucentOpacity, depthWrite: false });
+  const mesh = new MergedInstances(new CylinderGeometry(1, 1, 1, segments, 1, true), [solid, faint], count);
+  mesh.name = "members";
+  // the translucent members are drawn before the MEP runs (render order 2) and the measure marks (4)
+  mesh.renderOrder = 1;
   return { mesh, order: new Int32Array(Math.max(1, count)) };
 }
 
@@ -43,22 +44,26 @@ function writeColours(layer: Layer, look: MemberAppearance, selected: number, ho
   layer.mesh.commit({ places: false });
 }
 
-/** Sorts visible members into the solid or faint layer and places them (matrix, then the merged vertices). */
-function writeMatrices(layers: { solid: Layer; faint: Layer }, look: MemberAppearance, mask: Uint8Array, positions: Float32Array, ends: Int32Array) {
-  const { solid, faint } = layers;
-  let s = 0;
-  let f = 0;
+/** Places the visible members, opaque ones first, then the translucent (matrix, then the merged vertices). */
+function writeMatrices(layer: Layer, look: MemberAppearance, mask: Uint8Array, positions: Float32Array, ends: Int32Array) {
+  let opaque = 0;
+  let shown = 0;
   for (let k = 0; k < mask.length; k += 1) {
     if (!mask[k]) continue;
-    const layer = look.translucent[k] ? faint : solid;
+    shown += 1;
+    if (!look.translucent[k]) opaque += 1;
+  }
+  let s = 0;
+  let f = opaque;
+  for (let k = 0; k < mask.length; k += 1) {
+    if (!mask[k]) continue;
     const slot = look.translucent[k] ? f++ : s++;
     layer.order[slot] = k;
     writeMemberMatrix(layer.mesh.matrices, slot, positions, ends, k, look.radii[k], true);
     layer.mesh.placeFromMatrices(slot);
   }
-  solid.mesh.copies = s;
-  faint.mesh.copies = f;
-  for (const layer of [solid, faint]) layer.mesh.commit({ colours: false });
+  layer.mesh.setGroups([opaque, shown - opaque]);
+  layer.mesh.commit({ colours: false });
 }
 
 interface MembersLayerProps {
@@ -81,13 +86,8 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
   const hoveredId = useViewerStore((s) => s.hoveredMemberId);
 
   const count = prepared.memberIds.length;
-  const layers = useMemo(() => ({ solid: makeLayer(count, false), faint: makeLayer(count, true) }), [count]);
-  useEffect(
-    () => () => {
-      for (const layer of [layers.solid, layers.faint]) layer.mesh.dispose();
-    },
-    [layers],
-  );
+  const layer = useMemo(() => makeLayer(count), [count]);
+  useEffect(() => () => layer.mesh.dispose(), [layer]);
 
   // Which members pass the filters: the legend counts these (issue 17 item 9) and only these are drawn.
   const mask = useMemo(() => {
@@ -129,27 +129,20 @@ export function MembersLayer({ prepared, columns, compareColumns, positions }: M
   // Matrices: which layer each member goes to, and where it is.
   useLayoutEffect(() => {
     if (!look || !mask) return;
-    writeMatrices(layers, look, mask, positions, prepared.ends);
+    writeMatrices(layer, look, mask, positions, prepared.ends);
     useViewerStore.getState().setVisibleMembers(mask);
     invalidate();
-  }, [look, mask, positions, prepared, layers, invalidate]);
+  }, [look, mask, positions, prepared, layer, invalidate]);
 
   // Colours, including the selection and hover highlight.
   useLayoutEffect(() => {
     if (!look) return;
     const selected = selectedId ? (prepared.memberIndex.get(selectedId) ?? -1) : -1;
     const hovered = hoveredId ? (prepared.memberIndex.get(hoveredId) ?? -1) : -1;
-    writeColours(layers.solid, look, selected, hovered);
-    writeColours(layers.faint, look, selected, hovered);
+    writeColours(layer, look, selected, hovered);
     invalidate();
-  }, [look, filters, positions, selectedId, hoveredId, prepared, layers, invalidate]);
+  }, [look, filters, positions, selectedId, hoveredId, prepared, layer, invalidate]);
 
   // No pointer handlers here: picking is done in screen space with a pixel tolerance (picker.tsx).
-  return (
-    <>
-      {[layers.solid, layers.faint].map((layer, n) => (
-        <primitive key={n} object={layer.mesh} />
-      ))}
-    </>
-  );
+  return <primitive object={layer.mesh} />;
 }

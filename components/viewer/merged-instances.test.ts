@@ -69,16 +69,34 @@ describe("many copies of a shape as one merged mesh", () => {
     mesh.getMatrixAt(7, new Matrix4()).elements.forEach((value, k) => expect(value).toBeCloseTo(uneven.elements[k], 6));
   });
 
+  it("draws consecutive copies with each material, and gives a material with no copies no draw", () => {
+    const shape = new CylinderGeometry(1, 1, 1, 3, 1, true);
+    const indicesPerCopy = shape.index!.count;
+    const solid = new MeshLambertMaterial();
+    const faint = new MeshLambertMaterial({ transparent: true });
+    const mesh = new MergedInstances(shape, [solid, faint], 10);
+    expect(solid.vertexColors && faint.vertexColors).toBe(true);
+    mesh.setGroups([6, 3]);
+    expect(mesh.copies).toBe(9);
+    expect(mesh.geometry.groups).toEqual([
+      { start: 0, count: 6 * indicesPerCopy, materialIndex: 0 },
+      { start: 6 * indicesPerCopy, count: 3 * indicesPerCopy, materialIndex: 1 },
+    ]);
+    mesh.setGroups([0, 4]);
+    expect(mesh.geometry.groups).toEqual([{ start: 0, count: 4 * indicesPerCopy, materialIndex: 1 }]);
+  });
+
   it("colours every vertex of a copy and no other copy's", () => {
     const shape = new OctahedronGeometry(1, 0);
     const verticesPerCopy = shape.getAttribute("position").count;
-    const mesh = new MergedInstances(shape, new MeshLambertMaterial(), 3);
+    const material = new MeshLambertMaterial();
+    const mesh = new MergedInstances(shape, material, 3);
     mesh.setColorAt(1, new Color(0.25, 0.5, 0.75));
     const colours = Array.from(mesh.geometry.getAttribute("color").array);
     expect(colours.slice(verticesPerCopy * 3, verticesPerCopy * 6)).toEqual(Array.from({ length: verticesPerCopy }, () => [0.25, 0.5, 0.75]).flat());
     expect(colours.slice(0, verticesPerCopy * 3).every((c) => c === 0)).toBe(true);
     expect(colours.slice(verticesPerCopy * 6).every((c) => c === 0)).toBe(true);
-    expect(mesh.material.vertexColors).toBe(true);
+    expect(material.vertexColors).toBe(true);
   });
 
   it("uploads only the drawn copies when committed", () => {

@@ -9,10 +9,11 @@ import { BufferAttribute, BufferGeometry, DynamicDrawUsage, Mesh, type Color, ty
 
 /**
  * The first `copies` copies of `shape` are drawn; copy n is placed by its matrix (setMatrixAt / placeFromMatrices)
- * and coloured by setColorAt (the material must use vertex colours; the constructor turns them on).
- * Call commit() after writing so the changed part is uploaded.
+ * and coloured by setColorAt (the material must use vertex colours; the constructor turns them on). With several
+ * materials, setGroups says how many consecutive copies each draws. Call commit() after writing so the changed part
+ * is uploaded.
  */
-export class MergedInstances extends Mesh<BufferGeometry, Material> {
+export class MergedInstances extends Mesh<BufferGeometry, Material | Material[]> {
   readonly isMergedInstances = true;
   readonly capacity: number;
   /** Column-major 4 × 4 matrix per copy, as InstancedMesh keeps them: writers may fill it and call placeFromMatrices. */
@@ -26,7 +27,7 @@ export class MergedInstances extends Mesh<BufferGeometry, Material> {
   private readonly colours: Float32Array;
   private shown = 0;
 
-  constructor(shape: BufferGeometry, material: Material, capacity: number) {
+  constructor(shape: BufferGeometry, material: Material | Material[], capacity: number) {
     const size = Math.max(1, capacity);
     const shapePositions = Float32Array.from(shape.getAttribute("position").array);
     if (!shape.getAttribute("normal")) shape.computeVertexNormals();
@@ -48,7 +49,7 @@ export class MergedInstances extends Mesh<BufferGeometry, Material> {
     merged.setAttribute("position", new BufferAttribute(positions, 3).setUsage(DynamicDrawUsage));
     merged.setAttribute("normal", new BufferAttribute(normals, 3).setUsage(DynamicDrawUsage));
     merged.setAttribute("color", new BufferAttribute(colours, 3).setUsage(DynamicDrawUsage));
-    material.vertexColors = true;
+    for (const each of [material].flat()) each.vertexColors = true;
     super(merged, material);
     shape.dispose();
     this.capacity = size;
@@ -75,6 +76,20 @@ export class MergedInstances extends Mesh<BufferGeometry, Material> {
     this.geometry.setDrawRange(0, this.shown * this.indicesPerCopy);
     // hidden when empty: three.js would still compile its shader to draw nothing
     this.visible = this.shown > 0;
+  }
+
+  /**
+   * Draws the first counts[0] copies with the first material, the next counts[1] with the second, and so on (a
+   * material with no copies gets no draw call, and so no shader). Sets `copies` to their sum.
+   */
+  setGroups(counts: readonly number[]): void {
+    this.geometry.clearGroups();
+    let first = 0;
+    counts.forEach((count, materialIndex) => {
+      if (count > 0) this.geometry.addGroup(first * this.indicesPerCopy, count * this.indicesPerCopy, materialIndex);
+      first += count;
+    });
+    this.copies = first;
   }
 
   /** Places copy n by a matrix. */
@@ -171,9 +186,9 @@ export class MergedInstances extends Mesh<BufferGeometry, Material> {
     }
   }
 
-  /** Frees the GPU buffers and the material. */
+  /** Frees the GPU buffers and the material(s). */
   dispose(): void {
     this.geometry.dispose();
-    this.material.dispose();
+    for (const each of [this.material].flat()) each.dispose();
   }
 }
