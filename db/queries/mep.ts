@@ -72,22 +72,33 @@ export async function getLatestAnalysisForRevision({ revisionId, db = getDb() }:
 }
 
 /**
- * What the clash table needs from the newest analysis of a revision: each member's envelope and verdict. Picked
- * out in SQL because the stored result and review (every case, every check) are large to load and parse.
+ * What a clash list shows of the clashed members under the revision's latest analysis: their envelope entries and
+ * verdicts, read for those members only, and the load patterns the verdicts rest on (from the review's overview). The
+ * whole envelope and the review's members are megabytes on a big roof: walking them for every clash list (each viewer
+ * opening asks for one) kept PostgreSQL busy for most of a second on a 60 × 60 roof (issue 13 navigation).
  */
-export async function getMemberStatesForRevision({ revisionId, db = getDb() }: { revisionId: string; db?: Executor }): Promise<{ envelope: Envelope | null; verdicts: unknown; patterns: unknown }> {
-  const [row] = await db
+export async function getMemberStatesForRevision({ revisionId, memberIds, db = getDb() }: { revisionId: string; memberIds: readonly string[]; db?: Executor }): Promise<{ envelope: Envelope | null; verdicts: unknown; patterns: unknown }> {
+  const [run] = await db
     .select({
-      envelope: sql<Envelope | null>`${analysisRuns.result} -> 'envelope'`,
-      verdicts: sql<unknown>`(select jsonb_object_agg(m.key, m.value -> 'verdict') from jsonb_each(${analysisRuns.review} -> 'members') as m)`,
+      id: analysisRuns.id,
       // the load cases the verdicts rest on; older reviews kept them under anyLoad
-      patterns: sql<unknown>`coalesce(${analysisRuns.review} -> 'analysedPatterns', ${analysisRuns.review} -> 'anyLoad' -> 'patterns')`,
+      patterns: sql<unknown>`coalesce(${analysisRuns.reviewOverview} -> 'analysedPatterns', ${analysisRuns.reviewOverview} -> 'anyLoad' -> 'patterns')`,
     })
     .from(analysisRuns)
     .where(eq(analysisRuns.revisionId, revisionId))
     .orderBy(desc(analysisRuns.createdAt))
     .limit(1);
-  return row ?? { envelope: null, verdicts: null, patterns: null };
+  if (!run) return { envelope: null, verdicts: null, patterns: null };
+  if (memberIds.length === 0) return { envelope: {}, verdicts: {}, patterns: run.patterns };
+  // `offset 0` keeps the inner select from being folded into the outer one, so each document is decompressed once,
+  // not once per member looked up. The ids travel as one JSON parameter, however many clashes there are.
+  const ids = JSON.stringify([...new Set(memberIds)]);
+  const { rows } = await db.execute<{ envelope: Envelope | null; verdicts: unknown }>(sql`
+    select
+      (select jsonb_object_agg(id, whole.envelope -> id) from jsonb_array_elements_text(${ids}::jsonb) as id where whole.envelope ? id) as envelope,
+      (select jsonb_object_agg(id, whole.members -> id -> 'verdict') from jsonb_array_elements_text(${ids}::jsonb) as id where whole.members ? id) as verdicts
+    from (select result -> 'envelope' as envelope, review -> 'members' as members from ${analysisRuns} where id = ${run.id} offset 0) as whole`);
+  return { envelope: rows[0]?.envelope ?? {}, verdicts: rows[0]?.verdicts ?? {}, patterns: run.patterns };
 }
 
 /** Every run of a revision, in id order. */

@@ -11,6 +11,7 @@ import { POST as HANG } from "@/app/api/projects/[projectId]/services/route";
 import { createRevisionWithAnalysis } from "@/lib/commands/create-analysed-revision";
 import { auditEvents, clashDecisions, jobs } from "@/db/schema";
 import { generateRoof } from "@/lib/analysis/generator";
+import { memberEnvelopeState } from "@/lib/clash/envelope-state";
 import { analyseForStorage } from "@/lib/models/analyse";
 import { ROLES } from "@/lib/permissions";
 import { runAnalysisJob } from "@/server/jobs/analysis";
@@ -25,6 +26,7 @@ const CAUTION =
   "Advisory results for coordination. Any removal, opening or change to a structural member needs the written approval of the engineer of record under the applicable local codes.";
 
 let fx: ProjectFixture;
+let stored: ReturnType<typeof analyseForStorage>;
 const ctx = () => routeContext({ projectId: fx.projectId });
 
 // A 9 m × 9 m roof on 3 m modules, 2 m deep: top chords at z = 2. A duct along x at y = 1.5, z = 2 crosses the
@@ -40,7 +42,8 @@ beforeAll(async () => {
   requireIntegrationEnv();
   fx = await createProjectFixture("mep-clashes");
   const model = generateRoof({ name: "Test roof", spanX: 9, spanY: 9, module: 3, depth: 2 });
-  const { result, review } = analyseForStorage(model, "EN1993-1-1");
+  stored = analyseForStorage(model, "EN1993-1-1");
+  const { result, review } = stored;
   await createRevisionWithAnalysis({ projectId: fx.projectId, name: "r1", model, source: "generated", createdBy: fx.users.structural_engineer.id, result, review });
 });
 afterAll(closeDb);
@@ -99,7 +102,9 @@ describe("clashes", () => {
     expect(body.clashes.map((c: { memberId: string }) => c.memberId).sort()).toEqual(["TCY-0-0", "TCY-1-0", "TCY-2-0", "TCY-3-0"]);
     for (const clash of body.clashes) {
       expect(clash).toMatchObject({ kind: "hard", status: "active", system: "supply air", runId: "SA-01", outcome: null });
-      expect(["zero_in_all", "low_force", "load_bearing"]).toContain(clash.envelopeState);
+      // each row shows its own member's envelope (default low-force line 5 kN) and verdict, as stored
+      expect(clash.envelopeState).toBe(memberEnvelopeState(stored.result.envelope[clash.memberId], 5));
+      expect(clash.verdict).toBe(stored.review!.members[clash.memberId].verdict);
       expect(["load-bearing", "stabilising", "bracing", "idle"]).toContain(clash.verdict);
     }
     // the load patterns every "idle" verdict rests on, read from the stored review (issue 15 item 7)

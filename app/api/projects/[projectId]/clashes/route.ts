@@ -19,12 +19,12 @@ import { STANDING_CAUTION } from "@/lib/review/caution";
  */
 export const GET = projectRoute({ params: projectParamsSchema, query: clashListQuerySchema, action: "project.read" }, async ({ params, query, membership }) => {
   const revision = await requireRevision(params.projectId, query.revision);
-  const [clashes, runs, states, team] = await Promise.all([
+  const [clashes, runs, team] = await Promise.all([
     listClashesByRevision({ revisionId: revision.id }),
     listRunsByRevision({ revisionId: revision.id }),
-    getMemberStatesForRevision({ revisionId: revision.id }),
     listMembersByProject({ projectId: params.projectId }),
   ]);
+  const states = await getMemberStatesForRevision({ revisionId: revision.id, memberIds: clashes.map((clash) => clash.memberId) });
   const rows = clashTableRows({ clashes, runs, envelope: states.envelope, verdicts: memberVerdicts(states.verdicts), lowForceThreshold: query.lowForce });
   return Response.json({
     revision: { id: revision.id, number: revision.number },
