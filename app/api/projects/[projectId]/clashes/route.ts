@@ -8,7 +8,7 @@ import { clashTableRows } from "@/lib/clash/rows";
 import { analysedPatternsFrom, memberVerdicts } from "@/lib/clash/verdicts";
 import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
-import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
+import { requireRevision, requireRevisionRef } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { authorize } from "@/lib/permissions";
 import { STANDING_CAUTION } from "@/lib/review/caution";
 
@@ -18,7 +18,7 @@ import { STANDING_CAUTION } from "@/lib/review/caution";
  * and the standing caution.
  */
 export const GET = projectRoute({ params: projectParamsSchema, query: clashListQuerySchema, action: "project.read" }, async ({ params, query, membership }) => {
-  const revision = await requireRevision(params.projectId, query.revision);
+  const revision = await requireRevisionRef(params.projectId, query.revision);
   const [clashes, runs, team] = await Promise.all([
     listClashesByRevision({ revisionId: revision.id }),
     listRunsByRevision({ revisionId: revision.id }),

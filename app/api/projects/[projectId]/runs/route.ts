@@ -5,13 +5,13 @@ import { projectParamsSchema } from "@/lib/http/params";
 import { projectRoute } from "@/lib/http/route";
 import { requestBytes } from "@/lib/limits";
 import { parseRunsFile } from "@/lib/mep/import";
-import { requireRevision } from "@/app/api/projects/[projectId]/_lib/require-revision";
+import { requireRevision, requireRevisionRef } from "@/app/api/projects/[projectId]/_lib/require-revision";
 import { importRunsSchema, revisionQuerySchema } from "@/lib/mep/schemas";
 import { withStoredFiles } from "@/lib/commands/stored-files";
 
 /** The runs of one revision (`?revision=N`). */
 export const GET = projectRoute({ params: projectParamsSchema, query: revisionQuerySchema, action: "project.read" }, async ({ params, query }) => {
-  const revision = await requireRevision(params.projectId, query.revision);
+  const revision = await requireRevisionRef(params.projectId, query.revision);
   return Response.json({ runs: await listRunsByRevision({ revisionId: revision.id }) });
 });
 
