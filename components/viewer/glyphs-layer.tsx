@@ -10,7 +10,7 @@ import { MergedInstances } from "./merged-instances";
 import { nodalLoadsFor, type PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
-function useInstanced(name: string, geometry: BufferGeometry, capacity: number): MergedInstances {
+function useGlyphMesh(name: string, geometry: BufferGeometry, capacity: number): MergedInstances {
   const mesh = useMemo(() => {
     const m = new MergedInstances(geometry, new MeshLambertMaterial(), capacity);
     m.name = name;
@@ -46,7 +46,7 @@ export function NodesLayer({ prepared, positions, nodeMask }: { prepared: Prepar
   const selectedNodeId = useViewerStore((s) => s.selectedNodeId);
   const large = isLarge(prepared);
   const geometry = useMemo(() => (large ? new TetrahedronGeometry(1, 0) : new OctahedronGeometry(1, 0)), [large]);
-  const mesh = useInstanced("nodes", geometry, prepared.nodes.ids.length);
+  const mesh = useGlyphMesh("nodes", geometry, prepared.nodes.ids.length);
   useLayoutEffect(() => {
     const selected = selectedNodeId ? (prepared.nodes.index.get(selectedNodeId) ?? -1) : -1;
     const r = glyphLook.nodeRadius * prepared.unitLength;
@@ -71,7 +71,7 @@ export function SupportsLayer({ prepared, nodeMask }: { prepared: PreparedModel;
   const invalidate = useThree((s) => s.invalidate);
   const geometry = useMemo(() => new ConeGeometry(0.5, 1, 4).translate(0, -0.5, 0).rotateX(Math.PI / 2), []);
   const supports = prepared.model.supports;
-  const mesh = useInstanced("supports", geometry, supports.length);
+  const mesh = useGlyphMesh("supports", geometry, supports.length);
   useLayoutEffect(() => {
     const size = glyphLook.supportSize * prepared.unitLength;
     const held = new Color(palette.support);
@@ -104,8 +104,8 @@ export function LoadsLayer({ prepared, nodeMask }: { prepared: PreparedModel; no
     [large],
   );
   const headGeometry = useMemo(() => new ConeGeometry(1, 1, large ? glyphLook.arrowSidesLarge : glyphLook.arrowHeadSides, 1, large).translate(0, -0.5, 0), [large]);
-  const shafts = useInstanced("load-arrow-shafts", shaftGeometry, capacity);
-  const heads = useInstanced("load-arrow-heads", headGeometry, capacity);
+  const shafts = useGlyphMesh("load-arrow-shafts", shaftGeometry, capacity);
+  const heads = useGlyphMesh("load-arrow-heads", headGeometry, capacity);
   useLayoutEffect(() => {
     let largest = 0;
     for (const load of loads) largest = Math.max(largest, Math.hypot(load.fx, load.fy, load.fz));
