@@ -17,7 +17,7 @@
  * the review within 3 x the analysis. A measurement that fails is printed as failed and the rest still runs.
  */
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
-import { existsSync, readFileSync, rmSync } from "node:fs";
+import { readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { parseArgs } from "node:util";
 import { encode } from "next-auth/jwt";
@@ -25,6 +25,7 @@ import { chromium, type Browser, type Page } from "playwright-core";
 import { closeDb, getDb } from "@/db/client";
 import { memberships, organizations, projects, users } from "@/db/schema";
 import { freePort, waitForPort } from "../stack/ports.mjs";
+import { ensureFreshBuild } from "./fresh-build";
 import { timeResultSwitch } from "./result-switch";
 import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
 
@@ -89,10 +90,7 @@ async function seed(): Promise<{ projectId: string; engineer: Person; viewer: Pe
 type Stack = { appUrl: string; jobsPid: number };
 
 async function startStack(): Promise<Stack & { projectId: string; engineer: Person; viewer: Person }> {
-  if (!existsSync(path.join(root, ".next", "BUILD_ID"))) {
-    console.log("[bench] no production build: running `next build` (minutes)");
-    execFileSync("node_modules/.bin/next", ["build"], { stdio: "inherit", env: { ...process.env, NODE_ENV: "production" } });
-  }
+  ensureFreshBuild(root);
   const ports = { web: await freePort(), postgres: await freePort(), jobs: await freePort() };
   const databaseUrl = await startPostgres({ dataDir, port: ports.postgres, throwaway: true });
   const appUrl = `http://127.0.0.1:${ports.web}`;

@@ -1,7 +1,7 @@
 /**
  * Viewer benchmark: `npm run bench:viewer [-- --bays 60]`. Not a test: it prints a table.
  * A square double-layer grid of N x N bays (generator, 3 m module; 60 bays is about 29,000 members) is analysed and
- * stored as a revision in a throwaway PostgreSQL, the built app (`next build` first) is served on a free port, and
+ * stored as a revision in a throwaway PostgreSQL, the built app (built first when there is no build or the code changed since) is served on a free port, and
  * the viewer is opened in Debian's chromium (headless, WebGL on SwiftShader). Measured in the page:
  *   - results fetched → first frame with the colouring drawn (User Timing marks set by the viewer)
  *   - frame time while orbiting (a mouse drag on the canvas, intervals between animation frames) and the render
@@ -13,7 +13,7 @@
  * Targets (issue 5): first frame under 1.5 s, members in at most 10 draw calls, switching under 100 ms.
  */
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
-import { existsSync, rmSync } from "node:fs";
+import { rmSync } from "node:fs";
 import path from "node:path";
 import { parseArgs } from "node:util";
 import { encode } from "next-auth/jwt";
@@ -24,6 +24,7 @@ import { memberships, organizations, projects, users } from "@/db/schema";
 import { analyzeModel, generateRoof } from "@/lib/analysis";
 import { encodeResultColumns } from "@/lib/models/result-columns";
 import { freePort, waitForPort } from "../stack/ports.mjs";
+import { ensureFreshBuild } from "./fresh-build";
 import { timeResultSwitch } from "./result-switch";
 import { removeCluster, startPostgres, stopPostgres } from "../stack/postgres.mjs";
 import { packGeometry } from "@/lib/models/geometry-wire";
@@ -61,7 +62,7 @@ async function storeModel(): Promise<{ projectId: string; user: { id: string; em
 }
 
 async function main() {
-  if (!existsSync(path.join(root, ".next", "BUILD_ID"))) throw new Error("No production build: run `npx next build` first.");
+  ensureFreshBuild(root);
   const ports = { web: await freePort(), postgres: await freePort() };
   const databaseUrl = await startPostgres({ dataDir, port: ports.postgres, throwaway: true });
   const secret = "bench-viewer-secret-not-for-production";
