@@ -7,7 +7,7 @@ import { useEffect, useLayoutEffect, useMemo } from "react";
 import { BufferGeometry, Color, ConeGeometry, CylinderGeometry, Matrix4, MeshLambertMaterial, OctahedronGeometry, Quaternion, TetrahedronGeometry, Vector3 } from "three";
 import { glyphLook, memberLook, palette } from "./config";
 import { MergedInstances } from "./merged-instances";
-import { nodalLoadsFor, type PreparedModel } from "./prepare";
+import { loadArrowCapacity, nodalLoadsFor, type PreparedModel } from "./prepare";
 import { useViewerStore } from "./viewer-store";
 
 function useGlyphMesh(name: string, geometry: BufferGeometry, capacity: number): MergedInstances {
@@ -97,7 +97,7 @@ export function LoadsLayer({ prepared, nodeMask }: { prepared: PreparedModel; no
   const invalidate = useThree((s) => s.invalidate);
   const resultId = useViewerStore((s) => s.resultId);
   const loads = useMemo(() => (resultId ? nodalLoadsFor(prepared.model, resultId) : []), [prepared, resultId]);
-  const capacity = prepared.model.nodes.length;
+  const capacity = useMemo(() => loadArrowCapacity(prepared.model), [prepared]);
   const large = isLarge(prepared);
   const shaftGeometry = useMemo(
     () => new CylinderGeometry(1, 1, 1, large ? glyphLook.arrowSidesLarge : glyphLook.arrowShaftSides, 1, large).translate(0, -0.5, 0),

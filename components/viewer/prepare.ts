@@ -62,6 +62,14 @@ export function nodalLoadsFor(model: ViewerModel, resultId: string): ViewerNodal
   return [...sum.values()];
 }
 
+/**
+ * How many load arrows any result of the model can need: one per load of a load case (which may list two loads on
+ * one node), or one per node for a combination (which sums them per node).
+ */
+export function loadArrowCapacity(model: ViewerModel): number {
+  return Math.max(model.nodes.length, ...model.loadCases.map((c) => c.nodalLoads.length));
+}
+
 /** Label of a result id: the load case's or combination's name, with its id. */
 export function resultLabel(model: ViewerModel, resultId: string): string {
   const named = model.loadCases.find((c) => c.id === resultId) ?? model.combinations.find((c) => c.id === resultId);
