@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, max, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNull, max, sql } from "drizzle-orm";
 import { getDb, withTransaction, type Executor, type Transaction } from "@/db/client";
 import { analysisRuns, attachments, modelRevisions, projects, users, type AnalysisRun, type ModelRevision, type Project } from "@/db/schema";
 import { jsonBytes } from "@/lib/models/json-bytes";
@@ -176,7 +176,7 @@ export async function insertRevision(tx: Executor, input: NewRevisionInput): Pro
       number,
       name: input.name,
       model: input.model,
-      geometry: Buffer.from(input.geometry.buffer, input.geometry.byteOffset, input.geometry.byteLength),
+      geometry: input.geometry,
       memberCount: input.model.members.length,
       memberOrder: input.model.members.map((member) => member.id),
       source: input.source,
@@ -193,6 +193,17 @@ export async function insertRevision(tx: Executor, input: NewRevisionInput): Pro
     details: { number, name: input.name, source: input.source },
   });
   return revision;
+}
+
+/** The oldest revision saved before its viewer geometry was stored with it (migration 0019), with its model, or null. */
+export async function getRevisionWithoutGeometry({ db = getDb() }: { db?: Executor } = {}): Promise<{ id: string; model: TrussModel } | null> {
+  const [row] = await db.select({ id: modelRevisions.id, model: modelRevisions.model }).from(modelRevisions).where(isNull(modelRevisions.geometry)).orderBy(asc(modelRevisions.createdAt)).limit(1);
+  return row ?? null;
+}
+
+/** Stores a revision's viewer geometry if it has none yet (a revision's stored geometry is never replaced). */
+export async function storeRevisionGeometry(db: Executor, { revisionId, geometry }: { revisionId: string; geometry: Uint8Array }): Promise<void> {
+  await db.update(modelRevisions).set({ geometry }).where(and(eq(modelRevisions.id, revisionId), isNull(modelRevisions.geometry)));
 }
 
 /** The analysis JSON as stored: the document's UTF-8 bytes (lib/models/json-bytes.ts); PostgreSQL parses them into jsonb. */

@@ -18,6 +18,7 @@ import type { HangServicesOutcome } from "@/lib/commands/store-hung-services";
 import { QUEUES } from "@/lib/jobs/queue";
 import { hangServices } from "@/lib/mep/services";
 import { analyseForStorage } from "@/lib/models/analyse";
+import { packGeometry } from "@/lib/models/geometry-wire";
 import { runHangServicesJob } from "@/server/jobs/hang-services";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
@@ -148,6 +149,9 @@ describe("the hang-services job", () => {
     expect(outcome.analysisJob).toMatchObject({ kind: "analysis", state: "queued", revisionId: outcome.revision.id });
     expect(await jobRow(outcome.analysisJob.id)).toMatchObject({ input: { compareWith: revision.id } });
     expect(await getDb().select().from(mepRuns).where(eq(mepRuns.revisionId, outcome.revision.id))).toHaveLength(1);
+    // the new revision is stored with its viewer geometry, packed from its own (hung) model
+    const [hung] = await getDb().select({ model: modelRevisions.model, geometry: modelRevisions.geometry }).from(modelRevisions).where(eq(modelRevisions.id, outcome.revision.id));
+    expect(Buffer.from(hung.geometry!).equals(Buffer.from(packGeometry(hung.model)))).toBe(true);
     expect(await getDb().select().from(clashes).where(eq(clashes.revisionId, outcome.revision.id))).toHaveLength(4);
     expect(phases).toEqual(["hanging", "clashes"]);
 

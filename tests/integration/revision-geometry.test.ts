@@ -13,6 +13,7 @@ import { analysisRuns, modelRevisions } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/analyze";
 import type { TrussModel } from "@/lib/analysis/model";
 import { packGeometry, unpackGeometry } from "@/lib/models/geometry-wire";
+import { backfillRevisionGeometry } from "@/lib/commands/backfill-revision-geometry";
 import { runAnalysisJob } from "@/server/jobs/analysis";
 import { closeDb, getDb, requireIntegrationEnv } from "../support/db";
 import { createProjectFixture, type FixtureUser, type ProjectFixture } from "../support/fixtures";
@@ -88,7 +89,7 @@ describe("a revision's geometry", () => {
     expect(Buffer.from(served).equals(Buffer.from(row.geometry!))).toBe(true);
   });
 
-  it("of a revision saved before geometry was stored (migration 0019) is packed from its model, the same bytes", async () => {
+  it("of a revision saved before geometry was stored (migration 0019) is packed from its model, the same bytes, until the migrate step stores it", async () => {
     const old = await generate("Grid saved before 0019");
     const [stored] = await getDb().select({ geometry: modelRevisions.geometry, model: modelRevisions.model }).from(modelRevisions).where(eq(modelRevisions.id, old.revision.id));
     await getDb().update(modelRevisions).set({ geometry: null }).where(eq(modelRevisions.id, old.revision.id));
@@ -98,6 +99,10 @@ describe("a revision's geometry", () => {
     expect(response.headers.get("content-length")).toBe(String(served.byteLength));
     expect(Buffer.from(served).equals(Buffer.from(stored.geometry!))).toBe(true);
     expect(unpackGeometry(served.buffer).memberIds).toEqual(stored.model.members.map((m) => m.id));
+    // `npm run db:migrate` gives it the same bytes to keep
+    expect(await backfillRevisionGeometry()).toBeGreaterThanOrEqual(1);
+    const [filled] = await getDb().select({ geometry: modelRevisions.geometry }).from(modelRevisions).where(eq(modelRevisions.id, old.revision.id));
+    expect(Buffer.from(filled.geometry!).equals(Buffer.from(stored.geometry!))).toBe(true);
   });
 });
 
