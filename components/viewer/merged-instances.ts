@@ -14,7 +14,6 @@ import { BufferAttribute, BufferGeometry, DynamicDrawUsage, Mesh, type Color, ty
  * is uploaded.
  */
 export class MergedInstances extends Mesh<BufferGeometry, Material | Material[]> {
-  readonly isMergedInstances = true;
   readonly capacity: number;
   /** Column-major 4 × 4 matrix per copy, as InstancedMesh keeps them: writers may fill it and call placeFromMatrices. */
   readonly matrices: Float32Array;
